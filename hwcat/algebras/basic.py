@@ -1,0 +1,333 @@
+"""The hub: a split basic algebra with a vertex-graded basis of paths.
+
+Every input (a quiver with relations, structure constants, matrices, a built-in
+family) is converted into a :class:`BasicAlgebra`, and every analysis works on
+it.  The data are
+
+* the Gabriel quiver (vertices = primitive idempotents, one per simple;
+  arrows = a basis of the radical modulo its square);
+* for each pair of vertices ``(s, t)`` a basis of ``e_s A e_t`` made of paths
+  from ``s`` to ``t`` (tuples of arrow indices, read left to right), closed
+  under taking prefixes; the trivial path ``()`` is the first basis element of
+  ``e_s A e_s``;
+* for each vertex ``s`` and arrow ``a`` the matrix of right multiplication by
+  ``a`` on ``e_s A``, from ``e_s A e_source(a)`` to ``e_s A e_target(a)``.
+
+So ``e_s A`` is the indecomposable projective right module ``P(s)`` as a
+representation of the quiver, and the product of two basis elements
+``x * w`` (``w`` a basis path) is ``x`` acted on by the arrows of ``w`` in turn.
+Everything is stored block by block: no dense ``dim A x dim A`` matrix.
+"""
+
+from __future__ import annotations
+
+from collections.abc import Iterable, Sequence
+from typing import Any
+
+import networkx as nx
+
+from hwcat.algebras.quiver import Arrow, Path, Quiver, format_path
+from hwcat.algebras.rep import closure, cyclic_word_basis, quotient
+from hwcat.errors import InternalInconsistency
+from hwcat.exact import Field, Mat
+
+__all__ = ["BasicAlgebra"]
+
+
+class BasicAlgebra:
+    """A split basic algebra given by its quiver and right regular representation.
+
+    Build one with :func:`hwcat.algebras.bound.bound_quiver_algebra` (or the
+    spec loader); the constructor takes the raw data and checks it.
+
+    Parameters
+    ----------
+    field : Field
+    quiver : Quiver
+        The Gabriel quiver.
+    words : sequence
+        ``words[s][t]`` is the tuple of basis paths of ``e_s A e_t``.
+    action : sequence
+        ``action[s][a]`` is right multiplication by arrow ``a`` on ``e_s A``.
+    name : str
+    morita : sequence of int, optional
+        For an algebra that came from a non-basic algebra ``A``: the
+        multiplicity of ``P(i)`` in ``A`` (the dimension of the simple
+        ``L(i)``).  All ones for a basic input.
+    """
+
+    def __init__(
+        self,
+        field: Field,
+        quiver: Quiver,
+        words: Sequence[Sequence[Sequence[Path]]],
+        action: Sequence[Sequence[Mat]],
+        *,
+        name: str = "",
+        morita: Sequence[int] | None = None,
+        relations: Sequence[str] | None = None,
+    ) -> None:
+        n = len(quiver.vertices)
+        self.field = field
+        self.quiver = quiver
+        self.words: tuple[tuple[tuple[Path, ...], ...], ...] = tuple(
+            tuple(tuple(words[s][t]) for t in range(n)) for s in range(n)
+        )
+        self.action: tuple[tuple[Mat, ...], ...] = tuple(tuple(a) for a in action)
+        self.name = name
+        self.morita = tuple(morita) if morita is not None else (1,) * n
+        self.relations = tuple(relations) if relations is not None else None
+        self._cache: dict[Any, Any] = {}
+        self._check()
+
+    # -- basic data ------------------------------------------------------------
+    @property
+    def vertices(self) -> tuple[str, ...]:
+        return self.quiver.vertices
+
+    @property
+    def arrows(self) -> tuple[Arrow, ...]:
+        return self.quiver.arrows
+
+    @property
+    def n(self) -> int:
+        """Number of vertices (simple modules)."""
+        return len(self.quiver.vertices)
+
+    def block_dim(self, s: int, t: int) -> int:
+        """``dim e_s A e_t``."""
+        return len(self.words[s][t])
+
+    def projective_dims(self, s: int) -> tuple[int, ...]:
+        return tuple(len(w) for w in self.words[s])
+
+    @property
+    def dim(self) -> int:
+        return sum(len(w) for row in self.words for w in row)
+
+    def cartan(self) -> list[list[int]]:
+        """The Cartan matrix ``C[i][j] = [P(j) : L(i)] = dim e_j A e_i``."""
+        return [[self.block_dim(j, i) for j in range(self.n)] for i in range(self.n)]
+
+    def word_index(self, s: int, t: int) -> dict[Path, int]:
+        key = ("word_index", s, t)
+        if key not in self._cache:
+            self._cache[key] = {w: i for i, w in enumerate(self.words[s][t])}
+        return self._cache[key]
+
+    def projective_rep(self, s: int) -> tuple[tuple[int, ...], tuple[Mat, ...]]:
+        """``P(s) = e_s A`` as ``(dims, maps)``."""
+        return self.projective_dims(s), self.action[s]
+
+    def injective_rep(self, s: int) -> tuple[tuple[int, ...], tuple[Mat, ...]]:
+        """``I(s) = D(A e_s)`` as ``(dims, maps)`` (dual of the opposite's projective)."""
+        op = self.opposite()
+        dims, maps = op.projective_rep(s)
+        return dims, tuple(m.transpose() for m in maps)
+
+    def path_text(self, path: Path, vertex: int | None = None) -> str:
+        return format_path(self.quiver, path, vertex)
+
+    def element_text(self, s: int, t: int, vec: Mat | Sequence[Any]) -> str:
+        """A vector of ``e_s A e_t`` as a combination of basis paths."""
+        entries = vec.entries() if isinstance(vec, Mat) else list(vec)
+        terms = []
+        for c, w in zip(entries, self.words[s][t], strict=True):
+            if c == 0:
+                continue
+            p = self.path_text(w, s)
+            cs = str(c)
+            if cs == "1":
+                terms.append(f"+ {p}")
+            elif cs == "-1":
+                terms.append(f"- {p}")
+            elif cs.startswith("-"):
+                terms.append(f"- {cs[1:]}*{p}")
+            else:
+                terms.append(f"+ {cs}*{p}")
+        if not terms:
+            return "0"
+        text = " ".join(terms)
+        return text[2:] if text.startswith("+ ") else "-" + text[2:]
+
+    # -- consistency -------------------------------------------------------------
+    def _check(self) -> None:
+        n = self.n
+        if len(self.words) != n or len(self.action) != n:
+            raise InternalInconsistency("words/action do not match the vertices")
+        for s in range(n):
+            if not self.words[s][s] or self.words[s][s][0] != ():
+                raise InternalInconsistency(f"e_{s} A e_{s} must start with the trivial path")
+            if len(self.action[s]) != len(self.arrows):
+                raise InternalInconsistency("one action matrix per arrow is needed")
+            for i, a in enumerate(self.arrows):
+                m = self.action[s][i]
+                if m.shape != (self.block_dim(s, a.source), self.block_dim(s, a.target)):
+                    raise InternalInconsistency(f"action of arrow {a.name} has shape {m.shape}")
+        for i, a in enumerate(self.arrows):
+            if (i,) not in self.word_index(a.source, a.target):
+                raise InternalInconsistency(f"arrow {a.name} is not a basis element")
+
+    # -- structure -----------------------------------------------------------------
+    def opposite(self) -> BasicAlgebra:
+        """The opposite algebra (same vertices, arrows reversed, cached both ways)."""
+        if "opposite" in self._cache:
+            return self._cache["opposite"]
+        F, n = self.field, self.n
+        # left multiplication by arrow a on e_{t(a)} A: row vectors a*w for basis w
+        left: list[dict[int, Mat]] = []  # left[a][s] : e_{t(a)} A e_s -> e_{s(a)} A e_s
+        for i, a in enumerate(self.arrows):
+            u = a.source
+            unit = Mat.unit_rows(F, self.block_dim(u, a.target), [self.word_index(u, a.target)[(i,)]])
+            memo: dict[Path, Mat] = {(): unit}
+            per_s: dict[int, Mat] = {}
+            for s in range(n):
+                ws = self.words[a.target][s]
+                rows = []
+                for w in ws:
+                    rows.append(self._extend(u, memo, w))
+                per_s[s] = Mat.vstack(F, rows, self.block_dim(u, s))
+            left.append(per_s)
+        opq = Quiver(self.vertices, tuple(Arrow(a.name, a.target, a.source) for a in self.arrows))
+        reps = []
+        for s in range(n):
+            dims = tuple(self.block_dim(t, s) for t in range(n))
+            maps = tuple(left[i][s] for i in range(len(self.arrows)))
+            reps.append((dims, maps))
+        op = BasicAlgebra.from_cyclic_representations(
+            F, opq, reps, name=f"{self.name} (opposite)" if self.name else "opposite",
+            morita=self.morita,
+        )
+        op._cache["opposite"] = self
+        self._cache["opposite"] = op
+        return op
+
+    def _extend(self, u: int, memo: dict[Path, Mat], w: Path) -> Mat:
+        if w in memo:
+            return memo[w]
+        v = self._extend(u, memo, w[:-1]) @ self.action[u][w[-1]]
+        memo[w] = v
+        return v
+
+    @classmethod
+    def from_cyclic_representations(
+        cls,
+        field: Field,
+        quiver: Quiver,
+        reps: Sequence[tuple[Sequence[int], Sequence[Mat]]],
+        *,
+        starts: Sequence[Mat] | None = None,
+        name: str = "",
+        morita: Sequence[int] | None = None,
+    ) -> BasicAlgebra:
+        """Build the hub from the indecomposable projectives given as representations.
+
+        ``reps[s]`` is ``e_s A`` as a representation of ``quiver``; ``starts[s]``
+        the row vector of the idempotent ``e_s`` in it (default: the first basis
+        vector at ``s``).  A prefix-closed basis of paths is chosen by
+        :func:`~hwcat.algebras.rep.cyclic_word_basis` and the action rewritten in it.
+        """
+        n = len(quiver.vertices)
+        words, action = [], []
+        for s, (dims, maps) in enumerate(reps):
+            start = starts[s] if starts is not None else Mat.unit_rows(field, dims[s], [0])
+            ws, rows = cyclic_word_basis(field, dims, maps, quiver.arrows, s, start)
+            inv = [rows[t].inverse() for t in range(n)]
+            act = [rows[a.source] @ maps[i] @ inv[a.target] for i, a in enumerate(quiver.arrows)]
+            words.append(ws)
+            action.append(act)
+        return cls(field, quiver, words, action, name=name, morita=morita)
+
+    def quotient_by_vertices(self, S: Iterable[int]) -> BasicAlgebra:
+        """``A / A e A`` for ``e`` the sum of the idempotents of the vertices ``S``.
+
+        The result has the remaining vertices (in the same order) and the arrows
+        between them.
+        """
+        S = frozenset(S)
+        keep = [v for v in range(self.n) if v not in S]
+        newidx = {v: k for k, v in enumerate(keep)}
+        F = self.field
+        kept_arrows = [i for i, a in enumerate(self.arrows) if a.source in newidx and a.target in newidx]
+        quiver = Quiver(
+            tuple(self.vertices[v] for v in keep),
+            tuple(
+                Arrow(self.arrows[i].name, newidx[self.arrows[i].source], newidx[self.arrows[i].target])
+                for i in kept_arrows
+            ),
+        )
+        reps, starts = [], []
+        for s in keep:
+            dims, maps = self.projective_rep(s)
+            gens = {u: Mat.identity(F, dims[u]) for u in S if dims[u]}
+            sub = closure(F, dims, maps, self.arrows, gens)
+            qd, qm, pis = quotient(F, dims, maps, self.arrows, sub)
+            reps.append((tuple(qd[v] for v in keep), tuple(qm[i] for i in kept_arrows)))
+            starts.append(pis[s].take_rows([0]))
+        return BasicAlgebra.from_cyclic_representations(
+            F, quiver, reps, starts=starts, name=self.name,
+            morita=tuple(self.morita[v] for v in keep),
+        )
+
+    def components(self) -> list[list[int]]:
+        """The blocks: vertex sets of the connected components of the quiver."""
+        G = nx.Graph()
+        G.add_nodes_from(range(self.n))
+        G.add_edges_from((a.source, a.target) for a in self.arrows)
+        comps = [sorted(c) for c in nx.connected_components(G)]
+        return sorted(comps)
+
+    def full_subalgebra(self, vertices: Sequence[int]) -> BasicAlgebra:
+        """``e A e`` for a union of blocks (no path leaves ``vertices``)."""
+        keep = list(vertices)
+        newidx = {v: k for k, v in enumerate(keep)}
+        arrows = [i for i, a in enumerate(self.arrows) if a.source in newidx]
+        if any(self.arrows[i].target not in newidx for i in arrows):
+            raise InternalInconsistency("full_subalgebra needs a union of blocks")
+        remap = {i: k for k, i in enumerate(arrows)}
+        quiver = Quiver(
+            tuple(self.vertices[v] for v in keep),
+            tuple(
+                Arrow(self.arrows[i].name, newidx[self.arrows[i].source], newidx[self.arrows[i].target])
+                for i in arrows
+            ),
+        )
+        words = [
+            [tuple(tuple(remap[x] for x in w) for w in self.words[s][t]) for t in keep] for s in keep
+        ]
+        action = [[self.action[s][i] for i in arrows] for s in keep]
+        return BasicAlgebra(
+            self.field, quiver, words, action, name=self.name,
+            morita=[self.morita[v] for v in keep],
+        )
+
+    def multiplication_block(self, s: int, u: int, t: int) -> Mat:
+        """Products ``x * y`` for ``x`` in ``e_s A e_u``, ``y`` in ``e_u A e_t``.
+
+        Row ``j * dim(e_s A e_u) + i`` holds the coordinates of ``x_i * y_j`` in
+        ``e_s A e_t`` (``x_i``, ``y_j`` the basis paths).
+        """
+        F = self.field
+        du, dt = self.block_dim(s, u), self.block_dim(s, t)
+        memo: dict[Path, Mat] = {(): Mat.identity(F, du)}
+        blocks = [self._extend(s, memo, y) for y in self.words[u][t]]
+        return Mat.vstack(F, blocks, dt)
+
+    def to_dict(self) -> dict[str, Any]:
+        return {
+            "name": self.name,
+            "field": self.field.name,
+            "vertices": list(self.vertices),
+            "arrows": [
+                {"name": a.name, "source": self.vertices[a.source], "target": self.vertices[a.target]}
+                for a in self.arrows
+            ],
+            "dimension": self.dim,
+            "cartan": self.cartan(),
+        }
+
+    def __repr__(self) -> str:
+        return (
+            f"BasicAlgebra({self.name!r}, field={self.field}, vertices={self.n}, "
+            f"arrows={len(self.arrows)}, dimension={self.dim})"
+        )

@@ -1,0 +1,79 @@
+"""The exceptions hwcat raises.
+
+There is one root, :class:`HwcatError`.  Every error caused by bad input is a
+subclass that also derives from the matching built-in exception, so callers may
+catch either.  The command line turns any :class:`HwcatError` into one line on
+standard error and exit code 2.  :class:`InternalInconsistency` is different:
+it means two independent computations of the same fact disagreed, which is a
+bug in hwcat, and it is never turned into a quiet exit.
+"""
+
+from __future__ import annotations
+
+__all__ = [
+    "HwcatError",
+    "FieldError",
+    "CoefficientError",
+    "SpecSyntaxError",
+    "SpecError",
+    "QuiverError",
+    "RelationError",
+    "NotFiniteDimensional",
+    "NotAdmissible",
+    "OrderError",
+    "StructureConstantsError",
+    "NotSplitError",
+    "InternalInconsistency",
+]
+
+
+class HwcatError(Exception):
+    """Root of all errors raised by hwcat."""
+
+
+class FieldError(HwcatError, ValueError):
+    """A field name that is malformed or names no field hwcat supports."""
+
+
+class CoefficientError(HwcatError, ValueError):
+    """A coefficient that is not an element of the field (e.g. 1/7 in GF(7))."""
+
+
+class SpecSyntaxError(HwcatError, ValueError):
+    """A spec file that is not valid TOML."""
+
+
+class SpecError(HwcatError, ValueError):
+    """A spec file whose content is wrong: missing or unknown keys, bad types."""
+
+
+class QuiverError(SpecError):
+    """A quiver that is malformed: duplicate names, unknown endpoints, empty."""
+
+
+class RelationError(SpecError):
+    """A relation that cannot be read or does not lie in the square of the arrow ideal."""
+
+
+class NotFiniteDimensional(HwcatError, ValueError):
+    """The ideal leaves paths of every length alive."""
+
+
+class NotAdmissible(HwcatError, ValueError):
+    """The ideal is not admissible (the arrows do not generate a nilpotent ideal)."""
+
+
+class OrderError(HwcatError, ValueError):
+    """A partial order on the simples that is malformed, cyclic or names unknown vertices."""
+
+
+class StructureConstantsError(SpecError):
+    """A multiplication table or set of matrices that does not define a unital associative algebra."""
+
+
+class NotSplitError(HwcatError, ValueError):
+    """A simple component of the semisimple quotient does not split over the given field."""
+
+
+class InternalInconsistency(HwcatError, AssertionError):
+    """Two independent computations of the same fact disagree: a bug in hwcat."""

@@ -1,0 +1,224 @@
+"""Exact fields: the rationals ``QQ`` and prime fields ``GF(p)``.
+
+A field is a singleton object that knows its characteristic, parses and prints
+its elements, and picks the python-flint matrix type used for it.  This module
+and :mod:`hwcat.exact.matrices` are the only code in hwcat that touches
+python-flint; a later field (a finite field of prime-power order, a number
+field) is added here without changing the layers above.
+
+Examples
+--------
+>>> from hwcat.exact import QQ, GF, parse_field
+>>> QQ.parse("3/4") + QQ.parse(-2)
+-5/4
+>>> F = GF(7)
+>>> F.parse("3/4")          # 3 * 4^(-1) = 3 * 2 in GF(7)
+6
+>>> parse_field("GF(101)") is GF(101)
+True
+"""
+
+from __future__ import annotations
+
+import re
+from fractions import Fraction
+from functools import lru_cache
+from typing import Any
+
+import flint
+
+from hwcat.errors import CoefficientError, FieldError
+
+__all__ = ["Field", "RationalField", "PrimeField", "QQ", "GF", "parse_field"]
+
+_NUMBER = re.compile(r"^\s*([+-]?\d+)\s*(?:/\s*(\d+)\s*)?$")
+_MAX_PRIME = 1 << 63
+
+
+class Field:
+    """Base class of the exact fields.  Use :data:`QQ` or :func:`GF`."""
+
+    name: str
+    characteristic: int
+
+    def __repr__(self) -> str:
+        return self.name
+
+    __str__ = __repr__
+
+    # -- elements ---------------------------------------------------------
+    def __call__(self, x: Any) -> Any:
+        """Convert an int, Fraction, string such as ``"3/4"`` or field element."""
+        if isinstance(x, str):
+            return self.parse(x)
+        if isinstance(x, bool) or isinstance(x, float):
+            raise CoefficientError(f"{x!r} is not an exact coefficient of {self.name}")
+        if isinstance(x, int):
+            return self._from_int(x)
+        if isinstance(x, Fraction):
+            return self._from_fraction(x.numerator, x.denominator, str(x))
+        return self._coerce(x)
+
+    def parse(self, text: str | int) -> Any:
+        """Parse ``"3"``, ``"-2"`` or ``"3/4"`` (also a plain int) into the field.
+
+        Raises :class:`~hwcat.errors.CoefficientError` for text that is not a
+        number or, in ``GF(p)``, for a denominator divisible by ``p``.
+        """
+        if isinstance(text, int) and not isinstance(text, bool):
+            return self._from_int(text)
+        m = _NUMBER.match(str(text))
+        if not m:
+            raise CoefficientError(f"{text!r} is not a coefficient (expected e.g. 3, -2, 3/4)")
+        num = int(m.group(1))
+        den = int(m.group(2)) if m.group(2) is not None else 1
+        if den == 0:
+            raise CoefficientError(f"{text!r} has denominator 0")
+        return self._from_fraction(num, den, str(text).strip())
+
+    @property
+    def zero(self) -> Any:
+        return self._from_int(0)
+
+    @property
+    def one(self) -> Any:
+        return self._from_int(1)
+
+    def to_str(self, x: Any) -> str:
+        """The text form of an element, parseable again by :meth:`parse`."""
+        return str(x)
+
+    def to_int_or_str(self, x: Any) -> int | str:
+        """JSON form of an element: an int when integral, else ``"p/q"``."""
+        s = str(x)
+        return int(s) if "/" not in s else s
+
+    # -- implementation hooks ----------------------------------------------
+    def _from_int(self, n: int) -> Any:  # pragma: no cover - abstract
+        raise NotImplementedError
+
+    def _from_fraction(self, num: int, den: int, text: str) -> Any:  # pragma: no cover
+        raise NotImplementedError
+
+    def _coerce(self, x: Any) -> Any:  # pragma: no cover
+        raise NotImplementedError
+
+    def _raw_matrix(self, nrows: int, ncols: int, entries: list) -> Any:  # pragma: no cover
+        raise NotImplementedError
+
+
+class RationalField(Field):
+    """The field of rational numbers, backed by flint's ``fmpq``."""
+
+    def __init__(self) -> None:
+        self.name = "QQ"
+        self.characteristic = 0
+
+    def _from_int(self, n: int) -> Any:
+        return flint.fmpq(n)
+
+    def _from_fraction(self, num: int, den: int, text: str) -> Any:
+        return flint.fmpq(num, den)
+
+    def _coerce(self, x: Any) -> Any:
+        if isinstance(x, flint.fmpq):
+            return x
+        if isinstance(x, flint.fmpz):
+            return flint.fmpq(x)
+        raise CoefficientError(f"{x!r} is not an element of QQ")
+
+    def _raw_matrix(self, nrows: int, ncols: int, entries: list) -> Any:
+        if not entries:
+            return flint.fmpq_mat(nrows, ncols)
+        return flint.fmpq_mat(nrows, ncols, entries)
+
+    def to_int_or_str(self, x: Any) -> int | str:
+        if x.q == 1:
+            return int(x.p)
+        return f"{x.p}/{x.q}"
+
+
+class PrimeField(Field):
+    """The field with ``p`` elements, backed by flint's ``nmod`` (p < 2^63)."""
+
+    def __init__(self, p: int) -> None:
+        self.name = f"GF({p})"
+        self.characteristic = p
+        self.p = p
+
+    def _from_int(self, n: int) -> Any:
+        return flint.nmod(n % self.p, self.p)
+
+    def _from_fraction(self, num: int, den: int, text: str) -> Any:
+        if den % self.p == 0:
+            raise CoefficientError(
+                f"coefficient {text!r}: its denominator {den} is divisible by p = {self.p}, "
+                f"so it is not an element of {self.name}"
+            )
+        return flint.nmod(num % self.p, self.p) / flint.nmod(den % self.p, self.p)
+
+    def _coerce(self, x: Any) -> Any:
+        if isinstance(x, flint.nmod) and x.modulus() == self.p:
+            return x
+        if isinstance(x, flint.fmpz):
+            return self._from_int(int(x))
+        if isinstance(x, flint.fmpq):
+            return self._from_fraction(int(x.p), int(x.q), str(x))
+        raise CoefficientError(f"{x!r} is not an element of {self.name}")
+
+    def _raw_matrix(self, nrows: int, ncols: int, entries: list) -> Any:
+        if not entries:
+            return flint.nmod_mat(nrows, ncols, self.p)
+        return flint.nmod_mat(nrows, ncols, [int(e) for e in entries], self.p)
+
+    def to_int_or_str(self, x: Any) -> int | str:
+        return int(x)
+
+
+QQ = RationalField()
+"""The rational numbers."""
+
+
+@lru_cache(maxsize=None)
+def _prime_field(p: int) -> PrimeField:
+    return PrimeField(p)
+
+
+def GF(p: int) -> PrimeField:
+    """The prime field with ``p`` elements; ``p`` must be a prime below 2^63.
+
+    >>> GF(5).characteristic
+    5
+    >>> GF(6)
+    Traceback (most recent call last):
+    ...
+    hwcat.errors.FieldError: GF(6): 6 is not a prime
+    """
+    if isinstance(p, bool) or not isinstance(p, int):
+        raise FieldError(f"GF({p!r}): the characteristic must be an integer")
+    if p < 2 or not flint.fmpz(p).is_prime():
+        raise FieldError(f"GF({p}): {p} is not a prime")
+    if p >= _MAX_PRIME:
+        raise FieldError(f"GF({p}): primes must be below 2^63")
+    return _prime_field(p)
+
+
+_FIELD_NAME = re.compile(r"^\s*(?:GF|F)\s*\(\s*(\d+)\s*\)\s*$")
+
+
+def parse_field(text: str) -> Field:
+    """Parse ``"QQ"`` or ``"GF(p)"``.
+
+    >>> parse_field("QQ")
+    QQ
+    >>> parse_field("GF(2)")
+    GF(2)
+    """
+    if not isinstance(text, str):
+        raise FieldError(f"field {text!r}: expected a string such as \"QQ\" or \"GF(101)\"")
+    if text.strip() in ("QQ", "Q"):
+        return QQ
+    m = _FIELD_NAME.match(text)
+    if not m:
+        raise FieldError(f"field {text!r}: unknown field (expected \"QQ\" or \"GF(p)\", p prime)")
+    return GF(int(m.group(1)))

@@ -1,0 +1,427 @@
+"""Matrices over an exact field and the subspace algebra built on them.
+
+:class:`Mat` wraps a python-flint matrix (``fmpq_mat`` over QQ, ``nmod_mat``
+over GF(p)) together with its :class:`~hwcat.exact.fields.Field`.  It hides
+flint's return shapes: :meth:`Mat.rref` returns the nonzero rows and the pivots
+as a tuple, kernels come back as exactly ``nullity`` basis rows.
+
+Conventions
+-----------
+hwcat uses **row vectors**: a linear map ``V -> W`` is a matrix of shape
+``dim V x dim W`` acting by ``v -> v @ A``.  This matches paths read left to
+right: the path ``a*b`` acts by ``A_a @ A_b``.  A subspace is stored as a
+matrix whose rows are a basis; :func:`echelon` gives the canonical form.
+
+Examples
+--------
+>>> from hwcat.exact import QQ, Mat
+>>> A = Mat.from_rows(QQ, [[1, 2], [2, 4]])
+>>> A.rank()
+1
+>>> A.left_kernel().tolist()
+[['-2', '1']]
+"""
+
+from __future__ import annotations
+
+from collections.abc import Iterable, Sequence
+from typing import Any
+
+from hwcat.errors import InternalInconsistency
+from hwcat.exact.fields import Field
+
+__all__ = [
+    "Mat",
+    "echelon",
+    "subspace_sum",
+    "intersection",
+    "complement",
+    "contains",
+    "quotient_map",
+    "select_independent_rows",
+    "assemble",
+]
+
+
+class Mat:
+    """An exact matrix over a field (row-vector convention).
+
+    Create with :meth:`from_rows`, :meth:`zeros`, :meth:`identity` or
+    :meth:`from_flat`; never pass flint objects in from above this layer.
+    """
+
+    __slots__ = ("field", "_m")
+
+    def __init__(self, field: Field, raw: Any) -> None:
+        self.field = field
+        self._m = raw
+
+    # -- construction ------------------------------------------------------
+    @classmethod
+    def from_flat(cls, field: Field, nrows: int, ncols: int, entries: Sequence) -> Mat:
+        return cls(field, field._raw_matrix(nrows, ncols, list(entries)))
+
+    @classmethod
+    def from_rows(cls, field: Field, rows: Iterable[Sequence], ncols: int | None = None) -> Mat:
+        rows = [list(r) for r in rows]
+        if ncols is None:
+            ncols = len(rows[0]) if rows else 0
+        flat = []
+        for r in rows:
+            if len(r) != ncols:
+                raise ValueError(f"row of length {len(r)} in a matrix with {ncols} columns")
+            flat.extend(field(x) for x in r)
+        return cls.from_flat(field, len(rows), ncols, flat)
+
+    @classmethod
+    def zeros(cls, field: Field, nrows: int, ncols: int) -> Mat:
+        return cls(field, field._raw_matrix(nrows, ncols, []))
+
+    @classmethod
+    def identity(cls, field: Field, n: int) -> Mat:
+        m = field._raw_matrix(n, n, [])
+        one = field.one
+        for i in range(n):
+            m[i, i] = one
+        return cls(field, m)
+
+    @classmethod
+    def unit_rows(cls, field: Field, n: int, indices: Sequence[int]) -> Mat:
+        """The rows ``indices`` of the ``n x n`` identity matrix."""
+        m = field._raw_matrix(len(indices), n, [])
+        one = field.one
+        for r, i in enumerate(indices):
+            m[r, i] = one
+        return cls(field, m)
+
+    # -- shape and access ----------------------------------------------------
+    @property
+    def nrows(self) -> int:
+        return self._m.nrows()
+
+    @property
+    def ncols(self) -> int:
+        return self._m.ncols()
+
+    @property
+    def shape(self) -> tuple[int, int]:
+        return (self._m.nrows(), self._m.ncols())
+
+    def __getitem__(self, ij: tuple[int, int]) -> Any:
+        return self._m[ij]
+
+    def entries(self) -> list:
+        return self._m.entries()
+
+    def tolist(self) -> list[list[str]]:
+        """Entries as strings (exact), row by row."""
+        return [[str(x) for x in row] for row in self._m.tolist()]
+
+    def raw_rows(self) -> list[list]:
+        return self._m.tolist()
+
+    def row(self, i: int) -> Mat:
+        return self.take_rows([i])
+
+    def is_zero(self) -> bool:
+        return all(x == 0 for x in self._m.entries())
+
+    def nonzero_rows(self) -> list[int]:
+        n = self.ncols
+        e = self._m.entries()
+        return [i for i in range(self.nrows) if any(e[i * n + j] != 0 for j in range(n))]
+
+    def __eq__(self, other: object) -> bool:
+        if not isinstance(other, Mat):
+            return NotImplemented
+        return self.field is other.field and self.shape == other.shape and self._m == other._m
+
+    def __hash__(self) -> int:  # matrices are mutable in flint; hash by content
+        return hash((self.field.name, self.shape, tuple(str(x) for x in self._m.entries())))
+
+    def key(self) -> tuple:
+        """A hashable exact fingerprint of the matrix."""
+        return (self.shape, tuple(str(x) for x in self._m.entries()))
+
+    def __repr__(self) -> str:
+        return f"Mat({self.field}, {self.tolist()})"
+
+    # -- arithmetic ----------------------------------------------------------
+    def _check(self, other: Mat) -> None:
+        if other.field is not self.field:
+            raise InternalInconsistency(f"matrices over {self.field} and {other.field} mixed")
+
+    def __matmul__(self, other: Mat) -> Mat:
+        self._check(other)
+        if self.ncols != other.nrows:
+            raise InternalInconsistency(f"cannot multiply {self.shape} by {other.shape}")
+        if self.nrows == 0 or other.ncols == 0 or self.ncols == 0:
+            return Mat.zeros(self.field, self.nrows, other.ncols)
+        return Mat(self.field, self._m * other._m)
+
+    def __add__(self, other: Mat) -> Mat:
+        self._check(other)
+        if self.shape != other.shape:
+            raise InternalInconsistency(f"cannot add {self.shape} and {other.shape}")
+        return Mat(self.field, self._m + other._m)
+
+    def __sub__(self, other: Mat) -> Mat:
+        self._check(other)
+        if self.shape != other.shape:
+            raise InternalInconsistency(f"cannot subtract {self.shape} and {other.shape}")
+        return Mat(self.field, self._m - other._m)
+
+    def __neg__(self) -> Mat:
+        return Mat(self.field, -self._m)
+
+    def scale(self, c: Any) -> Mat:
+        if self.nrows == 0 or self.ncols == 0:
+            return self
+        return Mat(self.field, self._m * self.field(c))
+
+    def transpose(self) -> Mat:
+        return Mat(self.field, self._m.transpose())
+
+    @property
+    def T(self) -> Mat:
+        return self.transpose()
+
+    # -- assembly --------------------------------------------------------------
+    def take_rows(self, idx: Sequence[int]) -> Mat:
+        n = self.ncols
+        e = self._m.entries()
+        flat = [e[i * n + j] for i in idx for j in range(n)]
+        return Mat.from_flat(self.field, len(idx), n, flat)
+
+    def take_cols(self, idx: Sequence[int]) -> Mat:
+        n = self.ncols
+        e = self._m.entries()
+        flat = [e[i * n + j] for i in range(self.nrows) for j in idx]
+        return Mat.from_flat(self.field, self.nrows, len(idx), flat)
+
+    @staticmethod
+    def vstack(field: Field, mats: Sequence[Mat], ncols: int | None = None) -> Mat:
+        mats = [m for m in mats]
+        if ncols is None:
+            if not mats:
+                raise InternalInconsistency("vstack of no matrices needs ncols")
+            ncols = mats[0].ncols
+        flat: list = []
+        nrows = 0
+        for m in mats:
+            if m.ncols != ncols:
+                raise InternalInconsistency(f"vstack: {m.ncols} columns, expected {ncols}")
+            if m.nrows:
+                flat.extend(m._m.entries())
+                nrows += m.nrows
+        return Mat.from_flat(field, nrows, ncols, flat)
+
+    @staticmethod
+    def hstack(field: Field, mats: Sequence[Mat], nrows: int | None = None) -> Mat:
+        mats = [m for m in mats]
+        if nrows is None:
+            if not mats:
+                raise InternalInconsistency("hstack of no matrices needs nrows")
+            nrows = mats[0].nrows
+        if not mats:
+            return Mat.zeros(field, nrows, 0)
+        return Mat.vstack(field, [m.transpose() for m in mats], nrows).transpose()
+
+    @staticmethod
+    def block_diag(field: Field, mats: Sequence[Mat]) -> Mat:
+        r = sum(m.nrows for m in mats)
+        c = sum(m.ncols for m in mats)
+        out = field._raw_matrix(r, c, [])
+        i0 = j0 = 0
+        for m in mats:
+            e = m._m.entries()
+            n = m.ncols
+            for i in range(m.nrows):
+                for j in range(n):
+                    x = e[i * n + j]
+                    if x != 0:
+                        out[i0 + i, j0 + j] = x
+            i0 += m.nrows
+            j0 += m.ncols
+        return Mat(field, out)
+
+    # -- linear algebra ----------------------------------------------------------
+    def rref(self) -> tuple[Mat, tuple[int, ...]]:
+        """Reduced row echelon form: ``(R, pivots)`` with R holding only the nonzero rows."""
+        r, c = self.shape
+        if r == 0 or c == 0:
+            return Mat.zeros(self.field, 0, c), ()
+        R, rank = self._m.rref()
+        e = R.entries()
+        pivots = []
+        j = 0
+        for i in range(rank):
+            while e[i * c + j] == 0:
+                j += 1
+            pivots.append(j)
+            j += 1
+        return Mat.from_flat(self.field, rank, c, e[: rank * c]), tuple(pivots)
+
+    def rank(self) -> int:
+        if self.nrows == 0 or self.ncols == 0:
+            return 0
+        return self._m.rank()
+
+    def right_kernel(self) -> Mat:
+        """Rows forming a basis of ``{x : A x^T = 0}`` (exactly nullity rows)."""
+        r, c = self.shape
+        R, piv = self.rref()
+        free = [j for j in range(c) if j not in set(piv)]
+        if not free:
+            return Mat.zeros(self.field, 0, c)
+        # x_free = unit, x_pivot_i = -R[i, free]
+        basis = self.field._raw_matrix(len(free), c, [])
+        one = self.field.one
+        for k, f in enumerate(free):
+            basis[k, f] = one
+        Re = R._m.entries()
+        for i, p in enumerate(piv):
+            for k, f in enumerate(free):
+                x = Re[i * c + f]
+                if x != 0:
+                    basis[k, p] = -x
+        return Mat(self.field, basis)
+
+    def left_kernel(self) -> Mat:
+        """Rows forming a basis of ``{x : x @ A = 0}``."""
+        return self.transpose().right_kernel()
+
+    def solve_left(self, b: Mat) -> Mat | None:
+        """Some ``X`` with ``X @ self == b``, or ``None`` when there is none."""
+        # X A = B  <=>  A^T X^T = B^T
+        if b.ncols != self.ncols:
+            raise InternalInconsistency("solve_left: column counts differ")
+        n = self.nrows
+        if b.nrows == 0:
+            return Mat.zeros(self.field, 0, n)
+        if n == 0:
+            return Mat.zeros(self.field, b.nrows, 0) if b.is_zero() else None
+        aug = Mat.hstack(self.field, [self.transpose(), b.transpose()])
+        R, piv = aug.rref()
+        if any(p >= n for p in piv):
+            return None
+        X = self.field._raw_matrix(n, b.nrows, [])
+        c = aug.ncols
+        Re = R._m.entries()
+        for i, p in enumerate(piv):
+            for k in range(b.nrows):
+                X[p, k] = Re[i * c + n + k]
+        return Mat(self.field, X).transpose()
+
+    def inverse(self) -> Mat:
+        if self.nrows != self.ncols:
+            raise InternalInconsistency("inverse of a non-square matrix")
+        if self.nrows == 0:
+            return self
+        return Mat(self.field, self._m.inv())
+
+
+# -- subspaces (row spaces) ------------------------------------------------------
+
+
+def echelon(A: Mat) -> Mat:
+    """Canonical basis (reduced echelon rows) of the row space of ``A``."""
+    return A.rref()[0]
+
+
+def subspace_sum(field: Field, n: int, spaces: Sequence[Mat]) -> Mat:
+    """Echelon basis of the sum of row spaces (each with ``n`` columns)."""
+    return echelon(Mat.vstack(field, list(spaces), n))
+
+
+def intersection(U: Mat, W: Mat) -> Mat:
+    """Echelon basis of the intersection of the row spaces of ``U`` and ``W``.
+
+    >>> from hwcat.exact import QQ, Mat
+    >>> U = Mat.from_rows(QQ, [[1, 0, 0], [0, 1, 0]])
+    >>> W = Mat.from_rows(QQ, [[0, 1, 1], [0, 0, 1]])
+    >>> intersection(U, W).tolist()
+    [['0', '1', '0']]
+    """
+    F, n = U.field, U.ncols
+    if U.nrows == 0 or W.nrows == 0:
+        return Mat.zeros(F, 0, n)
+    # x U = y W  <=> (x, -y) [U; W] = 0
+    K = Mat.vstack(F, [U, W]).left_kernel()
+    if K.nrows == 0:
+        return Mat.zeros(F, 0, n)
+    return echelon(K.take_cols(range(U.nrows)) @ U)
+
+
+def complement(U: Mat, n: int | None = None) -> Mat:
+    """Unit rows spanning a complement of the row space of ``U``."""
+    n = U.ncols if n is None else n
+    _, piv = U.rref()
+    ps = set(piv)
+    return Mat.unit_rows(U.field, n, [j for j in range(n) if j not in ps])
+
+
+def contains(U: Mat, v: Mat) -> bool:
+    """Whether every row of ``v`` lies in the row space of ``U``."""
+    if v.nrows == 0:
+        return True
+    return Mat.vstack(U.field, [U, v], U.ncols).rank() == U.rank()
+
+
+def quotient_map(U: Mat, n: int | None = None) -> tuple[Mat, Mat, tuple[int, ...]]:
+    """Projection onto ``k^n / rowspace(U)``.
+
+    Returns ``(pi, section, kept)``: ``pi`` is ``n x q`` (the projection in the
+    basis of the kept coordinates), ``section`` is ``q x n`` (unit rows of the
+    kept coordinates, with ``section @ pi`` the identity) and ``kept`` lists
+    the coordinates that survive (the non-pivot columns of the echelon form).
+    """
+    F = U.field
+    n = U.ncols if n is None else n
+    R, piv = U.rref() if U.nrows else (Mat.zeros(F, 0, n), ())
+    ps = set(piv)
+    kept = tuple(j for j in range(n) if j not in ps)
+    q = len(kept)
+    pi = F._raw_matrix(n, q, [])
+    one = F.one
+    for k, j in enumerate(kept):
+        pi[j, k] = one
+    Re = R._m.entries()
+    for i, p in enumerate(piv):
+        for k, j in enumerate(kept):
+            x = Re[i * n + j]
+            if x != 0:
+                pi[p, k] = -x
+    return Mat(F, pi), Mat.unit_rows(F, n, kept), kept
+
+
+def select_independent_rows(A: Mat, basis: Mat | None = None) -> list[int]:
+    """Greedy choice of rows of ``A`` independent of each other and of ``basis``.
+
+    Scans the rows in order and keeps each row not in the span of ``basis``
+    and the rows kept before it.
+    """
+    F = A.field
+    if A.nrows == 0:
+        return []
+    b = 0 if basis is None else basis.nrows
+    stacked = A if basis is None or b == 0 else Mat.vstack(F, [basis, A])
+    _, piv = stacked.transpose().rref()
+    return [p - b for p in piv if p >= b]
+
+
+def assemble(field: Field, nrows: int, ncols: int, blocks: Iterable[tuple[int, int, Mat]]) -> Mat:
+    """A ``nrows x ncols`` matrix that is zero except for the given blocks.
+
+    ``blocks`` holds ``(row offset, column offset, matrix)``; blocks must not overlap.
+    """
+    flat = [field.zero] * (nrows * ncols)
+    for i0, j0, m in blocks:
+        r, c = m.shape
+        if r == 0 or c == 0:
+            continue
+        e = m._m.entries()
+        for i in range(r):
+            base = (i0 + i) * ncols + j0
+            flat[base : base + c] = e[i * c : (i + 1) * c]
+    return Mat.from_flat(field, nrows, ncols, flat)
