@@ -60,9 +60,7 @@ MAXDIM = 5
 
 Rows = list[list]
 
-# ---------------------------------------------------------------------------
-# canonical python values and the sympy reference
-# ---------------------------------------------------------------------------
+# -- canonical python values and the sympy reference -------------------------------------------
 
 
 def _canon(F: Field, x: object) -> Fraction | int:
@@ -97,9 +95,12 @@ def transpose_rows(rows: Rows, ncols: int) -> Rows:
     return [[r[j] for r in rows] for j in range(ncols)]
 
 
-def identity_rows(F: Field, n: int) -> Rows:
-    one, zero = _canon(F, 1), _canon(F, 0)
-    return [[one if i == j else zero for j in range(n)] for i in range(n)]
+def identity_rows(n: int) -> Rows:
+    return [[int(i == j) for j in range(n)] for i in range(n)]
+
+
+def _from_sympy_number(p: int, x: sympy.Rational) -> Fraction | int:
+    return Fraction(int(x.p), int(x.q)) if p == 0 else int(x) % p
 
 
 @cache
@@ -111,7 +112,6 @@ class Ref:
     """The sympy reference for one field (see the module docstring)."""
 
     def __init__(self, F: Field) -> None:
-        self.F = F
         self.p = F.characteristic
         self.K = _sympy_domain(self.p)
 
@@ -124,17 +124,7 @@ class Ref:
         return DDM(data, (len(rows), ncols), K)
 
     def back(self, d: DDM) -> Rows:
-        out = []
-        for r in d.to_list():
-            row = []
-            for x in r:
-                s = self.K.to_sympy(x)
-                if self.p == 0:
-                    row.append(Fraction(int(s.p), int(s.q)))
-                else:
-                    row.append(int(s) % self.p)
-            out.append(row)
-        return out
+        return [[_from_sympy_number(self.p, self.K.to_sympy(x)) for x in r] for r in d.to_list()]
 
     def rref(self, rows: Rows, ncols: int) -> tuple[Rows, tuple[int, ...]]:
         R, piv = self.ddm(rows, ncols).rref()
@@ -167,20 +157,10 @@ def to_sympy(F: Field, rows: Rows, ncols: int) -> sympy.Matrix:
 
 
 def from_sympy(F: Field, S: sympy.Matrix) -> Rows:
-    p = F.characteristic
-    out = []
-    for i in range(S.rows):
-        row = []
-        for j in range(S.cols):
-            x = S[i, j]
-            row.append(Fraction(int(x.p), int(x.q)) if p == 0 else int(x) % p)
-        out.append(row)
-    return out
+    return [[_from_sympy_number(F.characteristic, x) for x in S.row(i)] for i in range(S.rows)]
 
 
-# ---------------------------------------------------------------------------
-# strategies
-# ---------------------------------------------------------------------------
+# -- strategies --------------------------------------------------------------------------------
 
 fields = st.sampled_from(FIELDS)
 dims = st.integers(0, MAXDIM)
@@ -225,22 +205,13 @@ def matrices(draw) -> Mat:
 EMPTY_SHAPES = [(0, 0), (0, 3), (3, 0)]
 
 
-def _empty_cases():
-    return [(F, s) for F in FIELDS for s in EMPTY_SHAPES]
-
-
-def _ids(cases):
-    return [f"{F}-{s[0]}x{s[1]}" for F, s in cases]
-
-
-# ---------------------------------------------------------------------------
-# rank and reduced echelon form
-# ---------------------------------------------------------------------------
+# -- rank and reduced echelon form -------------------------------------------------------------
 
 
 @MEDIUM
 @given(matrices())
 def test_rank_matches_sympy(A: Mat) -> None:
+    """Reference: sympy (DDM rank and sympy.Matrix.rank)."""
     F, c = A.field, A.ncols
     rows = rows_of(A)
     expected = Ref(F).rank(rows, c)
@@ -252,6 +223,7 @@ def test_rank_matches_sympy(A: Mat) -> None:
 @MEDIUM
 @given(matrices())
 def test_rref_matches_sympy(A: Mat) -> None:
+    """Reference: sympy (DDM.rref; sympy.Matrix.rref over QQ)."""
     F, c = A.field, A.ncols
     rows = rows_of(A)
     R, piv = A.rref()
@@ -278,14 +250,13 @@ def test_rref_worked_example() -> None:
     assert rows_of(R) == [[1, 0, 1]] and piv == (0,)
 
 
-# ---------------------------------------------------------------------------
-# kernels
-# ---------------------------------------------------------------------------
+# -- kernels -----------------------------------------------------------------------------------
 
 
 @MEDIUM
 @given(matrices())
 def test_right_kernel(A: Mat) -> None:
+    """Reference: sympy DDM.nullspace; rank-nullity (from memory)."""
     F, (r, c) = A.field, A.shape
     ref, rows = Ref(F), rows_of(A)
     K = A.right_kernel()
@@ -301,6 +272,7 @@ def test_right_kernel(A: Mat) -> None:
 @MEDIUM
 @given(matrices())
 def test_left_kernel(A: Mat) -> None:
+    """Reference: sympy DDM.nullspace of the transpose; rank-nullity (from memory)."""
     F, (r, c) = A.field, A.shape
     ref, rows = Ref(F), rows_of(A)
     K = A.left_kernel()
@@ -319,9 +291,7 @@ def test_kernel_worked_example() -> None:
     assert rows_of(A.right_kernel()) == [[-2, 1]]
 
 
-# ---------------------------------------------------------------------------
-# solving, inverses, products
-# ---------------------------------------------------------------------------
+# -- solving, inverses, products ---------------------------------------------------------------
 
 
 @st.composite
@@ -341,6 +311,7 @@ def solve_cases(draw):
 @MEDIUM
 @given(solve_cases())
 def test_solve_left(case) -> None:
+    """Reference: sympy DDM ranks and products."""
     F, A, B = case
     (n, m), k = A.shape, B.nrows
     ref = Ref(F)
@@ -366,14 +337,15 @@ def test_solve_left_unsolvable_example() -> None:
 @MEDIUM
 @given(fields.flatmap(lambda F: dims.flatmap(lambda n: matrix_in(F, n, n))))
 def test_inverse(A: Mat) -> None:
+    """Reference: sympy DDM.inv."""
     F, n = A.field, A.nrows
     ref, rows = Ref(F), rows_of(A)
     if ref.rank(rows, n) == n:
         Inv = A.inverse()
         assert Inv.field is F and Inv.shape == (n, n)
         assert rows_of(Inv) == ref.inv(rows)
-        assert rows_of(A @ Inv) == identity_rows(F, n)
-        assert rows_of(Inv @ A) == identity_rows(F, n)
+        assert rows_of(A @ Inv) == identity_rows(n)
+        assert rows_of(Inv @ A) == identity_rows(n)
     else:
         with pytest.raises((ZeroDivisionError, HwcatError)):
             A.inverse()
@@ -389,6 +361,7 @@ def product_cases(draw):
 @MEDIUM
 @given(product_cases())
 def test_matmul(case) -> None:
+    """Reference: sympy DDM.matmul."""
     A, B = case
     F = A.field
     (n, k), m = A.shape, B.ncols
@@ -400,6 +373,7 @@ def test_matmul(case) -> None:
 @MEDIUM
 @given(matrices())
 def test_transpose(A: Mat) -> None:
+    """Reference: sympy.Matrix.T."""
     F, (r, c) = A.field, A.shape
     T = A.transpose()
     assert T.shape == (c, r) and A.T == T
@@ -407,30 +381,21 @@ def test_transpose(A: Mat) -> None:
     assert T.transpose() == A
 
 
-# ---------------------------------------------------------------------------
-# assembly
-# ---------------------------------------------------------------------------
+# -- assembly ----------------------------------------------------------------------------------
 
 
 @st.composite
-def same_cols(draw, max_count: int = 3):
-    F = draw(fields)
-    c = draw(dims)
-    mats = draw(st.lists(matrix_in(F, ncols=c), max_size=max_count))
-    return F, c, mats
-
-
-@st.composite
-def same_rows(draw, max_count: int = 3):
-    F = draw(fields)
-    r = draw(dims)
-    mats = draw(st.lists(matrix_in(F, nrows=r), max_size=max_count))
-    return F, r, mats
+def same_cols(draw, max_count: int = 3, rows: bool = False):
+    """``(F, d, mats)``: matrices sharing ``d`` columns (``d`` rows when ``rows``)."""
+    F, d = draw(fields), draw(dims)
+    shape = {"nrows": d} if rows else {"ncols": d}
+    return F, d, draw(st.lists(matrix_in(F, **shape), max_size=max_count))
 
 
 @MEDIUM
 @given(same_cols())
 def test_vstack(case) -> None:
+    """Reference: sympy.Matrix.vstack."""
     F, c, mats = case
     V = Mat.vstack(F, mats, c)
     assert V.shape == (sum(m.nrows for m in mats), c)
@@ -443,8 +408,9 @@ def test_vstack(case) -> None:
 
 
 @MEDIUM
-@given(same_rows())
+@given(same_cols(rows=True))
 def test_hstack(case) -> None:
+    """Reference: sympy.Matrix.hstack."""
     F, r, mats = case
     H = Mat.hstack(F, mats, r)
     assert H.shape == (r, sum(m.ncols for m in mats))
@@ -466,6 +432,7 @@ def extraction_cases(draw):
 @MEDIUM
 @given(extraction_cases())
 def test_take_rows_and_cols(case) -> None:
+    """Reference: sympy.Matrix.extract and .row."""
     A, ri, ci = case
     F, (r, c) = A.field, A.shape
     S = to_sympy(F, rows_of(A), c)
@@ -474,7 +441,7 @@ def test_take_rows_and_cols(case) -> None:
     assert rows_of(R) == from_sympy(F, S.extract(ri, list(range(c))))
     assert rows_of(C) == from_sympy(F, S.extract(list(range(r)), ci))
     for i in ri:
-        assert A.row(i) == A.take_rows([i])
+        assert rows_of(A.row(i)) == from_sympy(F, S.row(i))
 
 
 @st.composite
@@ -486,6 +453,7 @@ def block_cases(draw):
 @MEDIUM
 @given(block_cases())
 def test_block_diag(case) -> None:
+    """Reference: sympy.diag."""
     F, mats = case
     D = Mat.block_diag(F, mats)
     assert D.field is F
@@ -495,9 +463,10 @@ def test_block_diag(case) -> None:
     assert rows_of(D) == from_sympy(F, S)
 
 
-@pytest.mark.parametrize(("F", "shape"), _empty_cases(), ids=_ids(_empty_cases()))
+@pytest.mark.parametrize("shape", EMPTY_SHAPES, ids=str)
+@pytest.mark.parametrize("F", FIELDS, ids=str)
 def test_empty_shapes(F: Field, shape: tuple[int, int]) -> None:
-    # expected values are the reference's, on the same empty shapes
+    # derived from rank-nullity (from memory); ranks from the sympy reference
     r, c = shape
     ref = Ref(F)
     A = Mat.zeros(F, r, c)
@@ -505,8 +474,8 @@ def test_empty_shapes(F: Field, shape: tuple[int, int]) -> None:
     assert A.rank() == 0 == ref.rank([[0] * c for _ in range(r)], c)
     R, piv = A.rref()
     assert R.shape == (0, c) and piv == ()
-    assert A.right_kernel().shape == (c, c) and A.right_kernel() == Mat.identity(F, c)
-    assert A.left_kernel().shape == (r, r) and A.left_kernel() == Mat.identity(F, r)
+    for K, d in ((A.right_kernel(), c), (A.left_kernel(), r)):  # the whole space
+        assert K.shape == (d, d) and ref.rank(rows_of(K), d) == d
     assert A.transpose().shape == (c, r)
     assert (A @ Mat.zeros(F, c, 2)).shape == (r, 2)
     assert (Mat.zeros(F, 2, r) @ A).shape == (2, c)
@@ -520,19 +489,19 @@ def test_empty_shapes(F: Field, shape: tuple[int, int]) -> None:
     assert Mat.vstack(F, [], c).shape == (0, c) and Mat.hstack(F, [], r).shape == (r, 0)
     # subspaces of k^c given by r zero rows
     assert intersection(A, A).shape == (0, c)
-    assert complement(A) == Mat.identity(F, c)
+    C = complement(A)
+    assert C.shape == (c, c) and ref.rank(rows_of(C), c) == c
     assert contains(A, Mat.zeros(F, 1, c)) and contains(A, Mat.zeros(F, 0, c))
     pi, sec, kept = quotient_map(A)
-    assert pi == Mat.identity(F, c) and sec == Mat.identity(F, c) and kept == tuple(range(c))
+    assert pi.shape == sec.shape == (c, c) and kept == tuple(range(c))
+    assert ref.rank(rows_of(pi), c) == c and rows_of(sec @ pi) == identity_rows(c)
     assert select_independent_rows(A) == []
     assert subspace_sum(F, c, []).shape == (0, c)
     I0 = Mat.identity(F, 0)
     assert I0.inverse() == I0 and I0.shape == (0, 0)
 
 
-# ---------------------------------------------------------------------------
-# subspaces
-# ---------------------------------------------------------------------------
+# -- subspaces ---------------------------------------------------------------------------------
 
 
 @st.composite
@@ -549,6 +518,7 @@ def subspace_pairs(draw):
 @MEDIUM
 @given(same_cols(max_count=4))
 def test_subspace_sum(case) -> None:
+    """Reference: sympy DDM.rref of all the rows together."""
     F, n, spaces = case
     S = subspace_sum(F, n, spaces)
     everything = [row for m in spaces for row in rows_of(m)]
@@ -559,6 +529,7 @@ def test_subspace_sum(case) -> None:
 @MEDIUM
 @given(subspace_pairs())
 def test_intersection(case) -> None:
+    """Reference: sympy DDM ranks; the dimension formula (from memory)."""
     F, n, U, W = case
     ref = Ref(F)
     u, w = rows_of(U), rows_of(W)
@@ -584,6 +555,7 @@ def test_intersection_doc_example() -> None:
 @MEDIUM
 @given(matrices())
 def test_complement(U: Mat) -> None:
+    """Reference: sympy DDM ranks."""
     F, n = U.field, U.ncols
     ref, u = Ref(F), rows_of(U)
     C = complement(U)
@@ -613,6 +585,7 @@ def containment_cases(draw):
 @MEDIUM
 @given(containment_cases())
 def test_contains(case) -> None:
+    """Reference: sympy DDM ranks."""
     U, v = case
     F, n = U.field, U.ncols
     ref, u = Ref(F), rows_of(U)
@@ -622,6 +595,7 @@ def test_contains(case) -> None:
 @MEDIUM
 @given(matrices())
 def test_quotient_map(U: Mat) -> None:
+    """Reference: sympy DDM rref, nullspace and products."""
     F, n = U.field, U.ncols
     ref, u = Ref(F), rows_of(U)
     rank = ref.rank(u, n)
@@ -632,7 +606,7 @@ def test_quotient_map(U: Mat) -> None:
     pivots = ref.rref(u, n)[1]
     assert kept == tuple(j for j in range(n) if j not in pivots)
     p = rows_of(pi)
-    assert ref.matmul(rows_of(sec), n, p, q) == identity_rows(F, q)  # section @ pi = 1
+    assert ref.matmul(rows_of(sec), n, p, q) == identity_rows(q)  # section @ pi = 1
     assert ref.rank(p, q) == q  # onto
     # kernel of v -> v @ pi is exactly the row space of U
     ker = ref.nullspace(transpose_rows(p, q), n)
@@ -652,6 +626,7 @@ def selection_cases(draw):
 @MEDIUM
 @given(selection_cases())
 def test_select_independent_rows(case) -> None:
+    """Reference: sympy DDM ranks (greedy rule as documented)."""
     A, basis = case
     F, n = A.field, A.ncols
     ref, a = Ref(F), rows_of(A)
@@ -665,9 +640,7 @@ def test_select_independent_rows(case) -> None:
     assert ref.rank(b + kept, n) == ref.rank(b + a, n)  # spans with the basis
 
 
-# ---------------------------------------------------------------------------
-# fields
-# ---------------------------------------------------------------------------
+# -- fields ------------------------------------------------------------------------------------
 
 
 def test_field_primes_are_primes() -> None:
@@ -676,7 +649,7 @@ def test_field_primes_are_primes() -> None:
     assert BIG_PRIME < 2**63 and sympy.nextprime(BIG_PRIME) >= 2**63
 
 
-@pytest.mark.parametrize("F", FIELDS, ids=[str(F) for F in FIELDS])
+@pytest.mark.parametrize("F", FIELDS, ids=str)
 def test_parse_integers_and_fractions(F: Field) -> None:
     p = F.characteristic
     for text, value in [("3", 3), ("-2", -2), ("+5", 5), (" 7 ", 7), ("0", 0)]:
@@ -689,7 +662,7 @@ def test_parse_integers_and_fractions(F: Field) -> None:
         assert _canon(F, F.parse("3/4")) == Fraction(3, 4)
         assert _canon(F, F.parse("-6/8")) == Fraction(-3, 4)
         assert F(Fraction(3, 4)) == F.parse("3/4")
-    elif p not in (2,):
+    elif p != 2:  # in GF(2), 3/4 has a denominator divisible by p
         # 3/4 means 3 * 4^(-1); the inverse from python's pow (common practice)
         assert _canon(F, F.parse("3/4")) == 3 * pow(4, -1, p) % p
         assert F(Fraction(3, 4)) == F.parse("3/4")
@@ -731,7 +704,7 @@ def test_denominator_divisible_by_p(p: int) -> None:
     assert _canon(QQ, QQ.parse(f"5/{p}")) == Fraction(5, p)
 
 
-@pytest.mark.parametrize("F", FIELDS, ids=[str(F) for F in FIELDS])
+@pytest.mark.parametrize("F", FIELDS, ids=str)
 def test_inexact_and_malformed_coefficients_rejected(F: Field) -> None:
     for bad in (1.5, 2.0, 0.0, True, False):
         with pytest.raises(CoefficientError):
@@ -748,11 +721,14 @@ def test_inexact_and_malformed_coefficients_rejected(F: Field) -> None:
 
 
 @pytest.mark.parametrize(
-    "p", [0, 1, -7, 4, 9, 91, 2**61, MERSENNE_61 * 3, 2**63 + 29, 2**64 + 13, 2**127 - 1]
+    "p",
+    [0, 1, -7, 4, 9, 91, 2**61, MERSENNE_61 * 3, 2**63 + 29, 2**64 + 13, 2**127 - 1]
+    + [True, 7.0, "7", Fraction(7)],
+    ids=repr,
 )
-def test_gf_rejects_nonprimes_and_large(p: int) -> None:
+def test_gf_rejects_nonprimes_large_and_non_integers(p) -> None:
     # 2^63 + 29, 2^64 + 13 and 2^127 - 1 are primes at or above the limit
-    if p >= 2**63:
+    if isinstance(p, int) and p >= 2**63:
         assert sympy.isprime(p)
     with pytest.raises(FieldError):
         GF(p)
@@ -768,12 +744,6 @@ def test_gf_accepts_exactly_the_primes(n: int) -> None:
             GF(n)
 
 
-def test_gf_rejects_non_integers() -> None:
-    for bad in (True, 7.0, "7", Fraction(7)):
-        with pytest.raises(FieldError):
-            GF(bad)  # type: ignore[arg-type]
-
-
 def test_parse_field() -> None:
     assert parse_field("QQ") is QQ
     assert parse_field("GF(101)") is GF(101)
@@ -783,20 +753,16 @@ def test_parse_field() -> None:
         assert parse_field(str(F)) is F
 
 
-@pytest.mark.parametrize(
-    "text",
-    ["", "   ", "GF", "GF()", "GF(7", "GF 7", "GF(x)", "GF(-7)", "GF(7.0)", "GF(6)", "GF(1)",
-     "GF(7)(", "GF(2^61-1)", "QQ(2)", "RR", "ZZ", "QQQ", f"GF({2**63 + 29})"],
-)
+MALFORMED_FIELDS = [  # common practice: names that are not "QQ" or "GF(p)" with p a prime < 2^63
+    *("", "   ", "GF", "GF()", "GF(7", "GF 7", "GF(x)", "GF(-7)", "GF(7.0)", "GF(6)"),
+    *("GF(1)", "GF(7)(", "GF(2^61-1)", "QQ(2)", "RR", "ZZ", "QQQ", f"GF({2**63 + 29})"),
+]
+
+
+@pytest.mark.parametrize("text", [*MALFORMED_FIELDS, 7, None, QQ])
 def test_parse_field_malformed(text: str) -> None:
     with pytest.raises(FieldError):
         parse_field(text)
-
-
-def test_parse_field_non_string() -> None:
-    for bad in (7, None, QQ):
-        with pytest.raises(FieldError):
-            parse_field(bad)  # type: ignore[arg-type]
 
 
 def test_matrices_over_different_fields_never_equal() -> None:
@@ -818,8 +784,9 @@ def test_matrices_over_different_fields_never_equal() -> None:
 )
 def test_same_integers_over_two_fields_differ(pair, r: int, c: int, data) -> None:
     F, G = pair
-    rows = data.draw(st.lists(st.lists(st.integers(0, 1), min_size=c, max_size=c),
-                              min_size=r, max_size=r))
+    rows = data.draw(
+        st.lists(st.lists(st.integers(0, 1), min_size=c, max_size=c), min_size=r, max_size=r)
+    )
     A, B = mk(F, rows, c), mk(G, rows, c)
     assert A != B and not (A == B)
     assert A == mk(F, rows, c)  # but equal to itself rebuilt

@@ -178,7 +178,9 @@ class BasicAlgebra:
         left: list[dict[int, Mat]] = []  # left[a][s] : e_{t(a)} A e_s -> e_{s(a)} A e_s
         for i, a in enumerate(self.arrows):
             u = a.source
-            unit = Mat.unit_rows(F, self.block_dim(u, a.target), [self.word_index(u, a.target)[(i,)]])
+            unit = Mat.unit_rows(
+                F, self.block_dim(u, a.target), [self.word_index(u, a.target)[(i,)]]
+            )
             memo: dict[Path, Mat] = {(): unit}
             per_s: dict[int, Mat] = {}
             for s in range(n):
@@ -195,7 +197,10 @@ class BasicAlgebra:
             maps = tuple(left[i][s] for i in range(len(self.arrows)))
             reps.append((dims, maps))
         op = BasicAlgebra.from_cyclic_representations(
-            F, opq, reps, name=f"{self.name} (opposite)" if self.name else "opposite",
+            F,
+            opq,
+            reps,
+            name=f"{self.name} (opposite)" if self.name else "opposite",
             morita=self.morita,
         )
         op._cache["opposite"] = self
@@ -248,11 +253,17 @@ class BasicAlgebra:
         keep = [v for v in range(self.n) if v not in S]
         newidx = {v: k for k, v in enumerate(keep)}
         F = self.field
-        kept_arrows = [i for i, a in enumerate(self.arrows) if a.source in newidx and a.target in newidx]
+        kept_arrows = [
+            i for i, a in enumerate(self.arrows) if a.source in newidx and a.target in newidx
+        ]
         quiver = Quiver(
             tuple(self.vertices[v] for v in keep),
             tuple(
-                Arrow(self.arrows[i].name, newidx[self.arrows[i].source], newidx[self.arrows[i].target])
+                Arrow(
+                    self.arrows[i].name,
+                    newidx[self.arrows[i].source],
+                    newidx[self.arrows[i].target],
+                )
                 for i in kept_arrows
             ),
         )
@@ -265,7 +276,11 @@ class BasicAlgebra:
             reps.append((tuple(qd[v] for v in keep), tuple(qm[i] for i in kept_arrows)))
             starts.append(pis[s].take_rows([0]))
         return BasicAlgebra.from_cyclic_representations(
-            F, quiver, reps, starts=starts, name=self.name,
+            F,
+            quiver,
+            reps,
+            starts=starts,
+            name=self.name,
             morita=tuple(self.morita[v] for v in keep),
         )
 
@@ -288,16 +303,25 @@ class BasicAlgebra:
         quiver = Quiver(
             tuple(self.vertices[v] for v in keep),
             tuple(
-                Arrow(self.arrows[i].name, newidx[self.arrows[i].source], newidx[self.arrows[i].target])
+                Arrow(
+                    self.arrows[i].name,
+                    newidx[self.arrows[i].source],
+                    newidx[self.arrows[i].target],
+                )
                 for i in arrows
             ),
         )
         words = [
-            [tuple(tuple(remap[x] for x in w) for w in self.words[s][t]) for t in keep] for s in keep
+            [tuple(tuple(remap[x] for x in w) for w in self.words[s][t]) for t in keep]
+            for s in keep
         ]
         action = [[self.action[s][i] for i in arrows] for s in keep]
         return BasicAlgebra(
-            self.field, quiver, words, action, name=self.name,
+            self.field,
+            quiver,
+            words,
+            action,
+            name=self.name,
             morita=[self.morita[v] for v in keep],
         )
 
@@ -319,7 +343,11 @@ class BasicAlgebra:
             "field": self.field.name,
             "vertices": list(self.vertices),
             "arrows": [
-                {"name": a.name, "source": self.vertices[a.source], "target": self.vertices[a.target]}
+                {
+                    "name": a.name,
+                    "source": self.vertices[a.source],
+                    "target": self.vertices[a.target],
+                }
                 for a in self.arrows
             ],
             "dimension": self.dim,

@@ -179,9 +179,6 @@ def _graded(
                         w = cols[order[p]][0]
                         if w[1:] in normal:
                             max_tip = max(max_tip, d)
-                if not kept_words:
-                    # still record the (zero) action maps below
-                    pass
                 cur.words[s][t] = kept_words
                 cur.index[s][t] = {w: k for k, w in enumerate(kept_words)}
                 normal.update(kept_words)
@@ -217,7 +214,6 @@ def _relation_images(
     pos: dict[int, int],
 ) -> Mat:
     """Rows spanning the image of ``b * r`` (deg b + deg r = d) in the column space."""
-    arrows = Q.arrows
     ncols = len(cols)
     colpos = {(c[1], c[2]): pos[j] for j, c in enumerate(cols)}  # (arrow, prev row) -> position
     blocks = []
@@ -262,7 +258,9 @@ def _surviving_cycle(Q: Quiver, degrees: list[_Degree], D: int) -> Path | None:
             for w in degrees[D].words[s][t]:
                 pre, suf = w[:-1], w[1:]
                 if D == 1:
-                    G.add_edge(("v", Q.arrows[w[0]].source), ("v", Q.arrows[w[0]].target), arrow=w[-1])
+                    G.add_edge(
+                        ("v", Q.arrows[w[0]].source), ("v", Q.arrows[w[0]].target), arrow=w[-1]
+                    )
                 else:
                     G.add_edge(pre, suf, arrow=w[-1])
     try:

@@ -98,7 +98,7 @@ def parse_arrow(text: str) -> tuple[str, str, str]:
     """Read ``"a: 1 -> 2"`` into ``("a", "1", "2")``."""
     m = _ARROW_RE.match(text)
     if not m:
-        raise QuiverError(f"arrow {text!r} is not of the form \"name: source -> target\"")
+        raise QuiverError(f'arrow {text!r} is not of the form "name: source -> target"')
     return m.group(1), m.group(2), m.group(3)
 
 

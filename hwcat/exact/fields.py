@@ -22,7 +22,7 @@ from __future__ import annotations
 
 import re
 from fractions import Fraction
-from functools import lru_cache
+from functools import cache
 from typing import Any
 
 import flint
@@ -179,7 +179,7 @@ QQ = RationalField()
 """The rational numbers."""
 
 
-@lru_cache(maxsize=None)
+@cache
 def _prime_field(p: int) -> PrimeField:
     return PrimeField(p)
 
@@ -215,10 +215,10 @@ def parse_field(text: str) -> Field:
     GF(2)
     """
     if not isinstance(text, str):
-        raise FieldError(f"field {text!r}: expected a string such as \"QQ\" or \"GF(101)\"")
+        raise FieldError(f'field {text!r}: expected a string such as "QQ" or "GF(101)"')
     if text.strip() in ("QQ", "Q"):
         return QQ
     m = _FIELD_NAME.match(text)
     if not m:
-        raise FieldError(f"field {text!r}: unknown field (expected \"QQ\" or \"GF(p)\", p prime)")
+        raise FieldError(f'field {text!r}: unknown field (expected "QQ" or "GF(p)", p prime)')
     return GF(int(m.group(1)))

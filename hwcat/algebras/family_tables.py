@@ -1,0 +1,780 @@
+"""Built-in algebras given by a multiplication table on a named basis.
+
+Each function returns a :class:`MultiplicationTable`: a basis of named
+elements and the products of basis elements, stored sparsely.  The tables are
+plain data; turning them into an algebra object is done elsewhere.
+
+Families
+--------
+- :func:`temperley_lieb` -- the Temperley--Lieb algebra ``TL_n(delta)``, diagram basis;
+- :func:`schur_algebra_2` -- the Schur algebra ``S(2, r)``, Green's basis;
+- :func:`symmetric_group_algebra`, :func:`cyclic_group_algebra` -- group bases;
+- :func:`small_quantum_sl2` -- the small quantum group ``u_q(sl_2)``, PBW basis.
+
+:func:`check_associative` and :func:`check_unit` verify a table exactly.
+
+Examples
+--------
+>>> from hwcat.exact import QQ
+>>> T = temperley_lieb(3, 2, QQ)
+>>> T.dim, T.basis[0]
+(5, "(1,1')(2,2')(3,3')")
+>>> check_associative(T) and check_unit(T)
+True
+"""
+
+from __future__ import annotations
+
+import gc
+import itertools
+from collections.abc import Iterable
+from dataclasses import dataclass
+from math import comb
+from typing import Any
+
+from hwcat.errors import SpecError, StructureConstantsError
+from hwcat.exact.fields import QQ, Field, parse_field
+
+__all__ = [
+    "MultiplicationTable",
+    "temperley_lieb",
+    "schur_algebra_2",
+    "symmetric_group_algebra",
+    "cyclic_group_algebra",
+    "small_quantum_sl2",
+    "check_associative",
+    "check_unit",
+]
+
+Vector = dict[int, Any]
+
+
+@dataclass(frozen=True)
+class MultiplicationTable:
+    """A finite-dimensional algebra given by structure constants on a named basis.
+
+    Attributes
+    ----------
+    name : str
+        A human-readable name such as ``"TL_3(2) over QQ"``.
+    field : Field
+        The field of the coefficients.
+    basis : tuple of str
+        The names of the basis elements; basis element ``i`` is ``basis[i]``.
+    products : dict
+        Sparse structure constants: ``products[(i, j)]`` is ``{k: c_k}`` with
+        every ``c_k`` a nonzero field element, meaning
+        ``basis[i] * basis[j] = sum_k c_k basis[k]``.  A missing pair means the
+        product is zero.  The inner dictionaries may be shared between pairs,
+        so treat the table as read-only.
+    unit : dict
+        The coordinates ``{k: c_k}`` of the identity element.
+    """
+
+    name: str
+    field: Field
+    basis: tuple[str, ...]
+    products: dict[tuple[int, int], dict[int, Any]]
+    unit: dict[int, Any]
+
+    @property
+    def dim(self) -> int:
+        """The dimension of the algebra."""
+        return len(self.basis)
+
+    def index(self, name: str) -> int:
+        """The position of the basis element called ``name``.
+
+        >>> cyclic_group_algebra(3).index("g^2")
+        2
+        """
+        try:
+            return self.basis.index(name)
+        except ValueError:
+            raise SpecError(f"{self.name}: no basis element named {name!r}") from None
+
+    def multiply(self, x: Vector, y: Vector) -> Vector:
+        """The product of two sparse vectors ``{index: coefficient}``.
+
+        >>> C = cyclic_group_algebra(3)
+        >>> C.multiply({1: C.field(1)}, {2: C.field(1)})
+        {0: 1}
+        """
+        zero = self.field.zero
+        out: dict[int, Any] = {}
+        P = self.products
+        for i, xi in x.items():
+            for j, yj in y.items():
+                p = P.get((i, j))
+                if not p:
+                    continue
+                c = xi * yj
+                for k, v in p.items():
+                    out[k] = out.get(k, zero) + c * v
+        return {k: v for k, v in out.items() if v != 0}
+
+    def to_dict(self) -> dict:
+        """A JSON-ready form.
+
+        Keys: ``name``, ``field`` (``"QQ"`` or ``"GF(p)"``), ``dimension``,
+        ``basis`` (list of names), ``products`` (list of ``[i, j, terms]``
+        sorted by ``(i, j)``, with ``terms`` a list of ``[k, coefficient]``),
+        ``unit`` (list of ``[k, coefficient]``).  Coefficients are ints, or
+        strings ``"p/q"`` for non-integral rationals.
+
+        >>> cyclic_group_algebra(2).to_dict()["products"]
+        [[0, 0, [[0, 1]]], [0, 1, [[1, 1]]], [1, 0, [[1, 1]]], [1, 1, [[0, 1]]]]
+        """
+        conv = self.field.to_int_or_str
+
+        def terms(v: Vector) -> list:
+            return [[k, conv(c)] for k, c in sorted(v.items())]
+
+        return {
+            "name": self.name,
+            "field": self.field.name,
+            "dimension": self.dim,
+            "basis": list(self.basis),
+            "products": [[i, j, terms(self.products[(i, j)])] for i, j in sorted(self.products)],
+            "unit": terms(self.unit),
+        }
+
+
+# -- argument checks ---------------------------------------------------------
+
+
+def _as_field(field: Field | str) -> Field:
+    if isinstance(field, Field):
+        return field
+    return parse_field(field)
+
+
+def _check_int(value: Any, what: str, minimum: int) -> int:
+    if isinstance(value, bool) or not isinstance(value, int):
+        raise SpecError(f"{what} must be an integer, got {value!r}")
+    if value < minimum:
+        raise SpecError(f"{what} must be at least {minimum}, got {value}")
+    return value
+
+
+# -- Temperley-Lieb ------------------------------------------------------------
+
+
+def _half_diagrams(n: int) -> list[tuple[int, ...]]:
+    """Noncrossing partial matchings of ``0..n-1`` whose free points lie outside all arcs.
+
+    Entry ``h[x]`` is the partner of ``x``, or ``-1`` if ``x`` is free (a
+    through strand leaves from it).
+    """
+    out: list[tuple[int, ...]] = []
+    cur = [0] * n
+    stack: list[int] = []
+
+    def rec(pos: int) -> None:
+        if pos == n:
+            if not stack:
+                out.append(tuple(cur))
+            return
+        if not stack:
+            cur[pos] = -1
+            rec(pos + 1)
+        if len(stack) < n - pos - 1:
+            stack.append(pos)
+            rec(pos + 1)
+            stack.pop()
+        if stack:
+            o = stack.pop()
+            cur[o], cur[pos] = pos, o
+            rec(pos + 1)
+            stack.append(o)
+
+    rec(0)
+    return out
+
+
+def _free(h: tuple[int, ...]) -> list[int]:
+    return [x for x, y in enumerate(h) if y == -1]
+
+
+def _middle(B: tuple[int, ...], T: tuple[int, ...]) -> tuple[int, list, list]:
+    """Stack the bottom half ``B`` of one diagram on the top half ``T`` of the next.
+
+    Returns the number of closed loops, the pairs of free points of ``B``
+    joined to each other (as positions in the list of free points), and the
+    same for ``T``.  The remaining free points are joined in order (planarity).
+    """
+    n = len(B)
+    upi = {x: k for k, x in enumerate(_free(B))}
+    downi = {x: k for k, x in enumerate(_free(T))}
+    seen = [False] * n
+    up_pairs, down_pairs = [], []
+    # walks starting at a free point of B: alternate T-arc, B-arc
+    for x in upi:
+        if seen[x]:
+            continue
+        seen[x] = True
+        y = x
+        while True:
+            if T[y] == -1:
+                break  # a through strand
+            z = T[y]
+            seen[z] = True
+            if B[z] == -1:
+                up_pairs.append((upi[x], upi[z]))
+                break
+            y = B[z]
+            seen[y] = True
+    # walks starting at a free point of T not reached yet end at a free point of T
+    for x in downi:
+        if seen[x]:
+            continue
+        seen[x] = True
+        y = x
+        while True:
+            z = B[y]
+            seen[z] = True
+            if T[z] == -1:
+                down_pairs.append((downi[x], downi[z]))
+                break
+            y = T[z]
+            seen[y] = True
+    loops = 0
+    for x in range(n):
+        if seen[x]:
+            continue
+        loops += 1
+        y = x
+        while not seen[y]:
+            seen[y] = True
+            z = B[y]
+            seen[z] = True
+            y = T[z]
+    return loops, up_pairs, down_pairs
+
+
+def _join(h: tuple[int, ...], pairs: list) -> tuple[int, ...]:
+    if not pairs:
+        return h
+    free = _free(h)
+    out = list(h)
+    for k1, k2 in pairs:
+        x, y = free[k1], free[k2]
+        out[x], out[y] = y, x
+    return tuple(out)
+
+
+def _tl_name(T: tuple[int, ...], B: tuple[int, ...]) -> str:
+    n = len(T)
+    pairs = [(x, y) for x, y in enumerate(T) if x < y]
+    pairs += [(n + x, n + y) for x, y in enumerate(B) if x < y]
+    pairs += [(x, n + y) for x, y in zip(_free(T), _free(B), strict=True)]
+    pairs.sort()
+
+    def label(p: int) -> str:
+        return str(p + 1) if p < n else f"{p - n + 1}'"
+
+    return "".join(f"({label(x)},{label(y)})" for x, y in pairs) or "()"
+
+
+def temperley_lieb(n: int, delta: Any, field: Field | str = QQ) -> MultiplicationTable:
+    """The Temperley--Lieb algebra ``TL_n(delta)`` in the diagram basis.
+
+    Parameters
+    ----------
+    n : int
+        The number of strands, ``n >= 0``.
+    delta : int, Fraction, str or field element
+        The loop parameter.
+    field : Field or str
+        ``QQ`` or ``GF(p)``.
+
+    Returns
+    -------
+    MultiplicationTable
+        Dimension ``Catalan(n)``; basis element 0 is the identity diagram.
+
+    Notes
+    -----
+    A basis diagram is a planar perfect matching of ``n`` top points
+    ``1..n`` and ``n`` bottom points ``1'..n'``; its name lists the pairs,
+    e.g. ``"(1,2)(1',2')(3,3')"`` (``"()"`` for ``n = 0``).  The product
+    ``D1 * D2`` puts ``D1`` above ``D2``, glues the bottom points of ``D1``
+    to the top points of ``D2`` and multiplies by ``delta`` for each closed
+    loop.  The generator ``e_i`` is the diagram with pairs ``(i,i+1)`` and
+    ``(i',(i+1)')`` and vertical strands elsewhere.  Standard (from memory).
+
+    Each diagram is split into a top and a bottom half (arcs plus free
+    points); the gluing of one bottom half with one top half is computed once
+    and reused for all diagrams with those halves.
+
+    Examples
+    --------
+    >>> T = temperley_lieb(2, -1, "GF(5)")
+    >>> T.basis
+    ("(1,1')(2,2')", "(1,2)(1',2')")
+    >>> T.products[(1, 1)]
+    {1: 4}
+    """
+    n = _check_int(n, "temperley_lieb: n", 0)
+    F = _as_field(field)
+    d = F(delta)
+    halves = _half_diagrams(n)
+    hid = {h: k for k, h in enumerate(halves)}
+    nfree = [h.count(-1) for h in halves]
+    pairs = [(T, B) for T in range(len(halves)) for B in range(len(halves)) if nfree[T] == nfree[B]]
+    pairs.sort(key=lambda tb: (-nfree[tb[0]], halves[tb[0]], halves[tb[1]]))
+    basis = tuple(_tl_name(halves[T], halves[B]) for T, B in pairs)
+    dim = len(basis)
+    index: list[dict[int, int]] = [dict() for _ in halves]  # index[T][B]
+    rows: list[list[tuple[int, int]]] = [[] for _ in halves]  # bottom B -> [(i, T)]
+    cols: list[list[tuple[int, int]]] = [[] for _ in halves]  # top T -> [(j, B)]
+    for i, (T, B) in enumerate(pairs):
+        index[T][B] = i
+        rows[B].append((i, T))
+        cols[T].append((i, B))
+    gc_was_enabled = gc.isenabled()
+    gc.disable()  # millions of small containers are made below; collection only slows it
+    try:
+        products = _tl_products(halves, hid, rows, cols, index, dim, d)
+    finally:
+        if gc_was_enabled:
+            gc.enable()
+    return MultiplicationTable(
+        name=f"TL_{n}({F.to_str(d)}) over {F.name}",
+        field=F,
+        basis=basis,
+        products=products,
+        unit={0: F.one},
+    )
+
+
+def _tl_products(
+    halves: list, hid: dict, rows: list, cols: list, index: list, dim: int, d: Any
+) -> dict[tuple[int, int], dict[int, Any]]:
+    powers: dict[int, Any] = {}
+    shared: dict[int, list[dict[int, Any]]] = {}  # loops -> [{k: delta^loops}]
+    products: dict[tuple[int, int], dict[int, Any]] = {}
+    for B1, hB1 in enumerate(halves):
+        if not rows[B1]:
+            continue
+        for T2, hT2 in enumerate(halves):
+            if not cols[T2]:
+                continue
+            loops, up, down = _middle(hB1, hT2)
+            if loops not in shared:
+                c = powers.setdefault(loops, d**loops)
+                if c == 0:
+                    shared[loops] = []
+                else:
+                    shared[loops] = [{k: c} for k in range(dim)]
+            vals = shared[loops]
+            if not vals:
+                continue
+            new_bottoms = [hid[_join(halves[B2], down)] for _, B2 in cols[T2]]
+            js = [j for j, _ in cols[T2]]
+            for i, T1 in rows[B1]:
+                row = index[hid[_join(halves[T1], up)]]
+                products.update(
+                    zip([(i, j) for j in js], [vals[row[b]] for b in new_bottoms], strict=True)
+                )
+    return products
+
+
+# -- Schur algebra S(2, r) -----------------------------------------------------
+
+
+def schur_algebra_2(r: int, field: Field | str = QQ) -> MultiplicationTable:
+    """The Schur algebra ``S(2, r)`` in Green's basis ``xi_{i,j}``.
+
+    Parameters
+    ----------
+    r : int
+        The degree, ``r >= 0``.
+    field : Field or str
+        ``QQ`` or ``GF(p)``.
+
+    Returns
+    -------
+    MultiplicationTable
+        Dimension ``binomial(r + 3, 3)``; the unit is the sum of the ``xi_{i,i}``.
+
+    Notes
+    -----
+    The basis element ``xi_{i,j}`` is indexed by an ``S_r``-orbit of pairs
+    ``(i, j)`` of multi-indices in ``I(2, r)``; the orbit is recorded by the
+    2x2 matrix ``A`` with ``A[u][v] = #{t : i_t = u, j_t = v}``.  Its name is
+    ``"xi(i;j)"`` for the representative with the pairs ``(i_t, j_t)`` sorted,
+    e.g. ``"xi(112;121)"``.  Green's product rule: the coefficient of
+    ``xi_{p,q}`` in ``xi_{i,j} xi_{k,l}`` is the number of ``s`` in ``I(2, r)``
+    with ``(i, j) ~ (p, s)`` and ``(k, l) ~ (s, q)``.  Sorting the positions of
+    ``(p, q)`` by ``(p_t, s_t, q_t)`` turns the count into a sum over 2x2x2
+    arrays ``m`` with margins ``A`` and ``B`` of the products of binomials
+    ``binom(c_uw, m_u1w)`` (derived from the rule).
+
+    References
+    ----------
+    J. A. Green, *Polynomial Representations of GL_n*, Lecture Notes in
+    Math. 830 (1980).
+
+    Examples
+    --------
+    >>> S = schur_algebra_2(1)
+    >>> S.dim, S.basis
+    (4, ('xi(1;1)', 'xi(1;2)', 'xi(2;1)', 'xi(2;2)'))
+    >>> S.products[(1, 2)]
+    {0: 1}
+    """
+    r = _check_int(r, "schur_algebra_2: r", 0)
+    F = _as_field(field)
+    mats = sorted(
+        (
+            (a, b, c, r - a - b - c)
+            for a in range(r + 1)
+            for b in range(r + 1 - a)
+            for c in range(r + 1 - a - b)
+        ),
+        reverse=True,
+    )
+    idx = {A: k for k, A in enumerate(mats)}
+
+    def name(A: tuple[int, int, int, int]) -> str:
+        a11, a12, a21, a22 = A
+        i = "1" * (a11 + a12) + "2" * (a21 + a22)
+        j = "1" * a11 + "2" * a12 + "1" * a21 + "2" * a22
+        return f"xi({i};{j})"
+
+    by_rowsum: dict[int, list[int]] = {}  # weight of the first multi-index -> basis
+    for k, (b11, b12, _, _) in enumerate(mats):
+        by_rowsum.setdefault(b11 + b12, []).append(k)
+    products: dict[tuple[int, int], dict[int, Any]] = {}
+    for ka, (a11, a12, a21, a22) in enumerate(mats):
+        for kb in by_rowsum.get(a11 + a21, ()):
+            b11, b12, b21, b22 = mats[kb]
+            acc: dict[int, int] = {}
+            for x in range(max(0, b11 - a21), min(a11, b11) + 1):
+                m112, m211, m212 = a11 - x, b11 - x, a21 - b11 + x
+                for y in range(max(0, b21 - a22), min(a12, b21) + 1):
+                    m122, m221, m222 = a12 - y, b21 - y, a22 - b21 + y
+                    c11, c12, c21, c22 = x + y, m112 + m122, m211 + m221, m212 + m222
+                    coef = comb(c11, x) * comb(c12, m112) * comb(c21, m211) * comb(c22, m212)
+                    k = idx[(c11, c12, c21, c22)]
+                    acc[k] = acc.get(k, 0) + coef
+            entry = {k: F(v) for k, v in acc.items()}
+            entry = {k: v for k, v in entry.items() if v != 0}
+            if entry:
+                products[(ka, kb)] = entry
+    unit = {idx[(a, 0, 0, r - a)]: F.one for a in range(r + 1)}
+    return MultiplicationTable(
+        name=f"S(2,{r}) over {F.name}",
+        field=F,
+        basis=tuple(name(A) for A in mats),
+        products=products,
+        unit=unit,
+    )
+
+
+# -- group algebras ------------------------------------------------------------
+
+
+def _cycle_name(perm: tuple[int, ...]) -> str:
+    seen = [False] * len(perm)
+    parts = []
+    for x in range(len(perm)):
+        if seen[x] or perm[x] == x:
+            continue
+        cyc = []
+        y = x
+        while not seen[y]:
+            seen[y] = True
+            cyc.append(str(y + 1))
+            y = perm[y]
+        parts.append("(" + ",".join(cyc) + ")")
+    return "".join(parts) or "()"
+
+
+def symmetric_group_algebra(n: int, field: Field | str = QQ) -> MultiplicationTable:
+    """The group algebra of the symmetric group ``S_n`` in the group basis.
+
+    Parameters
+    ----------
+    n : int
+        ``n >= 0`` (``S_0`` and ``S_1`` are trivial).
+    field : Field or str
+        ``QQ`` or ``GF(p)``.
+
+    Notes
+    -----
+    Basis: the permutations of ``{1, ..., n}`` in lexicographic order of their
+    one-line notation, named in cycle notation (``"()"`` is the identity,
+    basis element 0).  The product is composition, ``(s * t)(x) = s(t(x))``:
+    ``t`` is applied first.  Standard.
+
+    Examples
+    --------
+    >>> S = symmetric_group_algebra(3)
+    >>> S.basis
+    ('()', '(2,3)', '(1,2)', '(1,2,3)', '(1,3,2)', '(1,3)')
+    >>> S.basis[next(iter(S.products[(1, 2)]))]
+    '(1,3,2)'
+    """
+    n = _check_int(n, "symmetric_group_algebra: n", 0)
+    F = _as_field(field)
+    perms = list(itertools.permutations(range(n)))
+    idx = {p: k for k, p in enumerate(perms)}
+    one = F.one
+    products = {}
+    for i, s in enumerate(perms):
+        for j, t in enumerate(perms):
+            products[(i, j)] = {idx[tuple(s[x] for x in t)]: one}
+    return MultiplicationTable(
+        name=f"group algebra of S_{n} over {F.name}",
+        field=F,
+        basis=tuple(_cycle_name(p) for p in perms),
+        products=products,
+        unit={0: one},
+    )
+
+
+def cyclic_group_algebra(m: int, field: Field | str = QQ) -> MultiplicationTable:
+    """The group algebra of the cyclic group of order ``m`` in the group basis.
+
+    Basis ``1, g, g^2, ..., g^(m-1)`` with ``g^i g^j = g^((i+j) mod m)``.  Standard.
+
+    >>> cyclic_group_algebra(4, "GF(2)").basis
+    ('1', 'g', 'g^2', 'g^3')
+    """
+    m = _check_int(m, "cyclic_group_algebra: m", 1)
+    F = _as_field(field)
+    one = F.one
+    products = {(i, j): {(i + j) % m: one} for i in range(m) for j in range(m)}
+    names = tuple("1" if k == 0 else "g" if k == 1 else f"g^{k}" for k in range(m))
+    return MultiplicationTable(
+        name=f"group algebra of C_{m} over {F.name}",
+        field=F,
+        basis=names,
+        products=products,
+        unit={0: one},
+    )
+
+
+# -- small quantum group -----------------------------------------------------------
+
+
+def _multiplicative_order(q: Any, bound: int) -> int | None:
+    """The least ``m`` in ``1..bound`` with ``q^m = 1``, else ``None``."""
+    x = q
+    for m in range(1, bound + 1):
+        if x == 1:
+            return m
+        x = x * q
+    return None
+
+
+def _pbw_name(a: int, b: int, c: int) -> str:
+    parts = [f"{s}^{e}" if e > 1 else s for s, e in (("F", a), ("K", b), ("E", c)) if e]
+    return "*".join(parts) or "1"
+
+
+def small_quantum_sl2(ell: int, q: Any, field: Field | str) -> MultiplicationTable:
+    """The small quantum group ``u_q(sl_2)`` at a primitive ``ell``-th root of unity.
+
+    Parameters
+    ----------
+    ell : int
+        An odd integer ``>= 3``.
+    q : int, str or field element
+        An element of multiplicative order exactly ``ell`` in ``field``.
+    field : Field or str
+        Usually ``GF(p)`` with ``ell`` dividing ``p - 1`` (``QQ`` has no such ``q``).
+
+    Returns
+    -------
+    MultiplicationTable
+        Dimension ``ell^3``; basis element 0 is the identity.
+
+    Raises
+    ------
+    SpecError
+        If ``ell`` is not odd and at least 3, or ``q`` does not have order ``ell``.
+
+    Notes
+    -----
+    Presentation (standard, from memory; Lusztig's small quantum group):
+    generators ``E, F, K`` with ``E^ell = F^ell = 0``, ``K^ell = 1``,
+    ``K E = q^2 E K``, ``K F = q^-2 F K`` and
+    ``E F - F E = (K - K^-1) / (q - q^-1)``.  Basis: the PBW monomials
+    ``F^a K^b E^c`` with ``0 <= a, b, c < ell``, named like ``"F^2*K*E"``
+    (``"1"`` for the identity); element ``(a, b, c)`` has index
+    ``(a * ell + b) * ell + c``.
+
+    Products are straightened with the commutation formulas, derived from the
+    relations: ``E K^b = q^-2b K^b E``, ``K^b F^i = q^-2bi F^i K^b`` and
+    ``E F^a = F^a E + F^(a-1) sum_{m<a} (q^-2m K - q^2m K^-1) / (q - q^-1)``.
+    ``E^c F^d`` is expanded once for each ``c, d`` by applying the last rule
+    ``c`` times; then ``(F^a K^b E^c)(F^d K^e E^f)`` is a rescaled sum of
+    monomials.
+
+    Examples
+    --------
+    >>> u = small_quantum_sl2(3, 2, "GF(7)")
+    >>> u.dim, u.basis[:4]
+    (27, ('1', 'E', 'E^2', 'K'))
+    """
+    ell = _check_int(ell, "small_quantum_sl2: ell", 3)
+    if ell % 2 == 0:
+        raise SpecError(f"small_quantum_sl2: ell must be odd, got {ell}")
+    F = _as_field(field)
+    qq = F(q)
+    if qq == 0:
+        raise SpecError(f"small_quantum_sl2: q = 0 is not a root of unity in {F.name}")
+    order = _multiplicative_order(qq, ell)
+    if order != ell:
+        found = f"has multiplicative order {order}" if order else f"satisfies q^{ell} != 1"
+        raise SpecError(
+            f"small_quantum_sl2: q = {F.to_str(qq)} {found} in {F.name}; "
+            f"it must be a root of unity of order exactly {ell}"
+        )
+    zero, one = F.zero, F.one
+    qpow = [one]
+    for _ in range(ell - 1):
+        qpow.append(qpow[-1] * qq)
+
+    def qp(e: int) -> Any:
+        return qpow[e % ell]
+
+    inv = one / (qq - qp(-1))
+    # bracket[a] = (coefficient of K, coefficient of K^-1) in [E, F^a] F^-(a-1)
+    bracket = [
+        (
+            sum((qp(-2 * m) for m in range(a)), zero) * inv,
+            -sum((qp(2 * m) for m in range(a)), zero) * inv,
+        )
+        for a in range(ell)
+    ]
+
+    def left_E(v: dict[tuple[int, int, int], Any]) -> dict[tuple[int, int, int], Any]:
+        out: dict[tuple[int, int, int], Any] = {}
+
+        def add(key: tuple[int, int, int], c: Any) -> None:
+            out[key] = out.get(key, zero) + c
+
+        for (a, b, c), w in v.items():
+            if c + 1 < ell:
+                add((a, b, c + 1), w * qp(-2 * b))
+            if a > 0:
+                kp, km = bracket[a]
+                add((a - 1, (b + 1) % ell, c), w * kp)
+                add((a - 1, (b - 1) % ell, c), w * km)
+        return {k: x for k, x in out.items() if x != 0}
+
+    # EF[c][d] = E^c F^d as {(i, j, k): coefficient}
+    EF = []
+    for c in range(ell):
+        row = []
+        for d in range(ell):
+            v = {(d, 0, 0): one}
+            for _ in range(c):
+                v = left_E(v)
+            row.append(v)
+        EF.append(row)
+
+    def ix(a: int, b: int, c: int) -> int:
+        return (a * ell + b) * ell + c
+
+    monomials = [(a, b, c) for a in range(ell) for b in range(ell) for c in range(ell)]
+    products: dict[tuple[int, int], dict[int, Any]] = {}
+    for a, b, c in monomials:
+        for d, e, f in monomials:
+            acc: dict[int, Any] = {}
+            for (i, j, k), w in EF[c][d].items():
+                if a + i >= ell or k + f >= ell:
+                    continue
+                key = ix(a + i, (b + j + e) % ell, k + f)
+                acc[key] = acc.get(key, zero) + w * qp(-2 * (b * i + k * e))
+            acc = {k: x for k, x in acc.items() if x != 0}
+            if acc:
+                products[(ix(a, b, c), ix(d, e, f))] = acc
+    return MultiplicationTable(
+        name=f"u_q(sl2), ell = {ell}, q = {F.to_str(qq)} over {F.name}",
+        field=F,
+        basis=tuple(_pbw_name(*m) for m in monomials),
+        products=products,
+        unit={0: one},
+    )
+
+
+# -- checks --------------------------------------------------------------------------
+
+
+def _combine(coeffs: Vector, row: Any, zero: Any) -> Vector:
+    """``sum_m coeffs[m] * row(m)`` for sparse vectors."""
+    out: dict[int, Any] = {}
+    for m, c in coeffs.items():
+        for k, v in row(m).items():
+            out[k] = out.get(k, zero) + c * v
+    return {k: v for k, v in out.items() if v != 0}
+
+
+def check_associative(table: MultiplicationTable, left: Iterable[int] | None = None) -> bool:
+    """Check ``(x y) z = x (y z)`` exactly for basis elements.
+
+    Parameters
+    ----------
+    table : MultiplicationTable
+    left : iterable of int, optional
+        Restrict ``x`` to these basis indices (default: all).  If every basis
+        element is a left-normed product ``g1 (g2 (... (gk 1)))`` of elements
+        of ``left`` in the table, checking these triples already proves
+        associativity (induction on ``k``); establishing that is the caller's job.
+
+    Returns
+    -------
+    bool
+        ``True``.
+
+    Raises
+    ------
+    StructureConstantsError
+        Naming the first basis triple that violates associativity.
+
+    Examples
+    --------
+    >>> check_associative(cyclic_group_algebra(3))
+    True
+    """
+    P = table.products
+    zero = table.field.zero
+    n = table.dim
+    empty: Vector = {}
+    xs = range(n) if left is None else list(left)
+    for x in xs:
+        for y in range(n):
+            xy = P.get((x, y), empty)
+            for z in range(n):
+                lhs = _combine(xy, lambda m, z=z: P.get((m, z), empty), zero)
+                rhs = _combine(P.get((y, z), empty), lambda m, x=x: P.get((x, m), empty), zero)
+                if lhs != rhs:
+                    b = table.basis
+                    raise StructureConstantsError(
+                        f"{table.name}: ({b[x]} * {b[y]}) * {b[z]} != {b[x]} * ({b[y]} * {b[z]})"
+                    )
+    return True
+
+
+def check_unit(table: MultiplicationTable) -> bool:
+    """Check that ``table.unit`` is a two-sided identity on every basis element.
+
+    Raises :class:`~hwcat.errors.StructureConstantsError` naming the first
+    failure; returns ``True`` otherwise.
+
+    >>> check_unit(symmetric_group_algebra(3, "GF(3)"))
+    True
+    """
+    one = table.field.one
+    for i in range(table.dim):
+        e = {i: one}
+        if table.multiply(table.unit, e) != e or table.multiply(e, table.unit) != e:
+            raise StructureConstantsError(
+                f"{table.name}: the unit is not an identity for {table.basis[i]}"
+            )
+    return True

@@ -1,0 +1,326 @@
+"""Built-in bound quiver algebras, as specs in hwcat's spec format 1.
+
+Each function returns a plain ``dict`` shaped like a parsed spec file::
+
+    {"name": ..., "field": "QQ",
+     "quiver": {"vertices": [...], "arrows": ["a1: 1 -> 2", ...],
+                "relations": [...], "vanish_from_length": N}}
+
+(``relations`` and ``vanish_from_length`` only when present).  Paths are read
+left to right: ``a*b`` walks ``a``, then ``b``.  :func:`spec_to_toml` writes
+such a dict as TOML text.
+
+Examples
+--------
+>>> spec = linear_A(3, vanish_from_length=2)
+>>> spec["quiver"]["arrows"]
+['a1: 1 -> 2', 'a2: 2 -> 3']
+>>> print(spec_to_toml(spec), end="")
+name = "linear A_3, paths of length >= 2 vanish"
+field = "QQ"
+<BLANKLINE>
+[quiver]
+vertices = ["1", "2", "3"]
+arrows = ["a1: 1 -> 2", "a2: 2 -> 3"]
+vanish_from_length = 2
+"""
+
+from __future__ import annotations
+
+import re
+from typing import Any
+
+from hwcat.errors import SpecError
+from hwcat.exact.fields import Field, parse_field
+
+__all__ = [
+    "linear_A",
+    "alternating_A",
+    "auslander_truncated_polynomial",
+    "zigzag_A",
+    "spec_to_toml",
+]
+
+
+# -- argument checks ---------------------------------------------------------
+
+
+def _field_name(field: Field | str) -> str:
+    if isinstance(field, Field):
+        return field.name
+    return parse_field(field).name
+
+
+def _check_int(value: Any, what: str, minimum: int) -> int:
+    if isinstance(value, bool) or not isinstance(value, int):
+        raise SpecError(f"{what} must be an integer, got {value!r}")
+    if value < minimum:
+        raise SpecError(f"{what} must be at least {minimum}, got {value}")
+    return value
+
+
+def _spec(
+    name: str,
+    field: Field | str,
+    n: int,
+    arrows: list[str],
+    relations: list[str] | None = None,
+    vanish: int | None = None,
+) -> dict:
+    quiver: dict[str, Any] = {"vertices": [str(i) for i in range(1, n + 1)], "arrows": arrows}
+    if relations:
+        quiver["relations"] = relations
+    if vanish is not None:
+        quiver["vanish_from_length"] = vanish
+    return {"name": name, "field": _field_name(field), "quiver": quiver}
+
+
+def _vanish_suffix(vanish: int | None) -> str:
+    return "" if vanish is None else f", paths of length >= {vanish} vanish"
+
+
+# -- families ------------------------------------------------------------------
+
+
+def linear_A(n: int, vanish_from_length: int | None = None, field: Field | str = "QQ") -> dict:
+    """The linearly oriented quiver ``1 -> 2 -> ... -> n``, optionally truncated.
+
+    Parameters
+    ----------
+    n : int
+        The number of vertices, ``n >= 1``.
+    vanish_from_length : int, optional
+        If given (``>= 2``), every path of this length or longer is zero,
+        which gives a Nakayama algebra; otherwise the algebra is the path
+        algebra (hereditary).
+    field : Field or str
+        ``"QQ"`` or ``"GF(p)"``.
+
+    Returns
+    -------
+    dict
+        A spec with vertices ``"1".."n"`` and arrows ``a_i: i -> i+1`` named
+        ``"a1", "a2", ...``.
+
+    References
+    ----------
+    I. Assem, D. Simson, A. Skowronski, *Elements of the Representation
+    Theory of Associative Algebras*, vol. 1, LMS Student Texts 65 (2006)
+    (path algebras, bound quivers, Nakayama algebras).
+
+    Examples
+    --------
+    >>> linear_A(2)["quiver"]
+    {'vertices': ['1', '2'], 'arrows': ['a1: 1 -> 2']}
+    """
+    n = _check_int(n, "linear_A: n", 1)
+    if vanish_from_length is not None:
+        _check_int(vanish_from_length, "linear_A: vanish_from_length", 2)
+    arrows = [f"a{i}: {i} -> {i + 1}" for i in range(1, n)]
+    return _spec(
+        f"linear A_{n}{_vanish_suffix(vanish_from_length)}",
+        field,
+        n,
+        arrows,
+        vanish=vanish_from_length,
+    )
+
+
+def alternating_A(n: int, vanish_from_length: int | None = None, field: Field | str = "QQ") -> dict:
+    """The quiver of type ``A_n`` with alternating orientation ``1 -> 2 <- 3 -> 4 <- ...``.
+
+    Arrow ``a_i`` joins ``i`` and ``i+1``: ``a_i: i -> i+1`` for odd ``i`` and
+    ``a_i: i+1 -> i`` for even ``i``.  No path of length 2 exists, so
+    ``vanish_from_length`` (accepted for symmetry with :func:`linear_A`,
+    ``>= 2``) does not change the algebra, which is the hereditary path algebra.
+
+    References
+    ----------
+    I. Assem, D. Simson, A. Skowronski, *Elements of the Representation
+    Theory of Associative Algebras*, vol. 1, LMS Student Texts 65 (2006).
+
+    Examples
+    --------
+    >>> alternating_A(4)["quiver"]["arrows"]
+    ['a1: 1 -> 2', 'a2: 3 -> 2', 'a3: 3 -> 4']
+    """
+    n = _check_int(n, "alternating_A: n", 1)
+    if vanish_from_length is not None:
+        _check_int(vanish_from_length, "alternating_A: vanish_from_length", 2)
+    arrows = [f"a{i}: {i} -> {i + 1}" if i % 2 else f"a{i}: {i + 1} -> {i}" for i in range(1, n)]
+    return _spec(
+        f"alternating A_{n}{_vanish_suffix(vanish_from_length)}",
+        field,
+        n,
+        arrows,
+        vanish=vanish_from_length,
+    )
+
+
+def auslander_truncated_polynomial(n: int, field: Field | str = "QQ") -> dict:
+    """The Auslander algebra of ``k[x]/(x^n)``.
+
+    Parameters
+    ----------
+    n : int
+        ``n >= 1``; vertex ``i`` stands for the indecomposable module ``k[x]/(x^i)``.
+    field : Field or str
+        ``"QQ"`` or ``"GF(p)"``.
+
+    Returns
+    -------
+    dict
+        The quiver ``1 <-> 2 <-> ... <-> n`` with arrows ``a_i: i -> i+1`` and
+        ``b_i: i+1 -> i`` (named ``"a1", "b1", ...``) and the mesh relations
+        ``a1*b1`` (the 2-cycle at vertex 1 is zero) and
+        ``b{i-1}*a{i-1} - a{i}*b{i}`` for ``i = 2..n-1`` (the two 2-cycles at
+        an interior vertex agree).  For ``n = 1`` the algebra is ``k``.
+
+    References
+    ----------
+    T. Bruestle, L. Hille, C. M. Ringel, G. Roehrle, Algebr. Represent.
+    Theory 2 (1999) 295--312 (the Auslander algebra of ``k[T]/(T^n)``).
+
+    Examples
+    --------
+    >>> auslander_truncated_polynomial(3)["quiver"]["relations"]
+    ['a1*b1', 'b1*a1 - a2*b2']
+    """
+    n = _check_int(n, "auslander_truncated_polynomial: n", 1)
+    arrows = [f"a{i}: {i} -> {i + 1}" for i in range(1, n)]
+    arrows += [f"b{i}: {i + 1} -> {i}" for i in range(1, n)]
+    relations = ["a1*b1"] if n >= 2 else []
+    relations += [f"b{i - 1}*a{i - 1} - a{i}*b{i}" for i in range(2, n)]
+    return _spec(f"Auslander algebra of k[x]/(x^{n})", field, n, arrows, relations)
+
+
+def zigzag_A(n: int, field: Field | str = "QQ") -> dict:
+    """The zigzag algebra of type ``A_n``.
+
+    Parameters
+    ----------
+    n : int
+        ``n >= 1``.
+    field : Field or str
+        ``"QQ"`` or ``"GF(p)"``.
+
+    Returns
+    -------
+    dict
+        The double quiver of ``A_n`` (arrows ``a_i: i -> i+1``,
+        ``b_i: i+1 -> i``) with relations: every path of length 2 that is not
+        a 2-cycle is zero (``a{i}*a{i+1}``, ``b{i+1}*b{i}``), and the two
+        2-cycles at an interior vertex agree (``b{i-1}*a{i-1} - a{i}*b{i}``).
+        The spec also says ``vanish_from_length = 3``: for ``n >= 3`` this
+        follows from the relations, for ``n = 2`` it is needed.
+
+    Notes
+    -----
+    For ``n >= 2`` this is a symmetric algebra of Loewy length 3 and dimension
+    ``4n - 2`` (from memory).  For ``n = 1`` the double quiver has no arrows
+    and the function returns the one-vertex algebra ``k``; some authors use
+    ``k[x]/(x^2)`` instead.
+
+    Examples
+    --------
+    >>> zigzag_A(3)["quiver"]["relations"]
+    ['a1*a2', 'b2*b1', 'b1*a1 - a2*b2']
+    """
+    n = _check_int(n, "zigzag_A: n", 1)
+    arrows = [f"a{i}: {i} -> {i + 1}" for i in range(1, n)]
+    arrows += [f"b{i}: {i + 1} -> {i}" for i in range(1, n)]
+    relations = [f"a{i}*a{i + 1}" for i in range(1, n - 1)]
+    relations += [f"b{i + 1}*b{i}" for i in range(1, n - 1)]
+    relations += [f"b{i - 1}*a{i - 1} - a{i}*b{i}" for i in range(2, n)]
+    return _spec(
+        f"zigzag algebra of type A_{n}", field, n, arrows, relations, vanish=3 if n >= 2 else None
+    )
+
+
+# -- TOML writer -----------------------------------------------------------------
+
+_BARE_KEY = re.compile(r"^[A-Za-z0-9_-]+$")
+_ESCAPES = {
+    '"': '\\"',
+    "\\": "\\\\",
+    "\b": "\\b",
+    "\t": "\\t",
+    "\n": "\\n",
+    "\f": "\\f",
+    "\r": "\\r",
+}
+
+
+def _key(k: Any) -> str:
+    if not isinstance(k, str):
+        raise SpecError(f"spec_to_toml: key {k!r} is not a string")
+    return k if _BARE_KEY.match(k) else _string(k)
+
+
+def _string(s: str) -> str:
+    out = []
+    for ch in s:
+        if ch in _ESCAPES:
+            out.append(_ESCAPES[ch])
+        elif ord(ch) < 0x20 or ord(ch) == 0x7F:
+            out.append(f"\\u{ord(ch):04X}")
+        else:
+            out.append(ch)
+    return '"' + "".join(out) + '"'
+
+
+def _value(v: Any, where: str) -> str:
+    if isinstance(v, bool):
+        return "true" if v else "false"
+    if isinstance(v, int):
+        return str(v)
+    if isinstance(v, str):
+        return _string(v)
+    if isinstance(v, list | tuple):
+        return "[" + ", ".join(_value(x, where) for x in v) + "]"
+    raise SpecError(
+        f"spec_to_toml: value {v!r} at {where!r} is not a string, integer, boolean or list of these"
+    )
+
+
+def _table(d: dict, prefix: str, lines: list[str]) -> None:
+    subtables = []
+    for k, v in d.items():
+        if v is None:
+            continue
+        if isinstance(v, dict):
+            subtables.append((k, v))
+        else:
+            lines.append(f"{_key(k)} = {_value(v, prefix + str(k))}")
+    for k, v in subtables:
+        name = f"{prefix}{_key(k)}"
+        lines.append("")
+        lines.append(f"[{name}]")
+        _table(v, name + ".", lines)
+
+
+def spec_to_toml(spec: dict) -> str:
+    """Write a spec dict as TOML text that :mod:`tomllib` reads back to the same dict.
+
+    Supported values: strings, integers, booleans, lists of these, and nested
+    dicts (written as tables).  Keys whose value is ``None`` are left out.
+
+    Raises
+    ------
+    SpecError
+        For any other value (floats in particular: specs are exact).
+
+    Examples
+    --------
+    >>> import tomllib
+    >>> spec = {"name": 'say "hi"', "quiver": {"vertices": ["1"], "arrows": []}}
+    >>> tomllib.loads(spec_to_toml(spec)) == spec
+    True
+    """
+    if not isinstance(spec, dict):
+        raise SpecError(f"spec_to_toml: expected a dict, got {type(spec).__name__}")
+    lines: list[str] = []
+    _table(spec, "", lines)
+    if lines and lines[0] == "":
+        lines.pop(0)
+    return "\n".join(lines) + "\n"

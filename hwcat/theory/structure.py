@@ -1,0 +1,105 @@
+"""The structure report: Cartan matrix, projectives, injectives, Loewy data, quiver."""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+from typing import Any
+
+from hwcat.algebras.basic import BasicAlgebra
+from hwcat.modules import Module, injective, projective
+
+__all__ = ["ModuleSummary", "StructureReport", "describe", "summarise_module"]
+
+
+@dataclass(frozen=True)
+class ModuleSummary:
+    """Dimension data of one module: dimension vector and radical/socle layers."""
+
+    label: str
+    dimension: int
+    dimension_vector: tuple[int, ...]
+    radical_layers: tuple[tuple[int, ...], ...]
+    socle_layers: tuple[tuple[int, ...], ...]
+
+    @property
+    def loewy_length(self) -> int:
+        return len(self.radical_layers)
+
+    def to_dict(self) -> dict[str, Any]:
+        return {
+            "label": self.label,
+            "dimension": self.dimension,
+            "dimension_vector": list(self.dimension_vector),
+            "radical_layers": [list(x) for x in self.radical_layers],
+            "socle_layers": [list(x) for x in self.socle_layers],
+            "loewy_length": self.loewy_length,
+        }
+
+
+def summarise_module(M: Module, label: str = "", socle: bool = True) -> ModuleSummary:
+    return ModuleSummary(
+        label or M.name,
+        M.dim,
+        M.dims,
+        tuple(M.radical_layers()),
+        tuple(M.socle_layers()) if socle else (),
+    )
+
+
+@dataclass(frozen=True)
+class StructureReport:
+    """What ``hwcat describe`` prints: the basic structure of an algebra."""
+
+    name: str
+    field: str
+    dimension: int
+    simples: tuple[str, ...]
+    arrows: tuple[tuple[str, str, str], ...]
+    cartan: tuple[tuple[int, ...], ...]
+    projectives: tuple[ModuleSummary, ...]
+    injectives: tuple[ModuleSummary, ...]
+    loewy_length: int
+    blocks: tuple[tuple[str, ...], ...]
+    morita: tuple[int, ...]
+
+    def to_dict(self) -> dict[str, Any]:
+        return {
+            "name": self.name,
+            "field": self.field,
+            "dimension": self.dimension,
+            "simples": list(self.simples),
+            "arrows": [{"name": n, "source": s, "target": t} for n, s, t in self.arrows],
+            "cartan": [list(r) for r in self.cartan],
+            "cartan_convention": "cartan[i][j] = [P(j) : L(i)]",
+            "projectives": [p.to_dict() for p in self.projectives],
+            "injectives": [p.to_dict() for p in self.injectives],
+            "loewy_length": self.loewy_length,
+            "blocks": [list(b) for b in self.blocks],
+            "simple_dimensions": list(self.morita),
+        }
+
+
+def describe(A: BasicAlgebra) -> StructureReport:
+    """The structure report of an algebra.
+
+    >>> from hwcat.io.spec import load_spec_text
+    >>> A = load_spec_text('field = "QQ"\\n[quiver]\\nvertices = ["1", "2"]\\narrows = ["a: 1 -> 2"]')
+    >>> r = describe(A)
+    >>> r.dimension, r.cartan, r.loewy_length
+    (3, ((1, 0), (1, 1)), 2)
+    """
+    Ps = tuple(summarise_module(projective(A, s)) for s in range(A.n))
+    Is = tuple(summarise_module(injective(A, s)) for s in range(A.n))
+    return StructureReport(
+        name=A.name,
+        field=A.field.name,
+        dimension=A.dim,
+        simples=A.vertices,
+        arrows=tuple((a.name, A.vertices[a.source], A.vertices[a.target]) for a in A.arrows),
+        cartan=tuple(tuple(r) for r in A.cartan()),
+        projectives=Ps,
+        injectives=Is,
+        loewy_length=max((p.loewy_length for p in Ps), default=0),
+        blocks=tuple(tuple(A.vertices[v] for v in c) for c in A.components()),
+        morita=A.morita,
+    )
