@@ -7,23 +7,96 @@ Exit codes: 0 success (or a mathematical "yes"), 1 a mathematical "no"
 from __future__ import annotations
 
 import argparse
+import json
 import sys
 from collections.abc import Sequence
 
-from hwcat.errors import HwcatError, InternalInconsistency
-from hwcat.io.render import render_structure, to_json
+from hwcat.errors import HwcatError, InternalInconsistency, OrderError
+from hwcat.io.render import render_orders, render_structure, render_verdict, to_json
 from hwcat.io.spec import build_algebra, read_spec
 
-__all__ = ["main"]
+__all__ = ["main", "build_parser"]
+
+
+def _load(args: argparse.Namespace):
+    spec = read_spec(args.spec)
+    return spec, build_algebra(spec)
 
 
 def _cmd_describe(args: argparse.Namespace) -> int:
     from hwcat.theory.structure import describe
 
-    spec = read_spec(args.spec)
-    report = describe(build_algebra(spec))
+    _, A = _load(args)
+    report = describe(A)
     print(to_json(report) if args.json else render_structure(report))
     return 0
+
+
+def _cmd_check(args: argparse.Namespace) -> int:
+    from hwcat.theory.orders import parse_order, total_order
+    from hwcat.theory.search import adapted_orders
+    from hwcat.theory.verdict import check_order
+
+    spec, A = _load(args)
+    text, source = (args.order, "command line") if args.order else (spec.order, "spec file")
+    search_info = None
+    search_dict = None
+    if text:
+        try:
+            order = parse_order(text, A.vertices)
+        except OrderError as exc:
+            where = "--order" if source == "command line" else f"{spec.source}: order"
+            raise OrderError(f"{where}: {exc}") from None
+        verdict = check_order(A, order, order_source=source)
+    else:
+        r = adapted_orders(A, list_limit=1)
+        search_dict = {
+            "quasi_hereditary_for_some_order": r.quasi_hereditary,
+            "adapted_total_orders": r.adapted_total_orders,
+            "structures": r.structures,
+            "longest_heredity_chain": [A.vertices[i] for i in r.best_attempt],
+        }
+        if r.quasi_hereditary:
+            order = r.structure_list[0].essential_order
+            verdict = check_order(
+                A, order, order_source="found by search: essential order of a structure"
+            )
+            search_info = (
+                f"no order given; the search found {r.adapted_total_orders} adapted total orders in "
+                f"{r.structures} structure(s); checking the first structure's essential order"
+            )
+        else:
+            chain = list(r.best_attempt)
+            rest = [v for v in range(A.n) if v not in chain]
+            order = total_order(A.vertices, chain + rest)
+            verdict = check_order(A, order, order_source="best attempt of the search")
+            search_info = (
+                f"no order given and NO order is adapted; the longest heredity chain found has "
+                f"{len(chain)} step(s): {' > '.join(A.vertices[i] for i in chain) or '(none)'}; "
+                "the axioms below are for that attempt completed in spec order"
+            )
+            if verdict.quasi_hereditary:
+                raise InternalInconsistency(
+                    "the search found no adapted order, but its attempt is adapted"
+                )
+    if args.json:
+        d = verdict.to_dict()
+        if search_dict is not None:
+            d["search"] = search_dict
+            d["quasi_hereditary"] = search_dict["quasi_hereditary_for_some_order"]
+        print(json.dumps(d, indent=2))
+    else:
+        print(render_verdict(verdict, search_info))
+    return 0 if verdict.quasi_hereditary else 1
+
+
+def _cmd_orders(args: argparse.Namespace) -> int:
+    from hwcat.theory.search import adapted_orders
+
+    _, A = _load(args)
+    r = adapted_orders(A, list_limit=None if args.all else args.limit)
+    print(to_json(r) if args.json else render_orders(r))
+    return 0 if r.quasi_hereditary else 1
 
 
 def build_parser() -> argparse.ArgumentParser:
@@ -38,6 +111,19 @@ def build_parser() -> argparse.ArgumentParser:
     d.add_argument("spec", help="algebra spec file (TOML, see specs/FORMAT.md)")
     d.add_argument("--json", action="store_true", help="print one JSON object")
     d.set_defaults(func=_cmd_describe)
+    c = sub.add_parser("check", help="highest-weight axioms for an order (or for some order)")
+    c.add_argument("spec", help="algebra spec file")
+    c.add_argument(
+        "--order", help='partial order of the simples, e.g. "3 > 2 > 1" or "1 < 2, 1 < 3"'
+    )
+    c.add_argument("--json", action="store_true", help="print one JSON object")
+    c.set_defaults(func=_cmd_check)
+    o = sub.add_parser("orders", help="all adapted orders and quasi-hereditary structures")
+    o.add_argument("spec", help="algebra spec file")
+    o.add_argument("--json", action="store_true", help="print one JSON object")
+    o.add_argument("--all", action="store_true", help="list every structure")
+    o.add_argument("--limit", type=int, default=20, help="how many structures to list (default 20)")
+    o.set_defaults(func=_cmd_orders)
     return p
 
 
@@ -51,6 +137,8 @@ def main(argv: Sequence[str] | None = None) -> int:
     except HwcatError as exc:
         print(f"hwcat: error: {exc}", file=sys.stderr)
         return 2
+    except BrokenPipeError:  # output piped into a pager or head
+        return 0
 
 
 if __name__ == "__main__":  # pragma: no cover

@@ -6,7 +6,14 @@ import json
 from collections.abc import Sequence
 from typing import Any
 
-__all__ = ["to_json", "layer_text", "matrix_text", "render_structure"]
+__all__ = [
+    "to_json",
+    "layer_text",
+    "matrix_text",
+    "render_structure",
+    "render_verdict",
+    "render_orders",
+]
 
 
 def to_json(result: Any) -> str:
@@ -92,4 +99,111 @@ def render_structure(r) -> str:
     lines.extend(_module_lines(v, r.projectives))
     lines.append("Indecomposable injectives I(i) = D(A e_i):")
     lines.extend(_module_lines(v, r.injectives))
+    return "\n".join(lines)
+
+
+def _witness_lines(w: Any, indent: str = "      ", limit: int = 4) -> list[str]:
+    """Short readable lines of a witness: the ``text`` of each item (all data is in --json)."""
+    if w is None:
+        return []
+    items = w if isinstance(w, list) else [w]
+    lines = []
+    for item in items[:limit]:
+        if isinstance(item, dict) and "text" in item:
+            lines.append(indent + str(item["text"]))
+        else:
+            lines.append(indent + json.dumps(item))
+    if len(items) > limit:
+        lines.append(indent + f"... and {len(items) - limit} more (see --json)")
+    return lines
+
+
+def _module_table(vertices, mods) -> list[str]:
+    lines = []
+    for m in mods:
+        lines.append(
+            f"  {m.label:<12} dimension vector {layer_text(vertices, m.dimension_vector):<16} "
+            f"radical layers: {layers_text(vertices, m.radical_layers)}"
+        )
+    return lines
+
+
+def render_verdict(v, search=None) -> str:
+    """Text form of an :class:`~hwcat.theory.verdict.OrderVerdict`."""
+    vs = v.vertices
+    title = f"Highest-weight check of {v.name}" if v.name else "Highest-weight check"
+    lines = [title]
+    if v.order is not None:
+        lines.append(f"  order ({v.order_source}): {v.order.chain_text()}")
+    if v.note:
+        lines.append(f"  {v.note}")
+    if search is not None:
+        lines.append(f"  {search}")
+    verdict = "quasi-hereditary" if v.quasi_hereditary else "NOT quasi-hereditary"
+    lines.append(f"  verdict: {verdict} for this order")
+    if not v.quasi_hereditary:
+        lines.append(f"  standardly stratified: {'yes' if v.standardly_stratified else 'no'}")
+    lines.append("Axioms:")
+    w = max(len(a.name) for a in v.axioms + v.extra)
+    for a in v.axioms + v.extra:
+        mark = "holds" if a.holds else "FAILS"
+        lines.append(f"  [{mark}] {a.name:<{w}}  {a.summary}")
+        if not a.holds:
+            lines.extend(_witness_lines(a.witness))
+    lines.append("Standard modules Delta(L):")
+    lines.extend(_module_table(vs, v.standards))
+    lines.append("Costandard modules nabla(L):")
+    lines.extend(_module_table(vs, v.costandards))
+    lines.append("Decomposition matrix D[i][j] = [Delta(j) : L(i)]:")
+    lines.append(
+        matrix_text(v.decomposition_standard, [f"L({x})" for x in vs], [f"D({x})" for x in vs])
+    )
+    if v.standard_equals_costandard:
+        lines.append("E[i][j] = [nabla(j) : L(i)] equals D, so C = D * D^T is the form to expect.")
+    else:
+        lines.append("Decomposition matrix E[i][j] = [nabla(j) : L(i)] (differs from D):")
+        lines.append(
+            matrix_text(
+                v.decomposition_costandard, [f"L({x})" for x in vs], [f"N({x})" for x in vs]
+            )
+        )
+    lines.append("Cartan matrix C[i][j] = [P(j) : L(i)]:")
+    lines.append(matrix_text(v.cartan, [f"L({x})" for x in vs], [f"P({x})" for x in vs]))
+    return "\n".join(lines)
+
+
+def render_orders(r) -> str:
+    """Text form of an :class:`~hwcat.theory.search.OrdersResult`."""
+    vs = r.vertices
+    lines = [f"Adapted orders of {r.name}" if r.name else "Adapted orders"]
+    lines.append(
+        f"  blocks: {len(r.blocks)}; vertex sets reached by the heredity search: {r.reachable_sets}"
+    )
+    if not r.quasi_hereditary:
+        lines.append("  quasi-hereditary: no (no order of the simples is adapted)")
+        chain = " > ".join(vs[i] for i in r.best_attempt) or "(none)"
+        lines.append(f"  longest heredity chain found: {chain}")
+        return "\n".join(lines)
+    lines.append("  quasi-hereditary: yes")
+    lines.append(f"  adapted total orders: {r.adapted_total_orders}")
+    lines.append(f"  quasi-hereditary structures: {r.structures}")
+    shown = len(r.structure_list)
+    lines.append(
+        f"Structures ({'all' if r.listed_all else f'first {shown}; use --all for every one'}):"
+    )
+    for k, s in enumerate(r.structure_list, 1):
+        ess = (
+            ", ".join(f"{a} < {b}" for a, b in s.essential_order.covers_named()) or "(no relations)"
+        )
+        lines.append(f"  #{k}: essential order (Hasse diagram): {ess}")
+        lines.append(
+            f"      adapted total orders in this structure: {s.essential_order.count_linear_extensions()}"
+        )
+        lines.append(
+            "      standard modules: "
+            + "; ".join(
+                f"Delta({vs[i]}) = {layer_text(vs, d)}"
+                for i, d in enumerate(s.standard_dimension_vectors)
+            )
+        )
     return "\n".join(lines)
