@@ -14,8 +14,8 @@ Ser. 168, 1992):
 A module has a ``Delta``-filtration exactly when its trace filtration along a
 linear extension (highest first) has, at each vertex ``lam``, a trace of
 ``P(lam)`` isomorphic to ``Delta(lam)^m`` with ``m`` the multiplicity of
-``lam`` in what is left; this is tested by comparing dimension vectors, which
-suffices because the trace is a quotient of ``Delta(lam)^m``.
+``lam`` in the top of that trace; this is tested by comparing dimension
+vectors, which suffices because the trace is a quotient of ``Delta(lam)^m``.
 """
 
 from __future__ import annotations
@@ -152,10 +152,10 @@ def standard_filtration(
     mult = [0] * A.n
     cur = M
     for step, lam in enumerate(ext):
-        m = cur.dims[lam]
-        if m == 0:
+        if cur.dims[lam] == 0:
             continue
         U = cur.trace_of_vertices([lam])
+        m = cur.submodule(U).top()[lam]  # number of generators of the trace
         found = tuple(u.nrows for u in U)
         D = standard_module(A, lam, order)
         want = tuple(m * d for d in D.dims)

@@ -166,10 +166,6 @@ def parse_order(text: str, vertices: Sequence[str]) -> PartialOrder:
                 raise OrderError(f"order {text!r}: cannot read {part[pos:].strip()!r}")
             toks.append(m.group(1))
             pos = m.end()
-        if len(toks) % 2 == 0:
-            raise OrderError(
-                f"order {text!r}: {part.strip()!r} is not of the form a > b > c or a < b"
-            )
         for i, t in enumerate(toks):
             if i % 2 == 0:
                 if t in "<>":
@@ -178,6 +174,10 @@ def parse_order(text: str, vertices: Sequence[str]) -> PartialOrder:
                     raise OrderError(f"order {text!r}: {t!r} is not a vertex")
             elif t not in "<>":
                 raise OrderError(f"order {text!r}: expected < or >, found {t!r}")
+        if len(toks) % 2 == 0:
+            raise OrderError(
+                f"order {text!r}: {part.strip()!r} is not of the form a > b > c or a < b"
+            )
         for i in range(1, len(toks), 2):
             a, op, b = index[toks[i - 1]], toks[i], index[toks[i + 1]]
             if a == b:

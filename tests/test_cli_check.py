@@ -1,0 +1,100 @@
+"""The check and orders commands: exit codes, JSON keys, witnesses on a "no"."""
+
+import json
+
+import pytest
+
+from hwcat.algebras.quiver_families import linear_A, spec_to_toml
+from hwcat.cli import main
+
+LANTERN = "specs/examples/lantern.toml"
+
+
+def run(capsys, *args):
+    code = main(list(args))
+    out, err = capsys.readouterr()
+    return code, out, err
+
+
+def write(tmp_path, spec, name="a.toml"):
+    p = tmp_path / name
+    p.write_text(spec if isinstance(spec, str) else spec_to_toml(spec))
+    return str(p)
+
+
+def test_check_spec_order_json(capsys):
+    code, out, _ = run(capsys, "check", LANTERN, "--json")
+    d = json.loads(out)
+    assert code == 0 and d["quasi_hereditary"] is True
+    for key in ("order", "axioms", "decomposition_standard", "decomposition_costandard", "cartan"):
+        assert key in d
+    assert {a["name"] for a in d["axioms"]} >= {
+        "standard-schurian",
+        "projectives-standardly-filtered",
+        "injectives-costandardly-filtered",
+        "heredity-chain",
+        "bgg-reciprocity",
+        "cartan-factorisation",
+    }
+    assert all(isinstance(pair, list) and len(pair) == 2 for pair in d["order"])
+
+
+def test_check_failing_order_exit_1_with_witness(capsys):
+    code, out, _ = run(capsys, "check", LANTERN, "--order", "top > left > right > base", "--json")
+    d = json.loads(out)
+    assert code == 1 and d["quasi_hereditary"] is False
+    failing = [a for a in d["axioms"] if not a["holds"]]
+    assert failing and all(a["witness"] for a in failing)
+
+
+def test_check_text_report(capsys):
+    code, out, _ = run(capsys, "check", LANTERN, "--order", "top > left > right > base")
+    assert code == 1 and "FAILS" in out and "kernel element" in out
+
+
+def test_check_without_order_searches(tmp_path, capsys):
+    spec = linear_A(3)
+    code, out, _ = run(capsys, "check", write(tmp_path, spec), "--json")
+    d = json.loads(out)
+    assert code == 0 and d["quasi_hereditary"] and d["search"]["adapted_total_orders"] == 6
+
+
+def test_check_no_order_works(tmp_path, capsys):
+    # k[x]/(x^3): not quasi-hereditary (self-injective, Dlab-Ringel 1989)
+    spec = '[quiver]\nvertices = ["x"]\narrows = ["t: x -> x"]\nvanish_from_length = 3\n'
+    p = write(tmp_path, 'field = "QQ"\n' + spec)
+    code, out, _ = run(capsys, "check", p, "--json")
+    d = json.loads(out)
+    assert code == 1 and d["quasi_hereditary"] is False
+    assert any(not a["holds"] and a["witness"] for a in d["axioms"])
+    code, out, _ = run(capsys, "check", p)
+    assert "NO order is adapted" in out
+
+
+@pytest.mark.parametrize("order", ["top > nowhere", "top > left > top", "top >> left"])
+def test_bad_order_exit_2(capsys, order):
+    code, out, err = run(capsys, "check", LANTERN, "--order", order)
+    assert code == 2 and out == "" and err.count("\n") == 1 and "--order" in err
+
+
+def test_bad_order_in_spec(tmp_path, capsys):
+    text = (
+        open(LANTERN).read().replace('order = "left > top > right > base"', 'order = "left > left"')
+    )
+    code, _, err = run(capsys, "check", write(tmp_path, text))
+    assert code == 2 and "order" in err and "a.toml" in err
+
+
+def test_orders_json(tmp_path, capsys):
+    code, out, _ = run(capsys, "orders", write(tmp_path, linear_A(4)), "--json", "--all")
+    d = json.loads(out)
+    assert code == 0
+    assert d["quasi_hereditary"] and d["adapted_total_orders"] == 24 and d["structures"] == 14
+    assert len(d["structure_list"]) == 14
+    s = d["structure_list"][0]
+    assert "standard_dimension_vectors" in s and "essential_order" in s
+
+
+def test_orders_text_limit(tmp_path, capsys):
+    code, out, _ = run(capsys, "orders", write(tmp_path, linear_A(4)), "--limit", "2")
+    assert code == 0 and "#2:" in out and "#3:" not in out and "--all" in out

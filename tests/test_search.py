@@ -1,0 +1,191 @@
+"""All adapted orders and quasi-hereditary structures, against published results.
+
+Sources (see also /work/shared/sources.md):
+* V. Dlab, C. M. Ringel, Quasi-hereditary algebras, Illinois J. Math. 33 (1989):
+  an algebra is hereditary iff every order is adapted.
+* G. Flores, Y. Kimura, B. Rognerud, Combinatorics of quasi-hereditary
+  structures, arXiv:2004.04726: linear A_n has Catalan(n) structures.
+* K. Coulembier, arXiv:1903.02717: a simple-preserving duality allows at most
+  one quasi-hereditary structure.
+* T. Bruestle, L. Hille, C. M. Ringel, G. Roehrle, Algebr. Represent. Theory 2
+  (1999): the Auslander algebra of k[T]/(T^n) is quasi-hereditary.
+* Zhang, Zhong, arXiv:2405.02860: a non-hereditary Nakayama algebra has at most
+  (2/3) n! adapted total orders.
+* Dlab and Ringel 1989; C. M. Ringel, J. Pure Appl. Algebra 214 (2010):
+  quasi-hereditary algebras have finite global dimension, so self-injective
+  non-semisimple algebras are never quasi-hereditary.
+"""
+
+import itertools
+from math import comb, factorial
+
+import pytest
+from hypothesis import given, settings
+
+from hwcat.algebras.bound import bound_quiver_algebra
+from hwcat.algebras.quiver_families import auslander_truncated_polynomial, linear_A
+from hwcat.exact import GF, QQ
+from hwcat.modules import projective
+from hwcat.strategies import (
+    algebra_from_spec,
+    bound_quiver_algebras,
+    linear_nakayama_algebras,
+    quivers,
+)
+from hwcat.theory.highest_weight import standard_filtration, standard_module
+from hwcat.theory.orders import total_order
+from hwcat.theory.search import adapted_orders, is_quasi_hereditary
+
+
+def catalan(n):
+    return comb(2 * n, n) // (n + 1)
+
+
+def is_hereditary(A):
+    """rad P(i) projective for every i (independent of the heredity search).
+
+    rad P(i) is projective iff its projective cover is an isomorphism, i.e. iff
+    dim rad P(i) = sum over its top of dim P(j) (common practice).
+    """
+    for i in range(A.n):
+        R = projective(A, i).radical()
+        top = R.top()
+        if R.dim != sum(t * projective(A, j).dim for j, t in enumerate(top)):
+            return False
+    return True
+
+
+def brute_force_adapted(A):
+    """Adapted total orders by the module-theoretic definition, over all n! permutations."""
+    count = 0
+    for perm in itertools.permutations(range(A.n)):
+        P = total_order(A.vertices, perm)
+        ok = True
+        for L in range(A.n):
+            if standard_module(A, L, P).dims[L] != 1:
+                ok = False
+                break
+            r = standard_filtration(projective(A, L), P)
+            if not r.exists or r.multiplicities[L] != 1:
+                ok = False
+                break
+            if any(r.multiplicities[m] and not P.lt(L, m) for m in range(A.n) if m != L):
+                ok = False
+                break
+        count += ok
+    return count
+
+
+@pytest.mark.parametrize("n", range(1, 8))
+def test_linear_A_catalan(n):
+    # Flores-Kimura-Rognerud: Catalan(n) structures; Dlab-Ringel: all n! orders adapted.
+    A = algebra_from_spec(linear_A(n))
+    r = adapted_orders(A, list_limit=None)
+    assert r.quasi_hereditary
+    assert r.structures == catalan(n)
+    assert r.adapted_total_orders == factorial(n)
+    assert len(r.structure_list) == catalan(n) and r.listed_all
+    # the adapted orders of a structure are the linear extensions of its essential order
+    assert sum(s.essential_order.count_linear_extensions() for s in r.structure_list) == factorial(
+        n
+    )
+
+
+@settings(max_examples=25, deadline=None)
+@given(quivers(min_vertices=1, max_vertices=5, max_arrows=6, acyclic=True))
+def test_path_algebras_all_orders_adapted(Q):
+    # Dlab-Ringel 1989: hereditary => every total order is adapted.
+    A = bound_quiver_algebra(QQ, Q)
+    assert adapted_orders(A, list_limit=0).adapted_total_orders == factorial(A.n)
+
+
+@settings(max_examples=40, deadline=None)
+@given(bound_quiver_algebras(max_vertices=4, max_arrows=5))
+def test_all_orders_adapted_only_if_hereditary(A):
+    # Dlab-Ringel 1989: every order adapted => hereditary (and conversely).
+    r = adapted_orders(A, list_limit=0)
+    assert (r.adapted_total_orders == factorial(A.n)) == is_hereditary(A)
+
+
+@settings(max_examples=40, deadline=None)
+@given(bound_quiver_algebras(max_vertices=4, max_arrows=5))
+def test_search_equals_brute_force(A):
+    # the subset search against all permutations with the module-theoretic axioms (derived check)
+    r = adapted_orders(A, list_limit=0)
+    assert r.adapted_total_orders == brute_force_adapted(A)
+    assert r.quasi_hereditary == (r.adapted_total_orders > 0) == is_quasi_hereditary(A)
+
+
+@pytest.mark.parametrize("n", [2, 3, 4, 5])
+def test_auslander_algebra_unique_structure(n):
+    # BHRR 1999: quasi-hereditary; Coulembier: at most one structure (it has a duality).
+    A = algebra_from_spec(auslander_truncated_polynomial(n))
+    r = adapted_orders(A)
+    assert r.quasi_hereditary and r.structures == 1
+
+
+@settings(max_examples=40, deadline=None)
+@given(linear_nakayama_algebras(min_vertices=2, max_vertices=6))
+def test_nakayama_two_thirds_bound(A):
+    # Zhang-Zhong: non-hereditary Nakayama algebras have at most (2/3) n! adapted orders.
+    r = adapted_orders(A, list_limit=0)
+    if not is_hereditary(A):
+        assert 3 * r.adapted_total_orders <= 2 * factorial(A.n)
+    else:
+        assert r.adapted_total_orders == factorial(A.n)
+
+
+def _cyclic_rad_square_zero(n, field=QQ):
+    vs = [str(i) for i in range(1, n + 1)]
+    arrows = [f"a{i}: {i} -> {i % n + 1}" for i in range(1, n + 1)]
+    return algebra_from_spec(
+        {"field": field.name, "quiver": {"vertices": vs, "arrows": arrows, "vanish_from_length": 2}}
+    )
+
+
+@pytest.mark.parametrize("n", [2, 3, 5])
+def test_truncated_polynomial_not_qh(n):
+    # self-injective, not semisimple => not quasi-hereditary (Dlab-Ringel 1989; Ringel 2010)
+    A = algebra_from_spec(
+        {
+            "field": "QQ",
+            "quiver": {"vertices": ["x"], "arrows": ["t: x -> x"], "vanish_from_length": n},
+        }
+    )
+    r = adapted_orders(A)
+    assert not r.quasi_hereditary and r.adapted_total_orders == 0 and r.structures == 0
+
+
+@pytest.mark.parametrize("n", [1, 2, 3, 4])
+@pytest.mark.parametrize("field", [QQ, GF(2)])
+def test_cyclic_nakayama_not_qh(n, field):
+    # cyclic quiver with all paths of length 2 zero: self-injective, not qh (same sources)
+    A = _cyclic_rad_square_zero(n, field)
+    assert not is_quasi_hereditary(A)
+    assert adapted_orders(A).adapted_total_orders == 0
+
+
+def test_blocks_combine():
+    # two copies of linear A_2 (derived): orders interleave, structures multiply
+    spec = {
+        "field": "QQ",
+        "quiver": {"vertices": ["1", "2", "3", "4"], "arrows": ["a: 1 -> 2", "b: 3 -> 4"]},
+    }
+    r = adapted_orders(algebra_from_spec(spec), list_limit=None)
+    assert len(r.blocks) == 2
+    assert r.adapted_total_orders == factorial(4)  # hereditary (Dlab-Ringel)
+    assert r.structures == catalan(2) ** 2
+    assert len(r.structure_list) == 4
+
+
+def test_many_blocks_stay_cheap():
+    # 12 disjoint copies of k[x]/(x^2) and A_2: not qh; 12 copies of A_2 alone: counts exact (derived)
+    vs, ar = [], []
+    for k in range(12):
+        vs += [f"u{k}", f"v{k}"]
+        ar += [f"a{k}: u{k} -> v{k}"]
+    A = algebra_from_spec({"field": "GF(5)", "quiver": {"vertices": vs, "arrows": ar}})
+    r = adapted_orders(A, list_limit=3)
+    assert r.structures == 2**12
+    assert r.adapted_total_orders == factorial(24)
+    assert len(r.structure_list) == 3 and not r.listed_all
