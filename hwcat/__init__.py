@@ -1,0 +1,66 @@
+"""hwcat: exact highest-weight-category checks for finite-dimensional algebras.
+
+>>> import hwcat
+>>> A = hwcat.load_spec_text('''
+... field = "QQ"
+... [quiver]
+... vertices = ["1", "2", "3"]
+... arrows = ["a: 1 -> 2", "b: 2 -> 3"]
+... ''')
+>>> hwcat.adapted_orders(A).structures      # Catalan(3)
+5
+>>> v = hwcat.check_order(A, hwcat.parse_order("3 > 2 > 1", A.vertices))
+>>> v.quasi_hereditary
+True
+"""
+
+from hwcat.algebras import BasicAlgebra, Quiver, bound_quiver_algebra
+from hwcat.errors import HwcatError, InternalInconsistency
+from hwcat.exact import GF, QQ, Mat, parse_field
+from hwcat.io.spec import load_spec, load_spec_text
+from hwcat.modules import Module, hom, hom_dimension, injective, projective, simple
+from hwcat.theory.highest_weight import (
+    costandard_filtration,
+    costandard_module,
+    heredity_chain,
+    standard_filtration,
+    standard_module,
+)
+from hwcat.theory.orders import PartialOrder, parse_order, total_order
+from hwcat.theory.search import adapted_orders, is_quasi_hereditary
+from hwcat.theory.structure import describe
+from hwcat.theory.verdict import check_order
+
+__version__ = "0.1.0"
+
+__all__ = [
+    "QQ",
+    "GF",
+    "Mat",
+    "parse_field",
+    "Quiver",
+    "BasicAlgebra",
+    "bound_quiver_algebra",
+    "load_spec",
+    "load_spec_text",
+    "Module",
+    "projective",
+    "injective",
+    "simple",
+    "hom",
+    "hom_dimension",
+    "describe",
+    "PartialOrder",
+    "parse_order",
+    "total_order",
+    "standard_module",
+    "costandard_module",
+    "standard_filtration",
+    "costandard_filtration",
+    "heredity_chain",
+    "check_order",
+    "adapted_orders",
+    "is_quasi_hereditary",
+    "HwcatError",
+    "InternalInconsistency",
+]
