@@ -23,9 +23,12 @@ sys.path.insert(0, str(Path(__file__).resolve().parent))
 import sympy  # noqa: E402
 from _common import measure, table  # noqa: E402
 
-from hwcat.algebras.quiver_families import auslander_truncated_polynomial, linear_A  # noqa: E402
+from hwcat.algebras.quiver_families import (  # noqa: E402
+    auslander_truncated_polynomial,
+    linear_A,
+    spec_to_toml,  # noqa: E402
+)
 from hwcat.io.spec import build_algebra, read_spec_text  # noqa: E402
-from hwcat.algebras.quiver_families import spec_to_toml  # noqa: E402
 from hwcat.theory.search import adapted_orders, is_quasi_hereditary  # noqa: E402
 
 
