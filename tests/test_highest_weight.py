@@ -67,6 +67,26 @@ def test_dual_numbers_witnesses():
     )
     assert v.axiom("projectives-standardly-filtered").holds  # P = Delta: standardly stratified
     assert v.standardly_stratified
+    # Delta = k[x]/(x^2) is filtered by two copies of the simple proper standard module
+    assert v.properly_stratified
+
+
+def test_standardly_but_not_properly_stratified():
+    # one loop x at vertex 1 with x*x = 0, arrow a: 1 -> 2, x*a = 0 (derived by hand):
+    # with 1 > 2, Delta(1) = P(1) = [1; 1 2] has [Delta(1):L(1)] = 2 but proper Delta(1) = L(1),
+    # so dim Delta(1) = 3 != 2 * 1: not properly stratified; P(1) = Delta(1), P(2) = Delta(2).
+    A = algebra_from_spec(
+        {
+            "field": "QQ",
+            "quiver": {
+                "vertices": ["1", "2"],
+                "arrows": ["x: 1 -> 1", "a: 1 -> 2"],
+                "relations": ["x*x", "x*a"],
+            },
+        }
+    )
+    v = check_order(A, parse_order("1 > 2", A.vertices))
+    assert not v.quasi_hereditary and v.standardly_stratified and not v.properly_stratified
 
 
 def test_proper_standard():
@@ -110,6 +130,7 @@ def test_verdicts_agree_and_consequences(Aord):
         assert v.axiom("injectives-costandardly-filtered").holds
         # every failing axiom would need a witness; a yes has none
         assert all(a.witness is None for a in v.axioms)
+        assert v.standardly_stratified and v.properly_stratified  # qh => both (from memory)
     else:
         failing = [a for a in v.axioms if not a.holds]
         assert failing and all(a.witness for a in failing)

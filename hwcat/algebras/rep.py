@@ -83,7 +83,7 @@ def restrict(
 
     Coordinates in a reduced echelon basis are the entries at the pivots.
     """
-    pivots = [s.rref()[1] if s.nrows else () for s in sub]
+    pivots = [s.echelon_pivots() for s in sub]
     out = []
     for i, a in enumerate(arrows):
         img = sub[a.source] @ maps[i]

@@ -262,6 +262,21 @@ class Mat:
             j += 1
         return Mat.from_flat(self.field, rank, c, e[: rank * c]), tuple(pivots)
 
+    def echelon_pivots(self) -> tuple[int, ...]:
+        """Pivot columns of a matrix already in reduced echelon form (no elimination)."""
+        c = self.ncols
+        e = self._m.entries()
+        piv = []
+        j = 0
+        for i in range(self.nrows):
+            while j < c and e[i * c + j] == 0:
+                j += 1
+            if j == c:
+                raise InternalInconsistency("echelon_pivots: a zero row")
+            piv.append(j)
+            j += 1
+        return tuple(piv)
+
     def rank(self) -> int:
         if self.nrows == 0 or self.ncols == 0:
             return 0

@@ -142,7 +142,10 @@ def render_verdict(v, search=None) -> str:
     verdict = "quasi-hereditary" if v.quasi_hereditary else "NOT quasi-hereditary"
     lines.append(f"  verdict: {verdict} for this order")
     if not v.quasi_hereditary:
-        lines.append(f"  standardly stratified: {'yes' if v.standardly_stratified else 'no'}")
+        lines.append(
+            f"  standardly stratified: {'yes' if v.standardly_stratified else 'no'}; "
+            f"properly stratified: {'yes' if v.properly_stratified else 'no'}"
+        )
     lines.append("Axioms:")
     w = max(len(a.name) for a in v.axioms + v.extra)
     for a in v.axioms + v.extra:

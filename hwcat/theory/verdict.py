@@ -13,6 +13,7 @@ from hwcat.theory.highest_weight import (
     costandard_filtration,
     costandard_module,
     heredity_chain,
+    proper_standard_module,
     standard_filtration,
     standard_module,
     trace_cache,
@@ -66,6 +67,7 @@ class OrderVerdict:
     decomposition_costandard: tuple[tuple[int, ...], ...]
     standard_equals_costandard: bool
     standardly_stratified: bool
+    properly_stratified: bool
     standards: tuple[ModuleSummary, ...]
     costandards: tuple[ModuleSummary, ...]
     projective_standard_multiplicities: tuple[tuple[int, ...] | None, ...]
@@ -94,6 +96,7 @@ class OrderVerdict:
             "decomposition_convention": "D[i][j] = [Delta(j) : L(i)], E[i][j] = [nabla(j) : L(i)]",
             "standard_equals_costandard": self.standard_equals_costandard,
             "standardly_stratified": self.standardly_stratified,
+            "properly_stratified": self.properly_stratified,
             "standard_modules": [m.to_dict() for m in self.standards],
             "costandard_modules": [m.to_dict() for m in self.costandards],
             "projective_standard_multiplicities": [
@@ -128,6 +131,19 @@ def _schurian(A: BasicAlgebra, order: PartialOrder) -> Axiom:
     if not bad:
         return Axiom(AXIOM_NAMES[0], True, "[Delta(L) : L(L)] = 1 for every L")
     return Axiom(AXIOM_NAMES[0], False, bad[0]["text"], bad)
+
+
+def _filtered_by_proper(A: BasicAlgebra, L: int, order: PartialOrder) -> bool:
+    """Whether ``Delta(L)`` has a filtration by copies of the proper standard module.
+
+    With ``R = End(Delta(L))^op = e C e`` (``C`` the quotient by the vertices not
+    ``<= L``), ``Delta(L) = e C`` is filtered by ``k (x)_R e C`` = proper
+    ``Delta(L)`` iff ``e C`` is free over the local algebra ``R``, iff
+    ``dim Delta(L) = [Delta(L) : L(L)] * dim(proper Delta(L))`` (derived; the
+    radical filtration of ``R`` gives the filtration when ``e C`` is free).
+    """
+    D = standard_module(A, L, order)
+    return D.dim == D.dims[L] * proper_standard_module(A, L, order).dim
 
 
 def _obstruction_text(A: BasicAlgebra, r: FiltrationResult, label: str, sym: str) -> str:
@@ -316,6 +332,7 @@ def check_order(
         decomposition_costandard=E,
         standard_equals_costandard=D == E,
         standardly_stratified=ax2.holds,
+        properly_stratified=ax2.holds and all(_filtered_by_proper(A, L, order) for L in range(n)),
         standards=tuple(summarise_module(M, f"Delta({A.vertices[L]})") for L, M in enumerate(Ds)),
         costandards=tuple(summarise_module(M, f"nabla({A.vertices[L]})") for L, M in enumerate(Ns)),
         projective_standard_multiplicities=tuple(r.multiplicities for r in pf),
