@@ -47,7 +47,7 @@ def _cmd_check(args: argparse.Namespace) -> int:
         except OrderError as exc:
             where = "--order" if source == "command line" else f"{spec.source}: order"
             raise OrderError(f"{where}: {exc}") from None
-        verdict = check_order(A, order, order_source=source)
+        verdict = check_order(A, order, order_source=source, homological=not args.no_homological)
     else:
         r = adapted_orders(A, list_limit=1)
         search_dict = {
@@ -69,7 +69,12 @@ def _cmd_check(args: argparse.Namespace) -> int:
             chain = list(r.best_attempt)
             rest = [v for v in range(A.n) if v not in chain]
             order = total_order(A.vertices, chain + rest)
-            verdict = check_order(A, order, order_source="best attempt of the search")
+            verdict = check_order(
+                A,
+                order,
+                order_source="best attempt of the search",
+                homological=not args.no_homological,
+            )
             search_info = (
                 f"no order given and NO order is adapted; the longest heredity chain found has "
                 f"{len(chain)} step(s): {' > '.join(A.vertices[i] for i in chain) or '(none)'}; "
@@ -117,6 +122,11 @@ def build_parser() -> argparse.ArgumentParser:
         "--order", help='partial order of the simples, e.g. "3 > 2 > 1" or "1 < 2, 1 < 3"'
     )
     c.add_argument("--json", action="store_true", help="print one JSON object")
+    c.add_argument(
+        "--no-homological",
+        action="store_true",
+        help="skip the Ext conditions, global dimension, tilting modules and Ringel dual",
+    )
     c.set_defaults(func=_cmd_check)
     o = sub.add_parser("orders", help="all adapted orders and quasi-hereditary structures")
     o.add_argument("spec", help="algebra spec file")

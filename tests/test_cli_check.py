@@ -98,3 +98,19 @@ def test_orders_json(tmp_path, capsys):
 def test_orders_text_limit(tmp_path, capsys):
     code, out, _ = run(capsys, "orders", write(tmp_path, linear_A(4)), "--limit", "2")
     assert code == 0 and "#2:" in out and "#3:" not in out and "--all" in out
+
+
+def test_check_homological_keys(capsys):
+    code, out, _ = run(capsys, "check", LANTERN, "--json")
+    d = json.loads(out)
+    assert isinstance(d["global_dimension"], int)
+    assert len(d["tilting"]) == 4
+    for t in d["tilting"]:
+        assert {"dimension_vector", "standard_multiplicities", "costandard_multiplicities"} <= set(
+            t
+        )
+    assert len(d["ringel_dual_cartan"]) == 4
+    names = {a["name"] for a in d["axioms"]}
+    assert {"ext-standard-costandard", "ext-quiver-standard"} <= names
+    code, out, _ = run(capsys, "check", LANTERN, "--json", "--no-homological")
+    assert json.loads(out)["tilting"] is None

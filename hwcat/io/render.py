@@ -172,6 +172,22 @@ def render_verdict(v, search=None) -> str:
         )
     lines.append("Cartan matrix C[i][j] = [P(j) : L(i)]:")
     lines.append(matrix_text(v.cartan, [f"L({x})" for x in vs], [f"P({x})" for x in vs]))
+    if v.global_dimension is not None:
+        lines.append(f"Global dimension: {v.global_dimension}")
+    if v.tilting is not None:
+        lines.append(
+            "Indecomposable tilting modules T(L) (dimension vector; (T : Delta(mu)); (T : nabla(mu))):"
+        )
+        for t in v.tilting:
+            lines.append(
+                f"  T({vs[t.vertex]}):  {layer_text(vs, t.module.dims)};  "
+                f"Delta: {layer_text(vs, t.standard_multiplicities)};  nabla: {layer_text(vs, t.costandard_multiplicities)}"
+            )
+    if v.ringel_dual_cartan is not None:
+        lines.append("Cartan matrix of the Ringel dual End(T)^op (vertex L = T(L)):")
+        lines.append(
+            matrix_text(v.ringel_dual_cartan, [f"T({x})" for x in vs], [f"T({x})" for x in vs])
+        )
     return "\n".join(lines)
 
 

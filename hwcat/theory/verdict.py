@@ -75,6 +75,9 @@ class OrderVerdict:
     adapted_linear_extensions: int | None = None
     note: str = ""
     extra: tuple[Axiom, ...] = ()
+    global_dimension: Any = None  # GlobalDimension, when computed
+    tilting: tuple[Any, ...] | None = None  # TiltingModule per simple, when quasi-hereditary
+    ringel_dual_cartan: tuple[tuple[int, ...], ...] | None = None
 
     def axiom(self, name: str) -> Axiom:
         for a in self.axioms + self.extra:
@@ -105,6 +108,18 @@ class OrderVerdict:
             "linear_extensions": self.linear_extensions,
             "adapted_linear_extensions": self.adapted_linear_extensions,
             "note": self.note,
+            "global_dimension": None
+            if self.global_dimension is None
+            else self.global_dimension.json_value(),
+            "global_dimension_detail": None
+            if self.global_dimension is None
+            else self.global_dimension.to_dict(),
+            "tilting": None
+            if self.tilting is None
+            else [t.to_dict(self.vertices) for t in self.tilting],
+            "ringel_dual_cartan": None
+            if self.ringel_dual_cartan is None
+            else [list(r) for r in self.ringel_dual_cartan],
         }
 
 
@@ -205,8 +220,62 @@ def _filtered(
     )
 
 
+def _ext_axioms(A: BasicAlgebra, order: PartialOrder, Ds, Ns) -> tuple[Axiom, Axiom]:
+    """The Ext conditions: Ext^1,2(Delta, nabla) = 0, and Ext^1(Delta(L), Delta(mu)) != 0 only if L < mu."""
+    from hwcat.theory.homological import ext_dimensions
+
+    n = A.n
+    bad = []
+    for L in range(n):
+        for mu in range(n):
+            e = ext_dimensions(Ds[L], Ns[mu], 2)
+            for i in (1, 2):
+                if e[i]:
+                    bad.append(
+                        {
+                            "standard": A.vertices[L],
+                            "costandard": A.vertices[mu],
+                            "degree": i,
+                            "dimension": e[i],
+                            "text": f"dim Ext^{i}(Delta({A.vertices[L]}), nabla({A.vertices[mu]})) = {e[i]}",
+                        }
+                    )
+    a1 = Axiom(
+        "ext-standard-costandard",
+        not bad,
+        "Ext^i(Delta(L), nabla(mu)) = 0 for i = 1, 2" if not bad else bad[0]["text"],
+        bad or None,
+    )
+    bad2 = []
+    for L in range(n):
+        for mu in range(n):
+            d = ext_dimensions(Ds[L], Ds[mu], 1)[1]
+            if d and not order.lt(L, mu):
+                bad2.append(
+                    {
+                        "first": A.vertices[L],
+                        "second": A.vertices[mu],
+                        "dimension": d,
+                        "text": f"dim Ext^1(Delta({A.vertices[L]}), Delta({A.vertices[mu]})) = {d} but "
+                        f"{A.vertices[L]} is not below {A.vertices[mu]}",
+                    }
+                )
+    a2 = Axiom(
+        "ext-quiver-standard",
+        not bad2,
+        "Ext^1(Delta(L), Delta(mu)) != 0 only if L < mu" if not bad2 else bad2[0]["text"],
+        bad2 or None,
+    )
+    return a1, a2
+
+
 def check_order(
-    A: BasicAlgebra, order: PartialOrder, *, order_source: str = "given", extensions: bool = True
+    A: BasicAlgebra,
+    order: PartialOrder,
+    *,
+    order_source: str = "given",
+    extensions: bool = True,
+    homological: bool = True,
 ) -> OrderVerdict:
     """Check every highest-weight axiom for ``order``; the verdict with witnesses.
 
@@ -306,6 +375,24 @@ def check_order(
         raise InternalInconsistency(
             "quasi-hereditary by the standard modules, yet the costandard side, BGG reciprocity or C = D E^T fails"
         )
+    extra: tuple[Axiom, ...] = ()
+    gd = tilt = rcart = None
+    if homological:
+        from hwcat.theory.homological import global_dimension
+        from hwcat.theory.tilting import ringel_dual, tilting_modules
+
+        extra = _ext_axioms(A, order, Ds, Ns)
+        if qh and not all(a.holds for a in extra):
+            raise InternalInconsistency("quasi-hereditary, yet an Ext condition fails")
+        gd = global_dimension(A, bound=max(2 * n - 1, 1) if qh else None)
+        if qh:
+            if gd.case != "finite" or gd.value > max(2 * n - 2, 0):
+                raise InternalInconsistency(
+                    f"quasi-hereditary with {n} simples but global dimension {gd} (Ringel 2010: at most 2n - 2)"
+                )
+            tilt = tuple(tilting_modules(A, order))
+            R, _ = ringel_dual(A, order)
+            rcart = tuple(tuple(r) for r in R.cartan())
     n_ext = adapted = None
     note = ""
     if not order.is_total and extensions:
@@ -339,4 +426,8 @@ def check_order(
         linear_extensions=n_ext,
         adapted_linear_extensions=adapted,
         note=note,
+        extra=extra,
+        global_dimension=gd,
+        tilting=tilt,
+        ringel_dual_cartan=rcart,
     )

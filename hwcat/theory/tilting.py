@@ -1,0 +1,337 @@
+"""Tilting modules and the Ringel dual of a quasi-hereditary algebra.
+
+Method
+------
+``T(L)`` is built by Ringel's construction: start with ``Delta(L)`` and, for
+the vertices ``mu`` below ``L`` from the highest down, replace the module
+``M`` by its universal extension by ``Delta(mu)``,
+
+    0 -> M -> E -> Delta(mu)^d -> 0,    d = dim Ext^1(Delta(mu), M),
+
+so that ``Ext^1(Delta(mu), E) = 0``.  ``Ext^1(Delta(mu), M)`` is computed
+from a projective cover ``0 -> K -> P -> Delta(mu) -> 0`` as
+``Hom(K, M)`` modulo the restrictions of ``Hom(P, M)``; a basis ``xi_1..xi_d``
+of it gives ``E`` as the pushout ``(M + P^d) / {(sum xi_i(k_i), -k)}``.
+Each result is verified: it has a standard and a costandard filtration,
+``[T(L) : L(L)] = 1``, and its endomorphism ring is local (the endomorphisms
+vanishing at ``L`` form a nilpotent ideal).
+
+The Ringel dual ``R(A) = End_A(T)^op`` for ``T`` the sum of the ``T(L)`` is
+built directly as a :class:`~hwcat.algebras.basic.BasicAlgebra`: its vertex
+``L`` is ``T(L)``, ``e_L R e_M = Hom(T(L), T(M))`` with product ``f * g`` =
+"first f, then g", its radical is everything except the scalars at the
+vertices, and its arrows are a basis of the radical modulo its square.
+
+References
+----------
+C. M. Ringel, The category of modules with good filtrations over a
+quasi-hereditary algebra has almost split sequences, Math. Z. 208 (1991).
+"""
+
+from __future__ import annotations
+
+import re
+from dataclasses import dataclass
+from typing import Any
+
+from hwcat.algebras.basic import BasicAlgebra
+from hwcat.algebras.quiver import Arrow, Quiver
+from hwcat.errors import InternalInconsistency, OrderError
+from hwcat.exact import Mat, echelon, select_independent_rows
+from hwcat.modules import Module, direct_sum, hom
+from hwcat.modules.module import kernel_spaces
+from hwcat.theory.highest_weight import (
+    costandard_filtration,
+    heredity_chain,
+    standard_filtration,
+    standard_module,
+)
+from hwcat.theory.homological import projective_cover
+from hwcat.theory.orders import PartialOrder
+
+__all__ = [
+    "universal_extension",
+    "TiltingModule",
+    "tilting_module",
+    "tilting_modules",
+    "endomorphism_algebra",
+    "ringel_dual",
+    "is_local_endomorphism_ring",
+]
+
+
+def _flat(f: tuple[Mat, ...]) -> list:
+    out: list = []
+    for m in f:
+        out.extend(m.entries())
+    return out
+
+
+def _flat_matrix(F, homs: list[tuple[Mat, ...]], size: int) -> Mat:
+    return Mat.from_flat(F, len(homs), size, [x for f in homs for x in _flat(f)])
+
+
+def _unflat(F, row: list, shapes: list[tuple[int, int]]) -> tuple[Mat, ...]:
+    out, o = [], 0
+    for r, c in shapes:
+        out.append(Mat.from_flat(F, r, c, row[o : o + r * c]))
+        o += r * c
+    return tuple(out)
+
+
+def universal_extension(M: Module, X: Module) -> tuple[Module, int]:
+    """The universal extension ``0 -> M -> E -> X^d -> 0``; returns ``(E, d)``.
+
+    ``d = dim Ext^1(X, M)``; ``M`` is the submodule of ``E`` on the first
+    coordinates at each vertex.
+    """
+    F = M.field
+    A = M.algebra
+    cov = projective_cover(X)
+    P = cov.cover
+    Kspaces = kernel_spaces(P, X, cov.projection)
+    K = P.submodule(Kspaces)
+    shapesKM = [(K.dims[v], M.dims[v]) for v in range(A.n)]
+    size = sum(r * c for r, c in shapesKM)
+    HK = hom(K, M)
+    if not HK or size == 0:
+        return M, 0
+    restr = [tuple(Kspaces[v] @ f[v] for v in range(A.n)) for f in hom(P, M)]
+    HKm = _flat_matrix(F, HK, size)
+    R = _flat_matrix(F, restr, size) if restr else None
+    keep = select_independent_rows(HKm, echelon(R) if R is not None and R.nrows else None)
+    xis = [HK[i] for i in keep]
+    d = len(xis)
+    if d == 0:
+        return M, 0
+    Y = direct_sum(M, *([P] * d))
+    W = []
+    for v in range(A.n):
+        rows = []
+        k = Kspaces[v]
+        if k.nrows == 0:
+            W.append(Mat.zeros(F, 0, Y.dims[v]))
+            continue
+        for i, xi in enumerate(xis):
+            blocks = [xi[v]]
+            for j in range(d):
+                blocks.append(-k if j == i else Mat.zeros(F, k.nrows, P.dims[v]))
+            rows.append(Mat.hstack(F, blocks, k.nrows))
+        W.append(echelon(Mat.vstack(F, rows, Y.dims[v])))
+    E = Y.quotient(W)
+    if E.dim != M.dim + d * X.dim:
+        raise InternalInconsistency("universal extension has the wrong dimension")
+    return E, d
+
+
+def is_local_endomorphism_ring(M: Module, vertex: int) -> bool:
+    """For ``M`` with ``[M : L(vertex)] = 1``: whether ``End(M)`` is local.
+
+    The scalar by which an endomorphism acts on the line ``M_vertex`` is an
+    algebra map ``End(M) -> k``; ``End(M)`` is local exactly when its kernel
+    ``I`` is nilpotent, tested by computing ``I, I^2, ...`` until zero or stable.
+    """
+    if M.dims[vertex] != 1:
+        raise InternalInconsistency("is_local_endomorphism_ring needs multiplicity one")
+    F = M.field
+    n = M.algebra.n
+    shapes = [(M.dims[v], M.dims[v]) for v in range(n)]
+    size = sum(r * c for r, c in shapes)
+    E = hom(M, M)
+    I = [f for f in E if f[vertex].is_zero()]
+    # a basis of the kernel of f -> f[vertex] (scalars); I as spanned by combinations
+    scal = Mat.from_flat(F, len(E), 1, [f[vertex].entries()[0] for f in E])
+    K = scal.left_kernel()
+    Em = _flat_matrix(F, E, size)
+    Ibasis = echelon(K @ Em) if K.nrows else Mat.zeros(F, 0, size)
+    I = [_unflat(F, Ibasis.take_rows([r]).entries(), shapes) for r in range(Ibasis.nrows)]
+    power = I
+    dims_seen = []
+    while power:
+        prods = [tuple(x[v] @ y[v] for v in range(n)) for x in power for y in I]
+        Pm = echelon(_flat_matrix(F, prods, size)) if prods else Mat.zeros(F, 0, size)
+        if Pm.nrows == 0:
+            return True
+        if dims_seen and Pm.nrows >= dims_seen[-1]:
+            return False
+        dims_seen.append(Pm.nrows)
+        power = [_unflat(F, Pm.take_rows([r]).entries(), shapes) for r in range(Pm.nrows)]
+    return True
+
+
+@dataclass(frozen=True)
+class TiltingModule:
+    """An indecomposable tilting module ``T(L)`` with its verified data."""
+
+    vertex: int
+    module: Module
+    standard_multiplicities: tuple[int, ...]
+    costandard_multiplicities: tuple[int, ...]
+    extension_steps: tuple[tuple[int, int], ...]  # (mu, d) for each universal extension
+
+    def to_dict(self, vertices) -> dict[str, Any]:
+        return {
+            "vertex": vertices[self.vertex],
+            "dimension_vector": list(self.module.dims),
+            "standard_multiplicities": list(self.standard_multiplicities),
+            "costandard_multiplicities": list(self.costandard_multiplicities),
+            "radical_layers": [list(x) for x in self.module.radical_layers()],
+        }
+
+
+def _require_qh(A: BasicAlgebra, order: PartialOrder) -> None:
+    if not heredity_chain(A, order).holds:
+        raise OrderError(f"the algebra is not quasi-hereditary for the order {order.chain_text()}")
+
+
+def tilting_module(A: BasicAlgebra, L: int, order: PartialOrder) -> TiltingModule:
+    """``T(L)`` by Ringel's construction, verified (see the module notes)."""
+    key = ("tilting", L, order.less)
+    if key in A._cache:
+        return A._cache[key]
+    _require_qh(A, order)
+    M = standard_module(A, L, order)
+    steps = []
+    ext = order.first_extension()
+    below = [mu for mu in ext[ext.index(L) + 1 :]]
+    for mu in below:
+        M, d = universal_extension(M, standard_module(A, mu, order))
+        if d:
+            steps.append((mu, d))
+    M.name = f"T({A.vertices[L]})"
+    sf = standard_filtration(M, order)
+    cf = costandard_filtration(M, order)
+    if not (sf.exists and cf.exists):
+        raise InternalInconsistency(f"T({A.vertices[L]}) lacks a standard or costandard filtration")
+    if M.dims[L] != 1:
+        raise InternalInconsistency(f"[T({A.vertices[L]}) : L({A.vertices[L]})] = {M.dims[L]}")
+    if not is_local_endomorphism_ring(M, L):
+        raise InternalInconsistency(f"T({A.vertices[L]}) is decomposable")
+    T = TiltingModule(L, M, sf.multiplicities, cf.multiplicities, tuple(steps))
+    A._cache[key] = T
+    return T
+
+
+def tilting_modules(A: BasicAlgebra, order: PartialOrder) -> list[TiltingModule]:
+    """All ``T(L)``, in vertex order."""
+    return [tilting_module(A, L, order) for L in range(A.n)]
+
+
+_IDENT = re.compile(r"[^A-Za-z0-9_]")
+
+
+def _arrow_name(a: str, b: str, k: int, taken: set[str]) -> str:
+    base = f"f_{_IDENT.sub('_', a)}_{_IDENT.sub('_', b)}"
+    name = base if k == 0 else f"{base}_{k}"
+    while name in taken:
+        name += "_"
+    taken.add(name)
+    return name
+
+
+def endomorphism_algebra(
+    modules: list[Module], labels: tuple[str, ...], vertices: list[int], name: str = ""
+) -> BasicAlgebra:
+    """``End(T)^op`` for ``T`` the sum of ``modules`` (indecomposable, pairwise non-isomorphic).
+
+    ``vertices[i]`` is a vertex where ``modules[i]`` has multiplicity one and
+    which the endomorphisms of the other summands cannot reach isomorphically
+    (for tilting modules: the highest weight).  The product is "first f, then g".
+    """
+    F = modules[0].field
+    n = len(modules)
+    N = modules[0].algebra.n
+    shapes = {
+        (i, j): [(modules[i].dims[v], modules[j].dims[v]) for v in range(N)]
+        for i in range(n)
+        for j in range(n)
+    }
+    sizes = {k: sum(r * c for r, c in s) for k, s in shapes.items()}
+    basis: dict[tuple[int, int], list[tuple[Mat, ...]]] = {}
+    flat: dict[tuple[int, int], Mat] = {}
+    pivots: dict[tuple[int, int], tuple[int, ...]] = {}
+    for i in range(n):
+        for j in range(n):
+            H = hom(modules[i], modules[j])
+            Hm = echelon(_flat_matrix(F, H, sizes[(i, j)])) if H else Mat.zeros(F, 0, sizes[(i, j)])
+            flat[(i, j)] = Hm
+            pivots[(i, j)] = Hm.echelon_pivots()
+            basis[(i, j)] = [
+                _unflat(F, Hm.take_rows([r]).entries(), shapes[(i, j)]) for r in range(Hm.nrows)
+            ]
+
+    def coords(i, j, f):
+        row = _flat(f)
+        return [row[p] for p in pivots[(i, j)]]
+
+    # radical: all of Hom(i, j) for i != j; endomorphisms vanishing at vertices[i] for i == j
+    rad: dict[tuple[int, int], Mat] = {}
+    for i in range(n):
+        for j in range(n):
+            H = flat[(i, j)]
+            if i != j or H.nrows == 0:
+                rad[(i, j)] = H
+                continue
+            v = vertices[i]
+            scal = Mat.from_flat(
+                F, len(basis[(i, i)]), 1, [f[v].entries()[0] for f in basis[(i, i)]]
+            )
+            K = scal.left_kernel()
+            rad[(i, j)] = echelon(K @ H) if K.nrows else Mat.zeros(F, 0, H.ncols)
+    rad_homs = {
+        k: [_unflat(F, m.take_rows([r]).entries(), shapes[k]) for r in range(m.nrows)]
+        for k, m in rad.items()
+    }
+    arrows: list[Arrow] = []
+    arrow_homs: list[tuple[Mat, ...]] = []
+    taken: set[str] = set()
+    for i in range(n):
+        for j in range(n):
+            R = rad[(i, j)]
+            if R.nrows == 0:
+                continue
+            prods = [
+                tuple(x[v] @ y[v] for v in range(N))
+                for k in range(n)
+                for x in rad_homs[(i, k)]
+                for y in rad_homs[(k, j)]
+            ]
+            R2 = echelon(_flat_matrix(F, prods, sizes[(i, j)])) if prods else None
+            keep = select_independent_rows(R, R2 if R2 is not None and R2.nrows else None)
+            for k, r in enumerate(keep):
+                arrows.append(Arrow(_arrow_name(labels[i], labels[j], k, taken), i, j))
+                arrow_homs.append(rad_homs[(i, j)][r])
+    quiver = Quiver(tuple(labels), tuple(arrows))
+    reps = []
+    starts = []
+    for s in range(n):
+        dims = tuple(len(basis[(s, t)]) for t in range(n))
+        maps = []
+        for a, h in zip(arrows, arrow_homs, strict=True):
+            rows = [
+                coords(s, a.target, tuple(g[v] @ h[v] for v in range(N)))
+                for g in basis[(s, a.source)]
+            ]
+            maps.append(
+                Mat.from_flat(F, dims[a.source], dims[a.target], [x for r in rows for x in r])
+            )
+        reps.append((dims, tuple(maps)))
+        ident = tuple(Mat.identity(F, modules[s].dims[v]) for v in range(N))
+        starts.append(Mat.from_flat(F, 1, dims[s], coords(s, s, ident)))
+    return BasicAlgebra.from_cyclic_representations(F, quiver, reps, starts=starts, name=name)
+
+
+def ringel_dual(A: BasicAlgebra, order: PartialOrder) -> tuple[BasicAlgebra, PartialOrder]:
+    """The Ringel dual ``R(A) = End_A(T)^op`` and its order (the opposite of ``order``).
+
+    Its vertex ``L`` is ``T(L)`` (same names as ``A``).
+    """
+    Ts = tilting_modules(A, order)
+    R = endomorphism_algebra(
+        [T.module for T in Ts],
+        A.vertices,
+        list(range(A.n)),
+        name=f"Ringel dual of {A.name}" if A.name else "Ringel dual",
+    )
+    opp = PartialOrder(R.vertices, frozenset((b, a) for a, b in order.less))
+    return R, opp
