@@ -11,7 +11,7 @@ import json
 import sys
 from collections.abc import Sequence
 
-from hwcat.errors import HwcatError, InternalInconsistency, OrderError
+from hwcat.errors import HwcatError, InternalInconsistency, OrderError, SpecError
 from hwcat.io.render import render_orders, render_structure, render_verdict, to_json
 from hwcat.io.spec import build_algebra, read_spec
 
@@ -104,6 +104,81 @@ def _cmd_orders(args: argparse.Namespace) -> int:
     return 0 if r.quasi_hereditary else 1
 
 
+def _notes(A) -> list[str]:
+    """Lines about how an algebra given by a table or matrices was reduced."""
+    from hwcat.algebras.reduction import reduction_of
+
+    r = reduction_of(A)
+    if r is None:
+        return []
+    B = r.algebra
+    dims = ", ".join(
+        f"L({v}): {d}" for v, d in zip(r.basic.vertices, r.simple_dimensions, strict=True)
+    )
+    return [
+        f"reduced from an algebra of dimension {B.dim} ({B.associativity.text()}); "
+        f"radical dimension {r.radical_dimension}; simple dimensions {dims}",
+    ]
+
+
+def _cmd_presentation(args: argparse.Namespace) -> int:
+    from hwcat.algebras.presentation import presentation_toml
+
+    spec, A = _load(args)
+    text = presentation_toml(A, name=spec.name or None)
+    for line in _notes(A):
+        print(f"# {line}", file=sys.stderr)
+    if args.output:
+        try:
+            with open(args.output, "w", encoding="utf-8") as fh:
+                fh.write(text)
+        except OSError as exc:
+            raise SpecError(f"{args.output}: cannot write: {exc.strerror or exc}") from None
+        print(f"wrote {args.output}", file=sys.stderr)
+    else:
+        print(text, end="")
+    return 0
+
+
+def _parse_assignments(items: Sequence[str]) -> dict[str, str]:
+    out = {}
+    for it in items:
+        if "=" not in it:
+            raise SpecError(f"family parameter {it!r}: expected key=value, e.g. n=4")
+        k, v = it.split("=", 1)
+        out[k.strip()] = v.strip()
+    return out
+
+
+def _cmd_family(args: argparse.Namespace) -> int:
+    from hwcat.algebras.families import FAMILIES, family_algebra
+    from hwcat.algebras.presentation import presentation_toml
+    from hwcat.theory.structure import describe
+
+    if args.list or not args.name:
+        for f in FAMILIES.values():
+            print(f"{f.usage()}\n    {f.summary}\n    source: {f.source}")
+        return 0
+    params = _parse_assignments(args.params)
+    A = family_algebra(args.name, seed=args.seed, **params)
+    if args.write_quiver:
+        text = presentation_toml(A, name=A.name or args.name)
+        try:
+            with open(args.write_quiver, "w", encoding="utf-8") as fh:
+                fh.write(text)
+        except OSError as exc:
+            raise SpecError(f"{args.write_quiver}: cannot write: {exc.strerror or exc}") from None
+        print(f"wrote {args.write_quiver}", file=sys.stderr)
+    report = describe(A)
+    if args.json:
+        print(to_json(report))
+    else:
+        print(render_structure(report))
+        for line in _notes(A):
+            print(f"  {line}")
+    return 0
+
+
 def build_parser() -> argparse.ArgumentParser:
     p = argparse.ArgumentParser(
         prog="hwcat",
@@ -134,6 +209,28 @@ def build_parser() -> argparse.ArgumentParser:
     o.add_argument("--all", action="store_true", help="list every structure")
     o.add_argument("--limit", type=int, default=20, help="how many structures to list (default 20)")
     o.set_defaults(func=_cmd_orders)
+    pr = sub.add_parser(
+        "presentation",
+        help="the quiver with relations of any spec, written as a [quiver] spec",
+    )
+    pr.add_argument("spec", help="algebra spec file")
+    pr.add_argument("-o", "--output", help="write the spec to this file instead of printing it")
+    pr.set_defaults(func=_cmd_presentation)
+    fa = sub.add_parser(
+        "family",
+        help="a built-in family: describe it, or write its quiver with relations for other commands",
+    )
+    fa.add_argument("name", nargs="?", help="family name (see --list)")
+    fa.add_argument("params", nargs="*", help="parameters key=value, e.g. n=4 delta=0 field=QQ")
+    fa.add_argument("--list", action="store_true", help="list the families and their parameters")
+    fa.add_argument("--json", action="store_true", help="print one JSON object")
+    fa.add_argument("--seed", type=int, default=0, help="seed of the randomised reduction")
+    fa.add_argument(
+        "--write-quiver",
+        metavar="FILE",
+        help="also write the family's quiver with relations as a spec (for check, orders, ...)",
+    )
+    fa.set_defaults(func=_cmd_family)
     return p
 
 

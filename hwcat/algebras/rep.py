@@ -167,7 +167,7 @@ def generated_word_basis(
             rows[t] = Mat.vstack(field, [rows[t], C.take_rows(keep)], dims[t])
             for k in keep:
                 elems[t].append(items[k][0])
-                frontier.append((items[k][0], t, C.take_rows([k])))
+                frontier.append((items[k][0], t, items[k][1]))
         cand = {}
         for (g, w), v, vec in frontier:
             for i in out_arrows[v]:

@@ -15,14 +15,25 @@ from typing import Any
 from hwcat.algebras.basic import BasicAlgebra
 from hwcat.algebras.bound import bound_quiver_algebra
 from hwcat.algebras.quiver import Quiver, parse_relation
-from hwcat.errors import HwcatError, SpecError, SpecSyntaxError
+from hwcat.errors import HwcatError, SpecError, SpecSyntaxError, StructureConstantsError
 from hwcat.exact import Field, parse_field
 
-__all__ = ["Spec", "read_spec", "read_spec_text", "build_algebra", "load_spec", "load_spec_text"]
+__all__ = [
+    "Spec",
+    "read_spec",
+    "read_spec_text",
+    "build_algebra",
+    "build_structure",
+    "build_reduction",
+    "load_spec",
+    "load_spec_text",
+]
 
 TOP_KEYS = {"name", "field", "order", "quiver", "multiplication", "matrices", "format"}
 KINDS = ("quiver", "multiplication", "matrices")
 QUIVER_KEYS = {"vertices", "arrows", "relations", "vanish_from_length"}
+MULTIPLICATION_KEYS = {"basis", "products", "unit", "idempotents", "associativity", "seed"}
+MATRICES_KEYS = {"generators", "idempotents", "seed"}
 
 
 @dataclass(frozen=True)
@@ -94,6 +105,10 @@ def read_spec(path: str | FilePath) -> Spec:
         text = p.read_text(encoding="utf-8")
     except OSError as exc:
         raise SpecError(f"{p}: cannot read: {exc.strerror or exc}") from None
+    except UnicodeDecodeError as exc:
+        raise SpecSyntaxError(
+            f"{p}: not UTF-8 text: byte {exc.object[exc.start]:#04x} at offset {exc.start}"
+        ) from None
     return read_spec_text(text, str(p))
 
 
@@ -121,14 +136,13 @@ def _quiver_algebra(spec: Spec) -> BasicAlgebra:
     if not vertices:
         raise _err(SpecError, src, "quiver.vertices", "the quiver has no vertices")
     try:
+        Quiver.from_text(vertices, [])
+    except HwcatError as exc:
+        raise type(exc)(f"{src}: quiver.vertices: {exc}") from None
+    try:
         Q = Quiver.from_text(vertices, arrows)
     except HwcatError as exc:
-        key = (
-            "quiver.vertices"
-            if "vertex" in str(exc) and "arrow" not in str(exc)
-            else "quiver.arrows"
-        )
-        raise type(exc)(f"{src}: {key}: {exc}") from None
+        raise type(exc)(f"{src}: quiver.arrows: {exc}") from None
     rel_texts = tab.get("relations", [])
     if not isinstance(rel_texts, list):
         raise _err(SpecError, src, "quiver.relations", "must be a list of strings")
@@ -152,7 +166,199 @@ def _quiver_algebra(spec: Spec) -> BasicAlgebra:
         raise type(exc)(f"{src}: {key}: {exc}") from None
 
 
-_BUILDERS = {"quiver": _quiver_algebra}
+# -- [multiplication] and [matrices]: reduced to the basic algebra -------------------
+
+
+def _check_keys(src: str, kind: str, tab: dict, allowed: set[str]) -> None:
+    unknown = sorted(set(tab) - allowed)
+    if unknown:
+        raise _err(
+            SpecError,
+            src,
+            f"{kind}.{unknown[0]}",
+            f"unknown key (allowed: {', '.join(sorted(allowed))})",
+        )
+
+
+def _string_list(src: str, key: str, value: Any) -> list[str]:
+    if not isinstance(value, list):
+        raise _err(SpecError, src, key, "must be a list of strings")
+    for i, x in enumerate(value):
+        if not isinstance(x, str):
+            raise _err(SpecError, src, f"{key}[{i}]", f"{x!r} is not a string")
+    return value
+
+
+def _seed(src: str, kind: str, tab: dict) -> int:
+    seed = tab.get("seed", 0)
+    if not isinstance(seed, int) or isinstance(seed, bool):
+        raise _err(SpecError, src, f"{kind}.seed", f"{seed!r} is not an integer")
+    return seed
+
+
+def _multiplication_structure(spec: Spec):
+    from hwcat.algebras.structure import StructureAlgebra
+    from hwcat.algebras.structure_input import (
+        add_unit_products,
+        parse_combination,
+        parse_products,
+    )
+
+    src, tab, F = spec.source, spec.table, spec.field
+    _check_keys(src, "multiplication", tab, MULTIPLICATION_KEYS)
+    if "basis" not in tab:
+        raise _err(SpecError, src, "multiplication.basis", "missing (a list of names)")
+    basis = _string_list(src, "multiplication.basis", tab["basis"])
+    if not basis:
+        raise _err(SpecError, src, "multiplication.basis", "the basis is empty")
+    seen: set[str] = set()
+    for i, b in enumerate(basis):
+        if not b.strip() or any(ch in b for ch in "*+-= "):
+            raise _err(SpecError, src, f"multiplication.basis[{i}]", f"{b!r} is not a valid name")
+        if b in seen:
+            raise _err(
+                StructureConstantsError, src, f"multiplication.basis[{i}]", f"{b!r} is listed twice"
+            )
+        seen.add(b)
+    rules = _string_list(src, "multiplication.products", tab.get("products", []))
+    try:
+        products = parse_products(rules, basis, F)
+    except HwcatError as exc:
+        raise type(exc)(f"{src}: multiplication.products{exc}") from None
+    unit = None
+    if "unit" in tab:
+        if not isinstance(tab["unit"], str):
+            raise _err(SpecError, src, "multiplication.unit", 'must be a string such as "e"')
+        try:
+            unit = parse_combination(tab["unit"], field=F, basis=basis)
+        except HwcatError as exc:
+            raise type(exc)(f"{src}: multiplication.unit: {exc}") from None
+        products = add_unit_products(products, unit, len(basis))
+    mode = tab.get("associativity", "auto")
+    if mode not in ("auto", "exact", "sampled", "skip"):
+        raise _err(
+            SpecError,
+            src,
+            "multiplication.associativity",
+            f"{mode!r}: expected auto, exact, sampled or skip",
+        )
+    seed = _seed(src, "multiplication", tab)
+    try:
+        A = StructureAlgebra(
+            F, basis, products, unit, name=spec.name, associativity=mode, seed=seed
+        )
+    except HwcatError as exc:
+        text = str(exc)
+        key = (
+            "multiplication.unit"
+            if ("unit" in text or "identity" in text)
+            else "multiplication.products"
+        )
+        raise type(exc)(f"{src}: {key}: {text}") from None
+    ids = None
+    if "idempotents" in tab:
+        texts = _string_list(src, "multiplication.idempotents", tab["idempotents"])
+        ids = []
+        for i, t in enumerate(texts):
+            try:
+                ids.append(parse_combination(t, A))
+            except HwcatError as exc:
+                raise type(exc)(f"{src}: multiplication.idempotents[{i}]: {exc}") from None
+    return A, ids, seed
+
+
+def _matrix_value(src: str, key: str, F, value: Any):
+    from hwcat.exact import Mat
+
+    if not isinstance(value, list) or not value or not all(isinstance(r, list) for r in value):
+        raise _err(SpecError, src, key, "must be a non-empty list of rows (lists of entries)")
+    width = len(value[0])
+    rows = []
+    for i, r in enumerate(value):
+        if len(r) != width:
+            raise _err(
+                StructureConstantsError,
+                src,
+                key,
+                f"row {i} has {len(r)} entries, row 0 has {width}",
+            )
+        row = []
+        for j, x in enumerate(r):
+            if isinstance(x, bool) or not isinstance(x, (int, str)):
+                raise _err(
+                    SpecError, src, f"{key}[{i}][{j}]", f"{x!r} is not an integer or a string"
+                )
+            try:
+                row.append(F.parse(x))
+            except HwcatError as exc:
+                raise type(exc)(f"{src}: {key}[{i}][{j}]: {exc}") from None
+        rows.append(row)
+    return Mat.from_rows(F, rows, width)
+
+
+def _matrices_structure(spec: Spec):
+    from hwcat.algebras.structure_input import (
+        matrix_algebra,
+        matrix_coordinates,
+        matrix_expression,
+    )
+
+    src, tab, F = spec.source, spec.table, spec.field
+    _check_keys(src, "matrices", tab, MATRICES_KEYS)
+    gens = tab.get("generators")
+    if not isinstance(gens, dict) or not gens:
+        raise _err(SpecError, src, "matrices.generators", "missing: a table of named matrices")
+    mats = {}
+    for name, value in gens.items():
+        mats[str(name)] = _matrix_value(src, f"matrices.generators.{name}", F, value)
+    try:
+        A = matrix_algebra(F, mats, name=spec.name)
+    except HwcatError as exc:
+        raise type(exc)(f"{src}: matrices.generators: {exc}") from None
+    seed = _seed(src, "matrices", tab)
+    ids = None
+    if "idempotents" in tab:
+        texts = _string_list(src, "matrices.idempotents", tab["idempotents"])
+        ids = []
+        for i, t in enumerate(texts):
+            try:
+                ids.append(matrix_coordinates(A, matrix_expression(t, F, mats)))
+            except HwcatError as exc:
+                raise type(exc)(f"{src}: matrices.idempotents[{i}]: {exc}") from None
+    return A, ids, seed
+
+
+def build_structure(spec: Spec):
+    """The structure-constant algebra of a ``[multiplication]`` or ``[matrices]`` spec,
+    with the idempotents it supplies (or ``None``) and its seed."""
+    if spec.kind == "multiplication":
+        return _multiplication_structure(spec)
+    if spec.kind == "matrices":
+        return _matrices_structure(spec)
+    raise _err(SpecError, spec.source, spec.kind, "not a multiplication table or matrices")
+
+
+def build_reduction(spec: Spec):
+    """The :class:`~hwcat.algebras.reduction.Reduction` of a table or matrices spec."""
+    from hwcat.algebras.reduction import reduce_algebra
+
+    A, ids, seed = build_structure(spec)
+    key = f"{spec.kind}.idempotents" if ids is not None else spec.kind
+    try:
+        return reduce_algebra(A, seed=seed, idempotents=ids)
+    except HwcatError as exc:
+        raise type(exc)(f"{spec.source}: {key}: {exc}") from None
+
+
+def _reduced_algebra(spec: Spec) -> BasicAlgebra:
+    return build_reduction(spec).basic
+
+
+_BUILDERS = {
+    "quiver": _quiver_algebra,
+    "multiplication": _reduced_algebra,
+    "matrices": _reduced_algebra,
+}
 
 
 def register_builder(kind: str, builder) -> None:

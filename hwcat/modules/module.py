@@ -41,6 +41,9 @@ __all__ = [
     "simple",
     "direct_sum",
     "regular_module",
+    "is_homomorphism",
+    "kernel_spaces",
+    "image_spaces",
 ]
 
 
@@ -167,28 +170,42 @@ class Module:
     def socle(self) -> tuple[int, ...]:
         return tuple(s.nrows for s in self.socle_spaces())
 
+    def radical_series(self) -> list[list[Mat]]:
+        """``rad^k M`` for k = 0, 1, ... (echelon bases in ``M``'s coordinates), ending at 0."""
+        if "radical_series" in self._memo:
+            return self._memo["radical_series"]
+        F = self.field
+        arrows = self.algebra.arrows
+        series = [self.full()]
+        while any(r.nrows for r in series[-1]):
+            cur = series[-1]
+            imgs: list[list[Mat]] = [[] for _ in self.dims]
+            for m, a in zip(self.maps, arrows, strict=True):
+                if cur[a.source].nrows and m.ncols:
+                    imgs[a.target].append(cur[a.source] @ m)
+            series.append(
+                [
+                    echelon(Mat.vstack(F, imgs[v], d)) if imgs[v] else Mat.zeros(F, 0, d)
+                    for v, d in enumerate(self.dims)
+                ]
+            )
+        self._memo["radical_series"] = series
+        return series
+
     def radical_layers(self) -> list[tuple[int, ...]]:
         """Dimension vectors of ``rad^k M / rad^(k+1) M``, k = 0, 1, ..."""
-        if "radical_layers" in self._memo:
-            return self._memo["radical_layers"]
-        layers = []
-        M = self
-        while M.dim:
-            R = M.radical_spaces()
-            layers.append(tuple(d - r.nrows for d, r in zip(M.dims, R, strict=True)))
-            M = M.submodule(R)
-        self._memo["radical_layers"] = layers
-        return layers
+        ser = self.radical_series()
+        return [
+            tuple(a.nrows - b.nrows for a, b in zip(ser[k], ser[k + 1], strict=True))
+            for k in range(len(ser) - 1)
+        ]
 
     def socle_layers(self) -> list[tuple[int, ...]]:
-        """Dimension vectors of ``soc^(k+1) M / soc^k M``, k = 0, 1, ... (bottom first)."""
-        layers = []
-        M = self
-        while M.dim:
-            S = M.socle_spaces()
-            layers.append(tuple(s.nrows for s in S))
-            M = M.quotient(S)
-        return layers
+        """Dimension vectors of ``soc^(k+1) M / soc^k M``, k = 0, 1, ... (bottom first).
+
+        These are the radical layers of the dual module ``D M`` (over the opposite algebra).
+        """
+        return self.dual().radical_layers()
 
     def loewy_length(self) -> int:
         return len(self.radical_layers())
@@ -228,6 +245,66 @@ class Module:
     def key(self) -> tuple:
         """Exact fingerprint of the data (for equality of modules given in the same basis)."""
         return (self.dims, tuple(m.key() for m in self.maps))
+
+
+# -- homomorphisms given as matrices ----------------------------------------------------------
+
+
+def _check_map(M: Module, N: Module, f: Sequence[Mat]) -> None:
+    if M.algebra is not N.algebra:
+        raise InternalInconsistency("a map between modules over different algebras")
+    if len(f) != len(M.dims) or any(
+        f[v].shape != (M.dims[v], N.dims[v]) for v in range(len(M.dims))
+    ):
+        raise InternalInconsistency(
+            f"a map {M.dims} -> {N.dims} needs one matrix dim M_v x dim N_v per vertex"
+        )
+
+
+def is_homomorphism(M: Module, N: Module, f: Sequence[Mat]) -> bool:
+    """Whether the matrices ``f[v] : M_v -> N_v`` commute with every arrow.
+
+    The condition is ``M_a @ f[t] == f[s] @ N_a`` for each arrow ``a: s -> t``
+    (row vectors: a vector ``x`` of ``M_s`` goes to ``x @ f[s]``).
+
+    >>> from hwcat.io.spec import load_spec_text
+    >>> from hwcat.exact import Mat
+    >>> A = load_spec_text('field = "QQ"\\n[quiver]\\nvertices = ["1", "2"]\\narrows = ["a: 1 -> 2"]')
+    >>> P, S = projective(A, 0), simple(A, 0)
+    >>> top = [Mat.identity(A.field, 1), Mat.zeros(A.field, 1, 0)]
+    >>> is_homomorphism(P, S, top), is_homomorphism(S, P, [Mat.identity(A.field, 1), Mat.zeros(A.field, 0, 1)])
+    (True, False)
+    """
+    _check_map(M, N, f)
+    for i, a in enumerate(M.algebra.arrows):
+        if M.maps[i] @ f[a.target] != f[a.source] @ N.maps[i]:
+            return False
+    return True
+
+
+def kernel_spaces(M: Module, N: Module, f: Sequence[Mat]) -> list[Mat]:
+    """Echelon bases, per vertex, of the kernel of ``f : M -> N``.
+
+    For a homomorphism the result is a submodule: pass it to
+    :meth:`Module.submodule`.  The rows are vectors of ``M_v``, so the matrix
+    at ``v`` is also the inclusion of the kernel into ``M`` at ``v``.
+
+    >>> from hwcat.io.spec import load_spec_text
+    >>> from hwcat.exact import Mat
+    >>> A = load_spec_text('field = "QQ"\\n[quiver]\\nvertices = ["1", "2"]\\narrows = ["a: 1 -> 2"]')
+    >>> P, S = projective(A, 0), simple(A, 0)
+    >>> K = kernel_spaces(P, S, [Mat.identity(A.field, 1), Mat.zeros(A.field, 1, 0)])
+    >>> P.submodule(K).dims
+    (0, 1)
+    """
+    _check_map(M, N, f)
+    return [echelon(m.left_kernel()) for m in f]
+
+
+def image_spaces(M: Module, N: Module, f: Sequence[Mat]) -> list[Mat]:
+    """Echelon bases, per vertex, of the image of ``f : M -> N`` (vectors of ``N_v``)."""
+    _check_map(M, N, f)
+    return [echelon(m) for m in f]
 
 
 def projective(A: BasicAlgebra, s: int) -> Module:

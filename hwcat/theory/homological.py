@@ -34,8 +34,13 @@ exact test is used: ``L(j)`` is a direct summand of ``X`` exactly when
 ``soc(X)_j`` is not contained in ``rad(X)_j``.  If ``L(j)`` is a summand of
 ``Omega^k L(i)`` then ``pd L(i) >= k + pd L(j)``, so every simple from which a
 cycle of such links (or a simple of infinite projective dimension) can be
-reached has infinite projective dimension.  A computation that reaches the
-user's bound first reports "at least bound + 1".
+reached has infinite projective dimension.  Last, if every simple had a
+finite resolution, the classes of the simples in the Grothendieck group would
+be integer combinations of those of the projectives, the columns of the
+Cartan matrix, whose determinant would then be ``+-1``; so a determinant other
+than ``+-1`` proves the global dimension infinite (Eilenberg's observation).
+Otherwise a computation that reaches the user's bound first reports "at least
+bound + 1".
 
 References
 ----------
@@ -68,8 +73,9 @@ import networkx as nx
 
 from hwcat.algebras.basic import BasicAlgebra
 from hwcat.errors import HwcatError, InternalInconsistency
-from hwcat.exact import Mat, assemble, contains
-from hwcat.modules import Module, direct_sum, hom, projective, simple
+from hwcat.exact import Mat, contains
+from hwcat.modules import Module, direct_sum, projective, simple
+from hwcat.modules.hom import _hom_system, homomorphism_from_images
 from hwcat.modules.module import is_homomorphism, kernel_spaces
 
 __all__ = [
@@ -446,39 +452,48 @@ def _named_dual(P: Module, name: str) -> Module:
 
 
 def _hom_differential(R: ProjectiveResolution, i: int, N: Module) -> Mat:
-    """``Hom(P_(i-1), N) -> Hom(P_i, N)`` in the coordinates ``(u_k)``, ``u_k`` in ``N_(v_k)``."""
+    """``Hom(P_(i-1), N) -> Hom(P_i, N)`` in the coordinates ``(u_k)``, ``u_k`` in ``N_(v_k)``.
+
+    The block from summand ``k`` (vertex ``v``) of ``P_(i-1)`` to generator
+    ``l`` (vertex ``w``) of ``P_i`` is ``sum_p c_(l,p) N_p`` over the paths
+    ``p`` of ``e_v A e_w``; for all ``l`` at ``w`` at once this is one product
+    ``C @ T`` with ``T`` the path matrices ``N_p`` flattened into rows.
+    """
     A, F = N.algebra, N.field
     src, dst, inc = R.covers[i - 1], R.covers[i], R.inclusions[i - 1]
-    row_off, o = [], 0
+    row_off = [0]
     for v in src.summands:
-        row_off.append(o)
-        o += N.dims[v]
-    nrows = o
-    col_off, o = [], 0
+        row_off.append(row_off[-1] + N.dims[v])
+    col_off = [0]
     for w in dst.summands:
-        col_off.append(o)
-        o += N.dims[w]
-    ncols = o
-    offsets: dict[int, tuple[int, ...]] = {}
-    blocks = []
-    for ell, (w, g) in enumerate(zip(dst.summands, dst.generators, strict=True)):
-        if N.dims[w] == 0:
+        col_off.append(col_off[-1] + N.dims[w])
+    nrows, ncols = row_off[-1], col_off[-1]
+    flat = [F.zero] * (nrows * ncols)
+    for w in range(A.n):
+        gens = [ell for ell, x in enumerate(dst.summands) if x == w]
+        nw = N.dims[w]
+        if not gens or nw == 0:
             continue
-        x = (g @ inc[w]).entries()  # the differential on the generator, inside P_(i-1) at w
-        offs = offsets.setdefault(w, src.offsets(w))
+        # the differential on the generators at w, as vectors of P_(i-1) at w
+        X = Mat.vstack(F, [dst.generators[ell] for ell in gens], inc[w].nrows) @ inc[w]
+        offs = src.offsets(w)
         for k, v in enumerate(src.summands):
-            if N.dims[v] == 0:
+            nv, words = N.dims[v], A.words[v][w]
+            if nv == 0 or not words:
                 continue
-            acc = None
-            for c, word in zip(
-                x[offs[k] : offs[k] + A.block_dim(v, w)], A.words[v][w], strict=True
-            ):
-                if c != 0:
-                    term = N.path_matrix(word, v).scale(c)
-                    acc = term if acc is None else acc + term
-            if acc is not None:
-                blocks.append((row_off[k], col_off[ell], acc))
-    return assemble(F, nrows, ncols, blocks)
+            C = X.take_cols(range(offs[k], offs[k] + len(words)))
+            if C.is_zero():
+                continue
+            T = Mat.from_flat(
+                F, len(words), nv * nw, [x for p in words for x in N.path_matrix(p, v).entries()]
+            )
+            E = (C @ T).entries()
+            for r, ell in enumerate(gens):
+                base = r * nv * nw
+                for a in range(nv):
+                    start = (row_off[k] + a) * ncols + col_off[ell]
+                    flat[start : start + nw] = E[base + a * nw : base + (a + 1) * nw]
+    return Mat.from_flat(F, nrows, ncols, flat)
 
 
 def ext_dimensions(M: Module, N: Module, degree: int) -> tuple[int, ...]:
@@ -518,18 +533,32 @@ def ext_dimension(M: Module, N: Module, i: int) -> int:
 # -- isomorphisms and direct summands ------------------------------------------------------------------
 
 
-def _combine(basis: list[tuple[Mat, ...]], rng: random.Random, F) -> tuple[Mat, ...]:
-    if F.characteristic == 0:
-        coeffs = [F(rng.randint(-_RANGE, _RANGE)) for _ in basis]
-    else:
-        coeffs = [F(rng.randrange(F.characteristic)) for _ in basis]
-    out = []
-    for v in range(len(basis[0])):
-        acc = basis[0][v].scale(coeffs[0])
-        for c, f in zip(coeffs[1:], basis[1:], strict=True):
-            acc = acc + f[v].scale(c)
-        out.append(acc)
-    return tuple(out)
+class _RandomHoms:
+    """Seeded random elements of ``Hom(M, N)``, drawn in the space of generator images.
+
+    The solution space is found once; each draw is one random combination of
+    its basis turned into a homomorphism, so no Hom basis is materialised.
+    """
+
+    def __init__(self, M: Module, N: Module, rng: random.Random) -> None:
+        Z, _, _ = _hom_system(M, N)
+        self.M, self.N, self.rng = M, N, rng
+        self.K = Z.left_kernel() if Z.ncols else Mat.identity(M.field, Z.nrows)
+
+    def __bool__(self) -> bool:
+        return self.K.nrows > 0
+
+    def draw(self) -> tuple[Mat, ...]:
+        F, r = self.M.field, self.K.nrows
+        if F.characteristic == 0:
+            c = [F(self.rng.randint(-_RANGE, _RANGE)) for _ in range(r)]
+        else:
+            c = [F(self.rng.randrange(F.characteristic)) for _ in range(r)]
+        u = Mat.from_flat(F, 1, r, c) @ self.K
+        f = homomorphism_from_images(self.M, self.N, u)
+        if not is_homomorphism(self.M, self.N, f):
+            raise InternalInconsistency("a solution of the Hom system is not a homomorphism")
+        return f
 
 
 def _invertible(maps: Sequence[Mat]) -> bool:
@@ -541,15 +570,12 @@ def _isomorphism(M: Module, N: Module, rng: random.Random, tries: int) -> tuple[
         return None
     if M.dim == 0:
         return tuple(Mat.zeros(M.field, 0, 0) for _ in M.dims)
-    basis = hom(M, N)
-    if not basis:
-        return None
-    for _ in range(tries):
-        f = _combine(basis, rng, M.field)
-        if _invertible(f):
-            if not is_homomorphism(M, N, f):
-                raise InternalInconsistency("a Hom basis element is not a homomorphism")
-            return f
+    homs = _RandomHoms(M, N, rng)
+    if homs:
+        for _ in range(tries):
+            f = homs.draw()
+            if _invertible(f):
+                return f
     return None
 
 
@@ -558,26 +584,30 @@ def find_isomorphism(
 ) -> tuple[Mat, ...] | None:
     """An isomorphism ``M -> N`` (matrices per vertex), or ``None`` if none was found.
 
-    Random combinations (seeded) of a basis of ``Hom(M, N)`` are tried; a
-    combination is returned only after it has been checked to be a bijective
-    homomorphism, so a returned map is always an isomorphism.  ``None`` proves
-    nothing when the dimension vectors agree (it is likely but not certain
-    that ``M`` and ``N`` are not isomorphic).
+    Random (seeded) elements of ``Hom(M, N)`` are tried; one is returned only
+    after it has been checked to be a bijective homomorphism, so a returned
+    map is always an isomorphism.  ``None`` proves nothing when the dimension
+    vectors agree (it is likely, not certain, that ``M`` and ``N`` are not
+    isomorphic).
     """
     _need_int(tries, "tries", 1)
     return _isomorphism(M, N, random.Random(seed), tries)
 
 
 def _summand_possible(X: Module, Y: Module, inv: dict[int, tuple]) -> bool:
+    """Necessary conditions for ``X`` to be a direct summand of ``Y`` (layer by layer)."""
+
     def invariants(Z: Module) -> tuple:
         if id(Z) not in inv:
-            inv[id(Z)] = (Z, Z.top(), Z.socle())
+            inv[id(Z)] = (Z, Z.socle(), tuple(Z.radical_layers()))
         return inv[id(Z)][1:]
 
     if X.dim == 0 or any(a > b for a, b in zip(X.dims, Y.dims, strict=True)):
         return False
-    (tx, sx), (ty, sy) = invariants(X), invariants(Y)
-    return all(a <= b for a, b in zip(tx + sx, ty + sy, strict=True))
+    (sx, lx), (sy, ly) = invariants(X), invariants(Y)
+    if len(lx) > len(ly) or any(a > b for a, b in zip(sx, sy, strict=True)):
+        return False
+    return all(a <= b for u, w in zip(lx, ly, strict=False) for a, b in zip(u, w, strict=True))
 
 
 def _split_embedding(
@@ -586,14 +616,15 @@ def _split_embedding(
     if X.dims == Y.dims:
         f = _isomorphism(X, Y, rng, tries)
         return None if f is None else (f, tuple(m.inverse() for m in f))
-    into, back = hom(X, Y), hom(Y, X)
-    if not into or not back:
+    into = _RandomHoms(X, Y, rng)
+    if not into:
+        return None
+    back = _RandomHoms(Y, X, rng)
+    if not back:
         return None
     for _ in range(tries):
-        f, g = _combine(into, rng, X.field), _combine(back, rng, X.field)
+        f, g = into.draw(), back.draw()
         if _invertible([a @ b for a, b in zip(f, g, strict=True)]):
-            if not (is_homomorphism(X, Y, f) and is_homomorphism(Y, X, g)):
-                raise InternalInconsistency("a Hom basis element is not a homomorphism")
             return f, g
     return None
 
@@ -748,21 +779,28 @@ class InfiniteDimensionWitness:
     ``links`` is a chain of simple summands ``L(i_0) -> L(i_1) -> ...``.  Either
     the chain closes a cycle (its last target is the source of one of its
     links), or it ends at a module whose syzygies repeat (``repeat``); with no
-    links, ``repeat`` concerns the module itself.
+    links, ``repeat`` concerns the module itself.  For a global dimension with
+    neither, ``cartan_determinant`` is the determinant of the Cartan matrix,
+    which is not ``+-1``.
     """
 
     links: tuple[SimpleSummand, ...] = ()
     repeat: SyzygyRepeat | None = None
+    cartan_determinant: int | None = None
 
     @property
     def reason(self) -> str:
-        return "syzygy_repeat" if self.repeat is not None else "simple_summand_cycle"
+        """``"syzygy_repeat"``, ``"simple_summand_cycle"`` or ``"cartan_determinant"``."""
+        if self.repeat is not None:
+            return "syzygy_repeat"
+        return "simple_summand_cycle" if self.links else "cartan_determinant"
 
     def to_dict(self) -> dict[str, Any]:
         return {
             "reason": self.reason,
             "simple_summand_links": [x.to_dict() for x in self.links],
             "syzygy_repeat": None if self.repeat is None else self.repeat.to_dict(),
+            "cartan_determinant": self.cartan_determinant,
         }
 
 
@@ -962,9 +1000,32 @@ def global_dimension(
     if bad:
         i = min(bad, key=lambda v: (len(dims[v].witness.links), v))
         return GlobalDimension("infinite", None, b, simples, tuple(dims), names[i], dims[i].witness)
+    det = _determinant(A.cartan())
     if all(d.case == "finite" for d in dims):
+        if abs(det) != 1:
+            raise InternalInconsistency(f"finite global dimension but det(Cartan) = {det}")
         return GlobalDimension("finite", max(d.value for d in dims), b, simples, tuple(dims))
+    if abs(det) != 1:
+        w = InfiniteDimensionWitness(cartan_determinant=det)
+        return GlobalDimension("infinite", None, b, simples, tuple(dims), None, w)
     return GlobalDimension("at_least", b + 1, b, simples, tuple(dims))
+
+
+def _determinant(rows: Sequence[Sequence[int]]) -> int:
+    """Determinant of an integer matrix (fraction-free Gaussian elimination, Bareiss)."""
+    m = [list(r) for r in rows]
+    n, sign, prev = len(m), 1, 1
+    for k in range(n - 1):
+        if m[k][k] == 0:
+            swap = next((r for r in range(k + 1, n) if m[r][k] != 0), None)
+            if swap is None:
+                return 0
+            m[k], m[swap], sign = m[swap], m[k], -sign
+        for i in range(k + 1, n):
+            for j in range(k + 1, n):
+                m[i][j] = (m[i][j] * m[k][k] - m[i][k] * m[k][j]) // prev
+        prev = m[k][k]
+    return sign * m[n - 1][n - 1] if n else 1
 
 
 def _close_links(

@@ -1,0 +1,898 @@
+"""From any finite-dimensional algebra to its basic algebra and Gabriel quiver.
+
+Input: a :class:`~hwcat.algebras.structure.StructureAlgebra` ``A`` (structure
+constants, a matrix algebra, a built-in family).  Output: a
+:class:`Reduction` holding the hub :class:`~hwcat.algebras.basic.BasicAlgebra`
+of ``A`` (the basic algebra ``e A e`` with its Gabriel quiver), one primitive
+idempotent per simple module, and the Morita data ``dim L(i)``.
+
+Method
+------
+*Radical* (:func:`hwcat.algebras.radical.radical`, re-exported here): trace form
+in characteristic 0 or large ``p``, the chain of Ronyai and Cohen-Ivanyos-Wales
+otherwise (see that module).
+
+*Primitive idempotents* (:func:`reduce_algebra`, default method).  Fitting's
+lemma: for an element ``z`` of a corner ``f A f`` with minimal polynomial
+``prod g_k^(e_k)``, the Chinese remainder polynomials ``pi_k`` give orthogonal
+idempotents ``pi_k(z)`` of ``A`` summing to ``f`` -- they are the idempotents
+of ``A / rad A`` attached to the factors, already lifted to ``A``.  Corners are
+split by seeded random elements ``f y f`` (``y`` sparse) into a tree of
+orthogonal idempotents.  A leaf is accepted when its corner ``e A e`` is
+certified local with residue field ``F`` (the trace form of the corner has a
+kernel of codimension 1 that is nilpotent).  Each new simple ``L`` gives a
+linear form ``phi(x) = chi(e x e)`` (``chi`` the residue map of the corner);
+``dim L`` is the rank of ``(x, y) -> phi(x y)``, and a subtree is skipped once
+``dim A f`` equals the part of it explained by the simples already found
+(``rank`` of ``A f`` paired with ``phi``).  Completeness is the exact identity
+``dim A = sum dim L(i) dim P(i)``.  The method ``"quotient"`` follows the
+textbook route instead: radical, semisimple quotient, its centre split by
+random central elements, each simple component split into primitive
+idempotents, lifted to ``A`` by ``e -> 3e^2 - 2e^3`` orthogonally.
+
+*Basic algebra*.  With one idempotent ``e_s`` per simple, the blocks
+``e_s A e_t`` get bases of the form ``e_s b e_t`` (``b`` basis elements), so a
+product with such an element is a sparse product with ``b`` followed by the
+projection ``e_t``.  The radical of ``e A e`` is the off-diagonal blocks plus
+the radicals of the local corners; arrows are a basis of a complement of
+``rad^2`` in ``rad`` block by block, and the projectives ``e_s A e`` as quiver
+representations give the hub via ``from_cyclic_representations``.
+
+References
+----------
+L. Ronyai, *Computing the structure of finite algebras*, J. Symbolic Comput. 9
+(1990) 355-373.  A. M. Cohen, G. Ivanyos, D. B. Wales, *Finding the radical of
+an algebra of linear transformations*, J. Pure Appl. Algebra 117/118 (1997)
+177-193.
+
+Examples
+--------
+>>> from hwcat.algebras.family_tables import symmetric_group_algebra
+>>> from hwcat.algebras.structure import from_table
+>>> A = from_table(symmetric_group_algebra(3, "GF(2)"))
+>>> r = reduce_algebra(A)
+>>> r.simple_dimensions, r.basic.cartan(), r.radical_dimension
+((1, 2), [[2, 0], [0, 1]], 1)
+"""
+
+from __future__ import annotations
+
+import random
+import time
+import weakref
+from collections.abc import Sequence
+from dataclasses import dataclass, field
+from typing import Any
+
+from hwcat.algebras.basic import BasicAlgebra
+from hwcat.algebras.quiver import Arrow, Quiver
+from hwcat.algebras.radical import (
+    _apply,
+    _coords_solver,
+    _embed,
+    _krylov,
+    _mat,
+    _minpoly,
+    _raw_rows,
+    _restrict,
+    _small_radical,
+    _transfer,
+    lift_idempotent,
+    primitive_idempotents,
+    radical,
+)
+from hwcat.algebras.structure import StructureAlgebra
+from hwcat.errors import InternalInconsistency, NotSplitError, StructureConstantsError
+from hwcat.exact import Mat, echelon, select_independent_rows
+from hwcat.exact.polys import (
+    Poly,
+    fitting_polynomials,
+    matrix_from_ints,
+    select_columns,
+    select_rows,
+    sparse_matrix,
+)
+
+__all__ = [
+    "radical",
+    "Reduction",
+    "reduce_algebra",
+    "reduction_of",
+    "lift_idempotent",
+    "primitive_idempotents",
+    "semisimple_dimensions",
+]
+
+
+# ----------------------------------------------------------------------------------
+# small helpers
+
+
+# ----------------------------------------------------------------------------------
+# simple modules (classes of primitive idempotents)
+
+
+class _NotPrimitive(Exception):
+    """Internal signal: the corner of a candidate leaf is not local."""
+
+
+@dataclass
+class _Class:
+    e: list[Any]
+    index: list[int] | None  # basis indices spanning A f (None: all)
+    rows: list[int] | None  # basis indices spanning f A (None: all)
+    R: Mat  # right multiplication by e on span(index)
+    L: Mat  # rows e*b_l (l in J) on span(rows)
+    J: list[int]  # basis indices with e*b_l a basis of eA
+    corner: list[int]  # basis indices with e*b_l*e a basis of eAe
+    corner_rad: Mat  # radical of eAe, coordinates in that basis
+    chi: list[Any]  # residue map on corner coordinates
+    phi: list[Any]  # raw linear form x -> chi(e x e)
+    U: Mat  # columns: x -> phi(x b_c) for n independent c
+    sec: list[int]  # basis indices whose images form a basis of L
+    n: int  # dim L
+    dim_P: int
+    dim_Ae: int
+    corner_mult: Any = None
+    rowterms: dict[int, list[tuple[int, int, Any]]] = field(default_factory=dict)
+
+
+def _left_rows(A: StructureAlgebra, e: list[Any], ls: Sequence[int], rows) -> list[list[Any]]:
+    """The vectors ``e * b_l`` for ``l`` in ``ls``, in coordinates on span(rows)."""
+    out = []
+    for l in ls:
+        out.append(_restrict(A._times_basis_raw(e, l), rows))
+    return out
+
+
+def _right_ideal_basis(
+    A: StructureAlgebra, e: list[Any], rows, rng: random.Random | None
+) -> tuple[list[int], Mat]:
+    """Basis elements ``b_l`` with ``e b_l`` a basis of ``eA`` and those rows.
+
+    With ``rng`` the candidates are tried in random batches until a batch of at
+    least ``max(64, rank)`` adds nothing (a lower bound on ``dim eA``, certified
+    later by the Morita count); without, all rows of left multiplication are used.
+    """
+    F = A.field
+    rows_list = list(range(A.dim)) if rows is None else list(rows)
+    width = len(rows_list)
+    if rng is None:
+        L = A.left_action(A.vec(e), rows)
+        pos = select_independent_rows(L)
+        return [rows_list[k] for k in pos], select_rows(L, pos)
+    order = rows_list[:]
+    rng.shuffle(order)
+    J: list[int] = []
+    basis: Mat | None = None
+    at = 0
+    while at < len(order):
+        size = max(64, 2 * len(J))
+        batch = order[at : at + size]
+        at += size
+        vecs = _left_rows(A, e, batch, rows)
+        C = Mat.from_flat(F, len(vecs), width, [x for v in vecs for x in v])
+        keep = select_independent_rows(C, basis)
+        if keep:
+            J.extend(batch[k] for k in keep)
+            new = C.take_rows(keep)
+            basis = new if basis is None else Mat.vstack(F, [basis, new], width)
+        elif len(batch) >= max(64, len(J)):
+            break
+    if basis is None:
+        raise InternalInconsistency("an idempotent with e A = 0")
+    return J, basis
+
+
+def _corner_data(
+    A: StructureAlgebra, e: list[Any], R: Mat, index, rows, rng: random.Random | None
+) -> tuple:
+    """Basis of eA (as e*b_l), of eAe (as e*b_l*e) and the corner's structure constants."""
+    F = A.field
+    J, Lr = _right_ideal_basis(A, e, rows, rng)
+    W = _apply(Lr, _transfer(A, rows, index)) @ R
+    C_pos = select_independent_rows(W)
+    corner = [J[k] for k in C_pos]
+    Cb = select_rows(W, C_pos)
+    piv, T = _coords_solver(Cb)
+    Rp = select_columns(R, piv)
+    cvecs = [_embed(A, r, index) for r in _raw_rows(A, Cb)]
+    c = len(corner)
+    mult = []  # mult[l][a] = coordinates of c_a * c_l
+    for b in corner:
+        rowsb = [_restrict(A._times_basis_raw(v, b), index) for v in cvecs]
+        M = Mat.from_flat(F, c, len(rowsb[0]), [x for r in rowsb for x in r]) @ Rp @ T
+        mult.append(M)
+    return Lr, J, corner, Cb, piv, T, mult
+
+
+def _local_data(A: StructureAlgebra, corner_mult: list[Mat], ecoords: Mat) -> tuple[Mat, list]:
+    """The radical of the corner and, when it has codimension 1, the residue map chi."""
+    F = A.field
+    c = len(corner_mult)
+    rad = _small_radical(F, corner_mult)
+    if rad.nrows != c - 1:
+        return rad, []
+    M = Mat.vstack(F, [rad, ecoords], c)
+    rhs = Mat.from_flat(F, 1, c, [F.zero] * (c - 1) + [F.one])
+    chi = M.inverse() @ rhs.transpose()
+    return rad, chi.entries()
+
+
+def _new_class(
+    A: StructureAlgebra, e: list[Any], R: Mat, index, rows, rng: random.Random | None = None
+) -> _Class:
+    F = A.field
+    Lr, J, corner, Cb, piv, T, mult = _corner_data(A, e, R, index, rows, rng)
+    ecoords = select_columns(_mat(A, _restrict(e, index)), piv) @ T
+    rad, chi = _local_data(A, mult, ecoords)
+    if rad.nrows != len(corner) - 1:
+        _residue_check(A, mult, rad, random.Random(len(corner)))
+    # phi(b_j) = chi(e b_j e): col is x -> chi(x e) on span(index), then one pass over b_j
+    chicol = Mat.from_flat(F, len(chi), 1, chi)
+    col = _embed(A, (select_columns(R, piv) @ (T @ chicol)).entries(), index)
+    phi = [A._zero_raw()] * A.dim
+    supp = {i for i, x in enumerate(e) if x}
+    for j, (is_, ks, cs) in enumerate(A._cols):
+        acc = A._zero_raw()
+        for i, k, coef in zip(is_, ks, cs, strict=True):
+            if i in supp and col[k]:
+                acc += e[i] * coef * col[k]
+        phi[j] = acc % A._p if A._p else acc
+    G = A.gram(A.vec(phi), rows=J)
+    _, cpiv = G.rref()
+    n_simple = len(cpiv)
+    if n_simple == 0:
+        raise InternalInconsistency("a primitive idempotent with a zero simple module")
+    U = A.gram(A.vec(phi), cols=list(cpiv))
+    sec = list(select_independent_rows(U))
+    dim_Ae = _dim_left_ideal(A, e, R)
+    by_row = A._row_terms()
+    rowterms = {s: by_row[s] for s in sec}
+    return _Class(
+        e,
+        index,
+        rows,
+        R,
+        Lr,
+        J,
+        corner,
+        rad,
+        chi,
+        phi,
+        U,
+        sec,
+        n_simple,
+        len(J),
+        dim_Ae,
+        mult,
+        rowterms,
+    )
+
+
+def _residue_field_error(A, c: int, codim: int, mult, rad) -> None:
+    raise NotSplitError(
+        f"a simple module of the algebra does not split over {A.field}: the corner e A e of an "
+        f"indecomposable projective (dimension {c}) is local, but its residue algebra has "
+        f"dimension {codim} over {A.field} (the endomorphism ring of the simple is a proper "
+        "extension of the field). Remedy: use a field containing the missing roots (another "
+        "prime p), or supply a complete set of primitive orthogonal idempotents in the spec"
+    )
+
+
+def _dim_left_ideal(A: StructureAlgebra, f: list[Any], R: Mat) -> int:
+    """``dim A f`` (= trace of R when the characteristic exceeds the dimension)."""
+    p = A._p
+    if p == 0 or p > A.dim:
+        t = sum((a * b for a, b in zip(A.raw(A.trace_functional()), f, strict=True)), A._zero_raw())
+        return int(t % p) if p else int(t)
+    return R.rank()
+
+
+# ----------------------------------------------------------------------------------
+# the splitting tree
+
+
+@dataclass
+class _Node:
+    f: list[Any]
+    index: list[int] | None
+    rows: list[int] | None
+    core: list[int] | None
+    root: bool = False
+    R: Mat | None = None
+    dim_Af: int | None = None
+    attempts: int = 0
+    depth: int = 0
+
+
+@dataclass
+class _Search:
+    A: StructureAlgebra
+    rng: random.Random
+    classes: list[_Class] = field(default_factory=list)
+    stats: dict[str, float] = field(default_factory=dict)
+    max_attempts: int = 32
+    exact_rows: bool = False
+
+    def __post_init__(self) -> None:
+        p = self.A._p
+        self.trace_exact = p == 0 or p > self.A.dim
+        self.tau = self.A.raw(self.A.trace_functional())
+        self.pool: list[tuple[list[Any], Mat]] = []
+
+    def dense(self, k: int) -> tuple[list[Any], Mat]:
+        """The ``k``-th dense random element and its right multiplication matrix.
+
+        A corner ``f A f`` is split with ``f w f`` for a dense ``w`` independent of
+        ``f``; since ``f`` is a polynomial in the elements used above it, each depth
+        of the tree uses its own element (one pass over the table per element).
+        """
+        A = self.A
+        while len(self.pool) <= k:
+            t0 = time.perf_counter()
+            if A._p:
+                w = [self.rng.randrange(A._p) for _ in range(A.dim)]
+            else:
+                w = [A.field(self.rng.randint(-3, 3)) for _ in range(A.dim)]
+            self.pool.append((w, A._action(w, None, left=False)))
+            self.tick("dense_elements", t0)
+        return self.pool[k]
+
+    def covered(self) -> int:
+        return sum(c.n * c.dim_P for c in self.classes)
+
+    def tick(self, key: str, t0: float) -> None:
+        self.stats[key] = self.stats.get(key, 0.0) + time.perf_counter() - t0
+
+    def ensure_R(self, node: _Node) -> Mat:
+        if node.R is None:
+            t0 = time.perf_counter()
+            node.R = self.A._action(node.f, node.index, left=False)
+            self.tick("node_matrices", t0)
+        return node.R
+
+    def trace(self, f: list[Any]) -> Any:
+        t = sum((a * b for a, b in zip(self.tau, f, strict=True) if b), self.A._zero_raw())
+        return t % self.A._p if self.A._p else t
+
+    def exact_dim(self, node: _Node) -> int:
+        if node.dim_Af is None:
+            node.dim_Af = (
+                int(self.trace(node.f)) if self.trace_exact else self.ensure_R(node).rank()
+            )
+        return node.dim_Af
+
+    def known_ranks(self, f: list[Any]) -> list[int]:
+        """``dim L f`` for the simples found so far (cheap: via their sections)."""
+        return [_rank_in_simple(self.A, c, f) for c in self.classes]
+
+    def screen(self, node: _Node) -> str:
+        """``skip`` (no new simple in f), ``explore`` or ``defer`` (undecided cheaply)."""
+        r = self.known_ranks(node.f)
+        explained = sum(rj * c.dim_Ae for rj, c in zip(r, self.classes, strict=True))
+        if self.trace_exact or node.dim_Af is not None:
+            unk = self.exact_dim(node) - explained
+            if unk < 0:
+                raise InternalInconsistency("more of A f explained by known simples than exists")
+            return "explore" if unk else "skip"
+        if sum(r) == 0:
+            return "explore"
+        p = self.A._p
+        return "explore" if (int(self.trace(node.f)) - explained) % p else "defer"
+
+    def random_sparse(self, node: _Node) -> list[Any]:
+        A, rng = self.A, self.rng
+        core = list(range(A.dim)) if node.core is None else node.core
+        grow = 2 ** min(node.attempts, 20)
+        if A._p:
+            top = min(len(core), 32 * grow)
+            k = rng.randint(max(1, top // 2), top) if A._p < 5 else top
+            coef = lambda: rng.randrange(1, A._p)  # noqa: E731
+        else:
+            # over QQ a component M_r(QQ) splits only with rational eigenvalues: single basis
+            # elements (often of small rank in a corner) work best, larger sums now and then
+            # a dense element separates different components (distinct minimal polynomials)
+            k = (
+                len(core)
+                if node.attempts % 2
+                else min(len(core), (1, 1, 2, 1, 3)[node.attempts % 5])
+            )
+            coef = lambda: A.field(rng.choice((-3, -2, -1, 1, 2, 3)))  # noqa: E731
+        y = [A._zero_raw()] * A.dim
+        for i in rng.sample(core, k):
+            y[i] = coef()
+        return y
+
+    def split_attempt(self, node: _Node) -> list[Any] | tuple[Poly, int]:
+        """Try one random element ``z = f y f``; children vectors, or the single factor."""
+        A = self.A
+        F = A.field
+        node.attempts += 1
+        t0 = time.perf_counter()
+        if node.index is None and A._p and A.dim > 64:
+            _, Ry = self.dense(node.depth + node.attempts - 1)
+        else:
+            Ry = A._action(self.random_sparse(node), node.index, left=False)
+        v0 = _mat(A, _restrict(node.f, node.index))
+        if node.root:
+            K, c = _krylov(v0, Ry, limit=v0.ncols)
+        else:
+            R = self.ensure_R(node)
+            K, c = _krylov(v0, None, step=lambda v: (v @ Ry) @ R, limit=v0.ncols)
+        self.tick("krylov", t0)
+        mu = _minpoly(F, K.nrows, c)
+        facs = mu.factor()
+        if len(facs) == 1:
+            return facs[0]
+        kids = []
+        for pi in fitting_polynomials(facs):
+            co = pi.coeffs() + [F.zero] * (K.nrows - pi.degree - 1)
+            v = Mat.from_flat(F, 1, K.nrows, co[: K.nrows]) @ K
+            kids.append(_embed(A, v.entries(), node.index))
+        return kids
+
+    def explore(self, start: list[_Node], n_total: int) -> None:
+        stack = list(reversed(start))
+        deferred: list[_Node] = []
+        while self.covered() < n_total:
+            if stack:
+                node = stack.pop()
+                verdict = self.screen(node)
+                if verdict == "defer":
+                    deferred.append(node)
+                    continue
+            elif deferred:
+                node = deferred.pop()
+                self.exact_dim(node)
+                verdict = self.screen(node)
+            else:
+                break
+            if verdict == "skip":
+                continue
+            kids = self.process(node)
+            if kids:
+                scored = []
+                for kid in kids:
+                    known = sum(self.known_ranks(kid.f))
+                    scored.append(((known > 0, self.trace(kid.f) if self.trace_exact else 0), kid))
+                scored.sort(key=lambda s: s[0])
+                stack.extend(k for _, k in reversed(scored))
+
+    def process(self, node: _Node) -> list[_Node]:
+        """Split ``node`` (returning its children) or certify it as a new simple."""
+        hits = 0
+        degrees: list[int] = []
+        while True:
+            if node.attempts >= (self.max_attempts if self.A._p else 3 * self.max_attempts):
+                self._give_up(node, degrees)
+            res = self.split_attempt(node)
+            if isinstance(res, list):
+                d = node.depth + node.attempts
+                return [_Node(f, node.index, node.rows, node.core, depth=d) for f in res]
+            g, _ = res
+            degrees.append(g.degree)
+            # z = lambda f + nilpotent with lambda != 0 is evidence that f A f is local;
+            # a nilpotent z says nothing
+            if g.degree == 1 and g.coeffs()[0] != 0:
+                hits += 1
+            if hits >= (2 if self.A._p else 3) or len(degrees) >= 8:
+                t0 = time.perf_counter()
+                try:
+                    cl = _new_class(
+                        self.A,
+                        node.f,
+                        self.ensure_R(node),
+                        node.index,
+                        node.rows,
+                        None,
+                    )
+                except _NotPrimitive:
+                    hits = 0
+                    degrees = degrees[-2:]
+                    continue
+                finally:
+                    self.tick("certify", t0)
+                if sum(self.known_ranks(node.f)):
+                    raise InternalInconsistency("a primitive idempotent of a known class was kept")
+                self.classes.append(cl)
+                return []
+
+    def _give_up(self, node: _Node, degrees: list[int]) -> None:
+        A = self.A
+        raise NotSplitError(
+            f"no splitting element found: {node.attempts} random elements of a corner f A f "
+            f"(dim A f = {self.exact_dim(node)}) had minimal polynomials with a single "
+            f"irreducible factor (degrees {sorted(set(degrees)) or '?'}); the algebra may not "
+            f"split over {A.field}. Remedy: use another field (for GF(p), a prime containing "
+            "the needed roots of unity), or supply a complete set of primitive orthogonal "
+            "idempotents in the spec"
+        )
+
+
+def _rank_in_simple(A: StructureAlgebra, c: _Class, f: list[Any]) -> int:
+    """``dim L f`` for the simple ``L`` of class ``c``: rank of ``(b_s f)`` paired with U."""
+    F = A.field
+    rows = []
+    p = A._p
+    for s in c.sec:
+        out = [A._zero_raw()] * A.dim
+        js, ks, cs = c.rowterms[s]
+        for j, k, coef in zip(js, ks, cs, strict=True):
+            fj = f[j]
+            if fj:
+                out[k] += fj * coef
+        rows.append([v % p for v in out] if p else out)
+    M = matrix_from_ints(F, len(rows), A.dim, [x for r in rows for x in r])
+    return (M @ c.U).rank()
+
+
+def _roots(A: StructureAlgebra) -> list[_Node]:
+    """The starting nodes: the whole algebra, or its Peirce corners for basis idempotents."""
+    n = A.dim
+    peirce = A.peirce_idempotents()
+    if peirce is None:
+        return [
+            _Node(list(A._unit), None, None, None, root=True, R=Mat.identity(A.field, n), dim_Af=n)
+        ]
+    nodes = []
+    for s in peirce:
+        index = [i for i in range(n) if A.peirce_block(i)[1] == s]
+        rows = [i for i in range(n) if A.peirce_block(i)[0] == s]
+        core = [i for i in range(n) if A.peirce_block(i) == (s, s)]
+        f = [A._zero_raw()] * n
+        f[s] = 1 if A._p else A.field.one
+        R = Mat.identity(A.field, len(index))
+        nodes.append(_Node(f, index, rows, core, root=True, R=R, dim_Af=len(index)))
+    return nodes
+
+
+def _residue_check(A: StructureAlgebra, mult: list[Mat], rad: Mat, rng: random.Random) -> None:
+    """Raise NotSplitError when ``corner / rad`` is a proper field extension, else _NotPrimitive."""
+    F = A.field
+    c = len(mult)
+    Q = Mat.identity(F, c)
+    if rad.nrows:
+        comp = [j for j in range(c) if j not in set(rad.rref()[1])]
+        Q = Mat.vstack(F, [rad, Mat.unit_rows(F, c, comp)], c)
+    d = c - rad.nrows
+    Qi = Q.inverse()  # coordinates in the basis (rad, complement)
+    for _ in range(4):
+        x = Mat.from_flat(F, 1, c, [F(rng.randrange(1, 97)) for _ in range(c)])
+        # right multiplication by x on the quotient corner / rad
+        Rx = Mat.zeros(F, c, c)
+        for l, xl in enumerate(x.entries()):
+            if xl != 0:
+                Rx = Rx + mult[l].scale(xl)
+        Mq = (Q @ Rx @ Qi).take_rows(list(range(rad.nrows, c)))
+        Mq = select_columns(Mq, list(range(rad.nrows, c)))
+        K, co = _krylov(Mat.unit_rows(F, d, [0]), Mq)
+        facs = _minpoly(F, K.nrows, co).factor()
+        if len(facs) == 1 and facs[0][1] == 1 and facs[0][0].degree == d:
+            _residue_field_error(A, c, d, mult, rad)
+        if len(facs) > 1:
+            break
+    raise _NotPrimitive()
+
+
+# ----------------------------------------------------------------------------------
+# the basic algebra
+
+
+@dataclass(frozen=True)
+class Reduction:
+    """The result of :func:`reduce_algebra`.
+
+    Attributes
+    ----------
+    basic : BasicAlgebra
+        The basic algebra ``e A e`` with its Gabriel quiver; ``basic.morita``
+        holds ``dim L(i)``.
+    idempotents : tuple of tuple
+        One primitive idempotent per simple (coordinates in the basis of ``A``),
+        in the vertex order of ``basic``.
+    simple_dimensions, projective_dimensions : tuple of int
+        ``dim L(i)`` and ``dim P(i) = dim e_i A``; ``dim A = sum`` of their products.
+    radical_dimension : int
+        ``dim A - sum dim L(i)^2``.
+    """
+
+    algebra: StructureAlgebra = field(repr=False)
+    basic: BasicAlgebra
+    idempotents: tuple[tuple[Any, ...], ...] = field(repr=False)
+    simple_dimensions: tuple[int, ...]
+    projective_dimensions: tuple[int, ...]
+    radical_dimension: int
+    method: str
+    seed: int
+    timings: dict[str, float] = field(default_factory=dict, repr=False, compare=False)
+    _classes: tuple = field(default=(), repr=False, compare=False)
+
+    def idempotent_texts(self) -> list[str]:
+        return [self.algebra.element_text(list(e)) for e in self.idempotents]
+
+    def radical(self) -> Mat:
+        """The radical of the input algebra: ``x`` with ``L(i) x = 0`` for every simple."""
+        A = self.algebra
+        F = A.field
+        blocks = []
+        for c in self._classes:
+            # L(i) = A / K, K = {x : phi(x A) = 0}; x is radical iff b_s x lies in K for the
+            # section elements b_s, i.e. (b_s x) @ U = 0
+            for s in c.sec:
+                js, ks, cs = c.rowterms[s]
+                Lb = sparse_matrix(F, A.dim, A.dim, {})
+                entries: dict[tuple[int, int], Any] = {}
+                for j, k, coef in zip(js, ks, cs, strict=True):
+                    entries[(j, k)] = entries.get((j, k), A._zero_raw()) + coef
+                Lb = sparse_matrix(F, A.dim, A.dim, entries)  # row j: b_s * b_j
+                blocks.append(Lb @ c.U)
+        if not blocks:
+            return Mat.identity(F, A.dim)
+        M = Mat.hstack(F, blocks)
+        return echelon(M.left_kernel())
+
+    def to_dict(self) -> dict[str, Any]:
+        A = self.algebra
+        return {
+            "name": A.name,
+            "field": A.field.name,
+            "dimension": A.dim,
+            "basic_dimension": self.basic.dim,
+            "simples": list(self.basic.vertices),
+            "simple_dimensions": list(self.simple_dimensions),
+            "projective_dimensions": list(self.projective_dimensions),
+            "radical_dimension": self.radical_dimension,
+            "idempotents": self.idempotent_texts(),
+            "cartan": self.basic.cartan(),
+            "method": self.method,
+            "seed": self.seed,
+            "associativity": A.associativity.to_dict(),
+        }
+
+
+def _assemble(A: StructureAlgebra, classes: list[_Class], name: str) -> BasicAlgebra:
+    F = A.field
+    m = len(classes)
+    # bases of the blocks e_s A e_t, as e_s b_l e_t (coordinates on span(index_t))
+    gen: dict[tuple[int, int], list[int]] = {}
+    basis: dict[tuple[int, int], Mat] = {}
+    solver: dict[tuple[int, int], tuple[tuple[int, ...], Mat]] = {}
+    for s, cs in enumerate(classes):
+        for t, ct in enumerate(classes):
+            X = _apply(cs.L, _transfer(A, cs.rows, ct.index)) @ ct.R
+            pos = select_independent_rows(X) if X.nrows else []
+            gen[(s, t)] = [cs.J[k] for k in pos]
+            B = X.take_rows(pos) if pos else Mat.zeros(F, 0, X.ncols)
+            if s == t and gen[(s, t)] != cs.corner:
+                raise InternalInconsistency("corner basis chosen twice differently")
+            basis[(s, t)] = B
+            solver[(s, t)] = _coords_solver(B) if pos else ((), Mat.zeros(F, 0, 0))
+    dims = {k: v.nrows for k, v in basis.items()}
+    # multiplication: x (in e_s A e_u) times y = e_u b_l e_t is ((x b_l) restricted) e_t
+    mult: dict[tuple[int, int, int], list[Mat]] = {}
+    colsR: dict[tuple[int, int], Mat] = {}
+    for s in range(m):
+        for t in range(m):
+            if dims[(s, t)]:
+                piv, T = solver[(s, t)]
+                colsR[(s, t)] = select_columns(classes[t].R, piv) @ T
+    for u in range(m):
+        for t in range(m):
+            for l in gen[(u, t)]:
+                for s in range(m):
+                    key = (s, u, t)
+                    mult.setdefault(key, [])
+                    if not dims[(s, u)]:
+                        mult[key].append(Mat.zeros(F, 0, dims[(s, t)]))
+                        continue
+                    xs = [_embed(A, r, classes[u].index) for r in _raw_rows(A, basis[(s, u)])]
+                    prods = [_restrict(A._times_basis_raw(x, l), classes[t].index) for x in xs]
+                    P = Mat.from_flat(F, len(prods), len(prods[0]), [v for r in prods for v in r])
+                    mult[key].append(
+                        P @ colsR[(s, t)] if dims[(s, t)] else Mat.zeros(F, len(prods), 0)
+                    )
+    # radical and its square, block by block (coordinates)
+    rad: dict[tuple[int, int], Mat] = {}
+    for s in range(m):
+        for t in range(m):
+            d = dims[(s, t)]
+            rad[(s, t)] = classes[s].corner_rad if s == t else Mat.identity(F, d)
+    rad2: dict[tuple[int, int], Mat] = {}
+    for s in range(m):
+        for t in range(m):
+            parts = []
+            for u in range(m):
+                X, Y = rad[(s, u)], rad[(u, t)]
+                if X.nrows == 0 or Y.nrows == 0:
+                    continue
+                for y in Y.raw_rows():
+                    acc = Mat.zeros(F, X.nrows, dims[(s, t)])
+                    for j, yj in enumerate(y):
+                        if yj != 0:
+                            acc = acc + (X @ mult[(s, u, t)][j]).scale(yj)
+                    parts.append(acc)
+            rad2[(s, t)] = (
+                echelon(Mat.vstack(F, parts, dims[(s, t)]))
+                if parts
+                else Mat.zeros(F, 0, dims[(s, t)])
+            )
+    arrows: list[Arrow] = []
+    arrow_coords: list[Mat] = []
+    for s in range(m):
+        for t in range(m):
+            R1, R2 = rad[(s, t)], rad2[(s, t)]
+            if R1.nrows == R2.nrows:
+                continue
+            keep = select_independent_rows(R1, R2 if R2.nrows else None)
+            for k in keep:
+                arrows.append(Arrow(f"a{len(arrows) + 1}", s, t))
+                arrow_coords.append(R1.take_rows([k]))
+    Q = Quiver(tuple(str(i + 1) for i in range(m)), tuple(arrows))
+    reps, starts = [], []
+    for s in range(m):
+        dvec = tuple(dims[(s, t)] for t in range(m))
+        maps = []
+        for a, co in zip(arrows, arrow_coords, strict=True):
+            u, t = a.source, a.target
+            M = Mat.zeros(F, dims[(s, u)], dims[(s, t)])
+            for j, cj in enumerate(co.entries()):
+                if cj != 0:
+                    M = M + mult[(s, u, t)][j].scale(cj)
+            maps.append(M)
+        reps.append((dvec, tuple(maps)))
+        piv, T = solver[(s, s)]
+        starts.append(select_columns(_mat(A, _restrict(classes[s].e, classes[s].index)), piv) @ T)
+    return BasicAlgebra.from_cyclic_representations(
+        F, Q, reps, starts=starts, name=name, morita=[c.n for c in classes]
+    )
+
+
+_REDUCTIONS: weakref.WeakKeyDictionary = weakref.WeakKeyDictionary()
+
+
+def reduction_of(B: BasicAlgebra) -> Reduction | None:
+    """The :class:`Reduction` that produced the hub ``B``, if it came from one."""
+    return _REDUCTIONS.get(B)
+
+
+def _order_classes(classes: list[_Class]) -> list[_Class]:
+    return sorted(classes, key=lambda c: (c.n, c.dim_P))
+
+
+def _finish(
+    A: StructureAlgebra, classes: list[_Class], method: str, seed: int, timings: dict
+) -> Reduction:
+    n = A.dim
+    if sum(c.n * c.dim_P for c in classes) != n:
+        raise InternalInconsistency(
+            f"Morita count failed: sum dim L * dim P = {sum(c.n * c.dim_P for c in classes)} != {n}"
+        )
+    if sum(c.n * c.dim_Ae for c in classes) != n:
+        raise InternalInconsistency("Morita count with left projectives failed")
+    classes = _order_classes(classes)
+    t0 = time.perf_counter()
+    B = _assemble(A, classes, A.name)
+    timings["basic_algebra"] = time.perf_counter() - t0
+    red = Reduction(
+        algebra=A,
+        basic=B,
+        idempotents=tuple(tuple(A.vec(c.e)) for c in classes),
+        simple_dimensions=tuple(c.n for c in classes),
+        projective_dimensions=tuple(c.dim_P for c in classes),
+        radical_dimension=n - sum(c.n**2 for c in classes),
+        method=method,
+        seed=seed,
+        timings=timings,
+        _classes=tuple(classes),
+    )
+    _REDUCTIONS[B] = red
+    return red
+
+
+def reduce_algebra(
+    A: StructureAlgebra,
+    *,
+    seed: int = 0,
+    idempotents: Sequence[Sequence[Any]] | None = None,
+    method: str = "split",
+) -> Reduction:
+    """Reduce ``A`` to its basic algebra (see the module notes for the method).
+
+    Parameters
+    ----------
+    seed : int
+        Seed of the random splitting elements (the result is reproducible).
+    idempotents : sequence of vectors, optional
+        A complete set of primitive orthogonal idempotents chosen by the user;
+        checked exactly (idempotent, orthogonal, summing to 1, each corner local
+        with residue field the ground field) and used instead of a search.
+    method : {"split", "quotient"}
+        ``"split"``: the splitting tree (fast, radical free).  ``"quotient"``:
+        radical, semisimple quotient, centre, components, lifting.
+
+    Raises
+    ------
+    NotSplitError
+        When a simple module is not absolutely irreducible over the field, or no
+        splitting element is found; the message names the corner and the remedy.
+    """
+    timings: dict[str, float] = {}
+    t0 = time.perf_counter()
+    if idempotents is not None:
+        classes = _classes_from_idempotents(A, [A.raw(e) for e in idempotents])
+        timings["idempotents"] = time.perf_counter() - t0
+        return _finish(A, classes, "supplied idempotents", seed, timings)
+    if method == "quotient":
+        ids = primitive_idempotents(A, seed=seed)
+        timings["idempotents"] = time.perf_counter() - t0
+        t1 = time.perf_counter()
+        classes = _classes_from_idempotents(A, ids)
+        timings["classes"] = time.perf_counter() - t1
+        return _finish(A, classes, "quotient", seed, timings)
+    if method != "split":
+        raise StructureConstantsError(f"reduce_algebra: unknown method {method!r}")
+    S = _Search(A, random.Random(seed))
+    S.explore(_roots(A), A.dim)
+    if S.covered() != A.dim:
+        # a right ideal basis from random rows fell short: repeat with all rows
+        S = _Search(A, random.Random(seed), exact_rows=True)
+        S.explore(_roots(A), A.dim)
+    timings.update(S.stats)
+    timings["search"] = time.perf_counter() - t0
+    if S.covered() != A.dim:
+        raise InternalInconsistency(
+            f"the search ended with sum dim L * dim P = {S.covered()} < dim A = {A.dim}"
+        )
+    return _finish(A, S.classes, "split", seed, timings)
+
+
+# ----------------------------------------------------------------------------------
+# supplied idempotents, lifting, and the quotient route
+
+
+def _classes_from_idempotents(A: StructureAlgebra, ids: list[list[Any]]) -> list[_Class]:
+    """Verify a complete set of primitive orthogonal idempotents and group it into classes."""
+    F, n = A.field, A.dim
+    if not ids:
+        raise StructureConstantsError("no idempotents given")
+    E = Mat.vstack(F, [_mat(A, e) for e in ids], n)
+    total = [A._zero_raw()] * n
+    Rs = []
+    for j, e in enumerate(ids):
+        R = A._action(e, None, left=False)
+        Rs.append(R)
+        col = (E @ R).raw_rows()  # row i: e_i * e_j
+        for i, row in enumerate(col):
+            want = e if i == j else [A._zero_raw()] * n
+            if A.raw(row) != want:
+                what = "is not an idempotent" if i == j else f"times idempotent [{j}] is not zero"
+                raise StructureConstantsError(f"idempotent [{i}] {what}")
+        total = [a + b for a, b in zip(total, e, strict=True)]
+    if A.raw(total) != A._unit:
+        raise StructureConstantsError("the idempotents do not sum to the unit")
+    classes: list[_Class] = []
+    for j, e in enumerate(ids):
+        S = _Search(A, random.Random(0), classes)
+        r = S.known_ranks(e)
+        if sum(r) == 1 and _dim_left_ideal(A, e, Rs[j]) == sum(
+            rj * c.dim_Ae for rj, c in zip(r, classes, strict=True)
+        ):
+            continue  # a further copy of a known simple
+        known = sum(r)
+        try:
+            cl = _new_class(A, e, Rs[j], None, None)
+        except _NotPrimitive:
+            raise StructureConstantsError(
+                f"idempotent [{j}] is not primitive (its corner e A e is not local)"
+            ) from None
+        if known:
+            raise StructureConstantsError(f"idempotent [{j}] is not primitive")
+        classes.append(cl)
+    return classes
+
+
+def semisimple_dimensions(A: StructureAlgebra, *, seed: int = 0) -> list[int]:
+    """``dim L`` for the simple modules, from the quotient route (sorted)."""
+    r = reduce_algebra(A, seed=seed, method="quotient")
+    return sorted(r.simple_dimensions)
