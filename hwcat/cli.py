@@ -179,6 +179,55 @@ def _cmd_family(args: argparse.Namespace) -> int:
     return 0
 
 
+def _order_for(spec, A, text_arg):
+    """The order from the command line, else the spec, else the search's first structure."""
+    from hwcat.theory.orders import parse_order
+    from hwcat.theory.search import adapted_orders
+
+    text, source = (text_arg, "command line") if text_arg else (spec.order, "spec file")
+    if text:
+        try:
+            return parse_order(text, A.vertices)
+        except OrderError as exc:
+            where = "--order" if source == "command line" else f"{spec.source}: order"
+            raise OrderError(f"{where}: {exc}") from None
+    r = adapted_orders(A, list_limit=1)
+    return r.structure_list[0].essential_order if r.quasi_hereditary else None
+
+
+def _cmd_ringel_dual(args: argparse.Namespace) -> int:
+    from hwcat.algebras.presentation import presentation_spec
+    from hwcat.algebras.quiver_families import spec_to_toml
+    from hwcat.theory.highest_weight import heredity_chain
+    from hwcat.theory.tilting import ringel_dual
+
+    spec, A = _load(args)
+    order = _order_for(spec, A, args.order)
+    if order is None or not heredity_chain(A, order).holds:
+        print(
+            "hwcat: not quasi-hereditary for that order; the Ringel dual is not defined",
+            file=sys.stderr,
+        )
+        return 1
+    R, opp = ringel_dual(A, order)
+    out = presentation_spec(R, name=R.name)
+    out["order"] = ", ".join(f"{a} < {b}" for a, b in opp.covers_named()) or None
+    if out["order"] is None:
+        del out["order"]
+    text = "# Ringel dual End(T)^op: vertex L is the tilting module T(L); the order is the opposite one\n"
+    text += spec_to_toml(out)
+    if args.output:
+        try:
+            with open(args.output, "w", encoding="utf-8") as fh:
+                fh.write(text)
+        except OSError as exc:
+            raise SpecError(f"{args.output}: cannot write: {exc.strerror or exc}") from None
+        print(f"wrote {args.output}", file=sys.stderr)
+    else:
+        print(text, end="")
+    return 0
+
+
 def build_parser() -> argparse.ArgumentParser:
     p = argparse.ArgumentParser(
         prog="hwcat",
@@ -216,6 +265,16 @@ def build_parser() -> argparse.ArgumentParser:
     pr.add_argument("spec", help="algebra spec file")
     pr.add_argument("-o", "--output", help="write the spec to this file instead of printing it")
     pr.set_defaults(func=_cmd_presentation)
+    rd = sub.add_parser(
+        "ringel-dual",
+        help="the Ringel dual End(T)^op of a quasi-hereditary algebra, written as a [quiver] spec",
+    )
+    rd.add_argument("spec", help="algebra spec file")
+    rd.add_argument(
+        "--order", help="the order (default: the spec's, else the first structure found)"
+    )
+    rd.add_argument("-o", "--output", help="write the spec to this file instead of printing it")
+    rd.set_defaults(func=_cmd_ringel_dual)
     fa = sub.add_parser(
         "family",
         help="a built-in family: describe it, or write its quiver with relations for other commands",

@@ -114,3 +114,15 @@ def test_check_homological_keys(capsys):
     assert {"ext-standard-costandard", "ext-quiver-standard"} <= names
     code, out, _ = run(capsys, "check", LANTERN, "--json", "--no-homological")
     assert json.loads(out)["tilting"] is None
+
+
+def test_ringel_dual_command_roundtrip(tmp_path, capsys):
+    # Ringel 1991: R(R(A)) is Morita equivalent to A; the written specs reproduce A's Cartan matrix
+    r1, r2 = str(tmp_path / "r1.toml"), str(tmp_path / "r2.toml")
+    assert run(capsys, "ringel-dual", LANTERN, "-o", r1)[0] == 0
+    code, out, _ = run(capsys, "check", r1, "--json", "--no-homological")
+    assert code == 0 and json.loads(out)["quasi_hereditary"]  # qh for the opposite order
+    assert run(capsys, "ringel-dual", r1, "-o", r2)[0] == 0
+    cartan = lambda p: json.loads(run(capsys, "describe", p, "--json")[1])["cartan"]  # noqa: E731
+    assert cartan(r2) == cartan(LANTERN)
+    assert run(capsys, "ringel-dual", "specs/examples/carousel.toml")[0] == 1
