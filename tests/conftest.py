@@ -3,7 +3,7 @@
 import pytest
 from hypothesis import settings
 
-settings.register_profile("ci", deadline=None, print_blob=True)
+settings.register_profile("ci", deadline=None, print_blob=True, derandomize=True)
 settings.load_profile("ci")
 
 
