@@ -4,8 +4,9 @@ For each case: the dimension, the number of nonzero structure constants, the
 time to convert the family's table, the time of the reduction (split into its
 phases: dense random elements, Krylov sequences, matrices of tree nodes,
 certification of the simples, assembly of the basic algebra), the peak memory
-traced by ``tracemalloc`` during the reduction, and the result (dimensions of
-the simples, radical dimension, dimension of the basic algebra).  A naive
+traced by ``tracemalloc`` during a second, traced run of the reduction (tracing
+slows Python down several times, so times come from the untraced run), and the
+result (number of simples, radical dimension, dimension of the basic algebra).  A naive
 baseline -- the radical by the lifted-trace chain on the regular
 representation, which is where the cost goes without the splitting tree -- is
 run for the small cases only, for a ratio measured in the same run.
@@ -49,17 +50,20 @@ CASES_FULL = CASES_QUICK + [
 BASELINE_LIMIT = 130
 
 
-def run(name, make) -> list[str]:
+def run(name, make, trace: bool) -> list[str]:
     table = make()
     t0 = time.perf_counter()
     A = from_table(table)
     t_conv = time.perf_counter() - t0
-    tracemalloc.start()
     t0 = time.perf_counter()
     r = reduce_algebra(A)
     t_red = time.perf_counter() - t0
-    _, peak = tracemalloc.get_traced_memory()
-    tracemalloc.stop()
+    peak = float("nan")
+    if trace:
+        tracemalloc.start()
+        reduce_algebra(A)
+        _, peak = tracemalloc.get_traced_memory()
+        tracemalloc.stop()
     phases = ", ".join(
         f"{k} {v:.1f}"
         for k, v in r.timings.items()
@@ -89,6 +93,7 @@ def run(name, make) -> list[str]:
 def main() -> None:
     ap = argparse.ArgumentParser(description=__doc__.splitlines()[0])
     ap.add_argument("--quick", action="store_true", help="small cases only")
+    ap.add_argument("--no-memory", action="store_true", help="skip the traced runs")
     args = ap.parse_args()
     header = [
         "case",
@@ -105,7 +110,7 @@ def main() -> None:
     ]
     rows = []
     for name, make in CASES_QUICK if args.quick else CASES_FULL:
-        rows.append(run(name, make))
+        rows.append(run(name, make, not args.no_memory))
         print("  ".join(rows[-1]), flush=True)
     widths = [max(len(r[i]) for r in rows + [header]) for i in range(len(header))]
     print()

@@ -73,3 +73,25 @@ def test_semisimple_group_algebra_is_quasi_hereditary():
 @pytest.mark.parametrize("n", [2, 3, 4])
 def test_auslander_algebra_is_quasi_hereditary(n):
     assert is_quasi_hereditary(family_algebra("auslander", n=n))
+
+
+def test_cross_input_verdicts_agree():
+    """A quiver algebra converted to structure constants and reduced back has the same
+    verdict and the same number of adapted orders (the search counts them; derived)."""
+    from hypothesis import given, settings
+
+    from hwcat.algebras.reduction import reduce_algebra
+    from hwcat.algebras.structure_input import from_basic_algebra
+    from hwcat.strategies import bound_quiver_algebras
+
+    search = pytest.importorskip("hwcat.theory.search")
+
+    @settings(max_examples=15, deadline=None)
+    @given(bound_quiver_algebras(max_vertices=3))
+    def check(B):
+        C = reduce_algebra(from_basic_algebra(B)).basic
+        assert is_quasi_hereditary(C) == is_quasi_hereditary(B)
+        rb, rc = search.adapted_orders(B), search.adapted_orders(C)
+        assert (rb.adapted_total_orders, rb.structures) == (rc.adapted_total_orders, rc.structures)
+
+    check()

@@ -17,14 +17,10 @@ relation reads "its leading path equals a combination of later paths".
 
 Examples
 --------
->>> from hwcat.io.spec import load_spec_text
->>> B = load_spec_text('''
-... field = "QQ"
-... [quiver]
-... vertices = ["1", "2", "3", "4"]
-... arrows = ["a: 1 -> 2", "b: 2 -> 4", "c: 1 -> 3", "d: 3 -> 4"]
-... relations = ["a*b + 2*c*d"]
-... ''')
+>>> from hwcat.algebras.quiver import Quiver, parse_relation
+>>> from hwcat.exact import QQ
+>>> Q = Quiver.from_text(["1", "2", "3", "4"], ["a: 1 -> 2", "b: 2 -> 4", "c: 1 -> 3", "d: 3 -> 4"])
+>>> B = bound_quiver_algebra(QQ, Q, [parse_relation("a*b + 2*c*d", Q, QQ)])
 >>> P = presentation(B)
 >>> P.relation_texts, P.vanish_from_length
 (['a*b + 2*c*d'], 3)
@@ -235,5 +231,5 @@ def presentation_spec(B: BasicAlgebra, *, name: str | None = None) -> dict[str, 
 
 
 def presentation_toml(B: BasicAlgebra, *, name: str | None = None) -> str:
-    """The presentation of ``B`` as TOML text readable by :func:`hwcat.io.spec.load_spec_text`."""
+    """The presentation of ``B`` as TOML text readable by the spec loader (``[quiver]`` kind)."""
     return spec_to_toml(presentation_spec(B, name=name))

@@ -17,18 +17,32 @@ lemma: for an element ``z`` of a corner ``f A f`` with minimal polynomial
 ``prod g_k^(e_k)``, the Chinese remainder polynomials ``pi_k`` give orthogonal
 idempotents ``pi_k(z)`` of ``A`` summing to ``f`` -- they are the idempotents
 of ``A / rad A`` attached to the factors, already lifted to ``A``.  Corners are
-split by seeded random elements ``f y f`` (``y`` sparse) into a tree of
-orthogonal idempotents.  A leaf is accepted when its corner ``e A e`` is
-certified local with residue field ``F`` (the trace form of the corner has a
-kernel of codimension 1 that is nilpotent).  Each new simple ``L`` gives a
-linear form ``phi(x) = chi(e x e)`` (``chi`` the residue map of the corner);
-``dim L`` is the rank of ``(x, y) -> phi(x y)``, and a subtree is skipped once
-``dim A f`` equals the part of it explained by the simples already found
-(``rank`` of ``A f`` paired with ``phi``).  Completeness is the exact identity
-``dim A = sum dim L(i) dim P(i)``.  The method ``"quotient"`` follows the
-textbook route instead: radical, semisimple quotient, its centre split by
-random central elements, each simple component split into primitive
-idempotents, lifted to ``A`` by ``e -> 3e^2 - 2e^3`` orthogonally.
+split by seeded random elements ``z = f y f`` into a tree of orthogonal
+idempotents: ``y`` dense (one fresh element per depth of the tree, so that it is
+independent of ``f``) for large algebras over GF(p); sparse (a few basis
+elements) in small corners and over QQ, where a component ``M_r(QQ)`` splits
+only with rational eigenvalues.  When the unit is a sum of basis elements that
+are orthogonal idempotents and every basis element lies in one Peirce block
+(Schur algebras, algebras coming from quivers), the tree starts from those
+idempotents and every matrix is restricted to a block.  A leaf is accepted when
+its corner ``e A e`` (a small explicit algebra) is certified local with residue
+field ``F``: its radical, by the lifted-trace chain, has codimension 1.  Each
+new simple ``L`` gives a linear form ``phi(x) = chi(e x e)`` (``chi`` the residue
+map of the corner); ``dim L`` is the rank of ``(x, y) -> phi(x y)``, and
+``dim L f`` (the multiplicity of ``L``'s projective in ``f A``) is read from a
+section of ``L``, so a subtree is skipped once ``dim A f`` is explained by the
+simples already found.  Completeness is the exact identity
+``dim A = sum dim L(i) dim P(i)`` (and its left-module twin).  The method
+``"quotient"`` follows the textbook route instead: radical, semisimple
+quotient, its centre split by random central elements, each simple component
+split into primitive idempotents, lifted to ``A`` by ``e -> 3e^2 - 2e^3``
+orthogonally (:mod:`hwcat.algebras.radical`).
+
+*Cost*.  Without block structure the work is dominated by passes over the
+nonzero structure constants that build a dense ``dim A x dim A`` matrix of
+right or left multiplication (one per dense random element, per explored node
+and per simple found) and by a few ranks of such matrices; everything else
+happens in the small corners and blocks.
 
 *Basic algebra*.  With one idempotent ``e_s`` per simple, the blocks
 ``e_s A e_t`` get bases of the form ``e_s b e_t`` (``b`` basis elements), so a
@@ -137,59 +151,18 @@ class _Class:
     rowterms: dict[int, list[tuple[int, int, Any]]] = field(default_factory=dict)
 
 
-def _left_rows(A: StructureAlgebra, e: list[Any], ls: Sequence[int], rows) -> list[list[Any]]:
-    """The vectors ``e * b_l`` for ``l`` in ``ls``, in coordinates on span(rows)."""
-    out = []
-    for l in ls:
-        out.append(_restrict(A._times_basis_raw(e, l), rows))
-    return out
-
-
-def _right_ideal_basis(
-    A: StructureAlgebra, e: list[Any], rows, rng: random.Random | None
-) -> tuple[list[int], Mat]:
-    """Basis elements ``b_l`` with ``e b_l`` a basis of ``eA`` and those rows.
-
-    With ``rng`` the candidates are tried in random batches until a batch of at
-    least ``max(64, rank)`` adds nothing (a lower bound on ``dim eA``, certified
-    later by the Morita count); without, all rows of left multiplication are used.
-    """
-    F = A.field
+def _right_ideal_basis(A: StructureAlgebra, e: list[Any], rows) -> tuple[list[int], Mat]:
+    """Basis elements ``b_l`` with ``e b_l`` a basis of ``eA`` (on span(rows)), and those rows."""
+    L = A.left_action(A.vec(e), rows)
+    pos = select_independent_rows(L)
     rows_list = list(range(A.dim)) if rows is None else list(rows)
-    width = len(rows_list)
-    if rng is None:
-        L = A.left_action(A.vec(e), rows)
-        pos = select_independent_rows(L)
-        return [rows_list[k] for k in pos], select_rows(L, pos)
-    order = rows_list[:]
-    rng.shuffle(order)
-    J: list[int] = []
-    basis: Mat | None = None
-    at = 0
-    while at < len(order):
-        size = max(64, 2 * len(J))
-        batch = order[at : at + size]
-        at += size
-        vecs = _left_rows(A, e, batch, rows)
-        C = Mat.from_flat(F, len(vecs), width, [x for v in vecs for x in v])
-        keep = select_independent_rows(C, basis)
-        if keep:
-            J.extend(batch[k] for k in keep)
-            new = C.take_rows(keep)
-            basis = new if basis is None else Mat.vstack(F, [basis, new], width)
-        elif len(batch) >= max(64, len(J)):
-            break
-    if basis is None:
-        raise InternalInconsistency("an idempotent with e A = 0")
-    return J, basis
+    return [rows_list[k] for k in pos], select_rows(L, pos)
 
 
-def _corner_data(
-    A: StructureAlgebra, e: list[Any], R: Mat, index, rows, rng: random.Random | None
-) -> tuple:
+def _corner_data(A: StructureAlgebra, e: list[Any], R: Mat, index, rows) -> tuple:
     """Basis of eA (as e*b_l), of eAe (as e*b_l*e) and the corner's structure constants."""
     F = A.field
-    J, Lr = _right_ideal_basis(A, e, rows, rng)
+    J, Lr = _right_ideal_basis(A, e, rows)
     W = _apply(Lr, _transfer(A, rows, index)) @ R
     C_pos = select_independent_rows(W)
     corner = [J[k] for k in C_pos]
@@ -219,11 +192,9 @@ def _local_data(A: StructureAlgebra, corner_mult: list[Mat], ecoords: Mat) -> tu
     return rad, chi.entries()
 
 
-def _new_class(
-    A: StructureAlgebra, e: list[Any], R: Mat, index, rows, rng: random.Random | None = None
-) -> _Class:
+def _new_class(A: StructureAlgebra, e: list[Any], R: Mat, index, rows) -> _Class:
     F = A.field
-    Lr, J, corner, Cb, piv, T, mult = _corner_data(A, e, R, index, rows, rng)
+    Lr, J, corner, Cb, piv, T, mult = _corner_data(A, e, R, index, rows)
     ecoords = select_columns(_mat(A, _restrict(e, index)), piv) @ T
     rad, chi = _local_data(A, mult, ecoords)
     if rad.nrows != len(corner) - 1:
@@ -313,7 +284,6 @@ class _Search:
     classes: list[_Class] = field(default_factory=list)
     stats: dict[str, float] = field(default_factory=dict)
     max_attempts: int = 32
-    exact_rows: bool = False
 
     def __post_init__(self) -> None:
         p = self.A._p
@@ -485,7 +455,6 @@ class _Search:
                         self.ensure_R(node),
                         node.index,
                         node.rows,
-                        None,
                     )
                 except _NotPrimitive:
                     hits = 0
@@ -834,10 +803,6 @@ def reduce_algebra(
         raise StructureConstantsError(f"reduce_algebra: unknown method {method!r}")
     S = _Search(A, random.Random(seed))
     S.explore(_roots(A), A.dim)
-    if S.covered() != A.dim:
-        # a right ideal basis from random rows fell short: repeat with all rows
-        S = _Search(A, random.Random(seed), exact_rows=True)
-        S.explore(_roots(A), A.dim)
     timings.update(S.stats)
     timings["search"] = time.perf_counter() - t0
     if S.covered() != A.dim:

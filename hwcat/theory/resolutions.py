@@ -1,0 +1,481 @@
+"""Projective covers, minimal projective resolutions, injective coresolutions and Ext.
+
+Public names are re-exported by :mod:`hwcat.theory.homological`.
+
+Method
+------
+*Projective cover.*  Take minimal generators ``g_1, ..., g_r`` of ``M`` (unit
+vectors spanning a complement of ``rad M`` at each vertex, see
+:meth:`~hwcat.modules.module.Module.generators`) and let ``P_0`` be the direct
+sum of the ``P(v_k)``, ``v_k`` the vertex of ``g_k``; the basis path ``w`` of
+the summand ``P(v_k) = e_{v_k} A`` goes to ``g_k * w``.  The generators are a
+basis of the top, so the kernel ``Omega(M)`` lies in ``rad P_0`` and the cover
+is minimal.  Covering the syzygies in turn gives the minimal projective
+resolution ``... -> P_1 -> P_0 -> M -> 0``; the multiplicity of ``P(j)`` in
+``P_i`` is the dimension at ``j`` of the top of ``Omega^i(M)``.
+
+*Ext.*  ``Ext^i(M, N)`` is the homology of ``Hom(P_*, N)``.  Since
+``Hom(P(v), N) = N_v`` (the image of ``e_v``), ``Hom(P_i, N)`` is the direct
+sum of the ``N_v`` over the summands of ``P_i``, and the differential sends
+the images ``u_k`` of the generators of ``P_{i-1}`` to the images
+``sum_w c_w u_k * w`` of the generators of ``P_i``, where ``sum_w c_w w`` is
+the ``k``-th component of the differential on a generator: matrices built from
+the path matrices of ``N``; no Hom system is solved.
+
+*Injective coresolutions* are the duals of the minimal projective
+resolutions of ``D M`` over the opposite algebra.
+
+References
+----------
+I. Assem, D. Simson, A. Skowronski, *Elements of the Representation Theory of
+Associative Algebras*, vol. 1, LMS Student Texts 65 (2006) (projective covers,
+minimal resolutions, Ext over bound quiver algebras).
+
+Examples
+--------
+>>> from hwcat.io.spec import load_spec_text
+>>> from hwcat.modules import simple
+>>> A = load_spec_text('field = "QQ"\\n[quiver]\\nvertices = ["1", "2", "3"]\\n'
+...                    'arrows = ["a: 1 -> 2", "b: 2 -> 3"]\\nrelations = ["a*b"]')
+>>> projective_resolution(simple(A, 0), 5).multiplicities()
+((1, 0, 0), (0, 1, 0), (0, 0, 1))
+>>> ext_dimensions(simple(A, 0), simple(A, 2), 3)
+(0, 0, 1, 0)
+"""
+
+from __future__ import annotations
+
+from collections.abc import Sequence
+from dataclasses import dataclass
+from typing import Any
+
+from hwcat.algebras.basic import BasicAlgebra
+from hwcat.errors import HwcatError, InternalInconsistency
+from hwcat.exact import Mat
+from hwcat.modules import Module, direct_sum, projective
+from hwcat.modules.module import kernel_spaces
+
+__all__ = [
+    "ProjectiveCover",
+    "ProjectiveResolution",
+    "InjectiveCoresolution",
+    "projective_cover",
+    "projective_presentation",
+    "projective_resolution",
+    "syzygy",
+    "injective_coresolution",
+    "ext_dimension",
+    "ext_dimensions",
+]
+
+_STEPS = "homological:steps"
+_DUAL = "homological:dual"
+
+
+def _need_int(value: Any, what: str, minimum: int) -> int:
+    if isinstance(value, bool) or not isinstance(value, int) or value < minimum:
+        raise HwcatError(f"{what} = {value!r}: expected an integer >= {minimum}")
+    return value
+
+
+# -- projective covers ----------------------------------------------------------------------
+
+
+@dataclass(frozen=True, eq=False)
+class ProjectiveCover:
+    """A minimal projective cover ``P -> M``.
+
+    Attributes
+    ----------
+    module : Module
+        ``M``.
+    cover : Module
+        ``P``, the direct sum of the ``P(v)`` for ``v`` in ``summands``; at each
+        vertex ``t`` its basis is the concatenation of the path bases of
+        ``e_v A e_t``.
+    summands : tuple of int
+        The vertex of each indecomposable summand, in order.
+    generators : tuple of Mat
+        The image in ``M_v`` (a row vector) of the idempotent of each summand.
+    projection : tuple of Mat
+        The map ``P -> M``, one matrix ``dim P_t x dim M_t`` per vertex.
+    """
+
+    module: Module
+    cover: Module
+    summands: tuple[int, ...]
+    generators: tuple[Mat, ...]
+    projection: tuple[Mat, ...]
+
+    def multiplicities(self) -> tuple[int, ...]:
+        """The number of summands ``P(j)``, for each vertex ``j``."""
+        return tuple(self.summands.count(j) for j in range(self.module.algebra.n))
+
+    def offsets(self, vertex: int) -> tuple[int, ...]:
+        """Where each summand's block starts in the basis of ``cover`` at ``vertex``."""
+        A = self.module.algebra
+        out, o = [], 0
+        for v in self.summands:
+            out.append(o)
+            o += A.block_dim(v, vertex)
+        return tuple(out)
+
+
+def _zero_module(A: BasicAlgebra) -> Module:
+    F = A.field
+    return Module(A, [0] * A.n, [Mat.zeros(F, 0, 0) for _ in A.arrows], "0")
+
+
+def _projective_sum(A: BasicAlgebra, summands: Sequence[int]) -> Module:
+    if not summands:
+        return _zero_module(A)
+    if len(summands) == 1:
+        return projective(A, summands[0])
+    return direct_sum(*(projective(A, v) for v in summands))
+
+
+def projective_cover(M: Module) -> ProjectiveCover:
+    """The minimal projective cover of ``M`` with its map onto ``M``.
+
+    >>> from hwcat.io.spec import load_spec_text
+    >>> from hwcat.modules import injective
+    >>> A = load_spec_text('field = "QQ"\\n[quiver]\\nvertices = ["1", "2", "3"]\\n'
+    ...                    'arrows = ["a: 1 -> 3", "b: 2 -> 3"]')
+    >>> c = projective_cover(injective(A, 2))
+    >>> c.summands, c.cover.dims
+    ((0, 1), (1, 1, 2))
+    """
+    key = "homological:cover"
+    if key in M._memo:
+        return M._memo[key]
+    A, F = M.algebra, M.field
+    gens = M.generators()
+    summands = tuple(v for v, _ in gens)
+    blocks: list[list[Mat]] = [[] for _ in range(A.n)]
+    for v, g in gens:
+        images: dict[tuple[int, ...], Mat] = {(): g}
+        for t in range(A.n):
+            words = A.words[v][t]
+            if words:
+                rows = [_image(images, w, M) for w in words]
+                blocks[t].append(Mat.vstack(F, rows, M.dims[t]))
+    projection = tuple(
+        Mat.vstack(F, blocks[t], M.dims[t]) if blocks[t] else Mat.zeros(F, 0, M.dims[t])
+        for t in range(A.n)
+    )
+    cover = ProjectiveCover(
+        M, _projective_sum(A, summands), summands, tuple(g for _, g in gens), projection
+    )
+    M._memo[key] = cover
+    return cover
+
+
+def _image(images: dict[tuple[int, ...], Mat], w: tuple[int, ...], M: Module) -> Mat:
+    """``g * w`` from ``g * w[:-1]`` (the path bases are prefix closed)."""
+    if w not in images:
+        images[w] = _image(images, w[:-1], M) @ M.maps[w[-1]]
+    return images[w]
+
+
+# -- minimal projective resolutions -----------------------------------------------------------
+
+
+@dataclass(frozen=True, eq=False)
+class _Step:
+    cover: ProjectiveCover  # P_i -> Omega^i
+    kernel: tuple[Mat, ...]  # Omega^{i+1} inside P_i (echelon bases = inclusion)
+    syzygy: Module  # Omega^{i+1}
+
+
+def _steps(M: Module, count: int) -> list[_Step]:
+    """The first ``count`` steps of the minimal resolution (fewer if it ends), cached on ``M``."""
+    steps: list[_Step] = M._memo.setdefault(_STEPS, [])
+    while len(steps) < count:
+        X = M if not steps else steps[-1].syzygy
+        if X.dim == 0:
+            break
+        c = projective_cover(X)
+        K = kernel_spaces(c.cover, X, c.projection)
+        label = f"Omega^{len(steps) + 1}({M.name})" if M.name else ""
+        steps.append(_Step(c, tuple(K), c.cover.submodule(K, label)))
+    return steps[:count]
+
+
+@dataclass(frozen=True, eq=False)
+class ProjectiveResolution:
+    """The first terms ``P_m -> ... -> P_1 -> P_0 -> M -> 0`` of a minimal projective resolution.
+
+    Attributes
+    ----------
+    module : Module
+    covers : tuple of ProjectiveCover
+        ``covers[i]`` is the cover ``P_i -> Omega^i(M)``.
+    inclusions : tuple
+        ``inclusions[i]`` is the inclusion ``Omega^(i+1)(M) -> P_i`` (per vertex).
+    syzygies : tuple of Module
+        ``Omega^1(M), ..., Omega^(m+1)(M)``.
+    """
+
+    module: Module
+    covers: tuple[ProjectiveCover, ...]
+    inclusions: tuple[tuple[Mat, ...], ...]
+    syzygies: tuple[Module, ...]
+
+    @property
+    def terms(self) -> tuple[Module, ...]:
+        """``P_0, ..., P_m``."""
+        return tuple(c.cover for c in self.covers)
+
+    @property
+    def length(self) -> int:
+        """``m``, the index of the last term (``-1`` for the zero module)."""
+        return len(self.covers) - 1
+
+    @property
+    def complete(self) -> bool:
+        """Whether ``Omega^(m+1)(M) = 0``, so the resolution ends with ``P_m``."""
+        return not self.syzygies or self.syzygies[-1].dim == 0
+
+    @property
+    def augmentation(self) -> tuple[Mat, ...]:
+        """The map ``P_0 -> M`` (empty for the zero module)."""
+        return self.covers[0].projection if self.covers else ()
+
+    def syzygy(self, i: int) -> Module:
+        """``Omega^i(M)`` for ``0 <= i <= m + 1``."""
+        return self.module if i == 0 else self.syzygies[i - 1]
+
+    def differential(self, i: int) -> tuple[Mat, ...]:
+        """The map ``P_i -> P_(i-1)`` for ``1 <= i <= m`` (per vertex)."""
+        if not 1 <= i <= self.length:
+            raise HwcatError(f"differential {i}: expected 1 <= i <= {self.length}")
+        c, inc = self.covers[i], self.inclusions[i - 1]
+        return tuple(c.projection[t] @ inc[t] for t in range(len(inc)))
+
+    def multiplicities(self) -> tuple[tuple[int, ...], ...]:
+        """``[i][j]`` = the multiplicity of ``P(j)`` in ``P_i``."""
+        return tuple(c.multiplicities() for c in self.covers)
+
+    def to_dict(self) -> dict[str, Any]:
+        return {
+            "module": self.module.name,
+            "length": self.length,
+            "complete": self.complete,
+            "terms": [
+                {
+                    "degree": i,
+                    "multiplicities": list(c.multiplicities()),
+                    "dimension_vector": list(c.cover.dims),
+                }
+                for i, c in enumerate(self.covers)
+            ],
+            "syzygy_dimension_vectors": [list(S.dims) for S in self.syzygies],
+        }
+
+
+def projective_resolution(M: Module, length: int) -> ProjectiveResolution:
+    """The minimal projective resolution of ``M`` up to the term ``P_length``.
+
+    Fewer terms come back when the resolution ends earlier (see
+    :attr:`ProjectiveResolution.complete`).  The steps are cached on ``M``.
+    """
+    _need_int(length, "length", 0)
+    steps = _steps(M, length + 1)
+    return ProjectiveResolution(
+        M,
+        tuple(s.cover for s in steps),
+        tuple(s.kernel for s in steps),
+        tuple(s.syzygy for s in steps),
+    )
+
+
+def projective_presentation(M: Module) -> ProjectiveResolution:
+    """The minimal projective presentation ``P_1 -> P_0 -> M -> 0`` (the resolution up to ``P_1``)."""
+    return projective_resolution(M, 1)
+
+
+def syzygy(M: Module, i: int = 1) -> Module:
+    """``Omega^i(M)``, the ``i``-th syzygy in the minimal resolution (``Omega^0(M) = M``)."""
+    _need_int(i, "i", 0)
+    if i == 0:
+        return M
+    steps = _steps(M, i)
+    return steps[i - 1].syzygy if len(steps) == i else _zero_module(M.algebra)
+
+
+# -- injective coresolutions ----------------------------------------------------------------------
+
+
+def _dual(M: Module) -> Module:
+    """``D M`` over the opposite algebra, cached both ways (so resolutions are shared)."""
+    if _DUAL not in M._memo:
+        D = M.dual()
+        D._memo[_DUAL] = M
+        M._memo[_DUAL] = D
+    return M._memo[_DUAL]
+
+
+@dataclass(frozen=True, eq=False)
+class InjectiveCoresolution:
+    """The first terms ``0 -> M -> I^0 -> I^1 -> ... -> I^m`` of a minimal injective coresolution.
+
+    Built as the dual of :attr:`dual_resolution`, the minimal projective
+    resolution of ``D M`` over the opposite algebra: ``I^i = D(P_i)`` and the
+    cosyzygy ``Omega^(-i)(M) = D(Omega^i(D M))``.
+
+    Attributes
+    ----------
+    module : Module
+    dual_resolution : ProjectiveResolution
+    terms : tuple of Module
+        ``I^0, ..., I^m``; ``I^i`` is a direct sum of ``I(j)``, ``j`` in ``summands[i]``.
+    summands : tuple of tuple of int
+    coaugmentation : tuple of Mat
+        The embedding ``M -> I^0``.
+    cosyzygies : tuple of Module
+        ``Omega^(-1)(M), ..., Omega^(-(m+1))(M)``.
+    """
+
+    module: Module
+    dual_resolution: ProjectiveResolution
+    terms: tuple[Module, ...]
+    summands: tuple[tuple[int, ...], ...]
+    coaugmentation: tuple[Mat, ...]
+    cosyzygies: tuple[Module, ...]
+
+    @property
+    def length(self) -> int:
+        return len(self.terms) - 1
+
+    @property
+    def complete(self) -> bool:
+        return self.dual_resolution.complete
+
+    def differential(self, i: int) -> tuple[Mat, ...]:
+        """The map ``I^(i-1) -> I^i`` for ``1 <= i <= m``."""
+        return tuple(m.transpose() for m in self.dual_resolution.differential(i))
+
+    def multiplicities(self) -> tuple[tuple[int, ...], ...]:
+        """``[i][j]`` = the multiplicity of ``I(j)`` in ``I^i``."""
+        return self.dual_resolution.multiplicities()
+
+    def to_dict(self) -> dict[str, Any]:
+        return {
+            "module": self.module.name,
+            "length": self.length,
+            "complete": self.complete,
+            "terms": [
+                {"degree": i, "multiplicities": list(m), "dimension_vector": list(T.dims)}
+                for i, (m, T) in enumerate(zip(self.multiplicities(), self.terms, strict=True))
+            ],
+            "cosyzygy_dimension_vectors": [list(S.dims) for S in self.cosyzygies],
+        }
+
+
+def injective_coresolution(M: Module, length: int) -> InjectiveCoresolution:
+    """The minimal injective coresolution of ``M`` up to the term ``I^length``.
+
+    >>> from hwcat.io.spec import load_spec_text
+    >>> from hwcat.modules import simple
+    >>> A = load_spec_text('field = "QQ"\\n[quiver]\\nvertices = ["1", "2"]\\narrows = ["a: 1 -> 2"]')
+    >>> injective_coresolution(simple(A, 1), 3).multiplicities()
+    ((0, 1), (1, 0))
+    """
+    R = projective_resolution(_dual(M), length)
+    terms = tuple(_named_dual(c.cover, f"I^{i}") for i, c in enumerate(R.covers))
+    coaug = tuple(m.transpose() for m in R.augmentation) if R.covers else ()
+    return InjectiveCoresolution(
+        M,
+        R,
+        terms,
+        tuple(c.summands for c in R.covers),
+        coaug,
+        tuple(_dual(S) for S in R.syzygies),
+    )
+
+
+def _named_dual(P: Module, name: str) -> Module:
+    D = P.dual()
+    return Module(D.algebra, D.dims, D.maps, name)
+
+
+# -- Ext --------------------------------------------------------------------------------------------
+
+
+def _hom_differential(R: ProjectiveResolution, i: int, N: Module) -> Mat:
+    """``Hom(P_(i-1), N) -> Hom(P_i, N)`` in the coordinates ``(u_k)``, ``u_k`` in ``N_(v_k)``.
+
+    The block from summand ``k`` (vertex ``v``) of ``P_(i-1)`` to generator
+    ``l`` (vertex ``w``) of ``P_i`` is ``sum_p c_(l,p) N_p`` over the paths
+    ``p`` of ``e_v A e_w``; for all ``l`` at ``w`` at once this is one product
+    ``C @ T`` with ``T`` the path matrices ``N_p`` flattened into rows.
+    """
+    A, F = N.algebra, N.field
+    src, dst, inc = R.covers[i - 1], R.covers[i], R.inclusions[i - 1]
+    row_off = [0]
+    for v in src.summands:
+        row_off.append(row_off[-1] + N.dims[v])
+    col_off = [0]
+    for w in dst.summands:
+        col_off.append(col_off[-1] + N.dims[w])
+    nrows, ncols = row_off[-1], col_off[-1]
+    flat = [F.zero] * (nrows * ncols)
+    for w in range(A.n):
+        gens = [ell for ell, x in enumerate(dst.summands) if x == w]
+        nw = N.dims[w]
+        if not gens or nw == 0:
+            continue
+        # the differential on the generators at w, as vectors of P_(i-1) at w
+        X = Mat.vstack(F, [dst.generators[ell] for ell in gens], inc[w].nrows) @ inc[w]
+        offs = src.offsets(w)
+        for k, v in enumerate(src.summands):
+            nv, words = N.dims[v], A.words[v][w]
+            if nv == 0 or not words:
+                continue
+            C = X.take_cols(range(offs[k], offs[k] + len(words)))
+            if C.is_zero():
+                continue
+            T = Mat.from_flat(
+                F, len(words), nv * nw, [x for p in words for x in N.path_matrix(p, v).entries()]
+            )
+            E = (C @ T).entries()
+            for r, ell in enumerate(gens):
+                base = r * nv * nw
+                for a in range(nv):
+                    start = (row_off[k] + a) * ncols + col_off[ell]
+                    flat[start : start + nw] = E[base + a * nw : base + (a + 1) * nw]
+    return Mat.from_flat(F, nrows, ncols, flat)
+
+
+def ext_dimensions(M: Module, N: Module, degree: int) -> tuple[int, ...]:
+    """``(dim Ext^0(M, N), ..., dim Ext^degree(M, N))`` from the minimal resolution of ``M``.
+
+    ``Ext^0`` is ``Hom``.  The resolution of ``M`` is cached on ``M``, so
+    many calls with the same ``M`` share it.
+
+    >>> from hwcat.io.spec import load_spec_text
+    >>> from hwcat.modules import simple
+    >>> A = load_spec_text('field = "QQ"\\n[quiver]\\nvertices = ["x"]\\narrows = ["t: x -> x"]\\n'
+    ...                    'vanish_from_length = 3')
+    >>> S = simple(A, 0)
+    >>> ext_dimensions(S, S, 4)
+    (1, 1, 1, 1, 1)
+    """
+    _need_int(degree, "degree", 0)
+    if M.algebra is not N.algebra:
+        raise InternalInconsistency("Ext between modules over different algebras")
+    R = projective_resolution(M, degree + 1)
+    homs = [sum(N.dims[v] for v in c.summands) for c in R.covers]
+    ranks = [0] + [_hom_differential(R, i, N).rank() for i in range(1, len(R.covers))]
+    out = []
+    for i in range(degree + 1):
+        if i >= len(R.covers):
+            out.append(0)
+            continue
+        out.append(homs[i] - ranks[i] - (ranks[i + 1] if i + 1 < len(R.covers) else 0))
+    return tuple(out)
+
+
+def ext_dimension(M: Module, N: Module, i: int) -> int:
+    """``dim Ext^i(M, N)``."""
+    return ext_dimensions(M, N, i)[i]
