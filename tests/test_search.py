@@ -189,3 +189,18 @@ def test_many_blocks_stay_cheap():
     assert r.structures == 2**12
     assert r.adapted_total_orders == factorial(24)
     assert len(r.structure_list) == 3 and not r.listed_all
+
+
+@settings(max_examples=30, deadline=None)
+@given(bound_quiver_algebras(max_vertices=3, max_arrows=3))
+def test_global_dimension_two_implies_qh(A):
+    # Dlab-Ringel, Auslander algebras as quasi-hereditary algebras (1989, from memory):
+    # global dimension <= 2 => quasi-hereditary; Ringel, JPAA 214 (2010): qh => gl.dim <= 2n - 2.
+    from hwcat.theory.homological import global_dimension
+
+    g = global_dimension(A)
+    qh = is_quasi_hereditary(A)
+    if g.case == "finite" and g.value <= 2:
+        assert qh
+    if qh:
+        assert g.case == "finite" and g.value <= 2 * A.n - 2
