@@ -49,6 +49,12 @@ def flatten(f: tuple[Mat, ...]) -> list:
     return [x for m in f for x in m.entries()]
 
 
+def stack(A: BasicAlgebra, rows: list[list]) -> Mat:
+    """The matrix with the given rows of field elements (no conversion)."""
+    width = len(rows[0]) if rows else 0
+    return Mat.from_flat(A.field, len(rows), width, [x for r in rows for x in r])
+
+
 # -- dimensions -------------------------------------------------------------------------
 
 
@@ -173,7 +179,7 @@ def test_hom_basis_consists_of_intertwiners(data: tuple[BasicAlgebra, Module, Mo
         for i, a in enumerate(A.arrows):
             assert M.maps[i] @ f[a.target] == f[a.source] @ N.maps[i]
     if basis:  # linearly independent
-        flat = Mat.from_rows(A.field, [flatten(f) for f in basis])
+        flat = stack(A, [flatten(f) for f in basis])
         assert flat.rank() == len(basis)
 
 
@@ -188,8 +194,7 @@ def test_endomorphisms_contain_the_identity(data: tuple[BasicAlgebra, Module]) -
         assert basis == [] or all(not any(flatten(f)) for f in basis)
         return
     rows = [flatten(f) for f in basis]
-    B = Mat.from_rows(A.field, rows)
-    assert Mat.from_rows(A.field, rows + [ident]).rank() == B.rank()
+    assert stack(A, rows + [ident]).rank() == stack(A, rows).rank()
 
 
 # -- submodules and quotients --------------------------------------------------------------------
