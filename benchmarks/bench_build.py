@@ -103,9 +103,10 @@ FULL = [
     ("grid", (8,)),
     ("grid", (12,)),
     ("grid", (14,)),
+    ("loops", (2, 7)),
     ("loops", (2, 8)),
-    ("loops", (2, 11)),
-    ("loops", (3, 7)),
+    ("loops", (2, 9)),
+    ("loops", (3, 6)),
 ]
 QUICK = [
     ("auslander", (5,)),

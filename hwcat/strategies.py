@@ -41,7 +41,7 @@ from hypothesis.errors import InvalidArgument
 from hwcat.algebras.basic import BasicAlgebra
 from hwcat.algebras.bound import bound_quiver_algebra
 from hwcat.algebras.quiver import Arrow, Path, Quiver, format_path, parse_relation
-from hwcat.exact import GF, QQ, Field, Mat
+from hwcat.exact import GF, QQ, Field, Mat, parse_field
 from hwcat.modules import Module, direct_sum, injective, projective, simple
 
 __all__ = [
@@ -446,8 +446,6 @@ def algebra_from_spec(spec: dict) -> BasicAlgebra:
     ...                    "vanish_from_length": 3}}).dim
     3
     """
-    from hwcat.exact import parse_field
-
     F = parse_field(spec["field"])
     tab = spec["quiver"]
     Q = Quiver.from_text(tab["vertices"], tab.get("arrows", []))

@@ -123,6 +123,17 @@ def test_json_through_a_real_process() -> None:
     assert data["dimension"] == 13 and data["simples"] == ["base", "left", "right", "top"]
 
 
+def test_the_package_does_not_need_hypothesis() -> None:
+    # hypothesis is a test extra: importing hwcat and its command line must not load it
+    env = dict(os.environ)
+    env["PYTHONPATH"] = str(REPO) + os.pathsep + env.get("PYTHONPATH", "")
+    code = "import sys, hwcat, hwcat.cli, hwcat.io.spec; assert 'hypothesis' not in sys.modules"
+    proc = subprocess.run(
+        [sys.executable, "-c", code], capture_output=True, text=True, env=env, timeout=120
+    )
+    assert proc.returncode == 0, proc.stderr
+
+
 @settings(max_examples=15, deadline=None, suppress_health_check=[HealthCheck.too_slow])
 @given(bound_quiver_specs(max_vertices=4, max_arrows=5))
 def test_random_specs_through_the_command_line(spec: dict) -> None:

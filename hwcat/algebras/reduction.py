@@ -107,7 +107,11 @@ from hwcat.exact.polys import (
     sparse_matrix,
 )
 
+CORNER_LIMIT = 400
+"""Largest corner ``e A e`` that is certified local (as an explicit algebra)."""
+
 __all__ = [
+    "CORNER_LIMIT",
     "radical",
     "Reduction",
     "reduce_algebra",
@@ -149,6 +153,7 @@ class _Class:
     dim_Ae: int
     corner_mult: Any = None
     rowterms: dict[int, list[tuple[int, int, Any]]] = field(default_factory=dict)
+    urows: list[list[Any]] | None = None
 
 
 def _right_ideal_basis(A: StructureAlgebra, e: list[Any], rows) -> tuple[list[int], Mat]:
@@ -165,6 +170,13 @@ def _corner_data(A: StructureAlgebra, e: list[Any], R: Mat, index, rows) -> tupl
     J, Lr = _right_ideal_basis(A, e, rows)
     W = _apply(Lr, _transfer(A, rows, index)) @ R
     C_pos = select_independent_rows(W)
+    if len(C_pos) > CORNER_LIMIT:
+        raise NotSplitError(
+            f"could not certify a primitive idempotent: its corner e A e has dimension "
+            f"{len(C_pos)} > {CORNER_LIMIT} (the endomorphism ring of an indecomposable "
+            "projective is that large, as for a large local algebra); the corner is certified "
+            "as an explicit algebra, which is too costly at this size"
+        )
     corner = [J[k] for k in C_pos]
     Cb = select_rows(W, C_pos)
     piv, T = _coords_solver(Cb)
@@ -204,18 +216,21 @@ def _new_class(A: StructureAlgebra, e: list[Any], R: Mat, index, rows) -> _Class
     col = _embed(A, (select_columns(R, piv) @ (T @ chicol)).entries(), index)
     phi = [A._zero_raw()] * A.dim
     supp = {i for i, x in enumerate(e) if x}
-    for j, (is_, ks, cs) in enumerate(A._cols):
+    for j in range(A.dim) if rows is None else rows:  # e b_j = 0 outside f A
+        is_, ks, cs = A._cols[j]
         acc = A._zero_raw()
         for i, k, coef in zip(is_, ks, cs, strict=True):
             if i in supp and col[k]:
                 acc += e[i] * coef * col[k]
         phi[j] = acc % A._p if A._p else acc
-    G = A.gram(A.vec(phi), rows=J)
+    # G[a][c] = phi(b_a b_c) = chi(e b_a b_c e) vanishes unless b_c e != 0, i.e. c in index
+    cols = None if index is None else list(index)
+    G = A.gram(A.vec(phi), rows=J, cols=cols)
     _, cpiv = G.rref()
     n_simple = len(cpiv)
     if n_simple == 0:
         raise InternalInconsistency("a primitive idempotent with a zero simple module")
-    U = A.gram(A.vec(phi), cols=list(cpiv))
+    U = A.gram(A.vec(phi), cols=[c for c in cpiv] if cols is None else [cols[c] for c in cpiv])
     sec = list(select_independent_rows(U))
     dim_Ae = _dim_left_ideal(A, e, R)
     by_row = A._row_terms()
@@ -379,16 +394,16 @@ class _Search:
         A = self.A
         F = A.field
         node.attempts += 1
-        t0 = time.perf_counter()
         if node.index is None and A._p and A.dim > 64:
             _, Ry = self.dense(node.depth + node.attempts - 1)
         else:
             Ry = A._action(self.random_sparse(node), node.index, left=False)
+        R = None if node.root else self.ensure_R(node)
+        t0 = time.perf_counter()
         v0 = _mat(A, _restrict(node.f, node.index))
-        if node.root:
+        if R is None:
             K, c = _krylov(v0, Ry, limit=v0.ncols)
         else:
-            R = self.ensure_R(node)
             K, c = _krylov(v0, None, step=lambda v: (v @ Ry) @ R, limit=v0.ncols)
         self.tick("krylov", t0)
         mu = _minpoly(F, K.nrows, c)
@@ -480,20 +495,29 @@ class _Search:
 
 
 def _rank_in_simple(A: StructureAlgebra, c: _Class, f: list[Any]) -> int:
-    """``dim L f`` for the simple ``L`` of class ``c``: rank of ``(b_s f)`` paired with U."""
+    """``dim L f`` for the simple ``L`` of class ``c``: rank of ``(b_s f) U`` over the section."""
     F = A.field
-    rows = []
     p = A._p
+    if c.urows is None:
+        c.urows = _raw_rows(A, c.U)
+    width = c.n
+    rows = []
     for s in c.sec:
-        out = [A._zero_raw()] * A.dim
+        out: dict[int, Any] = {}
         js, ks, cs = c.rowterms[s]
         for j, k, coef in zip(js, ks, cs, strict=True):
             fj = f[j]
             if fj:
-                out[k] += fj * coef
-        rows.append([v % p for v in out] if p else out)
-    M = matrix_from_ints(F, len(rows), A.dim, [x for r in rows for x in r])
-    return (M @ c.U).rank()
+                out[k] = out.get(k, 0) + fj * coef
+        acc = [A._zero_raw()] * width
+        for k, v in out.items():
+            if v:
+                u = c.urows[k]
+                for a in range(width):
+                    if u[a]:
+                        acc[a] += v * u[a]
+        rows.append([x % p for x in acc] if p else acc)
+    return matrix_from_ints(F, len(rows), width, [x for r in rows for x in r]).rank()
 
 
 def _roots(A: StructureAlgebra) -> list[_Node]:
