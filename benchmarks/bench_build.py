@@ -35,7 +35,7 @@ sys.path.insert(0, str(Path(__file__).resolve().parent))
 
 from _common import measure, table  # noqa: E402
 
-from hwcat.algebras.quiver import Quiver, parse_relation  # noqa: E402
+from hwcat.algebras.hub.quiver import Quiver, parse_relation  # noqa: E402
 from hwcat.exact import Mat, parse_field  # noqa: E402
 from hwcat.io.spec import load_spec_text, read_spec_text  # noqa: E402
 from hwcat.modules import injective, projective  # noqa: E402

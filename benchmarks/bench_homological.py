@@ -30,7 +30,7 @@ sys.path.insert(0, str(Path(__file__).resolve().parent))
 
 from _common import measure, table
 
-from hwcat.algebras.quiver_families import (
+from hwcat.algebras.families.quivers import (
     auslander_truncated_polynomial,
     linear_A,
     spec_to_toml,

@@ -23,7 +23,7 @@ sys.path.insert(0, str(Path(__file__).resolve().parent))
 import sympy  # noqa: E402
 from _common import measure, table  # noqa: E402
 
-from hwcat.algebras.quiver_families import (  # noqa: E402
+from hwcat.algebras.families.quivers import (  # noqa: E402
     auslander_truncated_polynomial,
     linear_A,
     spec_to_toml,  # noqa: E402

@@ -24,9 +24,9 @@ from pathlib import Path
 
 sys.path.insert(0, str(Path(__file__).resolve().parents[1]))
 
-from hwcat.algebras import family_tables as ft  # noqa: E402
-from hwcat.algebras.reduction import radical, reduce_algebra  # noqa: E402
-from hwcat.algebras.structure import from_table  # noqa: E402
+from hwcat.algebras.families import tables as ft  # noqa: E402
+from hwcat.algebras.inputs.structure import from_table  # noqa: E402
+from hwcat.algebras.reduction.reduction import radical, reduce_algebra  # noqa: E402
 
 CASES_QUICK = [
     ("S(2,10) GF(2)", lambda: ft.schur_algebra_2(10, "GF(2)")),

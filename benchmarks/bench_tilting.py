@@ -19,7 +19,7 @@ sys.path.insert(0, str(Path(__file__).resolve().parent))
 
 from _common import measure, table
 
-from hwcat.algebras.quiver_families import auslander_truncated_polynomial, linear_A, spec_to_toml
+from hwcat.algebras.families.quivers import auslander_truncated_polynomial, linear_A, spec_to_toml
 from hwcat.io.spec import build_algebra, read_spec_text
 from hwcat.theory.search import adapted_orders
 from hwcat.theory.tilting import ringel_dual, tilting_modules

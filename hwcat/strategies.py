@@ -10,7 +10,7 @@ this module is not imported by ``import hwcat``.
 Every algebra strategy has a ``..._specs`` twin that draws the spec dict
 (shaped like a parsed spec file, see ``specs/FORMAT.md``) from which the
 algebra is built, so a failing example can be written out with
-:func:`hwcat.algebras.quiver_families.spec_to_toml` and replayed from the
+:func:`hwcat.algebras.families.quivers.spec_to_toml` and replayed from the
 command line.
 
 Arguments follow one naming scheme: ``min_vertices``, ``max_vertices``,
@@ -38,9 +38,9 @@ import networkx as nx
 from hypothesis import strategies as st
 from hypothesis.errors import InvalidArgument
 
-from hwcat.algebras.basic import BasicAlgebra
-from hwcat.algebras.bound import bound_quiver_algebra
-from hwcat.algebras.quiver import Arrow, Path, Quiver, format_path, parse_relation
+from hwcat.algebras.hub.basic import BasicAlgebra
+from hwcat.algebras.hub.quiver import Arrow, Path, Quiver, format_path, parse_relation
+from hwcat.algebras.inputs.bound import bound_quiver_algebra
 from hwcat.exact import GF, QQ, Field, Mat, parse_field
 from hwcat.modules import Module, direct_sum, injective, projective, simple
 
@@ -476,7 +476,7 @@ def bound_quiver_algebras(
     """Random finite-dimensional bound quiver algebras, as :class:`BasicAlgebra`.
 
     The algebras of :func:`bound_quiver_specs` (same arguments), built with
-    :func:`hwcat.algebras.bound.bound_quiver_algebra`.
+    :func:`hwcat.algebras.inputs.bound.bound_quiver_algebra`.
 
     Examples
     --------

@@ -1,4 +1,4 @@
-"""Tests of bound quiver algebras ``kQ/I`` (:mod:`hwcat.algebras.bound`).
+"""Tests of bound quiver algebras ``kQ/I`` (:mod:`hwcat.algebras.inputs.bound`).
 
 Hand-made algebras with known answers (each check names its source beside it)
 next to property tests on random algebras from :mod:`hwcat.strategies`.  The
@@ -21,10 +21,10 @@ import pytest
 from hypothesis import HealthCheck, currently_in_test_context, event, given, settings
 from hypothesis import strategies as st
 
-from hwcat.algebras import bound
-from hwcat.algebras.basic import BasicAlgebra
-from hwcat.algebras.bound import bound_quiver_algebra
-from hwcat.algebras.quiver import Path, Quiver, parse_relation
+from hwcat.algebras.hub.basic import BasicAlgebra
+from hwcat.algebras.hub.quiver import Path, Quiver, parse_relation
+from hwcat.algebras.inputs import bound
+from hwcat.algebras.inputs.bound import bound_quiver_algebra
 from hwcat.errors import HwcatError, NotFiniteDimensional, RelationError
 from hwcat.exact import GF, QQ, Field, Mat, parse_field
 from hwcat.io.spec import load_spec_text

@@ -4,7 +4,7 @@ import json
 
 import pytest
 
-from hwcat.algebras.quiver_families import linear_A, spec_to_toml
+from hwcat.algebras.families.quivers import linear_A, spec_to_toml
 from hwcat.cli import main
 
 LANTERN = "specs/examples/lantern.toml"

@@ -22,7 +22,7 @@ from pathlib import Path
 import pytest
 from hypothesis import HealthCheck, given, settings
 
-from hwcat.algebras.quiver_families import spec_to_toml
+from hwcat.algebras.families.quivers import spec_to_toml
 from hwcat.cli import main
 from hwcat.modules import injective, projective
 from hwcat.strategies import algebra_from_spec, bound_quiver_specs

@@ -1,4 +1,4 @@
-"""Tests of the built-in families (:mod:`hwcat.algebras.families`) against outside facts.
+"""Tests of the built-in families (:mod:`hwcat.algebras.families.registry`) against outside facts.
 
 Sources (as in the issue and ``sources.md``):
 
@@ -34,8 +34,8 @@ from math import comb
 
 import pytest
 
-from hwcat.algebras.families import FAMILIES, family_algebra, family_reduction, family_spec
-from hwcat.algebras.presentation import presentation_toml
+from hwcat.algebras.families.registry import FAMILIES, family_algebra, family_reduction, family_spec
+from hwcat.algebras.reduction.presentation import presentation_toml
 from hwcat.cli import main
 from hwcat.errors import FieldError, SpecError
 from hwcat.io.spec import load_spec_text
@@ -52,7 +52,7 @@ def cell_dims(n: int) -> list[int]:
 
 @pytest.mark.parametrize("n", range(1, 8))
 def test_temperley_lieb_dimension_is_catalan(n):
-    from hwcat.algebras.families import temperley_lieb
+    from hwcat.algebras.families.registry import temperley_lieb
 
     assert temperley_lieb(n, 1, "GF(5)").dim == catalan(n)
 

@@ -21,7 +21,7 @@ from __future__ import annotations
 
 import pytest
 
-from hwcat.algebras.families import family_algebra
+from hwcat.algebras.families.registry import family_algebra
 
 try:
     from hwcat.theory.highest_weight import is_quasi_hereditary
@@ -80,8 +80,8 @@ def test_cross_input_verdicts_agree():
     verdict and the same number of adapted orders (the search counts them; derived)."""
     from hypothesis import given, settings
 
-    from hwcat.algebras.reduction import reduce_algebra
-    from hwcat.algebras.structure_input import from_basic_algebra
+    from hwcat.algebras.inputs.structure_input import from_basic_algebra
+    from hwcat.algebras.reduction.reduction import reduce_algebra
     from hwcat.strategies import bound_quiver_algebras
 
     search = pytest.importorskip("hwcat.theory.search")

@@ -16,7 +16,14 @@ import pytest
 import sympy
 from sympy.functions.combinatorial.numbers import partition
 
-from hwcat.algebras.family_tables import (
+from hwcat.algebras.families.quivers import (
+    alternating_A,
+    auslander_truncated_polynomial,
+    linear_A,
+    spec_to_toml,
+    zigzag_A,
+)
+from hwcat.algebras.families.tables import (
     MultiplicationTable,
     check_associative,
     check_unit,
@@ -25,13 +32,6 @@ from hwcat.algebras.family_tables import (
     small_quantum_sl2,
     symmetric_group_algebra,
     temperley_lieb,
-)
-from hwcat.algebras.quiver_families import (
-    alternating_A,
-    auslander_truncated_polynomial,
-    linear_A,
-    spec_to_toml,
-    zigzag_A,
 )
 from hwcat.errors import FieldError, SpecError, StructureConstantsError
 from hwcat.exact import GF, QQ, Mat

@@ -40,13 +40,13 @@ import sympy
 from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
-from hwcat.algebras.bound import bound_quiver_algebra
-from hwcat.algebras.quiver_families import (
+from hwcat.algebras.families.quivers import (
     auslander_truncated_polynomial,
     linear_A,
     spec_to_toml,
     zigzag_A,
 )
+from hwcat.algebras.inputs.bound import bound_quiver_algebra
 from hwcat.errors import HwcatError
 from hwcat.exact import GF, QQ, Mat, contains, echelon
 from hwcat.io.spec import load_spec_text

@@ -18,8 +18,8 @@ from __future__ import annotations
 from hypothesis import HealthCheck, given, settings
 from hypothesis import strategies as st
 
-from hwcat.algebras.basic import BasicAlgebra
-from hwcat.algebras.quiver import Path, parse_relation
+from hwcat.algebras.hub.basic import BasicAlgebra
+from hwcat.algebras.hub.quiver import Path, parse_relation
 from hwcat.exact import Mat
 from hwcat.modules import (
     Module,
@@ -234,7 +234,7 @@ def test_submodule_and_quotient(data: st.DataObject) -> None:
 
 def spec_without(spec: dict, removed: set[str]) -> dict:
     """The spec of kQ/(I + A e A): delete the vertices, their arrows and the terms through them."""
-    from hwcat.algebras.quiver import Quiver
+    from hwcat.algebras.hub.quiver import Quiver
     from hwcat.exact import parse_field
 
     F = parse_field(spec["field"])

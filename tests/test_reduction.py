@@ -1,5 +1,5 @@
 """Tests of the radical and of the reduction to the basic algebra
-(:mod:`hwcat.algebras.reduction`, :mod:`hwcat.algebras.presentation`).
+(:mod:`hwcat.algebras.reduction.reduction`, :mod:`hwcat.algebras.reduction.presentation`).
 
 Independent references:
 
@@ -32,11 +32,11 @@ from hypothesis import given, settings
 from hypothesis import strategies as st
 from sympy.polys.matrices import DomainMatrix
 
-from hwcat.algebras.family_tables import cyclic_group_algebra, symmetric_group_algebra
-from hwcat.algebras.presentation import presentation, presentation_toml
-from hwcat.algebras.reduction import lift_idempotent, radical, reduce_algebra
-from hwcat.algebras.structure import from_table
-from hwcat.algebras.structure_input import from_basic_algebra, matrix_algebra
+from hwcat.algebras.families.tables import cyclic_group_algebra, symmetric_group_algebra
+from hwcat.algebras.inputs.structure import from_table
+from hwcat.algebras.inputs.structure_input import from_basic_algebra, matrix_algebra
+from hwcat.algebras.reduction.presentation import presentation, presentation_toml
+from hwcat.algebras.reduction.reduction import lift_idempotent, radical, reduce_algebra
 from hwcat.errors import NotSplitError, StructureConstantsError
 from hwcat.exact import GF, QQ, Mat
 from hwcat.io.spec import load_spec_text
@@ -202,7 +202,7 @@ def test_results_are_reproducible_and_idempotents_check():
 
 
 def test_supplied_idempotents_are_verified():
-    from hwcat.algebras.reduction import primitive_idempotents
+    from hwcat.algebras.reduction.reduction import primitive_idempotents
 
     A = from_table(symmetric_group_algebra(3, GF(5)))
     ids = [A.vec(e) for e in primitive_idempotents(A)]

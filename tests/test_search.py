@@ -22,8 +22,8 @@ from math import comb, factorial
 import pytest
 from hypothesis import given, settings
 
-from hwcat.algebras.bound import bound_quiver_algebra
-from hwcat.algebras.quiver_families import auslander_truncated_polynomial, linear_A
+from hwcat.algebras.families.quivers import auslander_truncated_polynomial, linear_A
+from hwcat.algebras.inputs.bound import bound_quiver_algebra
 from hwcat.exact import GF, QQ
 from hwcat.modules import projective
 from hwcat.strategies import (

@@ -1,5 +1,5 @@
-"""Tests of structure-constant and matrix algebras (:mod:`hwcat.algebras.structure`,
-:mod:`hwcat.algebras.structure_input`)
+"""Tests of structure-constant and matrix algebras (:mod:`hwcat.algebras.inputs.structure`,
+:mod:`hwcat.algebras.inputs.structure_input`)
 and of the ``[multiplication]`` and ``[matrices]`` spec kinds.
 
 References used below:
@@ -21,9 +21,9 @@ import sympy
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
-from hwcat.algebras.family_tables import cyclic_group_algebra, symmetric_group_algebra
-from hwcat.algebras.structure import EXACT_ASSOCIATIVITY_LIMIT, StructureAlgebra, from_table
-from hwcat.algebras.structure_input import (
+from hwcat.algebras.families.tables import cyclic_group_algebra, symmetric_group_algebra
+from hwcat.algebras.inputs.structure import EXACT_ASSOCIATIVITY_LIMIT, StructureAlgebra, from_table
+from hwcat.algebras.inputs.structure_input import (
     from_basic_algebra,
     matrix_algebra,
     parse_products,

@@ -10,7 +10,7 @@ marked so.
 
 from hypothesis import assume, given, settings
 
-from hwcat.algebras.quiver_families import auslander_truncated_polynomial, linear_A
+from hwcat.algebras.families.quivers import auslander_truncated_polynomial, linear_A
 from hwcat.modules import direct_sum, projective
 from hwcat.strategies import algebra_from_spec, bound_quiver_algebras
 from hwcat.theory.highest_weight import heredity_chain, standard_module

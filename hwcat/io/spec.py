@@ -12,9 +12,9 @@ from dataclasses import dataclass, field
 from pathlib import Path as FilePath
 from typing import Any
 
-from hwcat.algebras.basic import BasicAlgebra
-from hwcat.algebras.bound import bound_quiver_algebra
-from hwcat.algebras.quiver import Quiver, parse_relation
+from hwcat.algebras.hub.basic import BasicAlgebra
+from hwcat.algebras.hub.quiver import Quiver, parse_relation
+from hwcat.algebras.inputs.bound import bound_quiver_algebra
 from hwcat.errors import HwcatError, SpecError, SpecSyntaxError, StructureConstantsError
 from hwcat.exact import Field, parse_field
 
@@ -197,8 +197,8 @@ def _seed(src: str, kind: str, tab: dict) -> int:
 
 
 def _multiplication_structure(spec: Spec):
-    from hwcat.algebras.structure import StructureAlgebra
-    from hwcat.algebras.structure_input import (
+    from hwcat.algebras.inputs.structure import StructureAlgebra
+    from hwcat.algebras.inputs.structure_input import (
         add_unit_products,
         parse_combination,
         parse_products,
@@ -297,7 +297,7 @@ def _matrix_value(src: str, key: str, F, value: Any):
 
 
 def _matrices_structure(spec: Spec):
-    from hwcat.algebras.structure_input import (
+    from hwcat.algebras.inputs.structure_input import (
         matrix_algebra,
         matrix_coordinates,
         matrix_expression,
@@ -339,8 +339,8 @@ def build_structure(spec: Spec):
 
 
 def build_reduction(spec: Spec):
-    """The :class:`~hwcat.algebras.reduction.Reduction` of a table or matrices spec."""
-    from hwcat.algebras.reduction import reduce_algebra
+    """The :class:`~hwcat.algebras.reduction.reduction.Reduction` of a table or matrices spec."""
+    from hwcat.algebras.reduction.reduction import reduce_algebra
 
     A, ids, seed = build_structure(spec)
     key = f"{spec.kind}.idempotents" if ids is not None else spec.kind

@@ -1,4 +1,4 @@
-"""Modules as quiver representations of a :class:`~hwcat.algebras.basic.BasicAlgebra`.
+"""Modules as quiver representations of a :class:`~hwcat.algebras.hub.basic.BasicAlgebra`.
 
 A module ``M`` is a vector space ``M_v`` at each vertex and a matrix per arrow
 (shape ``dim M_source x dim M_target``, acting on row vectors).  These are
@@ -28,9 +28,9 @@ from __future__ import annotations
 from collections.abc import Mapping, Sequence
 from typing import Any
 
-from hwcat.algebras.basic import BasicAlgebra
-from hwcat.algebras.quiver import Path
-from hwcat.algebras.rep import closure, generated_word_basis, path_matrix, quotient, restrict
+from hwcat.algebras.hub.basic import BasicAlgebra
+from hwcat.algebras.hub.quiver import Path
+from hwcat.algebras.hub.rep import closure, generated_word_basis, path_matrix, quotient, restrict
 from hwcat.errors import InternalInconsistency
 from hwcat.exact import Mat, complement, echelon
 

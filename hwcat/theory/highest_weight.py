@@ -23,7 +23,7 @@ from __future__ import annotations
 from dataclasses import dataclass, field
 from typing import Any
 
-from hwcat.algebras.basic import BasicAlgebra
+from hwcat.algebras.hub.basic import BasicAlgebra
 from hwcat.errors import InternalInconsistency, OrderError
 from hwcat.exact import Mat, quotient_map
 from hwcat.modules import Module, projective

@@ -51,7 +51,7 @@ from typing import Any
 
 import networkx as nx
 
-from hwcat.algebras.basic import BasicAlgebra
+from hwcat.algebras.hub.basic import BasicAlgebra
 from hwcat.errors import InternalInconsistency
 from hwcat.exact import Mat, contains
 from hwcat.modules import Module, simple

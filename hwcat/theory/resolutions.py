@@ -49,7 +49,7 @@ from collections.abc import Sequence
 from dataclasses import dataclass
 from typing import Any
 
-from hwcat.algebras.basic import BasicAlgebra
+from hwcat.algebras.hub.basic import BasicAlgebra
 from hwcat.errors import HwcatError, InternalInconsistency
 from hwcat.exact import Mat
 from hwcat.modules import Module, direct_sum, projective

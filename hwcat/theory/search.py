@@ -30,7 +30,7 @@ from dataclasses import dataclass
 from math import factorial
 from typing import Any
 
-from hwcat.algebras.basic import BasicAlgebra
+from hwcat.algebras.hub.basic import BasicAlgebra
 from hwcat.theory.highest_weight import costandard_module, trace_cache
 from hwcat.theory.orders import PartialOrder, total_order
 from hwcat.theory.traces import mask

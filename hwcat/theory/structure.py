@@ -5,7 +5,7 @@ from __future__ import annotations
 from dataclasses import dataclass
 from typing import Any
 
-from hwcat.algebras.basic import BasicAlgebra
+from hwcat.algebras.hub.basic import BasicAlgebra
 from hwcat.modules import Module, injective, projective
 
 __all__ = ["ModuleSummary", "StructureReport", "describe", "summarise_module"]

@@ -17,7 +17,7 @@ Each result is verified: it has a standard and a costandard filtration,
 vanishing at ``L`` form a nilpotent ideal).
 
 The Ringel dual ``R(A) = End_A(T)^op`` for ``T`` the sum of the ``T(L)`` is
-built directly as a :class:`~hwcat.algebras.basic.BasicAlgebra`: its vertex
+built directly as a :class:`~hwcat.algebras.hub.basic.BasicAlgebra`: its vertex
 ``L`` is ``T(L)``, ``e_L R e_M = Hom(T(L), T(M))`` with product ``f * g`` =
 "first f, then g", its radical is everything except the scalars at the
 vertices, and its arrows are a basis of the radical modulo its square.
@@ -34,8 +34,8 @@ import re
 from dataclasses import dataclass
 from typing import Any
 
-from hwcat.algebras.basic import BasicAlgebra
-from hwcat.algebras.quiver import Arrow, Quiver
+from hwcat.algebras.hub.basic import BasicAlgebra
+from hwcat.algebras.hub.quiver import Arrow, Quiver
 from hwcat.errors import InternalInconsistency, OrderError
 from hwcat.exact import Mat, echelon, select_independent_rows
 from hwcat.modules import Module, direct_sum, hom

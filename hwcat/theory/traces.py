@@ -13,8 +13,8 @@ from __future__ import annotations
 
 from typing import Any
 
-from hwcat.algebras.basic import BasicAlgebra
-from hwcat.algebras.rep import closure
+from hwcat.algebras.hub.basic import BasicAlgebra
+from hwcat.algebras.hub.rep import closure
 from hwcat.exact import Mat, quotient_map
 
 __all__ = ["TraceCache", "bits", "mask"]

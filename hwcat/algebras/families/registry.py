@@ -2,16 +2,16 @@
 
 Two kinds:
 
-* **multiplication-table families** (:mod:`hwcat.algebras.family_tables`):
+* **multiplication-table families** (:mod:`hwcat.algebras.families.tables`):
   Temperley--Lieb ``TL_n(delta)`` (diagram basis), Schur algebras ``S(2, r)``
   (Green's basis), group algebras of ``S_n`` and of cyclic groups, the small
   quantum group ``u_q(sl_2)``.  They are reduced to their basic algebra with
-  :func:`hwcat.algebras.reduction.reduce_algebra`.
-* **quiver families** (:mod:`hwcat.algebras.quiver_families`): linearly
+  :func:`hwcat.algebras.reduction.reduction.reduce_algebra`.
+* **quiver families** (:mod:`hwcat.algebras.families.quivers`): linearly
   oriented and alternating ``A_n`` (with any ``vanish_from_length``), the
   Auslander algebra of ``k[x]/(x^n)``, zigzag algebras of type ``A_n``.  They
   are format-1 quiver specs, built with
-  :func:`hwcat.algebras.bound.bound_quiver_algebra`.
+  :func:`hwcat.algebras.inputs.bound.bound_quiver_algebra`.
 
 :data:`FAMILIES` describes each family (parameters, defaults, presentation and
 source); :func:`family_algebra` builds one from text parameters, which is what
@@ -32,12 +32,13 @@ from collections.abc import Callable, Mapping
 from dataclasses import dataclass
 from typing import Any
 
-from hwcat.algebras import family_tables, quiver_families
-from hwcat.algebras.basic import BasicAlgebra
-from hwcat.algebras.bound import bound_quiver_algebra
-from hwcat.algebras.quiver import Quiver, parse_relation
-from hwcat.algebras.reduction import Reduction, reduce_algebra
-from hwcat.algebras.structure import StructureAlgebra, from_table
+from hwcat.algebras.families import quivers as quiver_families
+from hwcat.algebras.families import tables as family_tables
+from hwcat.algebras.hub.basic import BasicAlgebra
+from hwcat.algebras.hub.quiver import Quiver, parse_relation
+from hwcat.algebras.inputs.bound import bound_quiver_algebra
+from hwcat.algebras.inputs.structure import StructureAlgebra, from_table
+from hwcat.algebras.reduction.reduction import Reduction, reduce_algebra
 from hwcat.errors import HwcatError, SpecError
 from hwcat.exact import parse_field
 

@@ -25,8 +25,8 @@ import re
 from collections.abc import Mapping, Sequence
 from typing import Any
 
-from hwcat.algebras.basic import BasicAlgebra
-from hwcat.algebras.structure import StructureAlgebra
+from hwcat.algebras.hub.basic import BasicAlgebra
+from hwcat.algebras.inputs.structure import StructureAlgebra
 from hwcat.errors import (
     CoefficientError,
     HwcatError,

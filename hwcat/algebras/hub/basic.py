@@ -26,8 +26,8 @@ from typing import Any
 
 import networkx as nx
 
-from hwcat.algebras.quiver import Arrow, Path, Quiver, format_path
-from hwcat.algebras.rep import closure, cyclic_word_basis, quotient
+from hwcat.algebras.hub.quiver import Arrow, Path, Quiver, format_path
+from hwcat.algebras.hub.rep import closure, cyclic_word_basis, quotient
 from hwcat.errors import InternalInconsistency
 from hwcat.exact import Field, Mat
 
@@ -37,7 +37,7 @@ __all__ = ["BasicAlgebra"]
 class BasicAlgebra:
     """A split basic algebra given by its quiver and right regular representation.
 
-    Build one with :func:`hwcat.algebras.bound.bound_quiver_algebra` (or the
+    Build one with :func:`hwcat.algebras.inputs.bound.bound_quiver_algebra` (or the
     spec loader); the constructor takes the raw data and checks it.
 
     Parameters
@@ -230,7 +230,7 @@ class BasicAlgebra:
         ``reps[s]`` is ``e_s A`` as a representation of ``quiver``; ``starts[s]``
         the row vector of the idempotent ``e_s`` in it (default: the first basis
         vector at ``s``).  A prefix-closed basis of paths is chosen by
-        :func:`~hwcat.algebras.rep.cyclic_word_basis` and the action rewritten in it.
+        :func:`~hwcat.algebras.hub.rep.cyclic_word_basis` and the action rewritten in it.
         """
         n = len(quiver.vertices)
         words, action = [], []

@@ -1,6 +1,6 @@
 """Raw operations on quiver representations given as dimension and matrix lists.
 
-These are the kernels shared by the hub (:mod:`hwcat.algebras.basic`) and the
+These are the kernels shared by the hub (:mod:`hwcat.algebras.hub.basic`) and the
 module layer (:mod:`hwcat.modules`).  A representation is a tuple ``dims``
 (one dimension per vertex) and a tuple ``maps`` (one matrix per arrow, of shape
 ``dims[source] x dims[target]``, row-vector convention).  Subspaces are given
@@ -11,7 +11,7 @@ from __future__ import annotations
 
 from collections.abc import Sequence
 
-from hwcat.algebras.quiver import Arrow, Path
+from hwcat.algebras.hub.quiver import Arrow, Path
 from hwcat.errors import InternalInconsistency
 from hwcat.exact import Field, Mat, echelon, quotient_map, select_independent_rows
 

@@ -17,7 +17,7 @@ relation reads "its leading path equals a combination of later paths".
 
 Examples
 --------
->>> from hwcat.algebras.quiver import Quiver, parse_relation
+>>> from hwcat.algebras.hub.quiver import Quiver, parse_relation
 >>> from hwcat.exact import QQ
 >>> Q = Quiver.from_text(["1", "2", "3", "4"], ["a: 1 -> 2", "b: 2 -> 4", "c: 1 -> 3", "d: 3 -> 4"])
 >>> B = bound_quiver_algebra(QQ, Q, [parse_relation("a*b + 2*c*d", Q, QQ)])
@@ -31,10 +31,10 @@ from __future__ import annotations
 from dataclasses import dataclass
 from typing import Any
 
-from hwcat.algebras.basic import BasicAlgebra
-from hwcat.algebras.bound import bound_quiver_algebra
-from hwcat.algebras.quiver import Path, Quiver
-from hwcat.algebras.quiver_families import spec_to_toml
+from hwcat.algebras.families.quivers import spec_to_toml
+from hwcat.algebras.hub.basic import BasicAlgebra
+from hwcat.algebras.hub.quiver import Path, Quiver
+from hwcat.algebras.inputs.bound import bound_quiver_algebra
 from hwcat.errors import HwcatError, InternalInconsistency
 from hwcat.exact import Field, Mat, echelon, select_independent_rows
 

@@ -17,7 +17,7 @@ tr_j(x)`` on ``I_(i-1)``, so ``I_i`` is the set of ``x`` acting as zero on every
 ``S_j`` with ``v_p(m_j) <= i``.)  In the regular representation ``x`` in
 ``I_(i-1)`` acts as zero on ``A / I_(i-1)``, so the matrices are restricted to
 the ideal.  The cost is ``dim(I) d^3 log(p^l)``: fine for small algebras; large
-ones are better served by :func:`hwcat.algebras.reduction.reduce_algebra`,
+ones are better served by :func:`hwcat.algebras.reduction.reduction.reduce_algebra`,
 from which ``radical(method="reduction")`` reads the radical off the simples.
 
 The *quotient route* (:func:`primitive_idempotents`) splits the semisimple
@@ -36,8 +36,8 @@ an algebra of linear transformations*, J. Pure Appl. Algebra 117/118 (1997)
 
 Examples
 --------
->>> from hwcat.algebras.family_tables import symmetric_group_algebra
->>> from hwcat.algebras.structure import from_table
+>>> from hwcat.algebras.families.tables import symmetric_group_algebra
+>>> from hwcat.algebras.inputs.structure import from_table
 >>> A = from_table(symmetric_group_algebra(3, "GF(3)"))
 >>> radical(A).nrows                 # lifted-trace chain; the trace form alone gives 6
 4
@@ -49,7 +49,7 @@ import random
 from collections.abc import Sequence
 from typing import Any
 
-from hwcat.algebras.structure import StructureAlgebra
+from hwcat.algebras.inputs.structure import StructureAlgebra
 from hwcat.errors import InternalInconsistency, NotSplitError, StructureConstantsError
 from hwcat.exact import Mat, echelon
 from hwcat.exact.polys import (
@@ -202,8 +202,8 @@ def radical(A: StructureAlgebra, method: str = "auto", *, seed: int = 0) -> Mat:
 
     Examples
     --------
-    >>> from hwcat.algebras.family_tables import cyclic_group_algebra
-    >>> from hwcat.algebras.structure import from_table
+    >>> from hwcat.algebras.families.tables import cyclic_group_algebra
+    >>> from hwcat.algebras.inputs.structure import from_table
     >>> radical(from_table(cyclic_group_algebra(4, "GF(2)"))).nrows   # (g - 1) F[g]
     3
     """
@@ -224,7 +224,7 @@ def radical(A: StructureAlgebra, method: str = "auto", *, seed: int = 0) -> Mat:
             )
         return _trace_kernel(A, use_natural)
     if method == "reduction":
-        from hwcat.algebras.reduction import reduce_algebra
+        from hwcat.algebras.reduction.reduction import reduce_algebra
 
         return reduce_algebra(A, seed=seed).radical()
     if method != "lifted-trace":
@@ -324,8 +324,8 @@ def lift_idempotent(
     ``(1 - E) x (1 - E)`` and iterates ``y -> 3y^2 - 2y^3`` (each step squares
     the defect ``y^2 - y``) until ``y^2 = y``; the result is orthogonal to ``E``.
 
-    >>> from hwcat.algebras.family_tables import cyclic_group_algebra
-    >>> from hwcat.algebras.structure import from_table
+    >>> from hwcat.algebras.families.tables import cyclic_group_algebra
+    >>> from hwcat.algebras.inputs.structure import from_table
     >>> A = from_table(cyclic_group_algebra(2, "GF(2)"))   # F[g]/(g+1)^2, local
     >>> A.element_text(lift_idempotent(A, A.element("g")))  # g = 1 mod rad
     '1'

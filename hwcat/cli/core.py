@@ -1,8 +1,5 @@
-"""The ``hwcat`` command line.
-
-Exit codes: 0 success (or a mathematical "yes"), 1 a mathematical "no"
-(e.g. not quasi-hereditary), 2 bad input.
-"""
+"""The commands that read one algebra: describe, check, orders, presentation,
+ringel-dual, family."""
 
 from __future__ import annotations
 
@@ -11,11 +8,11 @@ import json
 import sys
 from collections.abc import Sequence
 
-from hwcat.errors import HwcatError, InternalInconsistency, OrderError, SpecError
+from hwcat.errors import InternalInconsistency, OrderError, SpecError
 from hwcat.io.render import render_orders, render_structure, render_verdict, to_json
 from hwcat.io.spec import build_algebra, read_spec
 
-__all__ = ["main", "build_parser"]
+__all__ = ["register"]
 
 
 def _load(args: argparse.Namespace):
@@ -106,7 +103,7 @@ def _cmd_orders(args: argparse.Namespace) -> int:
 
 def _notes(A) -> list[str]:
     """Lines about how an algebra given by a table or matrices was reduced."""
-    from hwcat.algebras.reduction import reduction_of
+    from hwcat.algebras.reduction.reduction import reduction_of
 
     r = reduction_of(A)
     if r is None:
@@ -122,7 +119,7 @@ def _notes(A) -> list[str]:
 
 
 def _cmd_presentation(args: argparse.Namespace) -> int:
-    from hwcat.algebras.presentation import presentation_toml
+    from hwcat.algebras.reduction.presentation import presentation_toml
 
     spec, A = _load(args)
     text = presentation_toml(A, name=spec.name or None)
@@ -151,8 +148,8 @@ def _parse_assignments(items: Sequence[str]) -> dict[str, str]:
 
 
 def _cmd_family(args: argparse.Namespace) -> int:
-    from hwcat.algebras.families import FAMILIES, family_algebra
-    from hwcat.algebras.presentation import presentation_toml
+    from hwcat.algebras.families.registry import FAMILIES, family_algebra
+    from hwcat.algebras.reduction.presentation import presentation_toml
     from hwcat.theory.structure import describe
 
     if args.list or not args.name:
@@ -196,8 +193,8 @@ def _order_for(spec, A, text_arg):
 
 
 def _cmd_ringel_dual(args: argparse.Namespace) -> int:
-    from hwcat.algebras.presentation import presentation_spec
-    from hwcat.algebras.quiver_families import spec_to_toml
+    from hwcat.algebras.families.quivers import spec_to_toml
+    from hwcat.algebras.reduction.presentation import presentation_spec
     from hwcat.theory.highest_weight import heredity_chain
     from hwcat.theory.tilting import ringel_dual
 
@@ -228,12 +225,8 @@ def _cmd_ringel_dual(args: argparse.Namespace) -> int:
     return 0
 
 
-def build_parser() -> argparse.ArgumentParser:
-    p = argparse.ArgumentParser(
-        prog="hwcat",
-        description="Exact highest-weight-category checks for finite-dimensional algebras.",
-    )
-    sub = p.add_subparsers(dest="command", required=True)
+def register(sub: argparse._SubParsersAction) -> None:
+    """Add this module's commands to the parser."""
     d = sub.add_parser(
         "describe", help="structure of an algebra: Cartan matrix, projectives, injectives"
     )
@@ -290,22 +283,3 @@ def build_parser() -> argparse.ArgumentParser:
         help="also write the family's quiver with relations as a spec (for check, orders, ...)",
     )
     fa.set_defaults(func=_cmd_family)
-    return p
-
-
-def main(argv: Sequence[str] | None = None) -> int:
-    parser = build_parser()
-    args = parser.parse_args(argv)
-    try:
-        return args.func(args)
-    except InternalInconsistency:
-        raise
-    except HwcatError as exc:
-        print(f"hwcat: error: {exc}", file=sys.stderr)
-        return 2
-    except BrokenPipeError:  # output piped into a pager or head
-        return 0
-
-
-if __name__ == "__main__":  # pragma: no cover
-    sys.exit(main())

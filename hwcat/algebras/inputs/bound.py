@@ -38,9 +38,9 @@ from typing import Any
 
 import networkx as nx
 
-from hwcat.algebras.basic import BasicAlgebra
-from hwcat.algebras.quiver import Path, Quiver, format_path
-from hwcat.algebras.rep import closure, quotient
+from hwcat.algebras.hub.basic import BasicAlgebra
+from hwcat.algebras.hub.quiver import Path, Quiver, format_path
+from hwcat.algebras.hub.rep import closure, quotient
 from hwcat.errors import InternalInconsistency, NotFiniteDimensional, RelationError
 from hwcat.exact import Field, Mat, assemble, contains, quotient_map
 

@@ -5,22 +5,22 @@ with a named basis ``b_0, ..., b_{n-1}`` and structure constants
 ``b_i * b_j = sum_k c_ij^k b_k``, stored sparsely: only nonzero products, and
 for each ``j`` only the nonzero terms of the products ``b_i * b_j``.  This is
 the form in which diagram algebras, Schur algebras, group algebras and small
-quantum groups arrive; :func:`hwcat.algebras.reduction.reduce_algebra` turns it
-into the hub :class:`~hwcat.algebras.basic.BasicAlgebra`.
+quantum groups arrive; :func:`hwcat.algebras.reduction.reduction.reduce_algebra` turns it
+into the hub :class:`~hwcat.algebras.hub.basic.BasicAlgebra`.
 
 Validation happens on construction: non-associativity (checked exactly on all
 basis triples for small dimension, otherwise on random triples with the number
 of trials and the failure probability recorded in
 :attr:`StructureAlgebra.associativity`) and a wrong or missing unit.  Building
 from text, named mappings, matrices and quiver algebras is in
-:mod:`hwcat.algebras.structure_input`.
+:mod:`hwcat.algebras.inputs.structure_input`.
 
 Vectors are lists of field elements in the basis order.
 
 Examples
 --------
 >>> from hwcat.exact import GF
->>> from hwcat.algebras.structure_input import structure_algebra
+>>> from hwcat.algebras.inputs.structure_input import structure_algebra
 >>> A = structure_algebra(GF(7), ["e", "x", "y"],
 ...     {("x", "x"): "y", ("e", "e"): "e", ("e", "x"): "x", ("x", "e"): "x",
 ...      ("e", "y"): "y", ("y", "e"): "y"})
@@ -240,7 +240,7 @@ class StructureAlgebra:
 
     def element(self, text: str) -> list[Any]:
         """Parse ``"2*x - 1/3*y"`` (basis names; products of names are multiplied out)."""
-        from hwcat.algebras.structure_input import parse_combination
+        from hwcat.algebras.inputs.structure_input import parse_combination
 
         return parse_combination(text, self)
 
@@ -715,7 +715,7 @@ def from_table(
 ) -> StructureAlgebra:
     """A :class:`StructureAlgebra` from a built-in family's multiplication table.
 
-    The tables of :mod:`hwcat.algebras.family_tables` are associative by
+    The tables of :mod:`hwcat.algebras.families.tables` are associative by
     construction (their tests check it exactly), so the check is skipped by
     default; pass ``associativity="exact"`` to repeat it.
     """

@@ -1,14 +1,14 @@
 """From any finite-dimensional algebra to its basic algebra and Gabriel quiver.
 
-Input: a :class:`~hwcat.algebras.structure.StructureAlgebra` ``A`` (structure
+Input: a :class:`~hwcat.algebras.inputs.structure.StructureAlgebra` ``A`` (structure
 constants, a matrix algebra, a built-in family).  Output: a
-:class:`Reduction` holding the hub :class:`~hwcat.algebras.basic.BasicAlgebra`
+:class:`Reduction` holding the hub :class:`~hwcat.algebras.hub.basic.BasicAlgebra`
 of ``A`` (the basic algebra ``e A e`` with its Gabriel quiver), one primitive
 idempotent per simple module, and the Morita data ``dim L(i)``.
 
 Method
 ------
-*Radical* (:func:`hwcat.algebras.radical.radical`, re-exported here): trace form
+*Radical* (:func:`hwcat.algebras.reduction.radical.radical`, re-exported here): trace form
 in characteristic 0 or large ``p``, the chain of Ronyai and Cohen-Ivanyos-Wales
 otherwise (see that module).
 
@@ -36,7 +36,7 @@ simples already found.  Completeness is the exact identity
 ``"quotient"`` follows the textbook route instead: radical, semisimple
 quotient, its centre split by random central elements, each simple component
 split into primitive idempotents, lifted to ``A`` by ``e -> 3e^2 - 2e^3``
-orthogonally (:mod:`hwcat.algebras.radical`).
+orthogonally (:mod:`hwcat.algebras.reduction.radical`).
 
 *Cost*.  Without block structure the work is dominated by passes over the
 nonzero structure constants that build a dense ``dim A x dim A`` matrix of
@@ -61,8 +61,8 @@ an algebra of linear transformations*, J. Pure Appl. Algebra 117/118 (1997)
 
 Examples
 --------
->>> from hwcat.algebras.family_tables import symmetric_group_algebra
->>> from hwcat.algebras.structure import from_table
+>>> from hwcat.algebras.families.tables import symmetric_group_algebra
+>>> from hwcat.algebras.inputs.structure import from_table
 >>> A = from_table(symmetric_group_algebra(3, "GF(2)"))
 >>> r = reduce_algebra(A)
 >>> r.simple_dimensions, r.basic.cartan(), r.radical_dimension
@@ -78,9 +78,10 @@ from collections.abc import Sequence
 from dataclasses import dataclass, field
 from typing import Any
 
-from hwcat.algebras.basic import BasicAlgebra
-from hwcat.algebras.quiver import Arrow, Quiver
-from hwcat.algebras.radical import (
+from hwcat.algebras.hub.basic import BasicAlgebra
+from hwcat.algebras.hub.quiver import Arrow, Quiver
+from hwcat.algebras.inputs.structure import StructureAlgebra
+from hwcat.algebras.reduction.radical import (
     _apply,
     _coords_solver,
     _embed,
@@ -95,7 +96,6 @@ from hwcat.algebras.radical import (
     primitive_idempotents,
     radical,
 )
-from hwcat.algebras.structure import StructureAlgebra
 from hwcat.errors import InternalInconsistency, NotSplitError, StructureConstantsError
 from hwcat.exact import Mat, echelon, select_independent_rows
 from hwcat.exact.polys import (

@@ -1,0 +1,1 @@
+"""See :mod:`hwcat.algebras` for what this room holds."""
