@@ -1,7 +1,7 @@
 """Benchmark: the all-orders search and structure counting.
 
 Prints, for algebras of growing size, the time and peak memory of deciding
-quasi-heredity over all orders, of counting adapted total orders and of
+quasi-heredity over all orders, of counting quasi-hereditary total orders and of
 counting structures; and, on small cases, a naive baseline that checks every
 permutation's heredity chain with sympy matrices, with the speed-up measured
 in the same run.
@@ -29,7 +29,7 @@ from hwcat.algebras.families.quivers import (  # noqa: E402
     spec_to_toml,  # noqa: E402
 )
 from hwcat.io.spec import build_algebra, read_spec_text  # noqa: E402
-from hwcat.theory.search import adapted_orders, is_quasi_hereditary  # noqa: E402
+from hwcat.theory.search import is_quasi_hereditary, quasi_hereditary_orders  # noqa: E402
 
 
 def algebra(spec):
@@ -147,14 +147,14 @@ def main() -> None:
     for label, spec in small:
         A = algebra(spec)
         base, tb, _ = measure(lambda: baseline_count(A))
-        count, ts, _ = measure(lambda: adapted_orders(A, list_limit=0).adapted_total_orders)
+        count, ts, _ = measure(lambda: quasi_hereditary_orders(A, list_limit=0).quasi_hereditary_total_orders)
         assert base == count, (label, base, count)
         rows.append([label, A.n, A.dim, base, f"{tb:.3f}", f"{ts:.4f}", f"{tb / ts:.0f}x"])
     print(
-        table(rows, ["algebra", "simples", "dim", "adapted", "baseline s", "search s", "speed-up"])
+        table(rows, ["algebra", "simples", "dim", "qh orders", "baseline s", "search s", "speed-up"])
     )
     print()
-    print("Subset search at scale (decision; adapted total orders; structures)")
+    print("Subset search at scale (decision; quasi-hereditary total orders; structures)")
     rows = []
     big = [
         ("linear A_10", linear_A(10), True),
@@ -174,8 +174,8 @@ def main() -> None:
         q, td, pd = measure(lambda: is_quasi_hereditary(A))
         if structures:
             (cnt, st), ta, pa = measure(
-                lambda: (lambda r: (r.adapted_total_orders, r.structures))(
-                    adapted_orders(A, list_limit=0)
+                lambda: (lambda r: (r.quasi_hereditary_total_orders, r.structures))(
+                    quasi_hereditary_orders(A, list_limit=0)
                 )
             )
         rows.append(
@@ -204,7 +204,7 @@ def main() -> None:
                 "qh",
                 "decide s",
                 "RSS MiB",
-                "adapted orders",
+                "quasi-hereditary orders",
                 "structures",
                 "count s",
                 "RSS MiB",

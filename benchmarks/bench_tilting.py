@@ -21,13 +21,13 @@ from _common import measure, table
 
 from hwcat.algebras.families.quivers import auslander_truncated_polynomial, linear_A, spec_to_toml
 from hwcat.io.spec import build_algebra, read_spec_text
-from hwcat.theory.search import adapted_orders
+from hwcat.theory.search import quasi_hereditary_orders
 from hwcat.theory.tilting import ringel_dual, tilting_modules
 
 
 def run(spec):
     A = build_algebra(read_spec_text(spec_to_toml(spec)))
-    P = adapted_orders(A, list_limit=1).structure_list[0].essential_order
+    P = quasi_hereditary_orders(A, list_limit=1).structure_list[0].essential_order
     return A, P
 
 

@@ -7,7 +7,7 @@
 ... vertices = ["1", "2", "3"]
 ... arrows = ["a: 1 -> 2", "b: 2 -> 3"]
 ... ''')
->>> hwcat.adapted_orders(A).structures      # Catalan(3)
+>>> hwcat.quasi_hereditary_orders(A).structures      # Catalan(3)
 5
 >>> v = hwcat.check_order(A, hwcat.parse_order("3 > 2 > 1", A.vertices))
 >>> v.quasi_hereditary
@@ -27,7 +27,7 @@ from hwcat.theory.highest_weight import (
     standard_module,
 )
 from hwcat.theory.orders import PartialOrder, parse_order, total_order
-from hwcat.theory.search import adapted_orders, is_quasi_hereditary
+from hwcat.theory.search import is_quasi_hereditary, quasi_hereditary_orders
 from hwcat.theory.structure import describe
 from hwcat.theory.verdict import check_order
 
@@ -59,7 +59,7 @@ __all__ = [
     "costandard_filtration",
     "heredity_chain",
     "check_order",
-    "adapted_orders",
+    "quasi_hereditary_orders",
     "is_quasi_hereditary",
     "HwcatError",
     "InternalInconsistency",

@@ -56,7 +56,7 @@ def test_check_without_order_searches(tmp_path, capsys):
     spec = linear_A(3)
     code, out, _ = run(capsys, "check", write(tmp_path, spec), "--json")
     d = json.loads(out)
-    assert code == 0 and d["quasi_hereditary"] and d["search"]["adapted_total_orders"] == 6
+    assert code == 0 and d["quasi_hereditary"] and d["search"]["quasi_hereditary_total_orders"] == 6
 
 
 def test_check_no_order_works(tmp_path, capsys):
@@ -68,7 +68,7 @@ def test_check_no_order_works(tmp_path, capsys):
     assert code == 1 and d["quasi_hereditary"] is False
     assert any(not a["holds"] and a["witness"] for a in d["axioms"])
     code, out, _ = run(capsys, "check", p)
-    assert "NO order is adapted" in out
+    assert "NO order makes the algebra quasi-hereditary" in out
 
 
 @pytest.mark.parametrize("order", ["top > nowhere", "top > left > top", "top >> left"])
@@ -89,7 +89,7 @@ def test_orders_json(tmp_path, capsys):
     code, out, _ = run(capsys, "orders", write(tmp_path, linear_A(4)), "--json", "--all")
     d = json.loads(out)
     assert code == 0
-    assert d["quasi_hereditary"] and d["adapted_total_orders"] == 24 and d["structures"] == 14
+    assert d["quasi_hereditary"] and d["quasi_hereditary_total_orders"] == 24 and d["structures"] == 14
     assert len(d["structure_list"]) == 14
     s = d["structure_list"][0]
     assert "standard_dimension_vectors" in s and "essential_order" in s

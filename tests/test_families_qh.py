@@ -77,7 +77,7 @@ def test_auslander_algebra_is_quasi_hereditary(n):
 
 def test_cross_input_verdicts_agree():
     """A quiver algebra converted to structure constants and reduced back has the same
-    verdict and the same number of adapted orders (the search counts them; derived)."""
+    verdict and the same number of quasi-hereditary orders (the search counts them; derived)."""
     from hypothesis import given, settings
 
     from hwcat.algebras.inputs.structure_input import from_basic_algebra
@@ -91,7 +91,7 @@ def test_cross_input_verdicts_agree():
     def check(B):
         C = reduce_algebra(from_basic_algebra(B)).basic
         assert is_quasi_hereditary(C) == is_quasi_hereditary(B)
-        rb, rc = search.adapted_orders(B), search.adapted_orders(C)
-        assert (rb.adapted_total_orders, rb.structures) == (rc.adapted_total_orders, rc.structures)
+        rb, rc = search.quasi_hereditary_orders(B), search.quasi_hereditary_orders(C)
+        assert (rb.quasi_hereditary_total_orders, rb.structures) == (rc.quasi_hereditary_total_orders, rc.structures)
 
     check()

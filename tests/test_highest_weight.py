@@ -3,7 +3,7 @@
 Sources: V. Dlab, C. M. Ringel, Quasi-hereditary algebras, Illinois J. Math. 33
 (1989) (heredity chains <=> quasi-hereditary); Dlab, Ringel, The module
 theoretical approach to quasi-hereditary algebras, LMS Lecture Note Ser. 168
-(1992) (standard filtrations, refinements of adapted orders keep the standard
+(1992) (standard filtrations, refinements of quasi-hereditary orders keep the standard
 modules; BGG reciprocity and C = D E^T for quasi-hereditary algebras).
 """
 
@@ -34,7 +34,7 @@ DUAL_NUMBERS = {
 
 
 def test_path_algebra_A2_both_orders():
-    # hereditary: both orders adapted (Dlab-Ringel 1989); modules derived by hand
+    # hereditary: quasi-hereditary for both orders (Dlab-Ringel 1989); modules derived by hand
     A = algebra_from_spec(A2)
     up = parse_order("2 > 1", A.vertices)
     assert standard_module(A, 0, up).dims == (1, 0)
@@ -231,7 +231,7 @@ def algebra_and_partial_order(draw):
 @settings(max_examples=60, deadline=None)
 @given(algebra_and_partial_order())
 def test_partial_order_refinements(AP):
-    # Dlab-Ringel 1992: refining an adapted partial order keeps the standard modules.
+    # Dlab-Ringel 1992: refining a quasi-hereditary partial order keeps the standard modules.
     A, P = AP
     v = check_order(A, P, homological=False)
     if v.quasi_hereditary:
@@ -240,7 +240,7 @@ def test_partial_order_refinements(AP):
             assert check_order(A, T, extensions=False, homological=False).quasi_hereditary
             for L in range(A.n):
                 assert standard_module(A, L, T).key() == standard_module(A, L, P).key()
-        assert v.adapted_linear_extensions == v.linear_extensions or P.is_total
+        assert v.quasi_hereditary_linear_extensions == v.linear_extensions or P.is_total
 
 
 @settings(max_examples=40, deadline=None)

@@ -1,8 +1,8 @@
-"""All adapted orders and quasi-hereditary structures, against published results.
+"""All quasi-hereditary orders and quasi-hereditary structures, against published results.
 
 Sources (see also /work/shared/sources.md):
 * V. Dlab, C. M. Ringel, Quasi-hereditary algebras, Illinois J. Math. 33 (1989):
-  an algebra is hereditary iff every order is adapted.
+  an algebra is hereditary iff it is quasi-hereditary for every order.
 * G. Flores, Y. Kimura, B. Rognerud, Combinatorics of quasi-hereditary
   structures, arXiv:2004.04726: linear A_n has Catalan(n) structures.
 * K. Coulembier, arXiv:1903.02717: a simple-preserving duality allows at most
@@ -10,7 +10,7 @@ Sources (see also /work/shared/sources.md):
 * T. Bruestle, L. Hille, C. M. Ringel, G. Roehrle, Algebr. Represent. Theory 2
   (1999): the Auslander algebra of k[T]/(T^n) is quasi-hereditary.
 * Zhang, Zhong, arXiv:2405.02860: a non-hereditary Nakayama algebra has at most
-  (2/3) n! adapted total orders.
+  (2/3) n! quasi-hereditary total orders.
 * Dlab and Ringel 1989; C. M. Ringel, J. Pure Appl. Algebra 214 (2010):
   quasi-hereditary algebras have finite global dimension, so self-injective
   non-semisimple algebras are never quasi-hereditary.
@@ -34,7 +34,7 @@ from hwcat.strategies import (
 )
 from hwcat.theory.highest_weight import standard_filtration, standard_module
 from hwcat.theory.orders import total_order
-from hwcat.theory.search import adapted_orders, is_quasi_hereditary
+from hwcat.theory.search import is_quasi_hereditary, quasi_hereditary_orders
 
 
 def catalan(n):
@@ -55,8 +55,8 @@ def is_hereditary(A):
     return True
 
 
-def brute_force_adapted(A):
-    """Adapted total orders by the module-theoretic definition, over all n! permutations."""
+def brute_force_quasi_hereditary_orders(A):
+    """Quasi-hereditary total orders by the module-theoretic definition, over all n! permutations."""
     count = 0
     for perm in itertools.permutations(range(A.n)):
         P = total_order(A.vertices, perm)
@@ -78,14 +78,14 @@ def brute_force_adapted(A):
 
 @pytest.mark.parametrize("n", range(1, 8))
 def test_linear_A_catalan(n):
-    # Flores-Kimura-Rognerud: Catalan(n) structures; Dlab-Ringel: all n! orders adapted.
+    # Flores-Kimura-Rognerud: Catalan(n) structures; Dlab-Ringel: quasi-hereditary for all n! orders.
     A = algebra_from_spec(linear_A(n))
-    r = adapted_orders(A, list_limit=None)
+    r = quasi_hereditary_orders(A, list_limit=None)
     assert r.quasi_hereditary
     assert r.structures == catalan(n)
-    assert r.adapted_total_orders == factorial(n)
+    assert r.quasi_hereditary_total_orders == factorial(n)
     assert len(r.structure_list) == catalan(n) and r.listed_all
-    # the adapted orders of a structure are the linear extensions of its essential order
+    # the quasi-hereditary orders of a structure are the linear extensions of its essential order
     assert sum(s.essential_order.count_linear_extensions() for s in r.structure_list) == factorial(
         n
     )
@@ -93,46 +93,46 @@ def test_linear_A_catalan(n):
 
 @settings(max_examples=25, deadline=None)
 @given(quivers(min_vertices=1, max_vertices=5, max_arrows=6, acyclic=True))
-def test_path_algebras_all_orders_adapted(Q):
-    # Dlab-Ringel 1989: hereditary => every total order is adapted.
+def test_path_algebras_quasi_hereditary_for_all_orders(Q):
+    # Dlab-Ringel 1989: hereditary => it is quasi-hereditary for every total order.
     A = bound_quiver_algebra(QQ, Q)
-    assert adapted_orders(A, list_limit=0).adapted_total_orders == factorial(A.n)
+    assert quasi_hereditary_orders(A, list_limit=0).quasi_hereditary_total_orders == factorial(A.n)
 
 
 @settings(max_examples=40, deadline=None)
 @given(bound_quiver_algebras(max_vertices=4, max_arrows=5))
-def test_all_orders_adapted_only_if_hereditary(A):
-    # Dlab-Ringel 1989: every order adapted => hereditary (and conversely).
-    r = adapted_orders(A, list_limit=0)
-    assert (r.adapted_total_orders == factorial(A.n)) == is_hereditary(A)
+def test_quasi_hereditary_for_all_orders_only_if_hereditary(A):
+    # Dlab-Ringel 1989: quasi-hereditary for every order => hereditary (and conversely).
+    r = quasi_hereditary_orders(A, list_limit=0)
+    assert (r.quasi_hereditary_total_orders == factorial(A.n)) == is_hereditary(A)
 
 
 @settings(max_examples=40, deadline=None)
 @given(bound_quiver_algebras(max_vertices=4, max_arrows=5))
 def test_search_equals_brute_force(A):
     # the subset search against all permutations with the module-theoretic axioms (derived check)
-    r = adapted_orders(A, list_limit=0)
-    assert r.adapted_total_orders == brute_force_adapted(A)
-    assert r.quasi_hereditary == (r.adapted_total_orders > 0) == is_quasi_hereditary(A)
+    r = quasi_hereditary_orders(A, list_limit=0)
+    assert r.quasi_hereditary_total_orders == brute_force_quasi_hereditary_orders(A)
+    assert r.quasi_hereditary == (r.quasi_hereditary_total_orders > 0) == is_quasi_hereditary(A)
 
 
 @pytest.mark.parametrize("n", [2, 3, 4, 5])
 def test_auslander_algebra_unique_structure(n):
     # BHRR 1999: quasi-hereditary; Coulembier: at most one structure (it has a duality).
     A = algebra_from_spec(auslander_truncated_polynomial(n))
-    r = adapted_orders(A)
+    r = quasi_hereditary_orders(A)
     assert r.quasi_hereditary and r.structures == 1
 
 
 @settings(max_examples=40, deadline=None)
 @given(linear_nakayama_algebras(min_vertices=2, max_vertices=6))
 def test_nakayama_two_thirds_bound(A):
-    # Zhang-Zhong: non-hereditary Nakayama algebras have at most (2/3) n! adapted orders.
-    r = adapted_orders(A, list_limit=0)
+    # Zhang-Zhong: non-hereditary Nakayama algebras have at most (2/3) n! quasi-hereditary orders.
+    r = quasi_hereditary_orders(A, list_limit=0)
     if not is_hereditary(A):
-        assert 3 * r.adapted_total_orders <= 2 * factorial(A.n)
+        assert 3 * r.quasi_hereditary_total_orders <= 2 * factorial(A.n)
     else:
-        assert r.adapted_total_orders == factorial(A.n)
+        assert r.quasi_hereditary_total_orders == factorial(A.n)
 
 
 def _cyclic_rad_square_zero(n, field=QQ):
@@ -152,8 +152,8 @@ def test_truncated_polynomial_not_qh(n):
             "quiver": {"vertices": ["x"], "arrows": ["t: x -> x"], "vanish_from_length": n},
         }
     )
-    r = adapted_orders(A)
-    assert not r.quasi_hereditary and r.adapted_total_orders == 0 and r.structures == 0
+    r = quasi_hereditary_orders(A)
+    assert not r.quasi_hereditary and r.quasi_hereditary_total_orders == 0 and r.structures == 0
 
 
 @pytest.mark.parametrize("n", [1, 2, 3, 4])
@@ -162,7 +162,7 @@ def test_cyclic_nakayama_not_qh(n, field):
     # cyclic quiver with all paths of length 2 zero: self-injective, not qh (same sources)
     A = _cyclic_rad_square_zero(n, field)
     assert not is_quasi_hereditary(A)
-    assert adapted_orders(A).adapted_total_orders == 0
+    assert quasi_hereditary_orders(A).quasi_hereditary_total_orders == 0
 
 
 def test_blocks_combine():
@@ -171,9 +171,9 @@ def test_blocks_combine():
         "field": "QQ",
         "quiver": {"vertices": ["1", "2", "3", "4"], "arrows": ["a: 1 -> 2", "b: 3 -> 4"]},
     }
-    r = adapted_orders(algebra_from_spec(spec), list_limit=None)
+    r = quasi_hereditary_orders(algebra_from_spec(spec), list_limit=None)
     assert len(r.blocks) == 2
-    assert r.adapted_total_orders == factorial(4)  # hereditary (Dlab-Ringel)
+    assert r.quasi_hereditary_total_orders == factorial(4)  # hereditary (Dlab-Ringel)
     assert r.structures == catalan(2) ** 2
     assert len(r.structure_list) == 4
 
@@ -185,9 +185,9 @@ def test_many_blocks_stay_cheap():
         vs += [f"u{k}", f"v{k}"]
         ar += [f"a{k}: u{k} -> v{k}"]
     A = algebra_from_spec({"field": "GF(5)", "quiver": {"vertices": vs, "arrows": ar}})
-    r = adapted_orders(A, list_limit=3)
+    r = quasi_hereditary_orders(A, list_limit=3)
     assert r.structures == 2**12
-    assert r.adapted_total_orders == factorial(24)
+    assert r.quasi_hereditary_total_orders == factorial(24)
     assert len(r.structure_list) == 3 and not r.listed_all
 
 

@@ -16,7 +16,7 @@ from hwcat.strategies import algebra_from_spec, bound_quiver_algebras
 from hwcat.theory.highest_weight import heredity_chain, standard_module
 from hwcat.theory.homological import ext_dimension, find_isomorphism, projective_dimension
 from hwcat.theory.orders import parse_order, total_order
-from hwcat.theory.search import adapted_orders
+from hwcat.theory.search import quasi_hereditary_orders
 from hwcat.theory.tilting import ringel_dual, tilting_module, tilting_modules
 
 
@@ -68,7 +68,7 @@ def test_auslander_algebra_tilting_and_double_dual():
     # Bruestle-Hille-Ringel-Roehrle 1999: qh; Ringel 1991: R(R(A)) ~ A
     for n in (2, 3, 4):
         A = algebra_from_spec(auslander_truncated_polynomial(n))
-        P = adapted_orders(A).structure_list[0].essential_order
+        P = quasi_hereditary_orders(A).structure_list[0].essential_order
         _check_tilting(A, P)
         R, Q = ringel_dual(A, P)
         assert heredity_chain(R, Q).holds
@@ -79,7 +79,7 @@ def test_auslander_algebra_tilting_and_double_dual():
 @settings(max_examples=25, deadline=None)
 @given(bound_quiver_algebras(max_vertices=4, max_arrows=5))
 def test_ringel_duality_property(A):
-    r = adapted_orders(A, list_limit=1)
+    r = quasi_hereditary_orders(A, list_limit=1)
     assume(r.quasi_hereditary)
     P = total_order(A.vertices, r.structure_list[0].representative)
     _check_tilting(A, P)
@@ -89,8 +89,8 @@ def test_ringel_duality_property(A):
     RR, Q2 = ringel_dual(R, Q)
     # R(R(A)) Morita equivalent to A: equal Cartan matrices, equal counts, equal standard data
     assert RR.cartan() == A.cartan()
-    rr = adapted_orders(RR, list_limit=0)
-    assert (rr.adapted_total_orders, rr.structures) == (r.adapted_total_orders, r.structures)
+    rr = quasi_hereditary_orders(RR, list_limit=0)
+    assert (rr.quasi_hereditary_total_orders, rr.structures) == (r.quasi_hereditary_total_orders, r.structures)
     assert [standard_module(RR, L, Q2).dims for L in range(A.n)] == [
         standard_module(A, L, P).dims for L in range(A.n)
     ]

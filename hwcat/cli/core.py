@@ -31,7 +31,7 @@ def _cmd_describe(args: argparse.Namespace) -> int:
 
 def _cmd_check(args: argparse.Namespace) -> int:
     from hwcat.theory.orders import parse_order, total_order
-    from hwcat.theory.search import adapted_orders
+    from hwcat.theory.search import quasi_hereditary_orders
     from hwcat.theory.verdict import check_order
 
     spec, A = _load(args)
@@ -46,10 +46,11 @@ def _cmd_check(args: argparse.Namespace) -> int:
             raise OrderError(f"{where}: {exc}") from None
         verdict = check_order(A, order, order_source=source, homological=not args.no_homological)
     else:
-        r = adapted_orders(A, list_limit=1)
+        r = quasi_hereditary_orders(A, list_limit=1)
         search_dict = {
             "quasi_hereditary_for_some_order": r.quasi_hereditary,
-            "adapted_total_orders": r.adapted_total_orders,
+            "quasi_hereditary_total_orders": r.quasi_hereditary_total_orders,
+            "adapted_total_orders": r.quasi_hereditary_total_orders,  # deprecated alias
             "structures": r.structures,
             "longest_heredity_chain": [A.vertices[i] for i in r.best_attempt],
         }
@@ -59,7 +60,7 @@ def _cmd_check(args: argparse.Namespace) -> int:
                 A, order, order_source="found by search: essential order of a structure"
             )
             search_info = (
-                f"no order given; the search found {r.adapted_total_orders} adapted total orders in "
+                f"no order given; the search found {r.quasi_hereditary_total_orders} quasi-hereditary total orders in "
                 f"{r.structures} structure(s); checking the first structure's essential order"
             )
         else:
@@ -73,13 +74,13 @@ def _cmd_check(args: argparse.Namespace) -> int:
                 homological=not args.no_homological,
             )
             search_info = (
-                f"no order given and NO order is adapted; the longest heredity chain found has "
+                f"no order given and NO order makes the algebra quasi-hereditary; the longest heredity chain found has "
                 f"{len(chain)} step(s): {' > '.join(A.vertices[i] for i in chain) or '(none)'}; "
                 "the axioms below are for that attempt completed in spec order"
             )
             if verdict.quasi_hereditary:
                 raise InternalInconsistency(
-                    "the search found no adapted order, but its attempt is adapted"
+                    "the search found no quasi-hereditary order, but its attempt is quasi-hereditary"
                 )
     if args.json:
         d = verdict.to_dict()
@@ -93,10 +94,10 @@ def _cmd_check(args: argparse.Namespace) -> int:
 
 
 def _cmd_orders(args: argparse.Namespace) -> int:
-    from hwcat.theory.search import adapted_orders
+    from hwcat.theory.search import quasi_hereditary_orders
 
     _, A = _load(args)
-    r = adapted_orders(A, list_limit=None if args.all else args.limit)
+    r = quasi_hereditary_orders(A, list_limit=None if args.all else args.limit)
     print(to_json(r) if args.json else render_orders(r))
     return 0 if r.quasi_hereditary else 1
 
@@ -179,7 +180,7 @@ def _cmd_family(args: argparse.Namespace) -> int:
 def _order_for(spec, A, text_arg):
     """The order from the command line, else the spec, else the search's first structure."""
     from hwcat.theory.orders import parse_order
-    from hwcat.theory.search import adapted_orders
+    from hwcat.theory.search import quasi_hereditary_orders
 
     text, source = (text_arg, "command line") if text_arg else (spec.order, "spec file")
     if text:
@@ -188,7 +189,7 @@ def _order_for(spec, A, text_arg):
         except OrderError as exc:
             where = "--order" if source == "command line" else f"{spec.source}: order"
             raise OrderError(f"{where}: {exc}") from None
-    r = adapted_orders(A, list_limit=1)
+    r = quasi_hereditary_orders(A, list_limit=1)
     return r.structure_list[0].essential_order if r.quasi_hereditary else None
 
 
@@ -245,7 +246,7 @@ def register(sub: argparse._SubParsersAction) -> None:
         help="skip the Ext conditions, global dimension, tilting modules and Ringel dual",
     )
     c.set_defaults(func=_cmd_check)
-    o = sub.add_parser("orders", help="all adapted orders and quasi-hereditary structures")
+    o = sub.add_parser("orders", help="all quasi-hereditary orders and quasi-hereditary structures")
     o.add_argument("spec", help="algebra spec file")
     o.add_argument("--json", action="store_true", help="print one JSON object")
     o.add_argument("--all", action="store_true", help="list every structure")

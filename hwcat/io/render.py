@@ -194,17 +194,17 @@ def render_verdict(v, search=None) -> str:
 def render_orders(r) -> str:
     """Text form of an :class:`~hwcat.theory.search.OrdersResult`."""
     vs = r.vertices
-    lines = [f"Adapted orders of {r.name}" if r.name else "Adapted orders"]
+    lines = [f"Quasi-hereditary orders of {r.name}" if r.name else "Quasi-hereditary orders"]
     lines.append(
         f"  blocks: {len(r.blocks)}; vertex sets reached by the heredity search: {r.reachable_sets}"
     )
     if not r.quasi_hereditary:
-        lines.append("  quasi-hereditary: no (no order of the simples is adapted)")
+        lines.append("  quasi-hereditary: no (it is not quasi-hereditary for any order of the simples)")
         chain = " > ".join(vs[i] for i in r.best_attempt) or "(none)"
         lines.append(f"  longest heredity chain found: {chain}")
         return "\n".join(lines)
     lines.append("  quasi-hereditary: yes")
-    lines.append(f"  adapted total orders: {r.adapted_total_orders}")
+    lines.append(f"  quasi-hereditary total orders: {r.quasi_hereditary_total_orders}")
     lines.append(f"  quasi-hereditary structures: {r.structures}")
     shown = len(r.structure_list)
     lines.append(
@@ -216,7 +216,7 @@ def render_orders(r) -> str:
         )
         lines.append(f"  #{k}: essential order (Hasse diagram): {ess}")
         lines.append(
-            f"      adapted total orders in this structure: {s.essential_order.count_linear_extensions()}"
+            f"      quasi-hereditary total orders in this structure: {s.essential_order.count_linear_extensions()}"
         )
         lines.append(
             "      standard modules: "

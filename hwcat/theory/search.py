@@ -1,4 +1,4 @@
-"""All adapted orders: the subset search, counts of orders and of structures.
+"""All quasi-hereditary orders: the subset search, counts of orders and of structures.
 
 Method
 ------
@@ -6,10 +6,10 @@ The quotient ``A / A e_S A`` after removing a set ``S`` of maximal vertices
 depends only on ``S``.  The search walks the lattice of such sets from the
 empty set, adding one vertex ``u`` when ``A e_u A`` is a heredity ideal of the
 current quotient (:meth:`~hwcat.theory.traces.TraceCache.step_failure`), so
-each reachable set is visited once.  Adapted total orders are the maximal
+each reachable set is visited once.  Quasi-hereditary total orders are the maximal
 chains of this lattice (counted by dynamic programming), never enumerated.
 A chain's standard modules are the ``P(u)`` modulo the trace of the set
-removed before ``u``; two adapted orders give the same quasi-hereditary
+removed before ``u``; two quasi-hereditary orders give the same quasi-hereditary
 structure when these agree for every ``u`` (compared as quotients of ``P(u)``
 through the exact echelon form of the trace).  Structures are counted by
 carrying, for each reachable set, the distinct partial tuples of standard
@@ -38,9 +38,9 @@ from hwcat.theory.traces import mask
 __all__ = [
     "Structure",
     "OrdersResult",
-    "adapted_orders",
+    "quasi_hereditary_orders",
     "is_quasi_hereditary",
-    "count_adapted_extensions",
+    "count_quasi_hereditary_extensions",
     "DEFAULT_LIST_LIMIT",
 ]
 
@@ -55,7 +55,7 @@ class Structure:
     standard_dimension_vectors: tuple[tuple[int, ...], ...]
     costandard_dimension_vectors: tuple[tuple[int, ...], ...]
     essential_order: PartialOrder
-    representative: tuple[int, ...]  # an adapted total order, highest first
+    representative: tuple[int, ...]  # a quasi-hereditary total order, highest first
 
     def to_dict(self) -> dict[str, Any]:
         v = self.vertices
@@ -68,6 +68,8 @@ class Structure:
             },
             "essential_order": self.essential_order.covers_named(),
             "hasse_diagram": self.essential_order.covers_named(),
+            "quasi_hereditary_total_orders": self.essential_order.count_linear_extensions(),
+            # deprecated alias of the key above, kept for one release
             "adapted_total_orders": self.essential_order.count_linear_extensions(),
             "representative_order": [v[i] for i in self.representative],
         }
@@ -80,7 +82,7 @@ class OrdersResult:
     name: str
     vertices: tuple[str, ...]
     quasi_hereditary: bool
-    adapted_total_orders: int
+    quasi_hereditary_total_orders: int
     structures: int
     structure_list: tuple[Structure, ...]
     listed_all: bool
@@ -93,7 +95,9 @@ class OrdersResult:
             "name": self.name,
             "simples": list(self.vertices),
             "quasi_hereditary": self.quasi_hereditary,
-            "adapted_total_orders": self.adapted_total_orders,
+            "quasi_hereditary_total_orders": self.quasi_hereditary_total_orders,
+            # deprecated alias of the key above, kept for one release
+            "adapted_total_orders": self.quasi_hereditary_total_orders,
             "structures": self.structures,
             "structure_list": [s.to_dict() for s in self.structure_list],
             "listed_all": self.listed_all,
@@ -167,8 +171,8 @@ def _search_block(
     return _BlockSearch(0, {}, deltas, best, reachable)
 
 
-def count_adapted_extensions(A: BasicAlgebra, order: PartialOrder) -> int:
-    """Number of linear extensions of ``order`` that are adapted (heredity chains)."""
+def count_quasi_hereditary_extensions(A: BasicAlgebra, order: PartialOrder) -> int:
+    """Number of linear extensions of ``order`` for which the algebra is quasi-hereditary (heredity chains)."""
     return _search_block(A, order, track=False).count
 
 
@@ -184,8 +188,10 @@ def _structure(A: BasicAlgebra, sig: tuple[int, ...], path: tuple[int, ...], del
     return Structure(A.vertices, sdims, cdims, ess, path)
 
 
-def adapted_orders(A: BasicAlgebra, *, list_limit: int | None = DEFAULT_LIST_LIMIT) -> OrdersResult:
-    """Decide quasi-heredity over all orders; count adapted total orders and structures.
+def quasi_hereditary_orders(
+    A: BasicAlgebra, *, list_limit: int | None = DEFAULT_LIST_LIMIT
+) -> OrdersResult:
+    """Decide quasi-heredity over all orders; count quasi-hereditary total orders and structures.
 
     Parameters
     ----------
@@ -195,14 +201,14 @@ def adapted_orders(A: BasicAlgebra, *, list_limit: int | None = DEFAULT_LIST_LIM
 
     Examples
     --------
-    The path algebra of a linearly oriented A_3 is hereditary: all 3! orders
-    are adapted, and it has Catalan(3) = 5 quasi-hereditary structures
+    The path algebra of a linearly oriented A_3 is hereditary: it is quasi-hereditary
+    for all 3! orders, and it has Catalan(3) = 5 quasi-hereditary structures
     (Flores, Kimura, Rognerud, arXiv:2004.04726).
 
     >>> from hwcat.io.spec import load_spec_text
     >>> A = load_spec_text('field = "QQ"\\n[quiver]\\nvertices = ["1", "2", "3"]\\narrows = ["a: 1 -> 2", "b: 2 -> 3"]')
-    >>> r = adapted_orders(A)
-    >>> r.quasi_hereditary, r.adapted_total_orders, r.structures
+    >>> r = quasi_hereditary_orders(A)
+    >>> r.quasi_hereditary, r.quasi_hereditary_total_orders, r.structures
     (True, 6, 5)
     """
     comps = A.components()
@@ -251,7 +257,7 @@ def adapted_orders(A: BasicAlgebra, *, list_limit: int | None = DEFAULT_LIST_LIM
         name=A.name,
         vertices=A.vertices,
         quasi_hereditary=qh,
-        adapted_total_orders=total,
+        quasi_hereditary_total_orders=total,
         structures=nstruct,
         structure_list=tuple(structs),
         listed_all=listed_all,
@@ -301,3 +307,19 @@ def is_quasi_hereditary(A: BasicAlgebra, order: PartialOrder | None = None) -> b
         if _search_block(B, track=False).count == 0:
             return False
     return True
+
+
+def adapted_orders(A: BasicAlgebra, *, list_limit: int | None = DEFAULT_LIST_LIMIT) -> OrdersResult:
+    """Deprecated name of :func:`quasi_hereditary_orders`, kept for one release.
+
+    In the literature an *adapted* order is a weaker notion (every total order
+    is adapted), so the old name was misleading.
+    """
+    import warnings
+
+    warnings.warn(
+        "adapted_orders is deprecated; use quasi_hereditary_orders",
+        DeprecationWarning,
+        stacklevel=2,
+    )
+    return quasi_hereditary_orders(A, list_limit=list_limit)

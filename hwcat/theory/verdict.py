@@ -72,7 +72,7 @@ class OrderVerdict:
     costandards: tuple[ModuleSummary, ...]
     projective_standard_multiplicities: tuple[tuple[int, ...] | None, ...]
     linear_extensions: int | None = None
-    adapted_linear_extensions: int | None = None
+    quasi_hereditary_linear_extensions: int | None = None
     note: str = ""
     extra: tuple[Axiom, ...] = ()
     global_dimension: Any = None  # GlobalDimension, when computed
@@ -106,7 +106,9 @@ class OrderVerdict:
                 list(m) if m is not None else None for m in self.projective_standard_multiplicities
             ],
             "linear_extensions": self.linear_extensions,
-            "adapted_linear_extensions": self.adapted_linear_extensions,
+            "quasi_hereditary_linear_extensions": self.quasi_hereditary_linear_extensions,
+            # deprecated alias of the key above, kept for one release
+            "adapted_linear_extensions": self.quasi_hereditary_linear_extensions,
             "note": self.note,
             "global_dimension": None
             if self.global_dimension is None
@@ -393,19 +395,20 @@ def check_order(
             tilt = tuple(tilting_modules(A, order))
             R, _ = ringel_dual(A, order)
             rcart = tuple(tuple(r) for r in R.cartan())
-    n_ext = adapted = None
+    n_ext = n_qh = None
     note = ""
     if not order.is_total and extensions:
-        from hwcat.theory.search import count_adapted_extensions
+        from hwcat.theory.search import count_quasi_hereditary_extensions
 
         n_ext = order.count_linear_extensions()
-        adapted = count_adapted_extensions(A, order)
-        if qh and adapted != n_ext:
+        n_qh = count_quasi_hereditary_extensions(A, order)
+        if qh and n_qh != n_ext:
             raise InternalInconsistency(
-                "a quasi-hereditary partial order has a non-adapted linear extension"
+                "a quasi-hereditary partial order has a linear extension for which it is not quasi-hereditary"
             )
-        note = f"the order is partial: {adapted} of its {n_ext} linear extensions are adapted" + (
-            " (all, with the same standard modules)" if qh else ""
+        note = (
+            f"the order is partial: {n_qh} of its {n_ext} linear extensions make it quasi-hereditary"
+            + (" (all, with the same standard modules)" if qh else "")
         )
     return OrderVerdict(
         name=A.name,
@@ -424,7 +427,7 @@ def check_order(
         costandards=tuple(summarise_module(M, f"nabla({A.vertices[L]})") for L, M in enumerate(Ns)),
         projective_standard_multiplicities=tuple(r.multiplicities for r in pf),
         linear_extensions=n_ext,
-        adapted_linear_extensions=adapted,
+        quasi_hereditary_linear_extensions=n_qh,
         note=note,
         extra=extra,
         global_dimension=gd,
