@@ -192,7 +192,7 @@ products = ["x*x = y", "x*y = 0", "e*x = x", "x*e = x"]
 def test_spec_multiplication_kind():
     B = load_spec_text(SPEC_MULT)
     # k[x]/(x^3): one simple, P of dimension 3 (derived)
-    assert B.cartan() == [[3]] and B.morita == (1,)
+    assert B.cartan() == ((3,),) and B.morita == (1,)
 
 
 @pytest.mark.parametrize(

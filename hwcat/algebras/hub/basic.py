@@ -105,9 +105,9 @@ class BasicAlgebra:
     def dim(self) -> int:
         return sum(len(w) for row in self.words for w in row)
 
-    def cartan(self) -> list[list[int]]:
-        """The Cartan matrix ``C[i][j] = [P(j) : L(i)] = dim e_j A e_i``."""
-        return [[self.block_dim(j, i) for j in range(self.n)] for i in range(self.n)]
+    def cartan(self) -> tuple[tuple[int, ...], ...]:
+        """The Cartan matrix ``C[i][j] = [P(j) : L(i)] = dim e_j A e_i`` (rows as tuples)."""
+        return tuple(tuple(self.block_dim(j, i) for j in range(self.n)) for i in range(self.n))
 
     def word_index(self, s: int, t: int) -> dict[Path, int]:
         key = ("word_index", s, t)
@@ -351,7 +351,7 @@ class BasicAlgebra:
                 for a in self.arrows
             ],
             "dimension": self.dim,
-            "cartan": self.cartan(),
+            "cartan": [list(r) for r in self.cartan()],
         }
 
     def __repr__(self) -> str:

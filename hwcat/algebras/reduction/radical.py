@@ -18,7 +18,8 @@ tr_j(x)`` on ``I_(i-1)``, so ``I_i`` is the set of ``x`` acting as zero on every
 ``I_(i-1)`` acts as zero on ``A / I_(i-1)``, so the matrices are restricted to
 the ideal.  The cost is ``dim(I) d^3 log(p^l)``: fine for small algebras; large
 ones are better served by :func:`hwcat.algebras.reduction.reduction.reduce_algebra`,
-from which ``radical(method="reduction")`` reads the radical off the simples.
+from which :func:`hwcat.algebras.reduction.reduction.radical` (``method="reduction"``)
+reads the radical off the simples.
 
 The *quotient route* (:func:`primitive_idempotents`) splits the semisimple
 quotient ``A / rad A``: its centre by random central elements (minimal
@@ -39,7 +40,7 @@ Examples
 >>> from hwcat.algebras.families.tables import symmetric_group_algebra
 >>> from hwcat.algebras.inputs.structure import from_table
 >>> A = from_table(symmetric_group_algebra(3, "GF(3)"))
->>> radical(A).nrows                 # lifted-trace chain; the trace form alone gives 6
+>>> trace_radical(A).nrows           # lifted-trace chain; the trace form alone gives 6
 4
 """
 
@@ -50,18 +51,17 @@ from collections.abc import Sequence
 from typing import Any
 
 from hwcat.algebras.inputs.structure import StructureAlgebra
+from hwcat.algebras.reduction.kernels import as_row, coords_solver, krylov, minpoly, raw_rows
 from hwcat.errors import InternalInconsistency, NotSplitError, StructureConstantsError
 from hwcat.exact import Mat, echelon
 from hwcat.exact.polys import (
-    Poly,
     fitting_polynomials,
     lifted_power_trace,
     select_columns,
-    sparse_matrix,
 )
 
 __all__ = [
-    "radical",
+    "trace_radical",
     "lift_idempotent",
     "primitive_idempotents",
     "LIFTED_TRACE_LIMIT",
@@ -70,90 +70,6 @@ __all__ = [
 LIFTED_TRACE_LIMIT = 400
 """Largest representation dimension for which ``radical(method="auto")`` runs the
 lifted-trace chain; beyond it the radical is read off the reduction."""
-
-
-# ----------------------------------------------------------------------------------
-# small helpers shared with the reduction
-
-
-def _mat(A: StructureAlgebra, raw: Sequence[Any]) -> Mat:
-    return Mat.from_flat(A.field, 1, len(raw), list(raw))
-
-
-def _raw_rows(A: StructureAlgebra, M: Mat) -> list[list[Any]]:
-    p = A._p
-    if p:
-        return [[int(x) for x in r] for r in M.raw_rows()]
-    return [list(r) for r in M.raw_rows()]
-
-
-def _embed(A: StructureAlgebra, vals: Sequence[Any], index: Sequence[int] | None) -> list[Any]:
-    if index is None:
-        return A.raw(list(vals)) if not A._p else [int(x) for x in vals]
-    out = [A._zero_raw()] * A.dim
-    for i, v in zip(index, vals, strict=True):
-        out[i] = int(v) if A._p else v
-    return out
-
-
-def _restrict(raw: Sequence[Any], index: Sequence[int] | None) -> list[Any]:
-    return list(raw) if index is None else [raw[i] for i in index]
-
-
-def _transfer(
-    A: StructureAlgebra, src: Sequence[int] | None, dst: Sequence[int] | None
-) -> Mat | None:
-    """0/1 matrix taking coordinates on ``src`` to coordinates on ``dst`` (None: identity)."""
-    if src is None and dst is None:
-        return None
-    n = A.dim
-    s = list(range(n)) if src is None else list(src)
-    d = list(range(n)) if dst is None else list(dst)
-    if s == d:
-        return None
-    dpos = {i: k for k, i in enumerate(d)}
-
-    return sparse_matrix(
-        A.field, len(s), len(d), {(a, dpos[i]): 1 for a, i in enumerate(s) if i in dpos}
-    )
-
-
-def _apply(M: Mat, T: Mat | None) -> Mat:
-    return M if T is None else M @ T
-
-
-def _coords_solver(B: Mat) -> tuple[tuple[int, ...], Mat]:
-    """For a basis ``B`` (rows): pivots and ``T`` with ``coords(x) = x[piv] @ T``."""
-    _, piv = B.rref()
-    return piv, select_columns(B, piv).inverse()
-
-
-def _krylov(v0: Mat, Z: Mat | None, step=None, limit: int | None = None) -> tuple[Mat, list[Any]]:
-    """Vectors ``v0 Z^a`` up to the first dependency; returns ``(K, c)`` with
-    ``v0 Z^d = c @ K`` and ``K`` the ``d`` independent vectors."""
-    F = v0.field
-    vecs = [v0]
-    size = 4
-    while True:
-        while len(vecs) < size:
-            vecs.append(step(vecs[-1]) if step is not None else vecs[-1] @ Z)
-        K = Mat.vstack(F, vecs, v0.ncols)
-        r = K.rank()
-        if r < len(vecs):
-            d = r
-            break
-        if limit is not None and len(vecs) > limit + 1:
-            raise InternalInconsistency("Krylov sequence longer than the dimension")
-        size *= 2
-    Kd = Mat.vstack(F, vecs[:d], v0.ncols)
-    c = Kd.solve_left(vecs[d])
-    if c is None:  # pragma: no cover - rank argument guarantees a solution
-        raise InternalInconsistency("Krylov dependency not found")
-    return Kd, c.entries()
-
-
-def _minpoly(F, d: int, c: Sequence[Any]) -> Poly:
-    return Poly.from_coeffs(F, [-x for x in c] + [F.one])
 
 
 # ----------------------------------------------------------------------------------
@@ -186,25 +102,25 @@ def _trace_kernel(A: StructureAlgebra, use_natural: bool) -> Mat:
     return echelon(G.left_kernel()) if n else G
 
 
-def radical(A: StructureAlgebra, method: str = "auto", *, seed: int = 0) -> Mat:
-    """The Jacobson radical of ``A``: its basis rows in reduced echelon form.
+def trace_radical(A: StructureAlgebra, method: str = "auto") -> Mat:
+    """The Jacobson radical of ``A`` by trace forms: basis rows in reduced echelon form.
 
     Parameters
     ----------
-    method : {"auto", "trace", "lifted-trace", "reduction"}
+    method : {"auto", "trace", "lifted-trace"}
         ``"trace"``: kernel of the trace form (correct in characteristic 0 and
         ``p > d``, ``d`` the dimension of the representation used; refused
         otherwise).  ``"lifted-trace"``: the chain of Ronyai and Cohen-Ivanyos-
         Wales (any prime; cost grows like ``dim(I) d^3 log(p^l)``).
-        ``"reduction"``: from the simple modules found by :func:`reduce_algebra`
-        (``x`` is radical iff it kills every simple).  ``"auto"`` picks trace,
-        lifted-trace up to dimension ``LIFTED_TRACE_LIMIT``, else reduction.
+        ``"auto"`` picks the trace form where it is correct, else the chain.
+        :func:`hwcat.algebras.reduction.reduction.radical` adds the method that
+        reads the radical off the simple modules.
 
     Examples
     --------
     >>> from hwcat.algebras.families.tables import cyclic_group_algebra
     >>> from hwcat.algebras.inputs.structure import from_table
-    >>> radical(from_table(cyclic_group_algebra(4, "GF(2)"))).nrows   # (g - 1) F[g]
+    >>> trace_radical(from_table(cyclic_group_algebra(4, "GF(2)"))).nrows   # (g - 1) F[g]
     3
     """
     F = A.field
@@ -213,9 +129,7 @@ def radical(A: StructureAlgebra, method: str = "auto", *, seed: int = 0) -> Mat:
     p = F.characteristic
     trace_ok = p == 0 or p > d
     if method == "auto":
-        method = (
-            "trace" if trace_ok else ("lifted-trace" if d <= LIFTED_TRACE_LIMIT else "reduction")
-        )
+        method = "trace" if trace_ok else "lifted-trace"
     if method == "trace":
         if not trace_ok:
             raise StructureConstantsError(
@@ -223,10 +137,6 @@ def radical(A: StructureAlgebra, method: str = "auto", *, seed: int = 0) -> Mat:
                 "use method='lifted-trace' or 'reduction'"
             )
         return _trace_kernel(A, use_natural)
-    if method == "reduction":
-        from hwcat.algebras.reduction.reduction import reduce_algebra
-
-        return reduce_algebra(A, seed=seed).radical()
     if method != "lifted-trace":
         raise StructureConstantsError(f"radical: unknown method {method!r}")
     I = _trace_kernel(A, use_natural)
@@ -243,9 +153,9 @@ def _lifted_step(A: StructureAlgebra, I: Mat, i: int, use_natural: bool) -> Mat:
     """``I_i`` from ``I_(i-1)`` (rows of ``I``, an ideal containing the radical)."""
     F = A.field
     p = F.p
-    piv, T = _coords_solver(I)
+    piv, T = coords_solver(I)
     g = []
-    for row in _raw_rows(A, I):
+    for row in raw_rows(A, I):
         if use_natural:
             X = _natural_matrix(A, row)
         else:  # right multiplication restricted to the ideal (it is zero on A / I)
@@ -262,52 +172,6 @@ def _lifted_step(A: StructureAlgebra, I: Mat, i: int, use_natural: bool) -> Mat:
     if K.nrows == 0:
         return Mat.zeros(F, 0, A.dim)
     return echelon(K @ I)
-
-
-def _small_radical(F, mult: list[Mat]) -> Mat:
-    """Radical of a small algebra given by its right multiplication matrices.
-
-    ``mult[l]`` is the matrix of ``x -> x c_l`` in the basis ``c``.  The trace
-    form of the regular representation, then (in characteristic ``p <= dim``)
-    the lifted-trace chain on the regular representation.
-    """
-    c = len(mult)
-    tau = [sum((mult[l][a, a] for a in range(c)), F.zero) for l in range(c)]
-
-    def gram(psi: Sequence[Any]) -> Mat:
-        return Mat.from_flat(
-            F,
-            c,
-            c,
-            [
-                sum((mult[l][a, k] * psi[k] for k in range(c)), F.zero)
-                for a in range(c)
-                for l in range(c)
-            ],
-        )
-
-    I = echelon(gram(tau).left_kernel())
-    p = F.characteristic
-    i = 1
-    while p and p**i <= c and I.nrows:
-        piv, T = _coords_solver(I)
-        g = []
-        for row in I.raw_rows():
-            X = Mat.zeros(F, c, c)
-            for l, x in enumerate(row):
-                if x != 0:
-                    X = X + mult[l].scale(x)
-            t = lifted_power_trace(X, i)
-            if t % p**i:
-                raise InternalInconsistency("lifted trace not divisible on a small corner")
-            g.append(F(t // p**i))
-        psi = (
-            select_columns(Mat.identity(F, c), piv) @ (T @ Mat.from_flat(F, len(g), 1, g))
-        ).entries()
-        K = (I @ gram(psi)).left_kernel()
-        I = echelon(K @ I) if K.nrows else Mat.zeros(F, 0, c)
-        i += 1
-    return I
 
 
 def lift_idempotent(
@@ -354,7 +218,7 @@ def _quotient(A: StructureAlgebra, rad: Mat) -> tuple[StructureAlgebra, list[int
     R, piv = rad.rref() if rad.nrows else (None, ())
     pset = set(piv)
     kept = [i for i in range(n) if i not in pset]
-    Rrows = _raw_rows(A, R) if R is not None else []
+    Rrows = raw_rows(A, R) if R is not None else []
     p = A._p
 
     def proj(v: list[Any]) -> list[Any]:
@@ -413,21 +277,21 @@ def _split_semisimple(S: StructureAlgebra, rng: random.Random) -> list[list[Any]
         for j in range(n)
     ]
     Z = echelon(Mat.hstack(F, blocks).left_kernel())
-    zrows = _raw_rows(S, Z)
+    zrows = raw_rows(S, Z)
     central = [list(S._unit)]
     while True:  # split central idempotents until each piece has a one-dimensional centre
         changed = False
         out = []
         for E in central:
             ZE = [S._product_raw(z, E) for z in zrows]
-            dimZE = Mat.vstack(F, [_mat(S, v) for v in ZE], n).rank()
+            dimZE = Mat.vstack(F, [as_row(S, v) for v in ZE], n).rank()
             if dimZE == 1:
                 out.append(E)
                 continue
             for _ in range(12):
                 z = _combination(S, ZE, rng)
-                K, c = _krylov(_mat(S, E), S._action(z, None, left=False))
-                facs = _minpoly(F, K.nrows, c).factor()
+                K, c = krylov(as_row(S, E), S._action(z, None, left=False))
+                facs = minpoly(F, K.nrows, c).factor()
                 if len(facs) > 1:
                     for pi in fitting_polynomials(facs):
                         co = pi.coeffs() + [F.zero] * (K.nrows - pi.degree - 1)
@@ -455,11 +319,11 @@ def _split_semisimple(S: StructureAlgebra, rng: random.Random) -> list[list[Any]
             if corner.nrows == 1:
                 prim.append(f)
                 continue
-            crow = _raw_rows(S, corner)
+            crow = raw_rows(S, corner)
             for _ in range(24):
                 y = _combination(S, crow, rng)
-                K, c = _krylov(_mat(S, f), S._action(y, None, left=False))
-                facs = _minpoly(F, K.nrows, c).factor()
+                K, c = krylov(as_row(S, f), S._action(y, None, left=False))
+                facs = minpoly(F, K.nrows, c).factor()
                 if len(facs) > 1:
                     for pi in fitting_polynomials(facs):
                         co = pi.coeffs() + [F.zero] * (K.nrows - pi.degree - 1)
@@ -484,12 +348,7 @@ def primitive_idempotents(A: StructureAlgebra, *, seed: int = 0) -> list[list[An
     Returned as raw coordinate lists.
     """
     rng = random.Random(seed)
-    rad = radical(
-        A,
-        "trace"
-        if (A.field.characteristic == 0 or A.field.characteristic > A.dim)
-        else "lifted-trace",
-    )
+    rad = trace_radical(A)
     S, kept = _quotient(A, rad)
     prim = _split_semisimple(S, rng)
     out: list[list[Any]] = []

@@ -66,7 +66,7 @@ Examples
 >>> A = from_table(symmetric_group_algebra(3, "GF(2)"))
 >>> r = reduce_algebra(A)
 >>> r.simple_dimensions, r.basic.cartan(), r.radical_dimension
-((1, 2), [[2, 0], [0, 1]], 1)
+((1, 2), ((2, 0), (0, 1)), 1)
 """
 
 from __future__ import annotations
@@ -81,20 +81,23 @@ from typing import Any
 from hwcat.algebras.hub.basic import BasicAlgebra
 from hwcat.algebras.hub.quiver import Arrow, Quiver
 from hwcat.algebras.inputs.structure import StructureAlgebra
+from hwcat.algebras.reduction.kernels import (
+    apply_transfer,
+    as_row,
+    coords_solver,
+    embed,
+    krylov,
+    minpoly,
+    raw_rows,
+    restrict,
+    small_radical,
+    transfer,
+)
 from hwcat.algebras.reduction.radical import (
-    _apply,
-    _coords_solver,
-    _embed,
-    _krylov,
-    _mat,
-    _minpoly,
-    _raw_rows,
-    _restrict,
-    _small_radical,
-    _transfer,
+    LIFTED_TRACE_LIMIT,
     lift_idempotent,
     primitive_idempotents,
-    radical,
+    trace_radical,
 )
 from hwcat.errors import InternalInconsistency, NotSplitError, StructureConstantsError
 from hwcat.exact import Mat, echelon, select_independent_rows
@@ -168,7 +171,7 @@ def _corner_data(A: StructureAlgebra, e: list[Any], R: Mat, index, rows) -> tupl
     """Basis of eA (as e*b_l), of eAe (as e*b_l*e) and the corner's structure constants."""
     F = A.field
     J, Lr = _right_ideal_basis(A, e, rows)
-    W = _apply(Lr, _transfer(A, rows, index)) @ R
+    W = apply_transfer(Lr, transfer(A, rows, index)) @ R
     C_pos = select_independent_rows(W)
     if len(C_pos) > CORNER_LIMIT:
         raise NotSplitError(
@@ -179,13 +182,13 @@ def _corner_data(A: StructureAlgebra, e: list[Any], R: Mat, index, rows) -> tupl
         )
     corner = [J[k] for k in C_pos]
     Cb = select_rows(W, C_pos)
-    piv, T = _coords_solver(Cb)
+    piv, T = coords_solver(Cb)
     Rp = select_columns(R, piv)
-    cvecs = [_embed(A, r, index) for r in _raw_rows(A, Cb)]
+    cvecs = [embed(A, r, index) for r in raw_rows(A, Cb)]
     c = len(corner)
     mult = []  # mult[l][a] = coordinates of c_a * c_l
     for b in corner:
-        rowsb = [_restrict(A._times_basis_raw(v, b), index) for v in cvecs]
+        rowsb = [restrict(A._times_basis_raw(v, b), index) for v in cvecs]
         M = Mat.from_flat(F, c, len(rowsb[0]), [x for r in rowsb for x in r]) @ Rp @ T
         mult.append(M)
     return Lr, J, corner, Cb, piv, T, mult
@@ -195,7 +198,7 @@ def _local_data(A: StructureAlgebra, corner_mult: list[Mat], ecoords: Mat) -> tu
     """The radical of the corner and, when it has codimension 1, the residue map chi."""
     F = A.field
     c = len(corner_mult)
-    rad = _small_radical(F, corner_mult)
+    rad = small_radical(F, corner_mult)
     if rad.nrows != c - 1:
         return rad, []
     M = Mat.vstack(F, [rad, ecoords], c)
@@ -207,13 +210,13 @@ def _local_data(A: StructureAlgebra, corner_mult: list[Mat], ecoords: Mat) -> tu
 def _new_class(A: StructureAlgebra, e: list[Any], R: Mat, index, rows) -> _Class:
     F = A.field
     Lr, J, corner, Cb, piv, T, mult = _corner_data(A, e, R, index, rows)
-    ecoords = select_columns(_mat(A, _restrict(e, index)), piv) @ T
+    ecoords = select_columns(as_row(A, restrict(e, index)), piv) @ T
     rad, chi = _local_data(A, mult, ecoords)
     if rad.nrows != len(corner) - 1:
         _residue_check(A, mult, rad, random.Random(len(corner)))
     # phi(b_j) = chi(e b_j e): col is x -> chi(x e) on span(index), then one pass over b_j
     chicol = Mat.from_flat(F, len(chi), 1, chi)
-    col = _embed(A, (select_columns(R, piv) @ (T @ chicol)).entries(), index)
+    col = embed(A, (select_columns(R, piv) @ (T @ chicol)).entries(), index)
     phi = [A._zero_raw()] * A.dim
     supp = {i for i, x in enumerate(e) if x}
     for j in range(A.dim) if rows is None else rows:  # e b_j = 0 outside f A
@@ -400,13 +403,13 @@ class _Search:
             Ry = A._action(self.random_sparse(node), node.index, left=False)
         R = None if node.root else self.ensure_R(node)
         t0 = time.perf_counter()
-        v0 = _mat(A, _restrict(node.f, node.index))
+        v0 = as_row(A, restrict(node.f, node.index))
         if R is None:
-            K, c = _krylov(v0, Ry, limit=v0.ncols)
+            K, c = krylov(v0, Ry, limit=v0.ncols)
         else:
-            K, c = _krylov(v0, None, step=lambda v: (v @ Ry) @ R, limit=v0.ncols)
+            K, c = krylov(v0, None, step=lambda v: (v @ Ry) @ R, limit=v0.ncols)
         self.tick("krylov", t0)
-        mu = _minpoly(F, K.nrows, c)
+        mu = minpoly(F, K.nrows, c)
         facs = mu.factor()
         if len(facs) == 1:
             return facs[0]
@@ -414,7 +417,7 @@ class _Search:
         for pi in fitting_polynomials(facs):
             co = pi.coeffs() + [F.zero] * (K.nrows - pi.degree - 1)
             v = Mat.from_flat(F, 1, K.nrows, co[: K.nrows]) @ K
-            kids.append(_embed(A, v.entries(), node.index))
+            kids.append(embed(A, v.entries(), node.index))
         return kids
 
     def explore(self, start: list[_Node], n_total: int) -> None:
@@ -499,7 +502,7 @@ def _rank_in_simple(A: StructureAlgebra, c: _Class, f: list[Any]) -> int:
     F = A.field
     p = A._p
     if c.urows is None:
-        c.urows = _raw_rows(A, c.U)
+        c.urows = raw_rows(A, c.U)
     width = c.n
     rows = []
     for s in c.sec:
@@ -559,8 +562,8 @@ def _residue_check(A: StructureAlgebra, mult: list[Mat], rad: Mat, rng: random.R
                 Rx = Rx + mult[l].scale(xl)
         Mq = (Q @ Rx @ Qi).take_rows(list(range(rad.nrows, c)))
         Mq = select_columns(Mq, list(range(rad.nrows, c)))
-        K, co = _krylov(Mat.unit_rows(F, d, [0]), Mq)
-        facs = _minpoly(F, K.nrows, co).factor()
+        K, co = krylov(Mat.unit_rows(F, d, [0]), Mq)
+        facs = minpoly(F, K.nrows, co).factor()
         if len(facs) == 1 and facs[0][1] == 1 and facs[0][0].degree == d:
             _residue_field_error(A, c, d, mult, rad)
         if len(facs) > 1:
@@ -637,7 +640,7 @@ class Reduction:
             "projective_dimensions": list(self.projective_dimensions),
             "radical_dimension": self.radical_dimension,
             "idempotents": self.idempotent_texts(),
-            "cartan": self.basic.cartan(),
+            "cartan": [list(r) for r in self.basic.cartan()],
             "method": self.method,
             "seed": self.seed,
             "associativity": A.associativity.to_dict(),
@@ -653,14 +656,14 @@ def _assemble(A: StructureAlgebra, classes: list[_Class], name: str) -> BasicAlg
     solver: dict[tuple[int, int], tuple[tuple[int, ...], Mat]] = {}
     for s, cs in enumerate(classes):
         for t, ct in enumerate(classes):
-            X = _apply(cs.L, _transfer(A, cs.rows, ct.index)) @ ct.R
+            X = apply_transfer(cs.L, transfer(A, cs.rows, ct.index)) @ ct.R
             pos = select_independent_rows(X) if X.nrows else []
             gen[(s, t)] = [cs.J[k] for k in pos]
             B = X.take_rows(pos) if pos else Mat.zeros(F, 0, X.ncols)
             if s == t and gen[(s, t)] != cs.corner:
                 raise InternalInconsistency("corner basis chosen twice differently")
             basis[(s, t)] = B
-            solver[(s, t)] = _coords_solver(B) if pos else ((), Mat.zeros(F, 0, 0))
+            solver[(s, t)] = coords_solver(B) if pos else ((), Mat.zeros(F, 0, 0))
     dims = {k: v.nrows for k, v in basis.items()}
     # multiplication: x (in e_s A e_u) times y = e_u b_l e_t is ((x b_l) restricted) e_t
     mult: dict[tuple[int, int, int], list[Mat]] = {}
@@ -679,8 +682,8 @@ def _assemble(A: StructureAlgebra, classes: list[_Class], name: str) -> BasicAlg
                     if not dims[(s, u)]:
                         mult[key].append(Mat.zeros(F, 0, dims[(s, t)]))
                         continue
-                    xs = [_embed(A, r, classes[u].index) for r in _raw_rows(A, basis[(s, u)])]
-                    prods = [_restrict(A._times_basis_raw(x, l), classes[t].index) for x in xs]
+                    xs = [embed(A, r, classes[u].index) for r in raw_rows(A, basis[(s, u)])]
+                    prods = [restrict(A._times_basis_raw(x, l), classes[t].index) for x in xs]
                     P = Mat.from_flat(F, len(prods), len(prods[0]), [v for r in prods for v in r])
                     mult[key].append(
                         P @ colsR[(s, t)] if dims[(s, t)] else Mat.zeros(F, len(prods), 0)
@@ -735,7 +738,7 @@ def _assemble(A: StructureAlgebra, classes: list[_Class], name: str) -> BasicAlg
             maps.append(M)
         reps.append((dvec, tuple(maps)))
         piv, T = solver[(s, s)]
-        starts.append(select_columns(_mat(A, _restrict(classes[s].e, classes[s].index)), piv) @ T)
+        starts.append(select_columns(as_row(A, restrict(classes[s].e, classes[s].index)), piv) @ T)
     return BasicAlgebra.from_cyclic_representations(
         F, Q, reps, starts=starts, name=name, morita=[c.n for c in classes]
     )
@@ -781,6 +784,37 @@ def _finish(
     )
     _REDUCTIONS[B] = red
     return red
+
+
+def radical(A: StructureAlgebra, method: str = "auto", *, seed: int = 0) -> Mat:
+    """The Jacobson radical of ``A``: its basis rows in reduced echelon form.
+
+    Parameters
+    ----------
+    method : {"auto", "trace", "lifted-trace", "reduction"}
+        ``"trace"`` and ``"lifted-trace"``: see
+        :func:`~hwcat.algebras.reduction.radical.trace_radical`.
+        ``"reduction"``: from the simple modules found by :func:`reduce_algebra`
+        (``x`` is radical iff it kills every simple).  ``"auto"`` picks the
+        trace form where it is correct, the lifted-trace chain up to dimension
+        ``LIFTED_TRACE_LIMIT``, else the reduction.
+
+    Examples
+    --------
+    >>> from hwcat.algebras.families.tables import cyclic_group_algebra
+    >>> from hwcat.algebras.inputs.structure import from_table
+    >>> A = from_table(cyclic_group_algebra(4, "GF(2)"))
+    >>> radical(A).nrows == radical(A, "reduction").nrows == 3     # (g - 1) F[g]
+    True
+    """
+    if method == "reduction":
+        return reduce_algebra(A, seed=seed).radical()
+    if method == "auto":
+        d = A.natural[0].nrows if A.natural is not None else A.dim
+        p = A.field.characteristic
+        if p and p <= d and d > LIFTED_TRACE_LIMIT:
+            return reduce_algebra(A, seed=seed).radical()
+    return trace_radical(A, method)
 
 
 def reduce_algebra(
@@ -845,7 +879,7 @@ def _classes_from_idempotents(A: StructureAlgebra, ids: list[list[Any]]) -> list
     F, n = A.field, A.dim
     if not ids:
         raise StructureConstantsError("no idempotents given")
-    E = Mat.vstack(F, [_mat(A, e) for e in ids], n)
+    E = Mat.vstack(F, [as_row(A, e) for e in ids], n)
     total = [A._zero_raw()] * n
     Rs = []
     for j, e in enumerate(ids):

@@ -1,0 +1,157 @@
+"""Small kernels shared by the radical and the reduction of a structure-constant algebra.
+
+Coordinates of elements are "raw" lists (Python ints mod ``p`` over a prime
+field, flint rationals over QQ); these helpers convert between raw lists,
+restricted index sets and :class:`~hwcat.exact.Mat`, and provide the Krylov
+sequence, minimal polynomials and the radical of a small algebra given by its
+right multiplication matrices.
+"""
+
+from __future__ import annotations
+
+from collections.abc import Sequence
+from typing import Any
+
+from hwcat.algebras.inputs.structure import StructureAlgebra
+from hwcat.errors import InternalInconsistency
+from hwcat.exact import Mat, echelon
+from hwcat.exact.polys import Poly, lifted_power_trace, select_columns, sparse_matrix
+
+__all__ = [
+    "as_row",
+    "raw_rows",
+    "embed",
+    "restrict",
+    "transfer",
+    "apply_transfer",
+    "coords_solver",
+    "krylov",
+    "minpoly",
+    "small_radical",
+]
+
+
+def as_row(A: StructureAlgebra, raw: Sequence[Any]) -> Mat:
+    return Mat.from_flat(A.field, 1, len(raw), list(raw))
+
+
+def raw_rows(A: StructureAlgebra, M: Mat) -> list[list[Any]]:
+    p = A._p
+    if p:
+        return [[int(x) for x in r] for r in M.raw_rows()]
+    return [list(r) for r in M.raw_rows()]
+
+
+def embed(A: StructureAlgebra, vals: Sequence[Any], index: Sequence[int] | None) -> list[Any]:
+    if index is None:
+        return A.raw(list(vals)) if not A._p else [int(x) for x in vals]
+    out = [A._zero_raw()] * A.dim
+    for i, v in zip(index, vals, strict=True):
+        out[i] = int(v) if A._p else v
+    return out
+
+
+def restrict(raw: Sequence[Any], index: Sequence[int] | None) -> list[Any]:
+    return list(raw) if index is None else [raw[i] for i in index]
+
+
+def transfer(
+    A: StructureAlgebra, src: Sequence[int] | None, dst: Sequence[int] | None
+) -> Mat | None:
+    """0/1 matrix taking coordinates on ``src`` to coordinates on ``dst`` (None: identity)."""
+    if src is None and dst is None:
+        return None
+    n = A.dim
+    s = list(range(n)) if src is None else list(src)
+    d = list(range(n)) if dst is None else list(dst)
+    if s == d:
+        return None
+    dpos = {i: k for k, i in enumerate(d)}
+
+    return sparse_matrix(
+        A.field, len(s), len(d), {(a, dpos[i]): 1 for a, i in enumerate(s) if i in dpos}
+    )
+
+
+def apply_transfer(M: Mat, T: Mat | None) -> Mat:
+    return M if T is None else M @ T
+
+
+def coords_solver(B: Mat) -> tuple[tuple[int, ...], Mat]:
+    """For a basis ``B`` (rows): pivots and ``T`` with ``coords(x) = x[piv] @ T``."""
+    _, piv = B.rref()
+    return piv, select_columns(B, piv).inverse()
+
+
+def krylov(v0: Mat, Z: Mat | None, step=None, limit: int | None = None) -> tuple[Mat, list[Any]]:
+    """Vectors ``v0 Z^a`` up to the first dependency; returns ``(K, c)`` with
+    ``v0 Z^d = c @ K`` and ``K`` the ``d`` independent vectors."""
+    F = v0.field
+    vecs = [v0]
+    size = 4
+    while True:
+        while len(vecs) < size:
+            vecs.append(step(vecs[-1]) if step is not None else vecs[-1] @ Z)
+        K = Mat.vstack(F, vecs, v0.ncols)
+        r = K.rank()
+        if r < len(vecs):
+            d = r
+            break
+        if limit is not None and len(vecs) > limit + 1:
+            raise InternalInconsistency("Krylov sequence longer than the dimension")
+        size *= 2
+    Kd = Mat.vstack(F, vecs[:d], v0.ncols)
+    c = Kd.solve_left(vecs[d])
+    if c is None:  # pragma: no cover - rank argument guarantees a solution
+        raise InternalInconsistency("Krylov dependency not found")
+    return Kd, c.entries()
+
+
+def minpoly(F, d: int, c: Sequence[Any]) -> Poly:
+    return Poly.from_coeffs(F, [-x for x in c] + [F.one])
+
+
+def small_radical(F, mult: list[Mat]) -> Mat:
+    """Radical of a small algebra given by its right multiplication matrices.
+
+    ``mult[l]`` is the matrix of ``x -> x c_l`` in the basis ``c``.  The trace
+    form of the regular representation, then (in characteristic ``p <= dim``)
+    the lifted-trace chain on the regular representation.
+    """
+    c = len(mult)
+    tau = [sum((mult[l][a, a] for a in range(c)), F.zero) for l in range(c)]
+
+    def gram(psi: Sequence[Any]) -> Mat:
+        return Mat.from_flat(
+            F,
+            c,
+            c,
+            [
+                sum((mult[l][a, k] * psi[k] for k in range(c)), F.zero)
+                for a in range(c)
+                for l in range(c)
+            ],
+        )
+
+    I = echelon(gram(tau).left_kernel())
+    p = F.characteristic
+    i = 1
+    while p and p**i <= c and I.nrows:
+        piv, T = coords_solver(I)
+        g = []
+        for row in I.raw_rows():
+            X = Mat.zeros(F, c, c)
+            for l, x in enumerate(row):
+                if x != 0:
+                    X = X + mult[l].scale(x)
+            t = lifted_power_trace(X, i)
+            if t % p**i:
+                raise InternalInconsistency("lifted trace not divisible on a small corner")
+            g.append(F(t // p**i))
+        psi = (
+            select_columns(Mat.identity(F, c), piv) @ (T @ Mat.from_flat(F, len(g), 1, g))
+        ).entries()
+        K = (I @ gram(psi)).left_kernel()
+        I = echelon(K @ I) if K.nrows else Mat.zeros(F, 0, c)
+        i += 1
+    return I
