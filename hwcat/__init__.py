@@ -9,16 +9,22 @@
 ... ''')
 >>> hwcat.quasi_hereditary_orders(A).structures      # Catalan(3)
 5
->>> v = hwcat.check_order(A, hwcat.parse_order("3 > 2 > 1", A.vertices))
->>> v.quasi_hereditary
-True
+>>> v = hwcat.check(A, "3 > 2 > 1")
+>>> v.quasi_hereditary, len(v.axioms)
+(True, 8)
+>>> hwcat.standard_module(A, "2", hwcat.parse_order("1 > 2 > 3", A.vertices)).dims
+(0, 1, 1)
+>>> hwcat.load(family="temperley-lieb", n=4, delta=0, field="QQ").n
+2
 """
 
 from hwcat.algebras import BasicAlgebra, Quiver, bound_quiver_algebra
+from hwcat.algebras.families.registry import family_algebra
 from hwcat.errors import HwcatError, InternalInconsistency
 from hwcat.exact import GF, QQ, Mat, parse_field
-from hwcat.io.spec import load_spec, load_spec_text
+from hwcat.io.spec import load, load_spec, load_spec_text
 from hwcat.modules import Module, hom, hom_dimension, injective, projective, simple
+from hwcat.theory.check import check
 from hwcat.theory.highest_weight import (
     costandard_filtration,
     costandard_module,
@@ -26,9 +32,16 @@ from hwcat.theory.highest_weight import (
     standard_filtration,
     standard_module,
 )
+from hwcat.theory.homological import (
+    ext_dimension,
+    global_dimension,
+    injective_dimension,
+    projective_dimension,
+)
 from hwcat.theory.orders import PartialOrder, parse_order, total_order
 from hwcat.theory.search import is_quasi_hereditary, quasi_hereditary_orders
 from hwcat.theory.structure import describe
+from hwcat.theory.tilting import ringel_dual, tilting_module, tilting_modules
 from hwcat.theory.verdict import check_order
 
 __version__ = "0.1.0"
@@ -41,8 +54,10 @@ __all__ = [
     "Quiver",
     "BasicAlgebra",
     "bound_quiver_algebra",
+    "load",
     "load_spec",
     "load_spec_text",
+    "family_algebra",
     "Module",
     "projective",
     "injective",
@@ -58,9 +73,17 @@ __all__ = [
     "standard_filtration",
     "costandard_filtration",
     "heredity_chain",
+    "check",
     "check_order",
     "quasi_hereditary_orders",
     "is_quasi_hereditary",
+    "projective_dimension",
+    "injective_dimension",
+    "global_dimension",
+    "ext_dimension",
+    "tilting_module",
+    "tilting_modules",
+    "ringel_dual",
     "HwcatError",
     "InternalInconsistency",
 ]

@@ -21,6 +21,7 @@ __all__ = [
     "NotFiniteDimensional",
     "NotAdmissible",
     "OrderError",
+    "VertexError",
     "StructureConstantsError",
     "NotSplitError",
     "InternalInconsistency",
@@ -61,6 +62,10 @@ class NotFiniteDimensional(HwcatError, ValueError):
 
 class NotAdmissible(HwcatError, ValueError):
     """The ideal is not admissible (the arrows do not generate a nilpotent ideal)."""
+
+
+class VertexError(HwcatError, ValueError):
+    """A vertex (simple module) named or numbered that the algebra does not have."""
 
 
 class OrderError(HwcatError, ValueError):

@@ -4,20 +4,18 @@ ringel-dual, family."""
 from __future__ import annotations
 
 import argparse
-import json
 import sys
 from collections.abc import Sequence
 
-from hwcat.errors import InternalInconsistency, OrderError, SpecError
+from hwcat.cli.common import add_algebra_source, load_algebra, write_text
+from hwcat.errors import OrderError, SpecError
 from hwcat.io.render import render_orders, render_structure, render_verdict, to_json
-from hwcat.io.spec import build_algebra, read_spec
 
 __all__ = ["register"]
 
 
 def _load(args: argparse.Namespace):
-    spec = read_spec(args.spec)
-    return spec, build_algebra(spec)
+    return load_algebra(args)
 
 
 def _cmd_describe(args: argparse.Namespace) -> int:
@@ -29,67 +27,30 @@ def _cmd_describe(args: argparse.Namespace) -> int:
     return 0
 
 
+def _order_argument(spec, text_arg):
+    """The order text and where it came from: ``--order``, else the spec's ``order``."""
+    if text_arg is not None:
+        return text_arg, "command line"
+    return spec.order, "spec file"
+
+
+def _with_order_context(spec, source: str, fn):
+    """Run ``fn``; an :class:`OrderError` gets the option or the spec key in front."""
+    try:
+        return fn()
+    except OrderError as exc:
+        where = "--order" if source == "command line" else f"{spec.source}: order"
+        raise OrderError(f"{where}: {exc}") from None
+
+
 def _cmd_check(args: argparse.Namespace) -> int:
-    from hwcat.theory.orders import parse_order, total_order
-    from hwcat.theory.search import quasi_hereditary_orders
-    from hwcat.theory.verdict import check_order
+    from hwcat.theory.check import as_order, check
 
     spec, A = _load(args)
-    text, source = (args.order, "command line") if args.order else (spec.order, "spec file")
-    search_info = None
-    search_dict = None
-    if text:
-        try:
-            order = parse_order(text, A.vertices)
-        except OrderError as exc:
-            where = "--order" if source == "command line" else f"{spec.source}: order"
-            raise OrderError(f"{where}: {exc}") from None
-        verdict = check_order(A, order, order_source=source, homological=not args.no_homological)
-    else:
-        r = quasi_hereditary_orders(A, list_limit=1)
-        search_dict = {
-            "quasi_hereditary_for_some_order": r.quasi_hereditary,
-            "quasi_hereditary_total_orders": r.quasi_hereditary_total_orders,
-            "adapted_total_orders": r.quasi_hereditary_total_orders,  # deprecated alias
-            "structures": r.structures,
-            "longest_heredity_chain": [A.vertices[i] for i in r.best_attempt],
-        }
-        if r.quasi_hereditary:
-            order = r.structure_list[0].essential_order
-            verdict = check_order(
-                A, order, order_source="found by search: essential order of a structure"
-            )
-            search_info = (
-                f"no order given; the search found {r.quasi_hereditary_total_orders} quasi-hereditary total orders in "
-                f"{r.structures} structure(s); checking the first structure's essential order"
-            )
-        else:
-            chain = list(r.best_attempt)
-            rest = [v for v in range(A.n) if v not in chain]
-            order = total_order(A.vertices, chain + rest)
-            verdict = check_order(
-                A,
-                order,
-                order_source="best attempt of the search",
-                homological=not args.no_homological,
-            )
-            search_info = (
-                f"no order given and NO order makes the algebra quasi-hereditary; the longest heredity chain found has "
-                f"{len(chain)} step(s): {' > '.join(A.vertices[i] for i in chain) or '(none)'}; "
-                "the axioms below are for that attempt completed in spec order"
-            )
-            if verdict.quasi_hereditary:
-                raise InternalInconsistency(
-                    "the search found no quasi-hereditary order, but its attempt is quasi-hereditary"
-                )
-    if args.json:
-        d = verdict.to_dict()
-        if search_dict is not None:
-            d["search"] = search_dict
-            d["quasi_hereditary"] = search_dict["quasi_hereditary_for_some_order"]
-        print(json.dumps(d, indent=2))
-    else:
-        print(render_verdict(verdict, search_info))
+    text, source = _order_argument(spec, args.order)
+    order = None if text is None else _with_order_context(spec, source, lambda: as_order(A, text))
+    verdict = check(A, order, order_source=source, homological=not args.no_homological)
+    print(to_json(verdict) if args.json else render_verdict(verdict))
     return 0 if verdict.quasi_hereditary else 1
 
 
@@ -127,11 +88,7 @@ def _cmd_presentation(args: argparse.Namespace) -> int:
     for line in _notes(A):
         print(f"# {line}", file=sys.stderr)
     if args.output:
-        try:
-            with open(args.output, "w", encoding="utf-8") as fh:
-                fh.write(text)
-        except OSError as exc:
-            raise SpecError(f"{args.output}: cannot write: {exc.strerror or exc}") from None
+        write_text(args.output, text)
         print(f"wrote {args.output}", file=sys.stderr)
     else:
         print(text, end="")
@@ -161,11 +118,7 @@ def _cmd_family(args: argparse.Namespace) -> int:
     A = family_algebra(args.name, seed=args.seed, **params)
     if args.write_quiver:
         text = presentation_toml(A, name=A.name or args.name)
-        try:
-            with open(args.write_quiver, "w", encoding="utf-8") as fh:
-                fh.write(text)
-        except OSError as exc:
-            raise SpecError(f"{args.write_quiver}: cannot write: {exc.strerror or exc}") from None
+        write_text(args.write_quiver, text)
         print(f"wrote {args.write_quiver}", file=sys.stderr)
     report = describe(A)
     if args.json:
@@ -179,18 +132,10 @@ def _cmd_family(args: argparse.Namespace) -> int:
 
 def _order_for(spec, A, text_arg):
     """The order from the command line, else the spec, else the search's first structure."""
-    from hwcat.theory.orders import parse_order
-    from hwcat.theory.search import quasi_hereditary_orders
+    from hwcat.theory.check import order_or_search
 
-    text, source = (text_arg, "command line") if text_arg else (spec.order, "spec file")
-    if text:
-        try:
-            return parse_order(text, A.vertices)
-        except OrderError as exc:
-            where = "--order" if source == "command line" else f"{spec.source}: order"
-            raise OrderError(f"{where}: {exc}") from None
-    r = quasi_hereditary_orders(A, list_limit=1)
-    return r.structure_list[0].essential_order if r.quasi_hereditary else None
+    text, source = _order_argument(spec, text_arg)
+    return _with_order_context(spec, source, lambda: order_or_search(A, text))
 
 
 def _cmd_ringel_dual(args: argparse.Namespace) -> int:
@@ -215,11 +160,7 @@ def _cmd_ringel_dual(args: argparse.Namespace) -> int:
     text = "# Ringel dual End(T)^op: vertex L is the tilting module T(L); the order is the opposite one\n"
     text += spec_to_toml(out)
     if args.output:
-        try:
-            with open(args.output, "w", encoding="utf-8") as fh:
-                fh.write(text)
-        except OSError as exc:
-            raise SpecError(f"{args.output}: cannot write: {exc.strerror or exc}") from None
+        write_text(args.output, text)
         print(f"wrote {args.output}", file=sys.stderr)
     else:
         print(text, end="")
@@ -231,11 +172,11 @@ def register(sub: argparse._SubParsersAction) -> None:
     d = sub.add_parser(
         "describe", help="structure of an algebra: Cartan matrix, projectives, injectives"
     )
-    d.add_argument("spec", help="algebra spec file (TOML, see specs/FORMAT.md)")
+    add_algebra_source(d)
     d.add_argument("--json", action="store_true", help="print one JSON object")
     d.set_defaults(func=_cmd_describe)
     c = sub.add_parser("check", help="highest-weight axioms for an order (or for some order)")
-    c.add_argument("spec", help="algebra spec file")
+    add_algebra_source(c)
     c.add_argument(
         "--order", help='partial order of the simples, e.g. "3 > 2 > 1" or "1 < 2, 1 < 3"'
     )
@@ -247,7 +188,7 @@ def register(sub: argparse._SubParsersAction) -> None:
     )
     c.set_defaults(func=_cmd_check)
     o = sub.add_parser("orders", help="all quasi-hereditary orders and quasi-hereditary structures")
-    o.add_argument("spec", help="algebra spec file")
+    add_algebra_source(o)
     o.add_argument("--json", action="store_true", help="print one JSON object")
     o.add_argument("--all", action="store_true", help="list every structure")
     o.add_argument("--limit", type=int, default=20, help="how many structures to list (default 20)")
@@ -256,14 +197,14 @@ def register(sub: argparse._SubParsersAction) -> None:
         "presentation",
         help="the quiver with relations of any spec, written as a [quiver] spec",
     )
-    pr.add_argument("spec", help="algebra spec file")
+    add_algebra_source(pr)
     pr.add_argument("-o", "--output", help="write the spec to this file instead of printing it")
     pr.set_defaults(func=_cmd_presentation)
     rd = sub.add_parser(
         "ringel-dual",
         help="the Ringel dual End(T)^op of a quasi-hereditary algebra, written as a [quiver] spec",
     )
-    rd.add_argument("spec", help="algebra spec file")
+    add_algebra_source(rd)
     rd.add_argument(
         "--order", help="the order (default: the spec's, else the first structure found)"
     )

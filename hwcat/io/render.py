@@ -128,7 +128,28 @@ def _module_table(vertices, mods) -> list[str]:
     return lines
 
 
-def render_verdict(v, search=None) -> str:
+def _search_line(s) -> str:
+    """One line on how the search chose the order (a :class:`SearchSummary`)."""
+    if s.quasi_hereditary_for_some_order:
+        return (
+            f"no order given; the search found {s.quasi_hereditary_total_orders} quasi-hereditary "
+            f"total {_plural(s.quasi_hereditary_total_orders, 'order')} in {s.structures} "
+            f"{_plural(s.structures, 'structure')}; checking the first structure's essential order"
+        )
+    chain = s.longest_heredity_chain
+    return (
+        "no order given and NO order makes the algebra quasi-hereditary; the longest heredity "
+        f"chain found has {len(chain)} {_plural(len(chain), 'step')}: "
+        f"{' > '.join(chain) or '(none)'}; the axioms below are for that attempt completed in "
+        "spec order"
+    )
+
+
+def _plural(k: int, word: str) -> str:
+    return word if k == 1 else word + "s"
+
+
+def render_verdict(v) -> str:
     """Text form of an :class:`~hwcat.theory.verdict.OrderVerdict`."""
     vs = v.vertices
     title = f"Highest-weight check of {v.name}" if v.name else "Highest-weight check"
@@ -137,8 +158,8 @@ def render_verdict(v, search=None) -> str:
         lines.append(f"  order ({v.order_source}): {v.order.chain_text()}")
     if v.note:
         lines.append(f"  {v.note}")
-    if search is not None:
-        lines.append(f"  {search}")
+    if v.search is not None:
+        lines.append(f"  {_search_line(v.search)}")
     verdict = "quasi-hereditary" if v.quasi_hereditary else "NOT quasi-hereditary"
     lines.append(f"  verdict: {verdict} for this order")
     if not v.quasi_hereditary:
@@ -147,8 +168,8 @@ def render_verdict(v, search=None) -> str:
             f"properly stratified: {'yes' if v.properly_stratified else 'no'}"
         )
     lines.append("Axioms:")
-    w = max(len(a.name) for a in v.axioms + v.extra)
-    for a in v.axioms + v.extra:
+    w = max(len(a.name) for a in v.axioms)
+    for a in v.axioms:
         mark = "holds" if a.holds else "FAILS"
         lines.append(f"  [{mark}] {a.name:<{w}}  {a.summary}")
         if not a.holds:

@@ -8,6 +8,7 @@ arrow 'c: 1 -> 5': '5' is not a vertex"``.
 from __future__ import annotations
 
 import tomllib
+from collections.abc import Sequence
 from dataclasses import dataclass, field
 from pathlib import Path as FilePath
 from typing import Any
@@ -25,12 +26,14 @@ __all__ = [
     "build_algebra",
     "build_structure",
     "build_reduction",
+    "load",
     "load_spec",
     "load_spec_text",
+    "family_source",
 ]
 
-TOP_KEYS = {"name", "field", "order", "quiver", "multiplication", "matrices", "format"}
-KINDS = ("quiver", "multiplication", "matrices")
+TOP_KEYS = {"name", "field", "order", "quiver", "multiplication", "matrices", "family", "format"}
+KINDS = ("quiver", "multiplication", "matrices", "family")
 QUIVER_KEYS = {"vertices", "arrows", "relations", "vanish_from_length"}
 MULTIPLICATION_KEYS = {"basis", "products", "unit", "idempotents", "associativity", "seed"}
 MATRICES_KEYS = {"generators", "idempotents", "seed"}
@@ -77,7 +80,7 @@ def read_spec_text(text: str, source: str = "<spec>") -> Spec:
             SpecError,
             source,
             "quiver",
-            "missing: a spec needs one of [quiver], [multiplication], [matrices]",
+            "missing: a spec needs one of [quiver], [multiplication], [matrices], [family]",
         )
     if len(kinds) > 1:
         raise _err(
@@ -354,10 +357,81 @@ def _reduced_algebra(spec: Spec) -> BasicAlgebra:
     return build_reduction(spec).basic
 
 
+def _family_algebra(spec: Spec) -> BasicAlgebra:
+    """A ``[family]`` table: ``name = "temperley-lieb"`` and the family's parameters."""
+    from hwcat.algebras.families.registry import FAMILIES, family_algebra
+
+    src, tab = spec.source, dict(spec.table)
+    fam = tab.pop("name", None)
+    if fam is None:
+        raise _err(
+            SpecError, src, "family.name", 'missing: the family\'s name, e.g. "temperley-lieb"'
+        )
+    if not isinstance(fam, str) or fam not in FAMILIES:
+        raise _err(
+            SpecError, src, "family.name", f"{fam!r}: unknown family (known: {', '.join(FAMILIES)})"
+        )
+    seed = _seed(src, "family", tab)
+    tab.pop("seed", None)
+    for key, value in tab.items():
+        if isinstance(value, bool) or not isinstance(value, (int, str)):
+            raise _err(
+                SpecError, src, f"family.{key}", f"{value!r} is not an integer or a string"
+            )
+        if key == "field":
+            raise _err(SpecError, src, "family.field", "give the field at the top of the spec")
+    if "field" in FAMILIES[fam].parameters:
+        tab["field"] = spec.field.name
+    try:
+        A = family_algebra(fam, seed=seed, **tab)
+    except HwcatError as exc:
+        raise type(exc)(f"{src}: family: {exc}") from None
+    if spec.name:
+        A.name = spec.name
+    return A
+
+
+def family_source(items: Sequence[str]) -> Spec:
+    """A :class:`Spec` for a family named on the command line: ``["temperley-lieb", "n=4", ...]``.
+
+    ``field=...`` and ``order=...`` among the items play the role of the spec's
+    top-level keys; the field defaults to the family's default.
+    """
+    from hwcat.algebras.families.registry import FAMILIES
+
+    if not items:
+        raise SpecError("--family: give the family's name and parameters, e.g. temperley-lieb n=4")
+    name, *rest = items
+    if name not in FAMILIES:
+        raise SpecError(f"--family: unknown family {name!r} (known: {', '.join(FAMILIES)})")
+    table: dict[str, Any] = {"name": name}
+    order = None
+    field_text = None
+    for it in rest:
+        if "=" not in it:
+            raise SpecError(f"--family: parameter {it!r}: expected key=value, e.g. n=4")
+        k, v = (x.strip() for x in it.split("=", 1))
+        if k == "field":
+            field_text = v
+        elif k == "order":
+            order = v
+        else:
+            table[k] = v
+    fam = FAMILIES[name]
+    if field_text is None:
+        field_text = fam.parameters["field"][1] if "field" in fam.parameters else "QQ"
+    try:
+        F = parse_field(field_text)
+    except HwcatError as exc:
+        raise type(exc)(f"--family: field: {exc}") from None
+    return Spec(f"family {name}", "", F, order, "family", table)
+
+
 _BUILDERS = {
     "quiver": _quiver_algebra,
     "multiplication": _reduced_algebra,
     "matrices": _reduced_algebra,
+    "family": _family_algebra,
 }
 
 
@@ -373,6 +447,26 @@ def build_algebra(spec: Spec) -> BasicAlgebra:
             SpecError, spec.source, spec.kind, "this kind of spec is not supported by this version"
         )
     return _BUILDERS[spec.kind](spec)
+
+
+def load(
+    path: str | FilePath | None = None, *, family: str | None = None, **params: Any
+) -> BasicAlgebra:
+    """The algebra of a spec file, or of a built-in family with its parameters.
+
+    ``load("alg.toml")`` reads a spec file; ``load(family="temperley-lieb", n=4,
+    delta=0, field="GF(3)")`` builds a family member (parameters as values or text).
+
+    >>> load(family="temperley-lieb", n=4, delta=0, field="GF(3)").n
+    2
+    """
+    if (path is None) == (family is None):
+        raise SpecError("load: give either a spec file or family=NAME, not both or neither")
+    if path is not None:
+        if params:
+            raise SpecError(f"load: parameters {sorted(params)} only go with family=NAME")
+        return load_spec(path)
+    return build_algebra(family_source([family, *(f"{k}={v}" for k, v in params.items())]))
 
 
 def load_spec(path: str | FilePath) -> BasicAlgebra:

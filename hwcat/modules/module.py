@@ -307,8 +307,9 @@ def image_spaces(M: Module, N: Module, f: Sequence[Mat]) -> list[Mat]:
     return [echelon(m) for m in f]
 
 
-def projective(A: BasicAlgebra, s: int) -> Module:
+def projective(A: BasicAlgebra, s: str | int) -> Module:
     """The indecomposable projective ``P(s) = e_s A``."""
+    s = A.vertex_index(s)
     key = ("module:projective", s)
     if key not in A._cache:
         dims, maps = A.projective_rep(s)
@@ -316,8 +317,9 @@ def projective(A: BasicAlgebra, s: int) -> Module:
     return A._cache[key]
 
 
-def injective(A: BasicAlgebra, s: int) -> Module:
+def injective(A: BasicAlgebra, s: str | int) -> Module:
     """The indecomposable injective ``I(s) = D(A e_s)``."""
+    s = A.vertex_index(s)
     key = ("module:injective", s)
     if key not in A._cache:
         dims, maps = A.injective_rep(s)
@@ -325,8 +327,9 @@ def injective(A: BasicAlgebra, s: int) -> Module:
     return A._cache[key]
 
 
-def simple(A: BasicAlgebra, s: int) -> Module:
+def simple(A: BasicAlgebra, s: str | int) -> Module:
     """The simple module ``L(s)``."""
+    s = A.vertex_index(s)
     dims = [1 if v == s else 0 for v in range(A.n)]
     maps = [Mat.zeros(A.field, dims[a.source], dims[a.target]) for a in A.arrows]
     return Module(A, dims, maps, f"L({A.vertices[s]})")

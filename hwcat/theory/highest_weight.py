@@ -61,7 +61,7 @@ def _not_below(order: PartialOrder, L: int) -> int:
     return mask(v for v in range(order.n) if v not in below)
 
 
-def standard_module(A: BasicAlgebra, L: int, order: PartialOrder) -> Module:
+def standard_module(A: BasicAlgebra, L: str | int, order: PartialOrder) -> Module:
     """``Delta(L)``: ``P(L)`` modulo the trace of the vertices not ``<= L``.
 
     >>> from hwcat.io.spec import load_spec_text
@@ -72,6 +72,7 @@ def standard_module(A: BasicAlgebra, L: int, order: PartialOrder) -> Module:
     >>> standard_module(A, 0, parse_order("2 > 1", A.vertices)).dims
     (1, 0)
     """
+    L = A.vertex_index(L)
     _check_order(A, order)
     key = ("standard", L, order.less)
     if key not in A._cache:
@@ -81,8 +82,9 @@ def standard_module(A: BasicAlgebra, L: int, order: PartialOrder) -> Module:
     return A._cache[key]
 
 
-def costandard_module(A: BasicAlgebra, L: int, order: PartialOrder) -> Module:
+def costandard_module(A: BasicAlgebra, L: str | int, order: PartialOrder) -> Module:
     """``nabla(L)``: the largest submodule of ``I(L)`` with factors ``<= L`` (= D Delta_op(L))."""
+    L = A.vertex_index(L)
     _check_order(A, order)
     op = A.opposite()
     M = standard_module(op, L, PartialOrder(op.vertices, order.less)).dual()
@@ -90,8 +92,9 @@ def costandard_module(A: BasicAlgebra, L: int, order: PartialOrder) -> Module:
     return M
 
 
-def proper_standard_module(A: BasicAlgebra, L: int, order: PartialOrder) -> Module:
+def proper_standard_module(A: BasicAlgebra, L: str | int, order: PartialOrder) -> Module:
     """The largest quotient of ``P(L)`` with ``L`` once on top and other factors ``< L``."""
+    L = A.vertex_index(L)
     D = standard_module(A, L, order)
     R = D.radical_spaces()[L]
     if R.nrows == 0:
@@ -99,8 +102,9 @@ def proper_standard_module(A: BasicAlgebra, L: int, order: PartialOrder) -> Modu
     return D.quotient(D.generated({L: R}), f"proper Delta({A.vertices[L]})")
 
 
-def proper_costandard_module(A: BasicAlgebra, L: int, order: PartialOrder) -> Module:
+def proper_costandard_module(A: BasicAlgebra, L: str | int, order: PartialOrder) -> Module:
     """Dual notion of :func:`proper_standard_module` (a submodule of ``I(L)``)."""
+    L = A.vertex_index(L)
     op = A.opposite()
     M = proper_standard_module(op, L, PartialOrder(op.vertices, order.less)).dual()
     M.name = f"proper nabla({A.vertices[L]})"

@@ -184,8 +184,9 @@ def _require_qh(A: BasicAlgebra, order: PartialOrder) -> None:
         raise OrderError(f"the algebra is not quasi-hereditary for the order {order.chain_text()}")
 
 
-def tilting_module(A: BasicAlgebra, L: int, order: PartialOrder) -> TiltingModule:
+def tilting_module(A: BasicAlgebra, L: str | int, order: PartialOrder) -> TiltingModule:
     """``T(L)`` by Ringel's construction, verified (see the module notes)."""
+    L = A.vertex_index(L)
     key = ("tilting", L, order.less)
     if key in A._cache:
         return A._cache[key]

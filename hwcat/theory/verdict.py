@@ -22,7 +22,14 @@ from hwcat.theory.orders import PartialOrder
 from hwcat.theory.structure import ModuleSummary, summarise_module
 from hwcat.theory.traces import mask
 
-__all__ = ["Axiom", "OrderVerdict", "check_order", "AXIOM_NAMES"]
+__all__ = [
+    "Axiom",
+    "OrderVerdict",
+    "SearchSummary",
+    "check_order",
+    "AXIOM_NAMES",
+    "HOMOLOGICAL_AXIOM_NAMES",
+]
 
 AXIOM_NAMES = (
     "standard-schurian",
@@ -32,6 +39,29 @@ AXIOM_NAMES = (
     "bgg-reciprocity",
     "cartan-factorisation",
 )
+"""The axioms every verdict reports, in this order."""
+
+HOMOLOGICAL_AXIOM_NAMES = ("ext-standard-costandard", "ext-quiver-standard")
+"""The Ext conditions, reported after :data:`AXIOM_NAMES` when the homological part runs."""
+
+
+@dataclass(frozen=True)
+class SearchSummary:
+    """What the search over all orders found, when no order was given to check."""
+
+    quasi_hereditary_for_some_order: bool
+    quasi_hereditary_total_orders: int
+    structures: int
+    longest_heredity_chain: tuple[str, ...]
+
+    def to_dict(self) -> dict[str, Any]:
+        return {
+            "quasi_hereditary_for_some_order": self.quasi_hereditary_for_some_order,
+            "quasi_hereditary_total_orders": self.quasi_hereditary_total_orders,
+            "adapted_total_orders": self.quasi_hereditary_total_orders,  # deprecated alias
+            "structures": self.structures,
+            "longest_heredity_chain": list(self.longest_heredity_chain),
+        }
 
 
 @dataclass(frozen=True)
@@ -74,13 +104,13 @@ class OrderVerdict:
     linear_extensions: int | None = None
     quasi_hereditary_linear_extensions: int | None = None
     note: str = ""
-    extra: tuple[Axiom, ...] = ()
     global_dimension: Any = None  # GlobalDimension, when computed
     tilting: tuple[Any, ...] | None = None  # TiltingModule per simple, when quasi-hereditary
     ringel_dual_cartan: tuple[tuple[int, ...], ...] | None = None
+    search: SearchSummary | None = None  # when the order was chosen by the search
 
     def axiom(self, name: str) -> Axiom:
-        for a in self.axioms + self.extra:
+        for a in self.axioms:
             if a.name == name:
                 return a
         raise KeyError(name)
@@ -92,7 +122,7 @@ class OrderVerdict:
             "quasi_hereditary": self.quasi_hereditary,
             "order": self.order.covers_named() if self.order is not None else None,
             "order_source": self.order_source,
-            "axioms": [a.to_dict() for a in self.axioms + self.extra],
+            "axioms": [a.to_dict() for a in self.axioms],
             "cartan": [list(r) for r in self.cartan],
             "decomposition_standard": [list(r) for r in self.decomposition_standard],
             "decomposition_costandard": [list(r) for r in self.decomposition_costandard],
@@ -122,6 +152,7 @@ class OrderVerdict:
             "ringel_dual_cartan": None
             if self.ringel_dual_cartan is None
             else [list(r) for r in self.ringel_dual_cartan],
+            **({} if self.search is None else {"search": self.search.to_dict()}),
         }
 
 
@@ -291,7 +322,9 @@ def check_order(
     >>> A = load_spec_text('field = "QQ"\\n[quiver]\\nvertices = ["1", "2"]\\narrows = ["a: 1 -> 2"]')
     >>> v = check_order(A, parse_order("1 < 2", A.vertices))
     >>> v.quasi_hereditary, [a.holds for a in v.axioms]
-    (True, [True, True, True, True, True, True])
+    (True, [True, True, True, True, True, True, True, True])
+    >>> [a.name for a in v.axioms][-2:]
+    ['ext-standard-costandard', 'ext-quiver-standard']
     """
     n = A.n
     Ps = [projective(A, L) for L in range(n)]
@@ -416,7 +449,7 @@ def check_order(
         order=order,
         order_source=order_source,
         quasi_hereditary=qh,
-        axioms=(ax1, ax2, ax3, ax4, ax5, ax6),
+        axioms=(ax1, ax2, ax3, ax4, ax5, ax6) + extra,
         cartan=C,
         decomposition_standard=D,
         decomposition_costandard=E,
@@ -429,7 +462,6 @@ def check_order(
         linear_extensions=n_ext,
         quasi_hereditary_linear_extensions=n_qh,
         note=note,
-        extra=extra,
         global_dimension=gd,
         tilting=tilt,
         ringel_dual_cartan=rcart,

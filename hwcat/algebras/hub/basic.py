@@ -28,7 +28,7 @@ import networkx as nx
 
 from hwcat.algebras.hub.quiver import Arrow, Path, Quiver, format_path
 from hwcat.algebras.hub.rep import closure, cyclic_word_basis, quotient
-from hwcat.errors import InternalInconsistency
+from hwcat.errors import InternalInconsistency, VertexError
 from hwcat.exact import Field, Mat
 
 __all__ = ["BasicAlgebra"]
@@ -84,6 +84,32 @@ class BasicAlgebra:
     @property
     def vertices(self) -> tuple[str, ...]:
         return self.quiver.vertices
+
+    def vertex_index(self, v: str | int) -> int:
+        """The index of a vertex given by its name (a ``str``) or its 0-based index (an ``int``).
+
+        Every public function that takes a vertex accepts either form.
+
+        >>> from hwcat.algebras.hub.quiver import Quiver
+        >>> from hwcat.algebras.inputs.bound import bound_quiver_algebra
+        >>> from hwcat.exact import QQ
+        >>> A = bound_quiver_algebra(Quiver.from_text(["top", "base"], ["a: top -> base"]), [], QQ)
+        >>> A.vertex_index("base"), A.vertex_index(0)
+        (1, 0)
+        """
+        if isinstance(v, str):
+            try:
+                return self.quiver.vertices.index(v)
+            except ValueError:
+                raise VertexError(
+                    f"{v!r} is not a vertex (vertices: {', '.join(self.vertices)})"
+                ) from None
+        if isinstance(v, bool) or not isinstance(v, int) or not 0 <= v < self.n:
+            raise VertexError(
+                f"{v!r} is not a vertex name or an index 0..{self.n - 1} "
+                f"(vertices: {', '.join(self.vertices)})"
+            )
+        return v
 
     @property
     def arrows(self) -> tuple[Arrow, ...]:
