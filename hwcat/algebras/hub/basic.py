@@ -93,7 +93,7 @@ class BasicAlgebra:
         >>> from hwcat.algebras.hub.quiver import Quiver
         >>> from hwcat.algebras.inputs.bound import bound_quiver_algebra
         >>> from hwcat.exact import QQ
-        >>> A = bound_quiver_algebra(Quiver.from_text(["top", "base"], ["a: top -> base"]), [], QQ)
+        >>> A = bound_quiver_algebra(QQ, Quiver.from_text(["top", "base"], ["a: top -> base"]), [])
         >>> A.vertex_index("base"), A.vertex_index(0)
         (1, 0)
         """
