@@ -80,14 +80,17 @@ def render_structure(r) -> str:
     title = f"Structure of {r.name}" if r.name else "Structure of the algebra"
     lines = [
         title,
-        f"  field {r.field}; dimension {r.dimension}; {len(v)} simple modules; "
-        f"Loewy length {r.loewy_length}; {len(r.blocks)} block(s)",
+        f"  field {r.field}; dimension {r.dimension}; {len(v)} simple "
+        f"{_plural(len(v), 'module')}; Loewy length {r.loewy_length}; {len(r.blocks)} "
+        f"{_plural(len(r.blocks), 'block')}",
     ]
     if any(m != 1 for m in r.morita):
         lines.append(
             "  simple dimensions (multiplicity of P(i) in the algebra): "
             + ", ".join(f"L({x}): {m}" for x, m in zip(v, r.morita, strict=True))
         )
+    if r.natural_order:
+        lines.append(f"  natural highest-weight order of the family: {r.natural_order}")
     lines.append("Gabriel quiver:")
     if r.arrows:
         lines.append("  " + ", ".join(f"{n}: {s} -> {t}" for n, s, t in r.arrows))

@@ -68,7 +68,10 @@ def check(
     order_source: str = "given",
     homological: bool = True,
 ) -> OrderVerdict:
-    """The verdict for ``order``, or, with no order, for the order the search chooses."""
+    """The verdict for ``order``; with no order, for the family's natural order if the
+    algebra has one, else for the order the search chooses."""
+    if order is None and A.natural_order:
+        order, order_source = A.natural_order, "the family's natural order"
     if order is not None:
         return check_order(A, as_order(A, order), order_source=order_source, homological=homological)
     r = quasi_hereditary_orders(A, list_limit=1)

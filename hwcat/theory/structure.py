@@ -61,6 +61,7 @@ class StructureReport:
     loewy_length: int
     blocks: tuple[tuple[str, ...], ...]
     morita: tuple[int, ...]
+    natural_order: str | None = None
 
     def to_dict(self) -> dict[str, Any]:
         return {
@@ -76,6 +77,7 @@ class StructureReport:
             "loewy_length": self.loewy_length,
             "blocks": [list(b) for b in self.blocks],
             "simple_dimensions": list(self.morita),
+            "natural_order": self.natural_order,
         }
 
 
@@ -102,4 +104,5 @@ def describe(A: BasicAlgebra) -> StructureReport:
         loewy_length=max((p.loewy_length for p in Ps), default=0),
         blocks=tuple(tuple(A.vertices[v] for v in c) for c in A.components()),
         morita=A.morita,
+        natural_order=A.natural_order,
     )

@@ -211,8 +211,11 @@ def family_structure(family: str, **params: Any) -> StructureAlgebra:
 
 
 def family_reduction(family: str, *, seed: int = 0, **params: Any) -> Reduction:
-    """The reduction (basic algebra, idempotents, Morita data) of a table family."""
-    return reduce_algebra(family_structure(family, **params), seed=seed)
+    """The reduction (basic algebra, idempotents, Morita data) of a table family,
+    its simples labelled as the trade labels them (see :mod:`.labels`)."""
+    from hwcat.algebras.families.labels import label_simples
+
+    return label_simples(family, reduce_algebra(family_structure(family, **params), seed=seed))
 
 
 def family_spec(family: str, **params: Any) -> dict[str, Any]:

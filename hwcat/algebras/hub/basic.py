@@ -21,6 +21,7 @@ Everything is stored block by block: no dense ``dim A x dim A`` matrix.
 
 from __future__ import annotations
 
+import copy
 from collections.abc import Iterable, Sequence
 from typing import Any
 
@@ -78,12 +79,30 @@ class BasicAlgebra:
         self.morita = tuple(morita) if morita is not None else (1,) * n
         self.relations = tuple(relations) if relations is not None else None
         self._cache: dict[Any, Any] = {}
+        self.natural_order: str | None = None  # a family's natural highest-weight order, as text
         self._check()
 
     # -- basic data ------------------------------------------------------------
     @property
     def vertices(self) -> tuple[str, ...]:
         return self.quiver.vertices
+
+    def with_vertex_names(
+        self, names: Sequence[str], *, natural_order: str | None = None
+    ) -> BasicAlgebra:
+        """The same algebra with its vertices (simples) renamed; arrows and bases unchanged.
+
+        Families use it to give the simples the labels of the trade.
+        """
+        names = [str(v) for v in names]
+        if len(names) != self.n:
+            raise InternalInconsistency(f"{len(names)} names for {self.n} vertices")
+        Q = Quiver.from_text(names, [])
+        new = copy.copy(self)
+        new.quiver = Quiver(Q.vertices, self.quiver.arrows)
+        new._cache = {}
+        new.natural_order = natural_order
+        return new
 
     def vertex_index(self, v: str | int) -> int:
         """The index of a vertex given by its name (a ``str``) or its 0-based index (an ``int``).

@@ -604,6 +604,20 @@ class Reduction:
     timings: dict[str, float] = field(default_factory=dict, repr=False, compare=False)
     _classes: tuple = field(default=(), repr=False, compare=False)
 
+    def simple_action_rank(self, i: int, x: Sequence[Any]) -> int:
+        """``dim L(i) x``: the rank of ``x`` (coordinates in the basis of the input
+        algebra) acting on the simple module of vertex ``i`` of :attr:`basic`."""
+        return _rank_in_simple(self.algebra, self._classes[i], self.algebra.raw(list(x)))
+
+    def relabelled(self, names: Sequence[str], *, natural_order: str | None = None) -> Reduction:
+        """The same reduction with the simples renamed (see ``BasicAlgebra.with_vertex_names``)."""
+        import dataclasses
+
+        B = self.basic.with_vertex_names(names, natural_order=natural_order)
+        red = dataclasses.replace(self, basic=B)
+        _REDUCTIONS[B] = red
+        return red
+
     def idempotent_texts(self) -> list[str]:
         return [self.algebra.element_text(list(e)) for e in self.idempotents]
 
