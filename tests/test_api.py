@@ -16,3 +16,56 @@ def test_import_does_not_pull_test_dependencies():
     code = "import sys, hwcat; print('hypothesis' in sys.modules, 'sympy' in sys.modules)"
     out = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, check=True)
     assert out.stdout.strip() == "False False"
+
+
+def test_the_readme_uses_only_the_curated_api():
+    # every hwcat.<name> in the README's Python example is exported (issue: one coherent API)
+    import re
+    from pathlib import Path
+
+    readme = (Path(__file__).resolve().parents[1] / "README.md").read_text(encoding="utf-8")
+    blocks = re.findall(r"```python\n(.*?)```", readme, re.S)
+    assert blocks
+    used = {m for b in blocks for m in re.findall(r"\bhwcat\.([A-Za-z_]\w*)", b)}
+    assert used and used <= set(hwcat.__all__) | {"strategies"}, used - set(hwcat.__all__)
+
+
+def _keys(obj, out):
+    if isinstance(obj, dict):
+        for k, v in obj.items():
+            out.add(k)
+            _keys(v, out)
+    elif isinstance(obj, list):
+        for v in obj:
+            _keys(v, out)
+    return out
+
+
+def test_every_json_key_is_documented():
+    # every key of every --json output on the demo specs appears in specs/FORMAT.md
+    import contextlib
+    import io
+    import json
+    from pathlib import Path
+
+    from hwcat.cli import main
+
+    root = Path(__file__).resolve().parents[1]
+    doc = (root / "specs" / "FORMAT.md").read_text(encoding="utf-8")
+    runs = [
+        [cmd, str(spec), "--json"]
+        for spec in sorted((root / "specs" / "examples").glob("*.toml"))
+        for cmd in ("describe", "check", "orders")
+    ]
+    runs.append(["family", "temperley-lieb", "n=4", "delta=0", "field=GF(3)", "--json"])
+    runs.append(["check", "--family", "schur", "r=3", "field=GF(2)", "--json"])
+    keys: set[str] = set()
+    for argv in runs:
+        buf = io.StringIO()
+        with contextlib.redirect_stdout(buf):
+            main(argv)
+        data = json.loads(buf.getvalue())
+        # dictionaries keyed by vertex names (dimension vectors per simple) are data, not keys
+        keys |= _keys(data, set()) - set(data.get("simples", []))
+    missing = sorted(k for k in keys if f"`{k}`" not in doc)
+    assert not missing, f"JSON keys not documented in specs/FORMAT.md: {missing}"
