@@ -123,6 +123,8 @@ def loewy_diagram(module: Module) -> LoewyDiagram:
     arrows = A.arrows
     ser = module.radical_series()
     nlayers = len(ser) - 1
+    if nlayers == 0:  # the zero module
+        return LoewyDiagram((), (), (), True)
     # reps[k][v]: rows of M_v representing the basis of layer k at v
     reps: list[list[Mat]] = [[complement(ser[1][v], d) for v, d in enumerate(dims)]]
     # node index of the i-th basis vector of layer k at vertex v
