@@ -26,44 +26,11 @@ def _cmd_describe(args: argparse.Namespace) -> int:
     _, A = _load(args)
     report = describe(A)
     if args.svg:
-        _write_structure_svgs(report, args.svg)
+        from hwcat.cli.report import write_structure_svgs
+
+        write_structure_svgs(report, args.svg)
     print(to_json(report) if args.json else render_structure(report))
     return 0
-
-
-# -- pictures of describe (--svg DIR) ---------------------------------------------------------
-
-
-def _write_structure_svgs(report, directory: str) -> None:
-    """One SVG file per module of ``report`` plus ``quiver.svg``; names are listed on stderr."""
-    from pathlib import Path
-
-    from hwcat.io.svg import file_names, loewy_svg, quiver_svg, svg_text
-
-    out = Path(directory)
-    try:
-        out.mkdir(parents=True, exist_ok=True)
-        mods = list(report.projectives) + list(report.injectives)
-        idx = {v: i for i, v in enumerate(report.simples)}
-        pictures = [
-            (
-                "quiver.svg",
-                quiver_svg(
-                    report.simples,
-                    [(n, idx[s], idx[t]) for n, s, t in report.arrows],
-                    f"Gabriel quiver of {report.name or 'the algebra'}",
-                ),
-            )
-        ]
-        names = file_names([m.label for m in mods])
-        pictures += [
-            (f, loewy_svg(m.loewy_diagram, m.label)) for f, m in zip(names, mods, strict=True)
-        ]
-        for fname, svg in pictures:
-            (out / fname).write_text(svg_text(svg, declaration=True), encoding="utf-8")
-    except OSError as exc:
-        raise SpecError(f"{directory}: cannot write pictures: {exc.strerror or exc}") from None
-    print(f"wrote {len(pictures)} SVG files to {directory}", file=sys.stderr)
 
 
 def _cmd_check(args: argparse.Namespace) -> int:

@@ -1,4 +1,5 @@
-"""``hwcat report``: one self-contained HTML page about an algebra."""
+"""``hwcat report``: one self-contained HTML page about an algebra; and the SVG
+files of ``hwcat describe --svg DIR``."""
 
 from __future__ import annotations
 
@@ -66,6 +67,38 @@ def _cmd_report(args: argparse.Namespace) -> int:
         raise SpecError(f"{args.output}: cannot write: {exc.strerror or exc}") from None
     print(f"wrote {args.output}", file=sys.stderr)
     return 0
+
+
+def write_structure_svgs(report, directory: str) -> None:
+    """One SVG file per module of ``report`` plus ``quiver.svg``; names are listed on stderr."""
+    from pathlib import Path
+
+    from hwcat.io.svg import file_names, loewy_svg, quiver_svg, svg_text
+
+    out = Path(directory)
+    try:
+        out.mkdir(parents=True, exist_ok=True)
+        mods = list(report.projectives) + list(report.injectives)
+        idx = {v: i for i, v in enumerate(report.simples)}
+        pictures = [
+            (
+                "quiver.svg",
+                quiver_svg(
+                    report.simples,
+                    [(n, idx[s], idx[t]) for n, s, t in report.arrows],
+                    f"Gabriel quiver of {report.name or 'the algebra'}",
+                ),
+            )
+        ]
+        names = file_names([m.label for m in mods])
+        pictures += [
+            (f, loewy_svg(m.loewy_diagram, m.label)) for f, m in zip(names, mods, strict=True)
+        ]
+        for fname, svg in pictures:
+            (out / fname).write_text(svg_text(svg, declaration=True), encoding="utf-8")
+    except OSError as exc:
+        raise SpecError(f"{directory}: cannot write pictures: {exc.strerror or exc}") from None
+    print(f"wrote {len(pictures)} SVG files to {directory}", file=sys.stderr)
 
 
 def register(sub: argparse._SubParsersAction) -> None:
