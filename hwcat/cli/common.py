@@ -9,10 +9,16 @@ from __future__ import annotations
 
 import argparse
 
-from hwcat.errors import SpecError
+from hwcat.errors import OrderError, SpecError
 from hwcat.io.spec import build_algebra, family_source, read_spec
 
-__all__ = ["add_algebra_source", "load_algebra", "write_text"]
+__all__ = [
+    "add_algebra_source",
+    "load_algebra",
+    "order_argument",
+    "with_order_context",
+    "write_text",
+]
 
 
 def add_algebra_source(p: argparse.ArgumentParser) -> None:
@@ -44,3 +50,19 @@ def write_text(path: str, text: str) -> None:
             fh.write(text)
     except OSError as exc:
         raise SpecError(f"{path}: cannot write: {exc.strerror or exc}") from None
+
+
+def order_argument(spec, text_arg):
+    """The order text and where it came from: ``--order``, else the spec's ``order``."""
+    if text_arg is not None:
+        return text_arg, "command line"
+    return spec.order, "spec file"
+
+
+def with_order_context(spec, source: str, fn):
+    """Run ``fn``; an :class:`OrderError` gets the option or the spec key in front."""
+    try:
+        return fn()
+    except OrderError as exc:
+        where = "--order" if source == "command line" else f"{spec.source}: order"
+        raise OrderError(f"{where}: {exc}") from None

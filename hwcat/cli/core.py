@@ -7,8 +7,14 @@ import argparse
 import sys
 from collections.abc import Sequence
 
-from hwcat.cli.common import add_algebra_source, load_algebra, write_text
-from hwcat.errors import OrderError, SpecError
+from hwcat.cli.common import (
+    add_algebra_source,
+    load_algebra,
+    order_argument,
+    with_order_context,
+    write_text,
+)
+from hwcat.errors import SpecError
 from hwcat.io.render import render_orders, render_structure, render_verdict, to_json
 
 __all__ = ["register"]
@@ -23,32 +29,20 @@ def _cmd_describe(args: argparse.Namespace) -> int:
 
     _, A = _load(args)
     report = describe(A)
+    if args.svg:
+        from hwcat.cli.report import write_structure_svgs
+
+        write_structure_svgs(report, args.svg)
     print(to_json(report) if args.json else render_structure(report))
     return 0
-
-
-def _order_argument(spec, text_arg):
-    """The order text and where it came from: ``--order``, else the spec's ``order``."""
-    if text_arg is not None:
-        return text_arg, "command line"
-    return spec.order, "spec file"
-
-
-def _with_order_context(spec, source: str, fn):
-    """Run ``fn``; an :class:`OrderError` gets the option or the spec key in front."""
-    try:
-        return fn()
-    except OrderError as exc:
-        where = "--order" if source == "command line" else f"{spec.source}: order"
-        raise OrderError(f"{where}: {exc}") from None
 
 
 def _cmd_check(args: argparse.Namespace) -> int:
     from hwcat.theory.check import as_order, check
 
     spec, A = _load(args)
-    text, source = _order_argument(spec, args.order)
-    order = None if text is None else _with_order_context(spec, source, lambda: as_order(A, text))
+    text, source = order_argument(spec, args.order)
+    order = None if text is None else with_order_context(spec, source, lambda: as_order(A, text))
     verdict = check(A, order, order_source=source, homological=not args.no_homological)
     print(to_json(verdict) if args.json else render_verdict(verdict))
     return 0 if verdict.quasi_hereditary else 1
@@ -134,8 +128,8 @@ def _order_for(spec, A, text_arg):
     """The order from the command line, else the spec, else the search's first structure."""
     from hwcat.theory.check import order_or_search
 
-    text, source = _order_argument(spec, text_arg)
-    return _with_order_context(spec, source, lambda: order_or_search(A, text))
+    text, source = order_argument(spec, text_arg)
+    return with_order_context(spec, source, lambda: order_or_search(A, text))
 
 
 def _cmd_ringel_dual(args: argparse.Namespace) -> int:
@@ -174,6 +168,11 @@ def register(sub: argparse._SubParsersAction) -> None:
     )
     add_algebra_source(d)
     d.add_argument("--json", action="store_true", help="print one JSON object")
+    d.add_argument(
+        "--svg",
+        metavar="DIR",
+        help="also write SVG pictures to DIR: quiver.svg and a Loewy diagram per module (P_1.svg, I_1.svg, ...)",
+    )
     d.set_defaults(func=_cmd_describe)
     c = sub.add_parser("check", help="highest-weight axioms for an order (or for some order)")
     add_algebra_source(c)

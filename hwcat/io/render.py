@@ -13,6 +13,7 @@ __all__ = [
     "render_structure",
     "render_verdict",
     "render_orders",
+    "search_line",
 ]
 
 
@@ -64,13 +65,27 @@ def matrix_text(
     return "\n".join(lines)
 
 
+def _pi_mark(m) -> str:
+    """`` [projective-injective]`` for a module summary marked so, else empty."""
+    return "  [projective-injective]" if getattr(m, "projective_injective", None) else ""
+
+
+def _socle_text(vertices: Sequence[str], m) -> str:
+    """Socle layers written top first, so they line up with the radical layers."""
+    return layers_text(vertices, list(reversed(m.socle_layers)))
+
+
 def _module_lines(vertices: Sequence[str], mods) -> list[str]:
     lines = []
     for m in mods:
         lines.append(
             f"  {m.label:<8} dim {m.dimension:<4} Loewy length {m.loewy_length:<3} "
-            f"radical layers (top first): {layers_text(vertices, m.radical_layers)}"
+            f"radical layers (top first): {layers_text(vertices, m.radical_layers)}{_pi_mark(m)}"
         )
+        if m.socle_layers:
+            lines.append(
+                f"  {'':<8} {'':<8} {'':<16} socle layers (top first):   {_socle_text(vertices, m)}"
+            )
     return lines
 
 
@@ -98,6 +113,11 @@ def render_structure(r) -> str:
         lines.append("  no arrows")
     lines.append("Cartan matrix, C[i][j] = [P(j) : L(i)] (row L(i), column P(j)):")
     lines.append(matrix_text(r.cartan, [f"L({x})" for x in v], [f"P({x})" for x in v]))
+    if any(m.projective_injective for m in r.projectives):
+        lines.append(
+            "Projective-injective: "
+            + ", ".join(m.label for m in r.projectives if m.projective_injective)
+        )
     lines.append("Indecomposable projectives P(i) = e_i A:")
     lines.extend(_module_lines(v, r.projectives))
     lines.append("Indecomposable injectives I(i) = D(A e_i):")
@@ -126,12 +146,14 @@ def _module_table(vertices, mods) -> list[str]:
     for m in mods:
         lines.append(
             f"  {m.label:<12} dimension vector {layer_text(vertices, m.dimension_vector):<16} "
-            f"radical layers: {layers_text(vertices, m.radical_layers)}"
+            f"radical layers: {layers_text(vertices, m.radical_layers)}{_pi_mark(m)}"
         )
+        if m.socle_layers:
+            lines.append(f"  {'':<12} {'':<17}{'':<16} socle layers:   {_socle_text(vertices, m)}")
     return lines
 
 
-def _search_line(s) -> str:
+def search_line(s) -> str:
     """One line on how the search chose the order (a :class:`SearchSummary`)."""
     if s.quasi_hereditary_for_some_order:
         return (
@@ -162,7 +184,7 @@ def render_verdict(v) -> str:
     if v.note:
         lines.append(f"  {v.note}")
     if v.search is not None:
-        lines.append(f"  {_search_line(v.search)}")
+        lines.append(f"  {search_line(v.search)}")
     verdict = "quasi-hereditary" if v.quasi_hereditary else "NOT quasi-hereditary"
     lines.append(f"  verdict: {verdict} for this order")
     if not v.quasi_hereditary:
@@ -202,11 +224,18 @@ def render_verdict(v) -> str:
         lines.append(
             "Indecomposable tilting modules T(L) (dimension vector; (T : Delta(mu)); (T : nabla(mu))):"
         )
-        for t in v.tilting:
+        sums = v.tilting_summaries or (None,) * len(v.tilting)
+        for t, m in zip(v.tilting, sums, strict=True):
             lines.append(
                 f"  T({vs[t.vertex]}):  {layer_text(vs, t.module.dims)};  "
                 f"Delta: {layer_text(vs, t.standard_multiplicities)};  nabla: {layer_text(vs, t.costandard_multiplicities)}"
+                + _pi_mark(m)
             )
+            if m is not None:
+                lines.append(
+                    f"      radical layers: {layers_text(vs, m.radical_layers)};  "
+                    f"socle layers (top first): {_socle_text(vs, m)}"
+                )
     if v.ringel_dual_cartan is not None:
         lines.append("Cartan matrix of the Ringel dual End(T)^op (vertex L = T(L)):")
         lines.append(

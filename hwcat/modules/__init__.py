@@ -1,6 +1,7 @@
 """Layer 3: modules as quiver representations, and homomorphisms."""
 
 from hwcat.modules.hom import hom, hom_dimension, hom_dimension_naive
+from hwcat.modules.loewy import LoewyDiagram, loewy_diagram
 from hwcat.modules.module import (
     Module,
     direct_sum,
@@ -20,4 +21,6 @@ __all__ = [
     "hom",
     "hom_dimension",
     "hom_dimension_naive",
+    "LoewyDiagram",
+    "loewy_diagram",
 ]

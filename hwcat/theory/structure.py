@@ -7,19 +7,26 @@ from typing import Any
 
 from hwcat.algebras.hub.basic import BasicAlgebra
 from hwcat.modules import Module, injective, projective
+from hwcat.modules.loewy import LoewyDiagram, is_indecomposable_projective_injective, loewy_diagram
 
 __all__ = ["ModuleSummary", "StructureReport", "describe", "summarise_module"]
 
 
 @dataclass(frozen=True)
 class ModuleSummary:
-    """Dimension data of one module: dimension vector and radical/socle layers."""
+    """Dimension data of one module: dimension vector, radical/socle layers, Loewy diagram.
+
+    ``projective_injective`` says whether the module is an indecomposable
+    projective-injective module (``None`` when not computed).
+    """
 
     label: str
     dimension: int
     dimension_vector: tuple[int, ...]
     radical_layers: tuple[tuple[int, ...], ...]
     socle_layers: tuple[tuple[int, ...], ...]
+    loewy_diagram: LoewyDiagram | None = None
+    projective_injective: bool | None = None
 
     @property
     def loewy_length(self) -> int:
@@ -33,16 +40,23 @@ class ModuleSummary:
             "radical_layers": [list(x) for x in self.radical_layers],
             "socle_layers": [list(x) for x in self.socle_layers],
             "loewy_length": self.loewy_length,
+            "loewy_diagram": None if self.loewy_diagram is None else self.loewy_diagram.to_dict(),
+            "projective_injective": self.projective_injective,
         }
 
 
-def summarise_module(M: Module, label: str = "", socle: bool = True) -> ModuleSummary:
+def summarise_module(
+    M: Module, label: str = "", socle: bool = True, diagram: bool = True
+) -> ModuleSummary:
+    """The :class:`ModuleSummary` of an indecomposable module ``M``."""
     return ModuleSummary(
         label or M.name,
         M.dim,
         M.dims,
         tuple(M.radical_layers()),
         tuple(M.socle_layers()) if socle else (),
+        loewy_diagram(M) if diagram else None,
+        is_indecomposable_projective_injective(M) if diagram else None,
     )
 
 

@@ -108,6 +108,7 @@ class OrderVerdict:
     tilting: tuple[Any, ...] | None = None  # TiltingModule per simple, when quasi-hereditary
     ringel_dual_cartan: tuple[tuple[int, ...], ...] | None = None
     search: SearchSummary | None = None  # when the order was chosen by the search
+    tilting_summaries: tuple[ModuleSummary, ...] | None = None  # T(L): layers, Loewy diagram
 
     def axiom(self, name: str) -> Axiom:
         for a in self.axioms:
@@ -146,14 +147,25 @@ class OrderVerdict:
             "global_dimension_detail": None
             if self.global_dimension is None
             else self.global_dimension.to_dict(),
-            "tilting": None
-            if self.tilting is None
-            else [t.to_dict(self.vertices) for t in self.tilting],
+            "tilting": None if self.tilting is None else self._tilting_dicts(),
             "ringel_dual_cartan": None
             if self.ringel_dual_cartan is None
             else [list(r) for r in self.ringel_dual_cartan],
             **({} if self.search is None else {"search": self.search.to_dict()}),
         }
+
+    def _tilting_dicts(self) -> list[dict[str, Any]]:
+        out = []
+        for k, t in enumerate(self.tilting or ()):
+            d = t.to_dict(self.vertices)
+            if self.tilting_summaries is not None:
+                m = self.tilting_summaries[k]
+                d["label"] = m.label
+                d["socle_layers"] = [list(x) for x in m.socle_layers]
+                d["loewy_diagram"] = None if m.loewy_diagram is None else m.loewy_diagram.to_dict()
+                d["projective_injective"] = m.projective_injective
+            out.append(d)
+        return out
 
 
 def _schurian(A: BasicAlgebra, order: PartialOrder) -> Axiom:
@@ -465,4 +477,7 @@ def check_order(
         global_dimension=gd,
         tilting=tilt,
         ringel_dual_cartan=rcart,
+        tilting_summaries=None
+        if tilt is None
+        else tuple(summarise_module(t.module, f"T({A.vertices[t.vertex]})") for t in tilt),
     )

@@ -1,0 +1,230 @@
+"""Loewy diagrams: how the composition factors of a module are glued, layer by layer.
+
+The radical layers of a module ``M`` are ``M_k = rad^k M / rad^(k+1) M``; each
+splits by vertex, ``M_k = (+)_s M_k e_s``, and an arrow ``a: s -> t`` induces a
+linear map ``M_k e_s -> M_(k+1) e_t`` (``x + rad^(k+1) M`` goes to
+``x a + rad^(k+2) M``).  The Loewy diagram has one node per composition factor
+in each layer (``dim M_k e_s`` nodes labelled ``s`` in layer ``k``) and an edge
+from a node in layer ``k`` to a node in layer ``k + 1`` when some arrow maps
+the first node's basis vector to an element whose coordinate at the second
+node is nonzero.
+
+When every layer is multiplicity free (each simple at most once per layer) the
+basis vectors are determined up to scalars and the diagram does not depend on
+any choice.  Otherwise a basis has to be chosen, and the diagram is one of
+several valid drawings; the choice made here (see :func:`loewy_diagram`) keeps
+it sparse: each basis vector below the top is the image of one node of the
+layer above under one arrow, so that image contributes exactly one edge.
+
+Examples
+--------
+A chain: ``k[x]/(x^3)`` as a module over itself.
+
+>>> from hwcat.io.spec import load_spec_text
+>>> from hwcat.modules import projective
+>>> A = load_spec_text('field = "QQ"\\n[quiver]\\nvertices = ["1"]\\n'
+...                    'arrows = ["x: 1 -> 1"]\\nvanish_from_length = 3')
+>>> d = loewy_diagram(projective(A, 0))
+>>> [(n.layer, n.simple) for n in d.nodes], d.edges
+([(0, '1'), (1, '1'), (2, '1')], ((0, 1), (1, 2)))
+"""
+
+from __future__ import annotations
+
+from dataclasses import dataclass
+from typing import Any
+
+from hwcat.errors import InternalInconsistency
+from hwcat.exact import Mat, complement, select_independent_rows
+from hwcat.modules.module import Module, injective, projective
+
+__all__ = [
+    "LoewyNode",
+    "LoewyDiagram",
+    "loewy_diagram",
+    "is_indecomposable_projective_injective",
+]
+
+
+@dataclass(frozen=True)
+class LoewyNode:
+    """One composition factor in one radical layer: ``layer`` (0 = top) and its vertex."""
+
+    layer: int
+    vertex: int
+    simple: str
+
+    def to_dict(self) -> dict[str, Any]:
+        return {"layer": self.layer, "simple": self.simple}
+
+
+@dataclass(frozen=True)
+class LoewyDiagram:
+    """The Loewy diagram of a module (see the module notes for the definition).
+
+    ``nodes`` are sorted by layer, then by vertex (spec order); ``edges`` are
+    pairs ``(i, j)`` of node indices with ``nodes[j].layer == nodes[i].layer + 1``;
+    ``edge_arrows[e]`` names the arrows that realise edge ``e``.
+    ``multiplicity_free`` says whether every layer has each simple at most
+    once, in which case the diagram is independent of all choices.
+    """
+
+    nodes: tuple[LoewyNode, ...]
+    edges: tuple[tuple[int, int], ...]
+    edge_arrows: tuple[tuple[str, ...], ...]
+    multiplicity_free: bool
+
+    @property
+    def layers(self) -> int:
+        """The number of layers (the Loewy length)."""
+        return 1 + max((n.layer for n in self.nodes), default=-1)
+
+    def to_dict(self) -> dict[str, Any]:
+        return {
+            "nodes": [n.to_dict() for n in self.nodes],
+            "edges": [list(e) for e in self.edges],
+            "edge_arrows": [list(a) for a in self.edge_arrows],
+            "multiplicity_free": self.multiplicity_free,
+        }
+
+
+def loewy_diagram(module: Module) -> LoewyDiagram:
+    """The Loewy diagram of ``module``: nodes per radical layer and vertex, edges by arrows.
+
+    Notes
+    -----
+    Basis choice (it matters only when a simple occurs more than once in a
+    layer).  Layer 0 at vertex ``s`` gets the unit vectors of ``M_s`` that span
+    a complement of ``rad M`` (the module's minimal generators).  Layer
+    ``k + 1`` at vertex ``t`` is spanned by the images of the layer-``k`` basis
+    vectors under the arrows ending at ``t``; scanning the layer-``k`` nodes in
+    order and, for each, the arrows in the quiver's order, each image that is
+    independent (modulo ``rad^(k+2) M``) of the images kept before is kept, and
+    the kept images are the basis.  A kept image has a single nonzero
+    coordinate, so it adds exactly one edge; the edges of the other images are
+    read from their coordinates in that basis.
+
+    Examples
+    --------
+    The projective at the source of ``1 -> 2`` with two arrows (Kronecker
+    quiver): one top, two factors below, both reached.
+
+    >>> from hwcat.io.spec import load_spec_text
+    >>> from hwcat.modules import projective
+    >>> A = load_spec_text('field = "QQ"\\n[quiver]\\nvertices = ["1", "2"]\\n'
+    ...                    'arrows = ["a: 1 -> 2", "b: 1 -> 2"]')
+    >>> d = loewy_diagram(projective(A, 0))
+    >>> d.edges, d.edge_arrows, d.multiplicity_free
+    (((0, 1), (0, 2)), (('a',), ('b',)), False)
+    """
+    A = module.algebra
+    F = module.field
+    dims = module.dims
+    arrows = A.arrows
+    ser = module.radical_series()
+    nlayers = len(ser) - 1
+    if nlayers == 0:  # the zero module
+        return LoewyDiagram((), (), (), True)
+    # reps[k][v]: rows of M_v representing the basis of layer k at v
+    reps: list[list[Mat]] = [[complement(ser[1][v], d) for v, d in enumerate(dims)]]
+    # node index of the i-th basis vector of layer k at vertex v
+    nodes: list[LoewyNode] = []
+    index: dict[tuple[int, int, int], int] = {}
+
+    def add_layer(k: int) -> None:
+        for v in range(A.n):
+            for i in range(reps[k][v].nrows):
+                index[(k, v, i)] = len(nodes)
+                nodes.append(LoewyNode(k, v, A.vertices[v]))
+
+    add_layer(0)
+    edge_arrows: dict[tuple[int, int], list[str]] = {}
+    for k in range(nlayers - 1):
+        nxt: list[Mat] = []
+        for t, d in enumerate(dims):
+            want = ser[k + 1][t].nrows - ser[k + 2][t].nrows
+            cands: list[tuple[int, str]] = []  # (source node, arrow name) per row
+            rows: list[Mat] = []
+            for s in range(A.n):
+                B = reps[k][s]
+                if B.nrows == 0:
+                    continue
+                for ai, a in enumerate(arrows):
+                    if a.source != s or a.target != t:
+                        continue
+                    img = B @ module.maps[ai]
+                    for i in range(B.nrows):
+                        cands.append((index[(k, s, i)], a.name))
+                    rows.append(img)
+            if want == 0:
+                nxt.append(Mat.zeros(F, 0, d))
+                continue
+            stack = Mat.vstack(F, rows, d)
+            # order the candidate rows node by node (then arrow), as documented
+            order = sorted(range(len(cands)), key=lambda r: (cands[r][0], r))
+            stack = stack.take_rows(order)
+            cands = [cands[r] for r in order]
+            R2 = ser[k + 2][t]
+            kept = select_independent_rows(stack, R2)
+            if len(kept) != want:
+                raise InternalInconsistency(
+                    f"Loewy diagram: layer {k + 1} at {A.vertices[t]} has dimension {want} "
+                    f"but the arrows from layer {k} span {len(kept)}"
+                )
+            basis = stack.take_rows(kept)
+            nxt.append(basis)
+            coords = Mat.vstack(F, [basis, R2], d).solve_left(stack)
+            if coords is None:
+                raise InternalInconsistency("Loewy diagram: an image lies outside the layer")
+            _collect_edges(k, t, coords, cands, want, edge_arrows)
+        reps.append(nxt)
+        add_layer(k + 1)
+    # node indices of the layer below were assigned after the edges were read
+    edges = sorted(edge_arrows)
+    resolved = [(u, index[w]) for u, w in edges]
+    order = sorted(range(len(edges)), key=lambda e: resolved[e])
+    free = all(r.nrows <= 1 for layer in reps for r in layer)
+    return LoewyDiagram(
+        nodes=tuple(nodes),
+        edges=tuple(resolved[e] for e in order),
+        edge_arrows=tuple(tuple(edge_arrows[edges[e]]) for e in order),
+        multiplicity_free=free,
+    )
+
+
+def _collect_edges(k: int, t: int, coords: Mat, cands, want: int, edge_arrows) -> None:
+    """Record the edges given by the coordinates of the candidate images.
+
+    The target of an edge is the key ``(layer, vertex, basis index)`` (its node
+    index is assigned once the layer is complete).
+    """
+    for r, (u, name) in enumerate(cands):
+        for j in range(want):
+            if coords[r, j] != 0:
+                key = (u, (k + 1, t, j))
+                names = edge_arrows.setdefault(key, [])
+                if name not in names:
+                    names.append(name)
+
+
+def is_indecomposable_projective_injective(module: Module) -> bool:
+    """Whether ``module`` is an indecomposable projective-injective module.
+
+    Such a module has a simple top ``L(i)`` and a simple socle ``L(j)``; a
+    module with simple top ``L(i)`` is a quotient of ``P(i)``, so it is ``P(i)``
+    exactly when the dimensions agree, and dually a module with simple socle
+    ``L(j)`` embeds in ``I(j)`` and is ``I(j)`` exactly when the dimensions
+    agree.
+
+    >>> from hwcat.io.spec import load_spec_text
+    >>> from hwcat.modules import projective
+    >>> A = load_spec_text('field = "QQ"\\n[quiver]\\nvertices = ["1", "2"]\\narrows = ["a: 1 -> 2"]')
+    >>> [is_indecomposable_projective_injective(projective(A, s)) for s in range(2)]
+    [True, False]
+    """
+    top, soc = module.top(), module.socle()
+    if sum(top) != 1 or sum(soc) != 1:
+        return False
+    A = module.algebra
+    i, j = top.index(1), soc.index(1)
+    return module.dims == projective(A, i).dims == injective(A, j).dims
