@@ -346,8 +346,15 @@ class _Algebra:
             L = max(L, m)
         return L
 
+    def value(self, p: tuple[int, ...]) -> Mat:
+        """The element of ``A`` that the path ``p`` (of length >= 1) stands for, as a row."""
+        s = self.arrows[p[0]][0]
+        return self.push(
+            s, Mat.unit_rows(self.F, self.dim(s, s), [self.pos[self.index[(s, ())]]]), p
+        )
+
     def _check_relations(self, rels: list) -> None:
-        F = self.F
+        F, previous = self.F, None
         for r, rel in enumerate(rels):
             terms, key = [], None
             for term in _list(rel, f"relation {r}") or [None]:
@@ -363,20 +370,32 @@ class _Algebra:
                 terms.append((_coef(F, term[0], f"relation {r} coefficient"), p))
             if terms[0][0] != F.one:
                 raise Rejected(f"relation {r}: the leading coefficient is not 1")
+            order = ([(len(p), [self.arrow_names[a] for a in p]) for _, p in terms], rel)
+            if previous is not None and (order[0] < previous[0] or order == previous):
+                raise Rejected(
+                    f"relation {r}: relations must be sorted by their paths, without repeats"
+                )
+            previous = order
             s = self.arrows[terms[0][1][0]][0]
             t = self.walk(s, terms[0][1], f"relation {r}")
             total = Mat.zeros(F, 1, self.dim(s, t))
             for c, p in terms:
                 if self.arrows[p[0]][0] != s or self.walk(s, p, f"relation {r}") != t:
                     raise Rejected(f"relation {r}: its paths do not share start and end")
-                img = self.push(
-                    s, Mat.unit_rows(F, self.dim(s, s), [self.pos[self.index[(s, ())]]]), p
-                )
+                img = self.value(p)
                 if len(terms) > 1 and img.is_zero():
                     raise Rejected(
                         f"relation {r}: a term of a relation with several terms is a zero path"
                     )
                 total = total + img.scale(c)
+            p = terms[0][1]
+            if len(terms) == 1 and (
+                len(p) >= self.loewy or self.value(p[:-1]).is_zero() or self.value(p[1:]).is_zero()
+            ):
+                raise Rejected(
+                    f"relation {r}: a zero path must be minimal (prefix and suffix nonzero) and "
+                    "shorter than vanish_from_length"
+                )
             if not total.is_zero():
                 raise Rejected(f"relation {r} does not hold in the algebra")
 
@@ -533,6 +552,8 @@ def verify_certificate(cert: Any) -> Verdict:
         _check_chain(A, chain, less, claim, ev)
     except Rejected as exc:
         return Verdict(False, claim, str(exc))
+    except Exception as exc:  # never accept what could not be checked
+        return Verdict(False, claim, f"could not be checked: {type(exc).__name__}: {exc}")
     what = "quasi-hereditary" if claim else "not quasi-hereditary"
     return Verdict(
         True,

@@ -17,11 +17,13 @@ independent check over all linear extensions), else
 
 from __future__ import annotations
 
+import json
 from dataclasses import dataclass
 from typing import Any
 
 from hwcat.algebras.hub.basic import BasicAlgebra
-from hwcat.algebras.reduction.presentation import presentation
+from hwcat.algebras.hub.quiver import parse_relation
+from hwcat.algebras.reduction.presentation import loewy_length, presentation
 from hwcat.errors import InternalInconsistency
 from hwcat.exact import Mat, echelon
 from hwcat.theory.highest_weight import heredity_chain, trace_cache
@@ -92,21 +94,71 @@ def _algebra_json(A: BasicAlgebra) -> tuple[dict[str, Any], dict[tuple[int, int,
             ]
             if terms:
                 action.append([i, a, terms])
-    P = presentation(A, check=False)
+    relations, vanish = _relations(A)
     names = [a.name for a in A.arrows]
-    relations = []
-    for rel in P.relations:
+    rel_json = []
+    for rel in relations:
         terms = sorted(rel.items(), key=lambda pc: (len(pc[0]), [names[x] for x in pc[0]]))
         lead = terms[0][1]
-        relations.append([[F.to_int_or_str(c / lead), list(p)] for p, c in terms])
+        rel_json.append([[F.to_int_or_str(c / lead), list(p)] for p, c in terms])
+    # sorted by their paths, without repeats (the checker's canonical form)
+    rel_json = sorted(
+        {json.dumps(r): r for r in rel_json}.values(),
+        key=lambda r: ([(len(p), [names[x] for x in p]) for _, p in r], json.dumps(r)),
+    )
     return {
         "vertices": list(A.vertices),
         "arrows": [[a.name, a.source, a.target] for a in A.arrows],
         "basis": basis,
         "right_action": action,
-        "relations": relations,
-        "vanish_from_length": P.vanish_from_length,
+        "relations": rel_json,
+        "vanish_from_length": vanish,
     }, gid
+
+
+def _relations(A: BasicAlgebra) -> tuple[list[dict], int | None]:
+    """Relations generating the kernel of ``kQ -> A`` together with the paths of length ``L``.
+
+    The spec's own relations when ``A`` was given by a quiver with relations
+    (``L`` = the Loewy length: paths that long vanish in ``A`` anyway, and the
+    spec's ``vanish_from_length`` is at least ``L``), else the minimal relations
+    of :func:`~hwcat.algebras.reduction.presentation.presentation` (whose cost
+    grows with the number of paths).  In a relation with several terms, terms
+    whose path is zero in ``A`` become relations of their own, so that every
+    coefficient written is seen by the checker.
+    """
+    if A.relations is None:
+        P = presentation(A, check=False)
+        return list(P.relations), P.vanish_from_length
+    L = loewy_length(A)
+    out: list[dict] = []
+    for text in A.relations:
+        rel = {p: c for p, c in parse_relation(text, A.quiver, A.field).items() if c != 0}
+        zero = [p for p in rel if _is_zero_path(A, p)]
+        live = {p: c for p, c in rel.items() if p not in zero}
+        if live:
+            out.append(live)
+        for p in zero:  # a minimal zero subpath generates p; drop it if paths that long vanish
+            q = _minimal_zero_subpath(A, p)
+            if len(q) < L:
+                out.append({q: A.field.one})
+    return out, (L if A.arrows else None)
+
+
+def _minimal_zero_subpath(A: BasicAlgebra, p: tuple[int, ...]) -> tuple[int, ...]:
+    for length in range(2, len(p) + 1):
+        for i in range(len(p) - length + 1):
+            if _is_zero_path(A, p[i : i + length]):
+                return p[i : i + length]
+    raise InternalInconsistency(f"path {p} is not zero")
+
+
+def _is_zero_path(A: BasicAlgebra, p: tuple[int, ...]) -> bool:
+    s = A.arrows[p[0]].source
+    v = Mat.unit_rows(A.field, A.block_dim(s, s), [0])
+    for a in p:
+        v = v @ A.action[s][a]
+    return v.is_zero()
 
 
 def _rows(A: BasicAlgebra, M: Mat) -> list[list[Any]]:
@@ -131,7 +183,7 @@ def _kernel_witness(A, tc, S: int, u: int, s: int, gid) -> dict[str, Any]:
     xs = _greedy(Ks[u], A.block_dim(s, u), [gid[(s, u, k)] for k in range(A.block_dim(s, u))])
     xk = [i - gid[(s, u, 0)] for i in xs]
     for t in range(A.n):
-        if not A.block_dim(u, t) or not A.block_dim(s, t) or not xs:
+        if not A.block_dim(u, t) or not xs:
             continue
         ys = _greedy(Ku[t], A.block_dim(u, t), [gid[(u, t, k)] for k in range(A.block_dim(u, t))])
         if not ys:
