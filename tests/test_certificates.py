@@ -266,3 +266,33 @@ def test_schemas_reject_wrong_outputs(schemas):
         schemas["certificate"].validate(
             {"format": "hwcat-certificate", "version": 1, "quasi_hereditary": "yes"}
         )
+
+
+# -- hwcat.testing ----------------------------------------------------------------------------
+def test_readme_collaborator_example_runs():
+    """The ten-line test file shown in README.md passes as written."""
+    text = open("README.md", encoding="utf-8").read()
+    block = text.split("collaborator's `tests/test_our_algebra.py`:")[1]
+    code = block.split("```python\n")[1].split("```")[0]
+    assert len(code.strip().splitlines()) <= 12
+    env: dict = {}
+    exec(compile(code, "README.md", "exec"), env)
+    env["test_highest_weight"]()
+
+
+def test_testing_helpers_fail_with_witness():
+    from hwcat.testing import assert_cartan, assert_not_quasi_hereditary, assert_quasi_hereditary
+
+    lantern = f"{EXAMPLES}/lantern.toml"
+    with pytest.raises(AssertionError, match="kernel element"):
+        assert_quasi_hereditary(lantern, "top > left > right > base")
+    with pytest.raises(AssertionError, match="not quasi-hereditary for any order"):
+        assert_quasi_hereditary(f"{EXAMPLES}/carousel.toml")
+    with pytest.raises(AssertionError, match=r"standard modules: Delta\(base\)"):
+        assert_not_quasi_hereditary(lantern)
+    with pytest.raises(AssertionError, match=r"\[P\(base\) : L\(base\)\] = 1, expected 2"):
+        assert_cartan(lantern, [[2, 0, 1, 1], [1, 1, 0, 0], [1, 0, 2, 1], [1, 1, 1, 1]])
+    # a hereditary algebra: quasi-hereditary for every order (Dlab-Ringel 1989)
+    A = algebra_from_spec(linear_A(3))
+    for perm in itertools.permutations(range(3)):
+        assert_quasi_hereditary(A, total_order(A.vertices, perm))
