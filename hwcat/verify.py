@@ -164,7 +164,7 @@ class _Algebra:
     def __init__(self, F: Field, d: dict) -> None:
         self.F = F
         names = _get(d, "vertices", list, "algebra.")
-        if not names or len(set(map(str, names))) != len(names):
+        if not names or not all(isinstance(x, str) for x in names) or len(set(names)) != len(names):
             raise Rejected("algebra.vertices: empty or repeated")
         self.names, n = names, len(names)
         self.n = n
@@ -174,6 +174,8 @@ class _Algebra:
         for i, a in enumerate(arrows):
             if not (isinstance(a, list) and len(a) == 3 and isinstance(a[0], str)):
                 raise Rejected(f"algebra.arrows[{i}]: expected [name, source, target]")
+            if a[0] in self.arrow_names[:i]:
+                raise Rejected(f"algebra.arrows[{i}]: repeated name {a[0]!r}")
             self.arrows.append(
                 (_int(a[1], 0, n, f"arrow {i} source"), _int(a[2], 0, n, f"arrow {i} target"))
             )
@@ -566,6 +568,8 @@ def verify_certificate(cert: Any) -> Verdict:
 def _check_chain(A: _Algebra, chain: list[int], less, claim: bool, ev: dict) -> None:
     F, n = A.F, A.n
     J = [[Mat.zeros(F, 0, A.dim(s, t)) for t in range(n)] for s in range(n)]
+    if set(ev) != ({"steps"} if claim else {"failure"}):
+        raise Rejected("evidence: a positive claim has only 'steps', a negative one only 'failure'")
     steps = ev.get("steps") if claim else None
     if claim and (not isinstance(steps, list) or len(steps) != n):
         raise Rejected("evidence.steps: one step per vertex is needed for a positive claim")
