@@ -79,9 +79,9 @@ def assert_quasi_hereditary(spec_or_algebra: Any, order: Any = None) -> None:
     A, spec_order = as_algebra(spec_or_algebra)
     po = _order(A, order, spec_order)
     if po is None:
-        from hwcat.theory.certificate import _search
+        from hwcat.theory.certificate import proposed_order
 
-        po, note = _search(A)
+        po, note = proposed_order(A)
         if not heredity_chain(A, po).holds:
             raise AssertionError(
                 f"not quasi-hereditary for any order; {note}: {po.chain_text()}: "
@@ -102,9 +102,9 @@ def assert_not_quasi_hereditary(spec_or_algebra: Any, order: Any = None) -> None
     A, spec_order = as_algebra(spec_or_algebra)
     po = _order(A, order, spec_order)
     if po is None:
-        from hwcat.theory.certificate import _search
+        from hwcat.theory.certificate import proposed_order
 
-        po, note = _search(A)
+        po, note = proposed_order(A)
         if heredity_chain(A, po).holds:
             raise AssertionError(
                 f"quasi-hereditary for {po.chain_text()} ({note}; standard modules: "

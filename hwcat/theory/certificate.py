@@ -29,7 +29,7 @@ from hwcat.exact import Mat, echelon
 from hwcat.theory.highest_weight import heredity_chain, trace_cache
 from hwcat.theory.orders import PartialOrder, total_order
 
-__all__ = ["Certificate", "certify", "FORMAT", "VERSION"]
+__all__ = ["Certificate", "certify", "proposed_order", "FORMAT", "VERSION"]
 
 FORMAT = "hwcat-certificate"
 VERSION = 1
@@ -51,7 +51,7 @@ class Certificate:
         return self.data
 
 
-def _search(A: BasicAlgebra) -> tuple[PartialOrder, str]:
+def proposed_order(A: BasicAlgebra) -> tuple[PartialOrder, str]:
     """The order the search proposes: the first structure's essential order, else the best attempt.
 
     This is the only place where the certificates use the order search.
@@ -257,7 +257,7 @@ def certify(
     (False, 'corner')
     """
     if order is None:
-        order, order_source = _search(A)
+        order, order_source = proposed_order(A)
     tc = trace_cache(A)
     chain = list(order.first_extension())
     less = None if order.is_total else order.less
