@@ -296,3 +296,28 @@ def test_testing_helpers_fail_with_witness():
     A = algebra_from_spec(linear_A(3))
     for perm in itertools.permutations(range(3)):
         assert_quasi_hereditary(A, total_order(A.vertices, perm))
+
+
+@pytest.mark.parametrize(
+    "text, qh",
+    [
+        ('field = "QQ"\n[quiver]\nvertices = ["1", "2"]\narrows = []', True),
+        (
+            'field = "GF(2)"\n[quiver]\nvertices = ["x"]\narrows = ["t: x -> x"]\nvanish_from_length = 3',
+            False,
+        ),
+        (
+            'field = "QQ"\n[quiver]\nvertices = ["1", "2"]\narrows = ["a: 1 -> 2", "b: 2 -> 1"]\nrelations = ["a*b*a", "b*a*b"]',
+            False,
+        ),
+    ],
+)
+def test_small_cases(text, qh):
+    """Semisimple: quasi-hereditary (common practice); k[t]/(t^3) and the cyclic Nakayama
+    algebra with Kupisch series (3, 3) are self-injective, not semisimple: never (Ringel 2010)."""
+    from hwcat.io.spec import load_spec_text
+
+    data = certify(load_spec_text(text)).data
+    v = verify_certificate(data)
+    assert v.accepted and v.quasi_hereditary is qh
+    _assert_tamper_evident(data, random.Random(0), 40)
