@@ -82,3 +82,7 @@ class NotSplitError(HwcatError, ValueError):
 
 class InternalInconsistency(HwcatError, AssertionError):
     """Two independent computations of the same fact disagree: a bug in hwcat."""
+
+
+class CertificateError(HwcatError, ValueError):
+    """A certificate file that cannot be read or is not a certificate (wrong shape or version)."""

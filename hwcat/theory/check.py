@@ -28,7 +28,7 @@ from hwcat.theory.orders import PartialOrder, parse_order, total_order
 from hwcat.theory.search import quasi_hereditary_orders
 from hwcat.theory.verdict import OrderVerdict, SearchSummary, check_order
 
-__all__ = ["as_order", "order_or_search", "check"]
+__all__ = ["as_order", "order_or_search", "chosen_by_search", "check"]
 
 
 def as_order(A: BasicAlgebra, order: PartialOrder | str | Sequence[str]) -> PartialOrder:
@@ -61,6 +61,31 @@ def order_or_search(
     return r.structure_list[0].essential_order if r.quasi_hereditary else None
 
 
+def chosen_by_search(A: BasicAlgebra) -> tuple[PartialOrder, str, SearchSummary]:
+    """The order the search proposes, where it came from, and what the search found.
+
+    The essential order of the first structure found; when no order makes the
+    algebra quasi-hereditary, the search's best attempt (its longest heredity
+    chain, then the remaining vertices in spec order).
+    """
+    r = quasi_hereditary_orders(A, list_limit=1)
+    summary = SearchSummary(
+        quasi_hereditary_for_some_order=r.quasi_hereditary,
+        quasi_hereditary_total_orders=r.quasi_hereditary_total_orders,
+        structures=r.structures,
+        longest_heredity_chain=tuple(A.vertices[i] for i in r.best_attempt),
+    )
+    if r.quasi_hereditary:
+        return (
+            r.structure_list[0].essential_order,
+            "found by search: essential order of a structure",
+            summary,
+        )
+    chain = list(r.best_attempt)
+    rest = [v for v in range(A.n) if v not in chain]
+    return total_order(A.vertices, chain + rest), "best attempt of the search", summary
+
+
 def check(
     A: BasicAlgebra,
     order: PartialOrder | str | Sequence[str] | None = None,
@@ -74,25 +99,12 @@ def check(
         order, order_source = A.natural_order, "the family's natural order"
     if order is not None:
         return check_order(A, as_order(A, order), order_source=order_source, homological=homological)
-    r = quasi_hereditary_orders(A, list_limit=1)
-    summary = SearchSummary(
-        quasi_hereditary_for_some_order=r.quasi_hereditary,
-        quasi_hereditary_total_orders=r.quasi_hereditary_total_orders,
-        structures=r.structures,
-        longest_heredity_chain=tuple(A.vertices[i] for i in r.best_attempt),
-    )
-    if r.quasi_hereditary:
-        chosen = r.structure_list[0].essential_order
-        source = "found by search: essential order of a structure"
-    else:
-        chain = list(r.best_attempt)
-        rest = [v for v in range(A.n) if v not in chain]
-        chosen = total_order(A.vertices, chain + rest)
-        source = "best attempt of the search"
+    chosen, source, summary = chosen_by_search(A)
     verdict = check_order(A, chosen, order_source=source, homological=homological)
-    if verdict.quasi_hereditary != r.quasi_hereditary:
+    if verdict.quasi_hereditary != summary.quasi_hereditary_for_some_order:
         raise InternalInconsistency(
-            f"the search says quasi-hereditary for some order: {r.quasi_hereditary}, "
+            "the search says quasi-hereditary for some order: "
+            f"{summary.quasi_hereditary_for_some_order}, "
             f"but the verdict for its chosen order {chosen.chain_text()} says "
             f"{verdict.quasi_hereditary}"
         )

@@ -1,0 +1,323 @@
+"""Certificates (hwcat certify) and the independent checker (hwcat verify).
+
+Outside facts used:
+* V. Dlab, C. M. Ringel, Quasi-hereditary algebras, Illinois J. Math. 33 (1989):
+  an algebra is hereditary iff every order is adapted; the heredity-ideal criterion.
+* T. Bruestle, L. Hille, C. M. Ringel, G. Roehrle, Algebr. Represent. Theory 2
+  (1999): the Auslander algebra of k[T]/(T^n) is quasi-hereditary.
+* Dlab and Ringel 1989 with C. M. Ringel, J. Pure Appl. Algebra 214 (2010):
+  quasi-hereditary algebras have finite global dimension, so the group algebra
+  of a p-group in characteristic p (self-injective, not semisimple; Maschke,
+  common practice) is quasi-hereditary for no order.
+The heredity-chain check of hwcat.theory is the independent computation the
+checker must agree with; everything else is a round trip or a tampering test.
+"""
+
+import copy
+import itertools
+import json
+import random
+
+import pytest
+from hypothesis import given, settings
+from hypothesis import strategies as st
+
+from hwcat.algebras.families.quivers import auslander_truncated_polynomial, linear_A
+from hwcat.algebras.families.registry import family_algebra
+from hwcat.cli import main
+from hwcat.exact import GF, QQ
+from hwcat.io.spec import build_algebra, read_spec
+from hwcat.strategies import algebra_from_spec, bound_quiver_algebras
+from hwcat.theory.certificate import certify
+from hwcat.theory.highest_weight import heredity_chain
+from hwcat.theory.orders import parse_order, total_order
+from hwcat.verify import Malformed, verify_certificate
+
+EXAMPLES = "specs/examples"
+
+
+def _numbers(x, path=()):
+    """Paths to every number in a JSON object (ints, and fractions written as strings)."""
+    if isinstance(x, bool):
+        return
+    if isinstance(x, int) or (isinstance(x, str) and "/" in x and x[-1].isdigit()):
+        yield path
+    elif isinstance(x, list):
+        for i, y in enumerate(x):
+            yield from _numbers(y, path + (i,))
+    elif isinstance(x, dict):
+        for k, y in x.items():
+            yield from _numbers(y, path + (k,))
+
+
+def _get(d, path):
+    for k in path:
+        d = d[k]
+    return d
+
+
+def _set(d, path, v):
+    for k in path[:-1]:
+        d = d[k]
+    d[path[-1]] = v
+
+
+def _changed(x, rng):
+    if isinstance(x, str):  # a fraction p/q: change the numerator, or write it non-canonically
+        p, q = x.split("/")
+        return rng.choice([f"{int(p) + 1}/{q}", f"{2 * int(p)}/{2 * int(q)}", f"{p}/{int(q) + 1}"])
+    return x + rng.choice([-2, -1, 1, 2, 3])
+
+
+def _rejects(cert):
+    try:
+        return not verify_certificate(cert).accepted
+    except Malformed:
+        return True
+
+
+def _assert_tamper_evident(data, rng, count):
+    """Changing any one number, or flipping the verdict, makes verification fail."""
+    paths = list(_numbers(data))
+    for path in rng.sample(paths, min(count, len(paths))):
+        bad = copy.deepcopy(data)
+        _set(bad, path, _changed(_get(data, path), rng))
+        assert _rejects(bad), f"changing {path} went unnoticed"
+    flipped = copy.deepcopy(data)
+    flipped["quasi_hereditary"] = not data["quasi_hereditary"]
+    assert _rejects(flipped)
+
+
+@pytest.fixture(scope="module")
+def schemas():
+    jsonschema = pytest.importorskip("jsonschema")
+    from hwcat.schemas import SCHEMAS, schema
+
+    return {name: jsonschema.Draft202012Validator(schema(name)) for name in SCHEMAS}
+
+
+# -- demo specs through the command line -----------------------------------------------------
+DEMOS = [
+    ("lantern.toml", [], 0),
+    ("lantern.toml", ["--order", "top > left > right > base"], 1),
+    ("kite.toml", [], 0),
+    ("carousel.toml", [], 1),
+]
+
+
+@pytest.mark.parametrize("spec, extra, code", DEMOS)
+def test_demo_round_trip(tmp_path, capsys, schemas, spec, extra, code):
+    out = tmp_path / "cert.json"
+    assert main(["certify", f"{EXAMPLES}/{spec}", *extra, "-o", str(out)]) == code
+    data = json.loads(out.read_text())
+    schemas["certificate"].validate(data)
+    assert data["quasi_hereditary"] is (code == 0)
+    capsys.readouterr()
+    assert main(["verify", str(out), "--json"]) == 0
+    v = json.loads(capsys.readouterr().out)
+    schemas["verify"].validate(v)
+    assert v == {"accepted": True, "quasi_hereditary": code == 0, "reason": v["reason"]}
+    # the verdict agrees with hwcat check (exit codes: 0 yes, 1 no)
+    assert main(["check", f"{EXAMPLES}/{spec}", *extra, "--no-homological"]) == code
+    _assert_tamper_evident(data, random.Random(spec + str(extra)), 60)
+
+
+def test_carousel_certificate_says_no_order_works(tmp_path, capsys):
+    out = tmp_path / "c.json"
+    assert main(["certify", f"{EXAMPLES}/carousel.toml", "-o", str(out)]) == 1
+    assert "no order makes the algebra quasi-hereditary" in json.loads(out.read_text())["note"]
+
+
+def test_verify_exit_codes(tmp_path, capsys):
+    out = tmp_path / "cert.json"
+    main(["certify", f"{EXAMPLES}/kite.toml", "-o", str(out)])
+    data = json.loads(out.read_text())
+    data["quasi_hereditary"] = False
+    bad = tmp_path / "flipped.json"
+    bad.write_text(json.dumps(data))
+    capsys.readouterr()
+    assert main(["verify", str(bad)]) == 1
+    line = capsys.readouterr().out.strip()
+    assert line.startswith("REJECTED: ") and "\n" not in line
+    for text in ["not json", "[]", '{"format": "hwcat-certificate", "version": 7}']:
+        bad.write_text(text)
+        assert main(["verify", str(bad)]) == 2
+    assert main(["verify", str(tmp_path / "missing.json")]) == 2
+
+
+def test_every_number_of_a_small_certificate(tmp_path):
+    """Exhaustive: every number of the kite's certificate, changed, is noticed."""
+    spec = read_spec(f"{EXAMPLES}/kite.toml")
+    A = build_algebra(spec)
+    data = certify(A, parse_order(spec.order, A.vertices)).data
+    rng = random.Random(1)
+    for path in _numbers(data):
+        bad = copy.deepcopy(data)
+        _set(bad, path, _changed(_get(data, path), rng))
+        assert _rejects(bad), f"changing {path} went unnoticed"
+
+
+def test_non_canonical_coefficients_rejected():
+    A = build_algebra(read_spec(f"{EXAMPLES}/carousel.toml"))  # over GF(5)
+    data = certify(A, total_order(A.vertices, [0, 1, 2])).data
+    assert verify_certificate(data).accepted
+    entry = data["algebra"]["right_action"][0][2][0]
+    for c in [entry[1] + 5, -entry[1], 0, str(entry[1]), float(entry[1]), True]:
+        bad = copy.deepcopy(data)
+        bad["algebra"]["right_action"][0][2][0][1] = c
+        v = verify_certificate(bad)
+        assert not v.accepted
+    kite = build_algebra(read_spec(f"{EXAMPLES}/kite.toml"))  # over QQ, with 3/2
+    data = certify(kite).data
+    text = json.dumps(data)
+    assert '"3/2"' in text
+    for c in ['"6/4"', '"3/2 "', '"+3/2"', '"1.5"']:
+        assert _rejects(json.loads(text.replace('"3/2"', c, 1)))
+
+
+# -- outside facts --------------------------------------------------------------------------
+def test_hereditary_every_order_certified():
+    """Dlab-Ringel 1989: a hereditary algebra is quasi-hereditary for every order."""
+    A = algebra_from_spec(linear_A(4))
+    for perm in itertools.permutations(range(4)):
+        data = certify(A, total_order(A.vertices, perm)).data
+        v = verify_certificate(data)
+        assert v.accepted and v.quasi_hereditary
+
+
+def test_auslander_algebra_certified():
+    """Bruestle-Hille-Ringel-Roehrle 1999: the Auslander algebra of k[T]/(T^n) is quasi-hereditary."""
+    A = algebra_from_spec(auslander_truncated_polynomial(3, field=GF(3)))
+    data = certify(A).data
+    v = verify_certificate(json.loads(json.dumps(data)))
+    assert v.accepted and v.quasi_hereditary
+
+
+def test_group_algebra_of_p_group_certified_negative():
+    """Ringel 2010 + Maschke: k[C_4] over GF(2) is quasi-hereditary for no order."""
+    A = family_algebra("cyclic-group", m="4", field="GF(2)")
+    data = certify(A).data
+    assert data["quasi_hereditary"] is False
+    assert data["evidence"]["failure"]["condition"] == "corner"
+    v = verify_certificate(data)
+    assert v.accepted and v.quasi_hereditary is False
+
+
+# -- random algebras ------------------------------------------------------------------------
+@settings(max_examples=20)
+@given(
+    bound_quiver_algebras(max_vertices=3, max_arrows=4, field=st.sampled_from([GF(2), GF(3), QQ])),
+    st.randoms(use_true_random=False),
+)
+def test_random_algebras(A, rng):
+    perm = list(range(A.n))
+    rng.shuffle(perm)
+    order = total_order(A.vertices, perm)
+    data = json.loads(json.dumps(certify(A, order).data))
+    v = verify_certificate(data)
+    assert v.accepted
+    # agrees with the independent heredity-chain computation
+    assert v.quasi_hereditary == heredity_chain(A, order).holds
+    _assert_tamper_evident(data, rng, 6)
+    if v.quasi_hereditary and A.n > 1:
+        # a certificate presented for another order is rejected
+        other = copy.deepcopy(data)
+        chain = other["order"]["chain"]
+        i = rng.randrange(A.n - 1)
+        chain[i], chain[i + 1] = chain[i + 1], chain[i]
+        assert _rejects(other)
+
+
+@settings(max_examples=15)
+@given(bound_quiver_algebras(min_vertices=2, max_vertices=4, max_arrows=5, acyclic=True))
+def test_random_partial_orders_match_check(A):
+    """The search's essential order (partial): the verdict agrees with the heredity-chain check."""
+    cert = certify(A)
+    v = verify_certificate(cert.data)
+    assert v.accepted
+    assert v.quasi_hereditary == heredity_chain(A, cert.order).holds
+
+
+# -- schemas of the --json outputs ------------------------------------------------------------
+@pytest.mark.parametrize(
+    "argv, name",
+    [
+        (["describe", f"{EXAMPLES}/lantern.toml"], "describe"),
+        (["check", f"{EXAMPLES}/lantern.toml"], "check"),
+        (["check", f"{EXAMPLES}/carousel.toml"], "check"),
+        (["check", f"{EXAMPLES}/kite.toml", "--no-homological"], "check"),
+        (["orders", f"{EXAMPLES}/kite.toml"], "orders"),
+        (["orders", f"{EXAMPLES}/carousel.toml"], "orders"),
+        (["family", "linear-a", "n=3"], "family"),
+        (["family", "cyclic-group", "m=2", "field=GF(2)"], "family"),
+    ],
+)
+def test_json_outputs_match_schemas(capsys, schemas, argv, name):
+    main([*argv, "--json"])
+    schemas[name].validate(json.loads(capsys.readouterr().out))
+
+
+def test_schemas_reject_wrong_outputs(schemas):
+    import jsonschema
+
+    with pytest.raises(jsonschema.ValidationError):
+        schemas["orders"].validate({"name": "x"})
+    with pytest.raises(jsonschema.ValidationError):
+        schemas["certificate"].validate(
+            {"format": "hwcat-certificate", "version": 1, "quasi_hereditary": "yes"}
+        )
+
+
+# -- hwcat.testing ----------------------------------------------------------------------------
+def test_readme_collaborator_example_runs():
+    """The ten-line test file shown in README.md passes as written."""
+    text = open("README.md", encoding="utf-8").read()
+    block = text.split("collaborator's `tests/test_our_algebra.py`:")[1]
+    code = block.split("```python\n")[1].split("```")[0]
+    assert len(code.strip().splitlines()) <= 12
+    env: dict = {}
+    exec(compile(code, "README.md", "exec"), env)
+    env["test_highest_weight"]()
+
+
+def test_testing_helpers_fail_with_witness():
+    from hwcat.testing import assert_cartan, assert_not_quasi_hereditary, assert_quasi_hereditary
+
+    lantern = f"{EXAMPLES}/lantern.toml"
+    with pytest.raises(AssertionError, match="kernel element"):
+        assert_quasi_hereditary(lantern, "top > left > right > base")
+    with pytest.raises(AssertionError, match="not quasi-hereditary for any order"):
+        assert_quasi_hereditary(f"{EXAMPLES}/carousel.toml")
+    with pytest.raises(AssertionError, match=r"standard modules: Delta\(base\)"):
+        assert_not_quasi_hereditary(lantern)
+    with pytest.raises(AssertionError, match=r"\[P\(base\) : L\(base\)\] = 1, expected 2"):
+        assert_cartan(lantern, [[2, 0, 1, 1], [1, 1, 0, 0], [1, 0, 2, 1], [1, 1, 1, 1]])
+    # a hereditary algebra: quasi-hereditary for every order (Dlab-Ringel 1989)
+    A = algebra_from_spec(linear_A(3))
+    for perm in itertools.permutations(range(3)):
+        assert_quasi_hereditary(A, total_order(A.vertices, perm))
+
+
+@pytest.mark.parametrize(
+    "text, qh",
+    [
+        ('field = "QQ"\n[quiver]\nvertices = ["1", "2"]\narrows = []', True),
+        (
+            'field = "GF(2)"\n[quiver]\nvertices = ["x"]\narrows = ["t: x -> x"]\nvanish_from_length = 3',
+            False,
+        ),
+        (
+            'field = "QQ"\n[quiver]\nvertices = ["1", "2"]\narrows = ["a: 1 -> 2", "b: 2 -> 1"]\nrelations = ["a*b*a", "b*a*b"]',
+            False,
+        ),
+    ],
+)
+def test_small_cases(text, qh):
+    """Semisimple: quasi-hereditary (common practice); k[t]/(t^3) and the cyclic Nakayama
+    algebra with Kupisch series (3, 3) are self-injective, not semisimple: never (Ringel 2010)."""
+    from hwcat.io.spec import load_spec_text
+
+    data = certify(load_spec_text(text)).data
+    v = verify_certificate(data)
+    assert v.accepted and v.quasi_hereditary is qh
+    _assert_tamper_evident(data, random.Random(0), 40)
