@@ -203,22 +203,74 @@ def GF(p: int) -> PrimeField:
     return _prime_field(p)
 
 
-_FIELD_NAME = re.compile(r"^\s*(?:GF|F)\s*\(\s*(\d+)\s*\)\s*$")
+_FIELD_NAME = re.compile(
+    r"^\s*(?:GF|F)\s*\(\s*(\d+)\s*(?:\^\s*(\d+)\s*)?(?:,\s*([A-Za-z_][A-Za-z0-9_]*)\s*)?\)\s*$"
+)
+_CYCLO = re.compile(r"^\s*QQ\s*\(\s*zeta\s*(\d+)\s*\)\s*$")
+_QUOTIENT = re.compile(r"^\s*(QQ|GF\s*\(\s*\d+\s*\))\s*\[\s*([A-Za-z_][A-Za-z0-9_]*)\s*\]\s*/\s*\((.*)\)\s*$")
+_FIELD_HELP = (
+    'expected "QQ", "GF(p)", "GF(q)" or "GF(p^k)" (q = p^k a prime power, optionally '
+    '"GF(q, w)" to name the generator w), "QQ(zetaN)", or "QQ[r]/(r^2 - 2)"'
+)
+
+
+def _prime_power(q: int) -> tuple[int, int] | None:
+    if q < 2:
+        return None
+    for p, k in flint.fmpz(q).factor():
+        return (int(p), int(k)) if int(p) ** int(k) == q else None
+    return None  # pragma: no cover
 
 
 def parse_field(text: str) -> Field:
-    """Parse ``"QQ"`` or ``"GF(p)"``.
+    """Parse a field name: ``QQ``, ``GF(p)``, ``GF(q)``, ``GF(p^k)``, ``QQ(zetaN)``,
+    ``QQ[r]/(r^2 - 2)`` or ``GF(p)[w]/(w^2 + 1)`` (see :mod:`hwcat.exact.extension`).
 
     >>> parse_field("QQ")
     QQ
     >>> parse_field("GF(2)")
     GF(2)
+    >>> parse_field("GF(2^3)"), parse_field("GF(9, w)").gen_name
+    (GF(8), 'w')
+    >>> parse_field("QQ(zeta8)").modulus_text()
+    'zeta8^4 + 1'
+    >>> parse_field("QQ[r]/(r^2 - 4)")
+    Traceback (most recent call last):
+    ...
+    hwcat.errors.FieldError: 'QQ[r]/(r^2 - 4)': the polynomial is reducible; it has the factor r - 2
     """
+    from hwcat.exact.extension import cyclotomic_field, finite_field, number_field
+
     if not isinstance(text, str):
-        raise FieldError(f'field {text!r}: expected a string such as "QQ" or "GF(101)"')
+        raise FieldError(f"field {text!r}: {_FIELD_HELP}")
     if text.strip() in ("QQ", "Q"):
         return QQ
     m = _FIELD_NAME.match(text)
-    if not m:
-        raise FieldError(f'field {text!r}: unknown field (expected "QQ" or "GF(p)", p prime)')
-    return GF(int(m.group(1)))
+    if m:
+        q = int(m.group(1))
+        if m.group(2) is not None:
+            p, k = q, int(m.group(2))
+            if p < 2 or not flint.fmpz(p).is_prime():
+                raise FieldError(f"field {text!r}: {p} is not a prime")
+            if k < 1:
+                raise FieldError(f"field {text!r}: the exponent must be at least 1")
+        else:
+            pk = _prime_power(q)
+            if pk is None:
+                raise FieldError(f"field {text!r}: {q} is not a prime power")
+            p, k = pk
+        if k == 1:
+            if m.group(3) is not None:
+                raise FieldError(f"field {text!r}: GF({p}) is a prime field; it has no generator")
+            return GF(p)
+        if p**k >= _MAX_PRIME:
+            raise FieldError(f"field {text!r}: orders must be below 2^63")
+        return finite_field(p, k, m.group(3) or "z")
+    m = _CYCLO.match(text)
+    if m:
+        return cyclotomic_field(int(m.group(1)))
+    m = _QUOTIENT.match(text)
+    if m:
+        base = re.sub(r"\s+", "", m.group(1))
+        return number_field(m.group(2), m.group(3).strip(), base)
+    raise FieldError(f"field {text!r}: unknown field ({_FIELD_HELP})")
