@@ -590,7 +590,10 @@ def number_field(var: str, poly_text: str, base_name: str = "QQ") -> ExtensionFi
     if getattr(base, "degree", 1) != 1:
         raise FieldError(f"{text!r}: the base of a quotient field must be QQ or a prime field")
     _check_name(var, text)
-    f = _parse_poly(base, var, poly_text)
+    try:
+        f = _parse_poly(base, var, poly_text)
+    except CoefficientError as exc:
+        raise FieldError(f"{text!r}: cannot read the polynomial ({exc})") from None
     _irreducibility(base, f, text, var)
     coeffs = list(f.coeffs())
     if f.degree() == 1:
