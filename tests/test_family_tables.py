@@ -243,7 +243,7 @@ def test_tl_bad_arguments():
     with pytest.raises(SpecError):
         temperley_lieb(-1, 2, QQ)
     with pytest.raises(FieldError):
-        temperley_lieb(2, 2, "GF(4)")
+        temperley_lieb(2, 2, "GF(6)")
 
 
 # -- Schur algebra S(2, r) ------------------------------------------------------------
@@ -609,5 +609,5 @@ def test_quiver_family_bad_arguments():
     with pytest.raises(SpecError):
         linear_A(3, vanish_from_length=1)
     with pytest.raises(FieldError):
-        zigzag_A(3, field="GF(9)")
+        zigzag_A(3, field="GF(10)")
     assert linear_A(2, field=GF(5))["field"] == "GF(5)"

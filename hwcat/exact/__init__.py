@@ -11,6 +11,7 @@ from hwcat.exact.fields import (
     split_factors,
     split_signed_terms,
 )
+from hwcat.exact.extension import ExtensionField, splitting_field_hint
 from hwcat.exact.matrices import (
     Mat,
     assemble,
@@ -33,6 +34,8 @@ __all__ = [
     "split_signed_terms",
     "split_factors",
     "coefficient_prefix",
+    "ExtensionField",
+    "splitting_field_hint",
     "Mat",
     "assemble",
     "echelon",

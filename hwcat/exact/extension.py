@@ -144,6 +144,16 @@ class ExtElement:
     def __bool__(self) -> bool:
         return not self.f.is_zero()
 
+    def __int__(self) -> int:
+        if self.f.degree() > 0:
+            raise ValueError(f"{self} is not an integer")
+        c = self.f.coeffs()[0] if self.f.degree() == 0 else 0
+        if self.K.is_finite:
+            return int(c)
+        if c.q != 1:
+            raise ValueError(f"{self} is not an integer")
+        return int(c.p)
+
     def coeffs(self) -> list:
         """The ``d`` coefficients over the base field (of ``1, t, ..., t^(d-1)``)."""
         c = list(self.f.coeffs())
@@ -244,6 +254,15 @@ class ExtensionField(Field):
         except CoefficientError:
             raise CoefficientError(f"{x!r} is not an element of {self.name}") from None
         return ExtElement(self, self._poly([b]))
+
+    def _from_int(self, n: int) -> ExtElement:
+        return ExtElement(self, self._poly([n % self.characteristic if self.is_finite else n]))
+
+    def _from_fraction(self, num: int, den: int, text: str) -> ExtElement:
+        return ExtElement(self, self._poly([self.base._from_fraction(num, den, text)]))
+
+    def _coerce(self, x: Any) -> ExtElement:
+        return self(x)
 
     def parse(self, text: str | int) -> ExtElement:
         """Parse an expression in integers, the generator, ``+ - * / ^`` and parentheses.
@@ -614,3 +633,39 @@ def cyclotomic_field(n: int, gen_name: str | None = None) -> ExtensionField:
     f = flint.fmpq_poly(flint.fmpz_poly.cyclotomic(n))
     var = gen_name or f"zeta{n}"
     return ExtensionField(QQ, f, var, f"QQ(zeta{n})")
+
+
+def splitting_field_hint(F: Any, degree: int, minpoly: list | None = None) -> str:
+    """A short clause naming a field over which a simple with ``End = F[t]/(g)`` splits.
+
+    ``degree`` is ``deg g``; ``minpoly`` the coefficients of ``g`` (constant
+    first) when known.  A finite field ``GF(q)`` has the unique extension
+    ``GF(q^degree)`` of that degree (common practice), over which such a simple
+    splits; over ``QQ`` the field ``QQ[t]/(g)`` is named.
+
+    >>> from hwcat.exact import GF, QQ
+    >>> splitting_field_hint(GF(2), 2)
+    '; over GF(4) it splits'
+    >>> splitting_field_hint(QQ, 2, [1, 1, 1])
+    '; over QQ(zeta3) it splits'
+    >>> splitting_field_hint(QQ, 2, [-2, 0, 1])
+    '; over QQ[t]/(t^2 - 2) it splits'
+    """
+    if degree < 2:
+        return ""
+    if F.characteristic:
+        q = getattr(F, "order", 0) or F.characteristic
+        if q**degree < 1 << 63:
+            return f"; over GF({q**degree}) it splits"
+        return ""
+    if getattr(F, "degree", 1) == 1 and minpoly is not None:
+        from hwcat.exact.fields import QQ
+
+        cs = [QQ(c) for c in minpoly]
+        cs = [c / cs[-1] for c in cs]
+        for n in range(3, 2 * degree * degree + 3):  # phi(n) >= sqrt(n / 2)
+            phi = list(flint.fmpz_poly.cyclotomic(n).coeffs())
+            if len(phi) == len(cs) and all(QQ(int(a)) == b for a, b in zip(phi, cs, strict=True)):
+                return f"; over QQ(zeta{n}) it splits"
+        return f"; over QQ[t]/({_poly_text_raw(QQ, 't', cs)}) it splits"
+    return ""

@@ -156,6 +156,8 @@ class StructureAlgebra:
         self.dim = n = len(self.basis)
         self.name = name
         self._p = field.p if isinstance(field, PrimeField) else 0
+        # the characteristic (also for GF(p^k), whose elements are not raw ints)
+        self._char = field.characteristic
         if len(set(self.basis)) != n:
             dup = next(b for b in self.basis if self.basis.count(b) > 1)
             raise StructureConstantsError(f"basis element {dup!r} is listed twice")
