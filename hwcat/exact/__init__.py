@@ -1,5 +1,6 @@
 """Layer 1: exact fields, matrices and subspaces (the only code touching python-flint)."""
 
+from hwcat.exact.extension import ExtensionField, splitting_field_hint
 from hwcat.exact.fields import (
     GF,
     QQ,
@@ -11,7 +12,6 @@ from hwcat.exact.fields import (
     split_factors,
     split_signed_terms,
 )
-from hwcat.exact.extension import ExtensionField, splitting_field_hint
 from hwcat.exact.matrices import (
     Mat,
     assemble,

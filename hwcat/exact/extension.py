@@ -323,6 +323,42 @@ class ExtensionField(Field):
             rows.append(c + [0] * (d - len(c)))
         return rows
 
+    def _xpow_coeffs(self, m: int) -> list:
+        """Coefficients of ``t^m`` reduced modulo the defining polynomial (``m < 2d``)."""
+        c = list(self._xpow[m].coeffs())
+        return c + [0] * (self.degree - len(c))
+
+    def _diag_power(self, n: int, k: int) -> Any:
+        """``I_n (x) [t^k]``: the ``nd x nd`` block diagonal matrix over the base (cached)."""
+        cache = self.__dict__.setdefault("_diag_cache", {})
+        key = (n, k)
+        M = cache.get(key)
+        if M is None:
+            d = self.degree
+            blk = self.multiplication_matrix(ExtElement(self, self._xpow[k]))
+            M = self.base._raw_matrix(n * d, n * d, [])
+            for i in range(n):
+                for a in range(d):
+                    for b in range(d):
+                        if blk[a][b] != 0:
+                            M[i * d + a, i * d + b] = blk[a][b]
+            if len(cache) > 256:
+                cache.clear()
+            cache[key] = M
+        return M
+
+    def _power_blocks(self) -> Any:
+        """The ``d x d^2`` base matrix whose row ``k`` is ``[t^k]`` flattened (cached)."""
+        pb = getattr(self, "_pb", None)
+        if pb is None:
+            d = self.degree
+            flat = []
+            for k in range(d):
+                for row in self.multiplication_matrix(ExtElement(self, self._xpow[k])):
+                    flat.extend(row)
+            pb = self._pb = self.base._raw_matrix(d, d * d, flat)
+        return pb
+
     def _raw_matrix(self, nrows: int, ncols: int, entries: list) -> Any:
         from hwcat.exact.blockmat import BlockMatrix
 
