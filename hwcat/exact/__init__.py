@@ -1,5 +1,6 @@
 """Layer 1: exact fields, matrices and subspaces (the only code touching python-flint)."""
 
+from hwcat.exact.blockmat import restrict_scalars, rows_over_extension
 from hwcat.exact.extension import ExtensionField, splitting_field_hint
 from hwcat.exact.fields import (
     GF,
@@ -36,6 +37,8 @@ __all__ = [
     "coefficient_prefix",
     "ExtensionField",
     "splitting_field_hint",
+    "restrict_scalars",
+    "rows_over_extension",
     "Mat",
     "assemble",
     "echelon",

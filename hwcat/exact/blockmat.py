@@ -236,3 +236,27 @@ def _column_picker(base: Any, n: int, d: int, k: int) -> Any:
     for j in range(n):
         S[j * d + k, j] = 1
     return S
+
+
+def restrict_scalars(M: Any) -> Any:
+    """``[M]`` over the base field, for a :class:`~hwcat.exact.matrices.Mat` ``M`` over an
+    extension of degree ``d``: the matrix of the same map on ``K^r = F^(rd)`` (basis
+    ``t^a e_i`` at index ``i d + a``)."""
+    from hwcat.exact.matrices import Mat
+
+    K = M.field
+    return Mat(K.base, M._m._blowup())
+
+
+def rows_over_extension(K: Any, M: Any) -> Any:
+    """Rows of a base-field ``Mat`` of width ``c d`` read as vectors of ``K^c``."""
+    from hwcat.exact.matrices import Mat
+
+    d = K.degree
+    if M.ncols % d:
+        raise InternalInconsistency("rows_over_extension: width is not a multiple of the degree")
+    c = M.ncols // d
+    if M.nrows == 0:
+        return Mat.zeros(K, 0, c)
+    planes = [M._m * _column_picker(K.base, c, d, k) for k in range(d)]
+    return Mat(K, BlockMatrix(K, M.nrows, c, planes=planes))

@@ -32,7 +32,7 @@ from dataclasses import dataclass
 from math import comb
 from typing import Any
 
-from hwcat.errors import SpecError, StructureConstantsError
+from hwcat.errors import CoefficientError, SpecError, StructureConstantsError
 from hwcat.exact.fields import QQ, Field, parse_field
 
 __all__ = [
@@ -317,7 +317,10 @@ def temperley_lieb(n: int, delta: Any, field: Field | str = QQ) -> Multiplicatio
     """
     n = _check_int(n, "temperley_lieb: n", 0)
     F = _as_field(field)
-    d = F(delta)
+    try:
+        d = F(delta)
+    except CoefficientError as exc:
+        raise CoefficientError(f"delta = {delta!r}: {exc}") from None
     halves = _half_diagrams(n)
     hid = {h: k for k, h in enumerate(halves)}
     nfree = [h.count(-1) for h in halves]
@@ -631,7 +634,10 @@ def small_quantum_sl2(ell: int, q: Any, field: Field | str) -> MultiplicationTab
     ell = _check_int(ell, "small_quantum_sl2: ell", 3)
     N = ell if ell % 2 else ell // 2  # E^N = F^N = 0
     F = _as_field(field)
-    qq = F(q)
+    try:
+        qq = F(q)
+    except CoefficientError as exc:
+        raise CoefficientError(f"q = {q!r}: {exc}") from None
     if qq == 0:
         raise SpecError(f"small_quantum_sl2: q = 0 is not a root of unity in {F.name}")
     order = _multiplicative_order(qq, ell)

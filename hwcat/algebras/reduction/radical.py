@@ -51,7 +51,7 @@ from typing import Any
 
 from hwcat.algebras.inputs.structure import StructureAlgebra
 from hwcat.errors import InternalInconsistency, NotSplitError, StructureConstantsError
-from hwcat.exact import Mat, echelon
+from hwcat.exact import Mat, echelon, restrict_scalars, rows_over_extension
 from hwcat.exact.polys import (
     Poly,
     fitting_polynomials,
@@ -212,9 +212,16 @@ def radical(A: StructureAlgebra, method: str = "auto", *, seed: int = 0) -> Mat:
     d = A.natural[0].nrows if use_natural else A.dim
     p = F.characteristic
     trace_ok = p == 0 or p > d
+    prime = getattr(F, "degree", 1) == 1  # the lifted traces need integer lifts: GF(p) only
     if method == "auto":
         method = (
-            "trace" if trace_ok else ("lifted-trace" if d <= LIFTED_TRACE_LIMIT else "reduction")
+            "trace"
+            if trace_ok
+            else ("lifted-trace" if d <= LIFTED_TRACE_LIMIT and prime else "reduction")
+        )
+    if method == "lifted-trace" and not prime and not trace_ok:
+        raise StructureConstantsError(
+            f"radical: method 'lifted-trace' needs a prime field, not {F}; use 'reduction'"
         )
     if method == "trace":
         if not trace_ok:
@@ -264,6 +271,21 @@ def _lifted_step(A: StructureAlgebra, I: Mat, i: int, use_natural: bool) -> Mat:
     return echelon(K @ I)
 
 
+def _small_radical_by_restriction(K, mult: list[Mat]) -> Mat:
+    """Radical of a small algebra over ``GF(p^k)`` through the same algebra over ``GF(p)``.
+
+    The algebra of dimension ``c`` over ``K`` is one of dimension ``c k`` over the
+    prime field (basis ``t^a c_l``); both have the same radical, since ``K`` is
+    central: the ``K``-span of a nilpotent ideal is a nilpotent ideal (common
+    practice).  The prime-field radical is read back as vectors over ``K``.
+    """
+    d = K.degree
+    t = K.gen
+    big = [restrict_scalars(mult[l].scale(t**a)) for l in range(len(mult)) for a in range(d)]
+    J = _small_radical(K.base, big)
+    return echelon(rows_over_extension(K, J))
+
+
 def _small_radical(F, mult: list[Mat]) -> Mat:
     """Radical of a small algebra given by its right multiplication matrices.
 
@@ -272,6 +294,8 @@ def _small_radical(F, mult: list[Mat]) -> Mat:
     the lifted-trace chain on the regular representation.
     """
     c = len(mult)
+    if getattr(F, "degree", 1) > 1 and F.characteristic and F.characteristic <= c:
+        return _small_radical_by_restriction(F, mult)
     tau = [sum((mult[l][a, a] for a in range(c)), F.zero) for l in range(c)]
 
     def gram(psi: Sequence[Any]) -> Mat:
