@@ -412,7 +412,7 @@ def test_quantum_centre_dimension(ell, q, p):
         (3, 3, GF(7), "q\\^3 != 1"),
         (3, 2, QQ, "QQ"),
         (3, 0, GF(7), "q = 0"),
-        (4, 2, GF(5), "odd"),
+        (4, 4, GF(5), "order exactly 4"),
         (1, 1, GF(5), "at least 3"),
     ],
 )
