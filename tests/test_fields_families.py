@@ -147,3 +147,19 @@ def test_cli_family_parameter_in_extension_field():
 def test_field_names_are_canonical():
     assert parse_field("GF(2^2)") is parse_field("GF(4)")
     assert parse_field("QQ[r]/(r^2-2)") is parse_field("QQ[r]/(r^2 - 2)")
+
+
+def test_radical_over_gf4_by_both_routes():
+    # GF(4)[C_6] = GF(4)[C_3] (x) GF(4)[x]/(x^2): radical of dimension 6 - 3 = 3 (common
+    # practice); the quotient route and the lifted traces (refused off prime fields) agree
+    from hwcat.algebras.families.tables import cyclic_group_algebra
+    from hwcat.algebras.inputs.structure import from_table
+    from hwcat.algebras.reduction.radical import radical
+    from hwcat.algebras.reduction.reduction import reduce_algebra
+    from hwcat.errors import StructureConstantsError
+
+    A = from_table(cyclic_group_algebra(6, "GF(4)"))
+    assert radical(A).nrows == 3
+    assert reduce_algebra(A, method="quotient").basic.n == 3
+    with pytest.raises(StructureConstantsError, match="prime field"):
+        radical(A, "lifted-trace")

@@ -417,7 +417,12 @@ def _combination(S: StructureAlgebra, vecs: list[list[Any]], rng: random.Random)
     """A random linear combination of raw vectors."""
     out = [S._zero_raw()] * S.dim
     for v in vecs:
-        c = rng.randrange(1, 1000) if S._p else S.field(rng.randint(-9, 9))
+        if S._p:
+            c = rng.randrange(1, 1000)
+        elif S._char:  # GF(p^k): uniform over the whole field
+            c = S.field.from_coeffs([rng.randrange(S._char) for _ in range(S.field.degree)])
+        else:
+            c = S.field(rng.randint(-9, 9))
         out = [a + c * b for a, b in zip(out, v, strict=True)]
     return [x % S._p for x in out] if S._p else out
 
@@ -512,7 +517,7 @@ def primitive_idempotents(A: StructureAlgebra, *, seed: int = 0) -> list[list[An
         A,
         "trace"
         if (A.field.characteristic == 0 or A.field.characteristic > A.dim)
-        else "lifted-trace",
+        else ("lifted-trace" if getattr(A.field, "degree", 1) == 1 else "reduction"),
     )
     S, kept = _quotient(A, rad)
     prim = _split_semisimple(S, rng)
