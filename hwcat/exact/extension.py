@@ -76,6 +76,8 @@ class ExtElement:
         return self.K._poly([self.K.base(y) if not isinstance(y, int) else y])
 
     def __add__(self, y: Any) -> ExtElement:
+        if y.__class__ is ExtElement and y.K is self.K:  # the common case, kept short
+            return ExtElement(self.K, self.f + y.f)
         return ExtElement(self.K, self.f + self._other(y))
 
     __radd__ = __add__
@@ -93,6 +95,8 @@ class ExtElement:
         return self
 
     def __mul__(self, y: Any) -> ExtElement:
+        if y.__class__ is ExtElement and y.K is self.K:  # the common case, kept short
+            return ExtElement(self.K, (self.f * y.f) % self.K.modulus)
         if isinstance(y, ExtElement):
             return ExtElement(self.K, (self.f * self._other(y)) % self.K.modulus)
         return ExtElement(self.K, self.f * self._other(y))

@@ -172,7 +172,8 @@ def parse_relation(text: str, quiver: Quiver, field: Field) -> dict[Path, Any]:
                         f"relation {text!r}: term {term!r} is a trivial path (vertex); relations "
                         "must lie in the square of the arrow ideal"
                     )
-                raise RelationError(f"relation {text!r}: {f!r} is not an arrow")
+                hint = f" (the generator of {field} is {gen!r})" if gen is not None else ""
+                raise RelationError(f"relation {text!r}: {f!r} is not an arrow{hint}")
             path.append(aidx[f])
         for x, y in zip(path, path[1:], strict=False):
             if quiver.arrows[x].target != quiver.arrows[y].source:
