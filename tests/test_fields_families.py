@@ -86,10 +86,22 @@ def test_restricted_quantum_sl2(p, q, field):
     assert _centre_dimension(T) == 3 * p - 1
     A = family_algebra("small-quantum-sl2", ell=2 * p, q=q, field=field)
     assert sorted(A.morita) == sorted(list(range(1, p + 1)) * 2)
-    C = describe(A).cartan
+    d = describe(A)
+    C = d.cartan
     for j, s in enumerate(A.morita):
         dim_P = sum(C[i][j] * A.morita[i] for i in range(A.n))
         assert dim_P == (2 * p if s < p else p)
+        # Loewy structure of the projective cover of a simple of dimension s < p: the simple
+        # on top and in the socle, two copies of a simple of dimension p - s in the middle
+        # (same source, from memory)
+        layers = d.projectives[j].radical_layers
+        if s < p:
+            assert len(layers) == 3 and layers[0] == layers[2] == tuple(
+                int(i == j) for i in range(A.n))
+            mid = [(i, x) for i, x in enumerate(layers[1]) if x]
+            assert len(mid) == 1 and mid[0][1] == 2 and A.morita[mid[0][0]] == p - s
+        else:
+            assert len(layers) == 1
 
 
 def test_quantum_group_order_checked():
