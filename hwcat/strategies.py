@@ -117,12 +117,19 @@ def fields(choices: Sequence[Field] = DEFAULT_FIELDS) -> st.SearchStrategy[Field
 
 
 def field_elements(field: Field, *, nonzero: bool = False) -> st.SearchStrategy[Any]:
-    """Elements of ``field``: small fractions over QQ, any residue over GF(p).
+    """Elements of ``field``: small fractions over QQ, any residue over GF(p), and over
+    an extension field small coefficients of the powers of its generator.
 
     >>> from hypothesis import find
     >>> find(field_elements(QQ, nonzero=True), lambda x: x < 0)
     -1
     """
+    d = getattr(field, "degree", 1)
+    if d > 1:  # an extension field: independent coefficients of 1, t, ..., t^(d-1)
+        p = field.characteristic
+        coef = st.integers(0, p - 1) if p else st.integers(-3, 3)
+        elts = st.lists(coef, min_size=d, max_size=d).map(field.from_coeffs)
+        return elts.filter(bool) if nonzero else elts
     if field.characteristic == 0:
         nums = st.sampled_from((1, -1, 2, -2, 3, -3, 4, 5)) if nonzero else st.integers(-5, 5)
         return st.builds(lambda a, b: field.parse(f"{a}/{b}"), nums, st.integers(1, 4))
@@ -256,6 +263,8 @@ def _relation_text(Q: Quiver, F: Field, terms: Sequence[tuple[Any, Path]]) -> st
     parts = []
     for k, (c, p) in enumerate(terms):
         text = F.to_str(c)
+        if getattr(F, "degree", 1) > 1 and " " in text:  # several terms: keep them together
+            text = f"({text})"
         neg = text.startswith("-")
         mag = text[1:] if neg else text
         body = format_path(Q, p) if mag == "1" else f"{mag}*{format_path(Q, p)}"

@@ -49,8 +49,8 @@ that of ``P``) and ``e_v B e_u = 0`` (the same for the costandard module) for
 every remaining ``v`` not below ``u`` in ``P``; with these, the standard and
 costandard modules of ``P`` and of the chain agree and quasi-heredity for the
 chain is quasi-heredity for ``P`` (Dlab, Ringel, LMS Lecture Note Ser. 168
-(1992), from memory; the converse holds as every linear extension of an
-adapted order is adapted with the same standard modules).
+(1992), from memory; the converse holds as every linear extension of a
+quasi-hereditary partial order is quasi-hereditary with the same standard modules).
 
 *Evidence.*  A positive certificate lists, for each step, ``J_k`` block by
 block in reduced echelon form; the checker computes ``J_k`` itself and

@@ -2,7 +2,7 @@
 
 Outside facts used:
 * V. Dlab, C. M. Ringel, Quasi-hereditary algebras, Illinois J. Math. 33 (1989):
-  an algebra is hereditary iff every order is adapted; the heredity-ideal criterion.
+  an algebra is hereditary iff it is quasi-hereditary for every order; the heredity-ideal criterion.
 * T. Bruestle, L. Hille, C. M. Ringel, G. Roehrle, Algebr. Represent. Theory 2
   (1999): the Auslander algebra of k[T]/(T^n) is quasi-hereditary.
 * Dlab and Ringel 1989 with C. M. Ringel, J. Pure Appl. Algebra 214 (2010):

@@ -98,3 +98,22 @@ def test_labels_in_the_describe_report():
     A = hwcat.load(family="temperley-lieb", n=3, delta=1, field="QQ")
     r = hwcat.describe(A).to_dict()
     assert r["natural_order"] == "1 > 3" and set(r["simples"]) == {"1", "3"}
+
+
+@pytest.mark.parametrize(("ell", "q", "field"), [(4, 2, "GF(5)"), (6, 3, "GF(7)")])
+def test_restricted_quantum_group_labels_follow_the_projective_structure(ell, q, field):
+    # restricted u_q(sl_2) at q a primitive 2p-th root of unity: simples X^+_s, X^-_s for
+    # s = 1..p; X^+-_p are projective, and for s < p the projective cover of X^+-_s has
+    # radical layers X^+-_s | 2 X^-+_(p-s) | X^+-_s (Feigin, Gainutdinov, Semikhatov,
+    # Tipunin 2006, from memory): the sign flips in the middle layer
+    p = ell // 2
+    A = hwcat.load(family="small-quantum-sl2", ell=ell, q=q, field=field)
+    assert _labelled(A) == {f"{sign}_{s}": s for sign in ("plus", "minus") for s in range(1, p + 1)}
+    for sign, other in (("plus", "minus"), ("minus", "plus")):
+        assert hwcat.projective(A, f"{sign}_{p}").dims == tuple(
+            int(v == f"{sign}_{p}") for v in A.vertices
+        )
+        for s in range(1, p):
+            layers = hwcat.projective(A, f"{sign}_{s}").radical_layers()
+            named = [{A.vertices[v]: k for v, k in enumerate(layer) if k} for layer in layers]
+            assert named == [{f"{sign}_{s}": 1}, {f"{other}_{p - s}": 2}, {f"{sign}_{s}": 1}]

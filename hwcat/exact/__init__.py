@@ -1,6 +1,18 @@
 """Layer 1: exact fields, matrices and subspaces (the only code touching python-flint)."""
 
-from hwcat.exact.fields import GF, QQ, Field, PrimeField, RationalField, parse_field
+from hwcat.exact.blockmat import restrict_scalars, rows_over_extension
+from hwcat.exact.extension import ExtensionField, splitting_field_hint
+from hwcat.exact.fields import (
+    GF,
+    QQ,
+    Field,
+    PrimeField,
+    RationalField,
+    coefficient_prefix,
+    parse_field,
+    split_factors,
+    split_signed_terms,
+)
 from hwcat.exact.matrices import (
     Mat,
     assemble,
@@ -20,6 +32,13 @@ __all__ = [
     "QQ",
     "GF",
     "parse_field",
+    "split_signed_terms",
+    "split_factors",
+    "coefficient_prefix",
+    "ExtensionField",
+    "splitting_field_hint",
+    "restrict_scalars",
+    "rows_over_extension",
     "Mat",
     "assemble",
     "echelon",

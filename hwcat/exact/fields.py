@@ -29,7 +29,17 @@ import flint
 
 from hwcat.errors import CoefficientError, FieldError
 
-__all__ = ["Field", "RationalField", "PrimeField", "QQ", "GF", "parse_field"]
+__all__ = [
+    "Field",
+    "RationalField",
+    "PrimeField",
+    "QQ",
+    "GF",
+    "parse_field",
+    "split_signed_terms",
+    "split_factors",
+    "coefficient_prefix",
+]
 
 _NUMBER = re.compile(r"^\s*([+-]?\d+)\s*(?:/\s*(\d+)\s*)?$")
 _MAX_PRIME = 1 << 63
@@ -203,22 +213,166 @@ def GF(p: int) -> PrimeField:
     return _prime_field(p)
 
 
-_FIELD_NAME = re.compile(r"^\s*(?:GF|F)\s*\(\s*(\d+)\s*\)\s*$")
+_FIELD_NAME = re.compile(
+    r"^\s*(?:GF|F)\s*\(\s*(\d+)\s*(?:\^\s*(\d+)\s*)?(?:,\s*([A-Za-z_][A-Za-z0-9_]*)\s*)?\)\s*$"
+)
+_CYCLO = re.compile(r"^\s*QQ\s*\(\s*zeta\s*(\d+)\s*\)\s*$")
+_QUOTIENT = re.compile(r"^\s*(QQ|GF\s*\(\s*\d+\s*\))\s*\[\s*([A-Za-z_][A-Za-z0-9_]*)\s*\]\s*/\s*\((.*)\)\s*$")
+_FIELD_HELP = (
+    'expected "QQ", "GF(p)", "GF(q)" or "GF(p^k)" (q = p^k a prime power, optionally '
+    '"GF(q, w)" to name the generator w), "QQ(zetaN)", or "QQ[r]/(r^2 - 2)"'
+)
+
+
+def _prime_power(q: int) -> tuple[int, int] | None:
+    if q < 2:
+        return None
+    for p, k in flint.fmpz(q).factor():
+        return (int(p), int(k)) if int(p) ** int(k) == q else None
+    return None  # pragma: no cover
 
 
 def parse_field(text: str) -> Field:
-    """Parse ``"QQ"`` or ``"GF(p)"``.
+    """Parse a field name: ``QQ``, ``GF(p)``, ``GF(q)``, ``GF(p^k)``, ``QQ(zetaN)``,
+    ``QQ[r]/(r^2 - 2)`` or ``GF(p)[w]/(w^2 + 1)`` (see :mod:`hwcat.exact.extension`).
 
     >>> parse_field("QQ")
     QQ
     >>> parse_field("GF(2)")
     GF(2)
+    >>> parse_field("GF(2^3)"), parse_field("GF(9, w)").gen_name
+    (GF(8), 'w')
+    >>> parse_field("QQ(zeta8)").modulus_text()
+    'zeta8^4 + 1'
+    >>> parse_field("QQ[r]/(r^2 - 4)")
+    Traceback (most recent call last):
+    ...
+    hwcat.errors.FieldError: 'QQ[r]/(r^2 - 4)': the polynomial is reducible; it has the factor r - 2
     """
+    from hwcat.exact.extension import cyclotomic_field, finite_field, number_field
+
     if not isinstance(text, str):
-        raise FieldError(f'field {text!r}: expected a string such as "QQ" or "GF(101)"')
+        raise FieldError(f"field {text!r}: {_FIELD_HELP}")
     if text.strip() in ("QQ", "Q"):
         return QQ
     m = _FIELD_NAME.match(text)
-    if not m:
-        raise FieldError(f'field {text!r}: unknown field (expected "QQ" or "GF(p)", p prime)')
-    return GF(int(m.group(1)))
+    if m:
+        q = int(m.group(1))
+        if m.group(2) is not None:
+            p, k = q, int(m.group(2))
+            if p < 2 or not flint.fmpz(p).is_prime():
+                raise FieldError(f"field {text!r}: {p} is not a prime")
+            if k < 1:
+                raise FieldError(f"field {text!r}: the exponent must be at least 1")
+        else:
+            pk = _prime_power(q)
+            if pk is None:
+                raise FieldError(f"field {text!r}: {q} is not a prime power")
+            p, k = pk
+        if k == 1:
+            if m.group(3) is not None:
+                raise FieldError(f"field {text!r}: GF({p}) is a prime field; it has no generator")
+            return GF(p)
+        if p**k >= _MAX_PRIME:
+            raise FieldError(f"field {text!r}: orders must be below 2^63")
+        return finite_field(p, k, m.group(3) or "z")
+    m = _CYCLO.match(text)
+    if m:
+        return cyclotomic_field(int(m.group(1)))
+    m = _QUOTIENT.match(text)
+    if m:
+        base = re.sub(r"\s+", "", m.group(1))
+        return number_field(m.group(2), m.group(3).strip(), base)
+    raise FieldError(f"field {text!r}: unknown field ({_FIELD_HELP})")
+
+
+# -- terms "coefficient * name * name" in relations and combinations -----------------------
+
+_PLAIN_NUMBER = re.compile(r"^\d+(?:\s*/\s*\d+)?$")
+_IDENT = re.compile(r"[A-Za-z_][A-Za-z0-9_']*")
+
+
+def split_signed_terms(text: str) -> tuple[list[tuple[int, str]], bool]:
+    """Split ``"a*b - (z + 1)*c*d"`` at the signs outside parentheses.
+
+    Returns the ``(sign, term)`` pairs and whether the text ends with a dangling sign.
+
+    >>> split_signed_terms("a*b - (z + 1)*c*d")
+    ([(1, 'a*b'), (-1, '(z + 1)*c*d')], False)
+    """
+    terms: list[tuple[int, str]] = []
+    sign, buf, depth = 1, "", 0
+    for ch in text:
+        if ch == "(":
+            depth += 1
+        elif ch == ")":
+            depth -= 1
+        if ch in "+-" and depth == 0 and not buf.rstrip().endswith(("^", "/", "*")):
+            if buf.strip():
+                terms.append((sign, buf.strip()))
+                buf = ""
+                sign = 1
+            sign *= 1 if ch == "+" else -1
+        else:
+            buf += ch
+    dangling = False
+    if buf.strip():
+        terms.append((sign, buf.strip()))
+    elif text.strip() and text.strip()[-1] in "+-":
+        dangling = True
+    return terms, dangling
+
+
+def split_factors(term: str) -> list[str]:
+    """Split a term at the ``*`` outside parentheses (``**`` is read as ``^``)."""
+    term = term.replace("**", "^")
+    out, buf, depth = [], "", 0
+    for ch in term:
+        if ch == "(":
+            depth += 1
+        elif ch == ")":
+            depth -= 1
+        if ch == "*" and depth == 0:
+            out.append(buf.strip())
+            buf = ""
+        else:
+            buf += ch
+    out.append(buf.strip())
+    return out
+
+
+def coefficient_prefix(field: Field, factors: list[str], names: Any) -> tuple[Any, list[str]]:
+    """Read the leading factors that are field elements: ``(coefficient, other factors)``.
+
+    A factor counts as a coefficient when it is not one of ``names`` and is a
+    number, a parenthesised expression, or (over an extension field) an
+    expression in the field's generator.  Raises
+    :class:`~hwcat.errors.CoefficientError` when such a factor is not an element.
+
+    >>> F = parse_field("GF(4)")
+    >>> c, rest = coefficient_prefix(F, ["(z + 1)", "a", "b"], {"a", "b"})
+    >>> str(c), rest
+    ('z + 1', ['a', 'b'])
+    """
+    gen = getattr(field, "gen_name", None)
+    k = 0
+    while k < len(factors):
+        f = factors[k]
+        if f in names:
+            break
+        idents = set(_IDENT.findall(f))
+        if (
+            _PLAIN_NUMBER.match(f)
+            or f.startswith("(")
+            or (gen is not None and idents and idents <= {gen} and not set(f) & set("'"))
+        ):
+            k += 1
+            continue
+        break
+    if k == 0:
+        return field.one, factors
+    text = "*".join(f"({f})" if not _PLAIN_NUMBER.match(f) else f.replace(" ", "")
+                    for f in factors[:k])
+    if k == 1:
+        text = factors[0].replace(" ", "") if _PLAIN_NUMBER.match(factors[0]) else factors[0]
+    return field.parse(text), factors[k:]

@@ -58,6 +58,10 @@ class Poly:
     def from_coeffs(cls, field: Field, coeffs: Sequence[Any]) -> Poly:
         """The polynomial ``sum coeffs[i] x^i`` (coefficients converted into ``field``)."""
         vals = [field(c) if not isinstance(c, int) else c for c in coeffs]
+        if getattr(field, "degree", 1) > 1:  # an extension field
+            from hwcat.exact.extpoly import ExtPoly
+
+            return cls(field, ExtPoly(field, vals))
         if isinstance(field, PrimeField):
             return cls(field, flint.nmod_poly([int(field(c)) for c in vals], field.p))
         return cls(field, flint.fmpq_poly([field(c) for c in vals]))
@@ -197,6 +201,8 @@ def matrix_from_ints(field: Field, nrows: int, ncols: int, values: Sequence[Any]
         return Mat.zeros(field, nrows, ncols)
     if isinstance(field, PrimeField):
         return Mat(field, flint.nmod_mat(nrows, ncols, values, field.p))
+    if getattr(field, "degree", 1) > 1:  # an extension field
+        return Mat.from_flat(field, nrows, ncols, values)
     return Mat(field, flint.fmpq_mat(nrows, ncols, values))
 
 

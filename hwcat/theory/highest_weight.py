@@ -251,7 +251,7 @@ def _multiplication_kernel_witness(
                         }
                     )
             text = " + ".join(
-                f"{tm['coefficient']}*({tm['left']} (x) {tm['right']})" for tm in terms
+                f"{_paren(tm['coefficient'])}*({tm['left']} (x) {tm['right']})" for tm in terms
             )
             return {
                 "target_vertex": A.vertices[t],
@@ -360,3 +360,8 @@ def _describe_failure(
             }
         )
     return out
+
+
+def _paren(text: str) -> str:
+    """A coefficient with several terms (over an extension field) in parentheses."""
+    return f"({text})" if " " in text else text

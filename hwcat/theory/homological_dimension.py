@@ -121,6 +121,9 @@ class _RandomHoms:
         F, r = self.M.field, self.K.nrows
         if F.characteristic == 0:
             c = [F(self.rng.randint(-_RANGE, _RANGE)) for _ in range(r)]
+        elif getattr(F, "degree", 1) > 1:  # GF(p^k): uniform over the whole field
+            p, d = F.characteristic, F.degree
+            c = [F.from_coeffs([self.rng.randrange(p) for _ in range(d)]) for _ in range(r)]
         else:
             c = [F(self.rng.randrange(F.characteristic)) for _ in range(r)]
         u = Mat.from_flat(F, 1, r, c) @ self.K

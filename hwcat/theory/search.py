@@ -318,7 +318,7 @@ def adapted_orders(A: BasicAlgebra, *, list_limit: int | None = DEFAULT_LIST_LIM
     import warnings
 
     warnings.warn(
-        "adapted_orders is deprecated; use quasi_hereditary_orders",
+        "quasi_hereditary_orders is deprecated; use quasi_hereditary_orders",
         DeprecationWarning,
         stacklevel=2,
     )

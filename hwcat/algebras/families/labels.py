@@ -22,8 +22,15 @@ nothing assumed — and renamed:
   natural order: dominance, e.g. ``w3_0 > w2_1``.
 * **small quantum group** ``u_q(sl_2)`` at odd ``ell``: one simple of each
   dimension ``1..ell`` (from memory), labelled by its highest weight
-  ``lambda = dim - 1``; it is self-injective and not quasi-hereditary, so no
-  natural order.
+  ``lambda = dim - 1``.  At even ``ell = 2p`` (the restricted form) two simples
+  ``X^+_s``, ``X^-_s`` of each dimension ``s = 1..p`` (Feigin, Gainutdinov,
+  Semikhatov, Tipunin 2006, from memory), on whose highest-weight vector ``K``
+  acts by ``+q^(s-1)`` and ``-q^(s-1)``; named ``plus_<s>`` and ``minus_<s>``.
+  A simple is a right module here, and the anti-automorphism ``E <-> F``,
+  ``K -> K`` turns it into a left module, so its highest-weight line is the
+  image of ``v -> v F^(s-1)``: the sign is the ``e`` in ``{+1, -1}`` for which
+  ``F^(s-1) (K - e q^(s-1))`` acts as zero.  The algebra is self-injective
+  and not quasi-hereditary, so there is no natural order.
 
 Families without a labelling keep the numbering by dimension.
 
@@ -37,7 +44,8 @@ Math. Ann. 315 (1999) 281-293.
 from __future__ import annotations
 
 import re
-from collections.abc import Callable
+from collections.abc import Callable, Mapping
+from typing import Any
 
 from hwcat.algebras.reduction.reduction import Reduction
 from hwcat.errors import InternalInconsistency
@@ -96,27 +104,48 @@ def _schur_2(red: Reduction) -> tuple[list[str], str | None]:
     return names, order
 
 
-def _small_quantum(red: Reduction) -> tuple[list[str], str | None]:
+def _small_quantum(red: Reduction, params: Mapping[str, Any]) -> tuple[list[str], str | None]:
     dims = red.simple_dimensions
-    if sorted(dims) != list(range(1, len(dims) + 1)):
-        raise InternalInconsistency(f"simple dimensions {dims} are not 1, ..., ell")
-    return [str(d - 1) for d in dims], None
+    ell = int(params["ell"])
+    if ell % 2:
+        if sorted(dims) != list(range(1, ell + 1)):
+            raise InternalInconsistency(f"simple dimensions {dims} are not 1, ..., {ell}")
+        return [str(d - 1) for d in dims], None
+    A = red.algebra
+    F = A.field
+    q = F(params["q"])
+    K = A.basis_vector(A.basis.index("K"))
+    unit = A.unit
+    names = []
+    for i, s in enumerate(dims):
+        Fs = A.basis_vector(A.basis.index("1" if s == 1 else "F" if s == 2 else f"F^{s - 1}"))
+        signs = []
+        for sign, word in ((F.one, "plus"), (-F.one, "minus")):
+            c = sign * q ** (s - 1)
+            x = A.product(Fs, [k - c * u for k, u in zip(K, unit, strict=True)])
+            if red.simple_action_rank(i, x) == 0:
+                signs.append(word)
+        if len(signs) != 1:
+            raise InternalInconsistency(f"the simple {i} of dimension {s} has signs {signs}")
+        names.append(f"{signs[0]}_{s}")
+    return names, None
 
 
-LABELLERS: dict[str, Callable[[Reduction], tuple[list[str], str | None]]] = {
-    "temperley-lieb": _temperley_lieb,
-    "schur": _schur_2,
+LABELLERS: dict[str, Callable[..., tuple[list[str], str | None]]] = {
+    "temperley-lieb": lambda red, params: _temperley_lieb(red),
+    "schur": lambda red, params: _schur_2(red),
     "small-quantum-sl2": _small_quantum,
 }
-"""Family name -> function giving (labels in vertex order, natural order text or None)."""
+"""Family name -> function of (reduction, parameters) giving (labels in vertex order,
+natural order text or None)."""
 
 
-def label_simples(family: str, red: Reduction) -> Reduction:
+def label_simples(family: str, red: Reduction, params: Mapping[str, Any]) -> Reduction:
     """``red`` with its simples renamed by the family's labels (unchanged without a labeller)."""
     fn = LABELLERS.get(family)
     if fn is None:
         return red
-    names, order = fn(red)
+    names, order = fn(red, params)
     if len(set(names)) != len(names):
         raise InternalInconsistency(f"two simples of {family} got the same label: {names}")
     return red.relabelled(names, natural_order=order)

@@ -121,10 +121,13 @@ FAMILIES: dict[str, Family] = {
             "small-quantum-sl2",
             "table",
             {"ell": (int, 3), "q": (str, "2"), "field": (str, "GF(7)")},
-            "u_q(sl_2) at a primitive ell-th root of unity q (ell odd): E^ell = F^ell = 0, "
-            "K^ell = 1, K E = q^2 E K, K F = q^-2 F K, EF - FE = (K - K^-1)/(q - q^-1); "
-            "PBW basis F^a K^b E^c (dimension ell^3)",
-            "standard, from memory (Lusztig's small quantum group)",
+            "u_q(sl_2) at a primitive ell-th root of unity q: E^N = F^N = 0, K^ell = 1 with "
+            "N = ell for odd ell and N = p for even ell = 2p (the restricted form), "
+            "K E = q^2 E K, K F = q^-2 F K, EF - FE = (K - K^-1)/(q - q^-1); "
+            "PBW basis F^a K^b E^c (dimension N^2 ell); q may be any field element, e.g. "
+            "q=zeta4 over QQ(zeta4)",
+            "standard, from memory (Lusztig's small quantum group; even roots: Feigin, "
+            "Gainutdinov, Semikhatov, Tipunin, Comm. Math. Phys. 265 (2006))",
             _table_family(lambda ell, q, field: family_tables.small_quantum_sl2(ell, q, field)),
         ),
         Family(
@@ -215,7 +218,8 @@ def family_reduction(family: str, *, seed: int = 0, **params: Any) -> Reduction:
     its simples labelled as the trade labels them (see :mod:`.labels`)."""
     from hwcat.algebras.families.labels import label_simples
 
-    return label_simples(family, reduce_algebra(family_structure(family, **params), seed=seed))
+    red = reduce_algebra(family_structure(family, **params), seed=seed)
+    return label_simples(family, red, parse_parameters(family, params))
 
 
 def family_spec(family: str, **params: Any) -> dict[str, Any]:

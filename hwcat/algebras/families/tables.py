@@ -32,7 +32,7 @@ from dataclasses import dataclass
 from math import comb
 from typing import Any
 
-from hwcat.errors import SpecError, StructureConstantsError
+from hwcat.errors import CoefficientError, SpecError, StructureConstantsError
 from hwcat.exact.fields import QQ, Field, parse_field
 
 __all__ = [
@@ -317,7 +317,10 @@ def temperley_lieb(n: int, delta: Any, field: Field | str = QQ) -> Multiplicatio
     """
     n = _check_int(n, "temperley_lieb: n", 0)
     F = _as_field(field)
-    d = F(delta)
+    try:
+        d = F(delta)
+    except CoefficientError as exc:
+        raise CoefficientError(f"delta = {delta!r}: {exc}") from None
     halves = _half_diagrams(n)
     hid = {h: k for k, h in enumerate(halves)}
     nfree = [h.count(-1) for h in halves]
@@ -581,31 +584,39 @@ def small_quantum_sl2(ell: int, q: Any, field: Field | str) -> MultiplicationTab
     Parameters
     ----------
     ell : int
-        An odd integer ``>= 3``.
+        An odd integer ``>= 3``, or an even ``ell = 2p >= 4`` (the restricted
+        form at a primitive ``2p``-th root of unity).
     q : int, str or field element
         An element of multiplicative order exactly ``ell`` in ``field``.
     field : Field or str
-        Usually ``GF(p)`` with ``ell`` dividing ``p - 1`` (``QQ`` has no such ``q``).
+        ``GF(p)`` with ``ell`` dividing ``p - 1``, ``GF(q)`` with ``ell``
+        dividing ``q - 1``, or ``QQ(zetaN)`` with ``ell`` dividing ``N``
+        (``QQ`` has no such ``q``).
 
     Returns
     -------
     MultiplicationTable
-        Dimension ``ell^3``; basis element 0 is the identity.
+        Dimension ``ell^3`` (odd ``ell``) or ``2 p^3`` (``ell = 2p``); basis
+        element 0 is the identity.
 
     Raises
     ------
     SpecError
-        If ``ell`` is not odd and at least 3, or ``q`` does not have order ``ell``.
+        If ``ell < 3``, or ``q`` does not have order ``ell``.
 
     Notes
     -----
     Presentation (standard, from memory; Lusztig's small quantum group):
     generators ``E, F, K`` with ``E^ell = F^ell = 0``, ``K^ell = 1``,
     ``K E = q^2 E K``, ``K F = q^-2 F K`` and
-    ``E F - F E = (K - K^-1) / (q - q^-1)``.  Basis: the PBW monomials
-    ``F^a K^b E^c`` with ``0 <= a, b, c < ell``, named like ``"F^2*K*E"``
+    ``E F - F E = (K - K^-1) / (q - q^-1)``.  For even ``ell = 2p`` the
+    restricted form (from memory; Feigin, Gainutdinov, Semikhatov, Tipunin,
+    Comm. Math. Phys. 265 (2006)): the same relations with ``E^p = F^p = 0``
+    and ``K^(2p) = 1``.  Write ``N`` for the nilpotency order (``ell``, or
+    ``p`` when ``ell = 2p``).  Basis: the PBW monomials ``F^a K^b E^c`` with
+    ``0 <= a, c < N`` and ``0 <= b < ell``, named like ``"F^2*K*E"``
     (``"1"`` for the identity); element ``(a, b, c)`` has index
-    ``(a * ell + b) * ell + c``.
+    ``(a * ell + b) * N + c``.
 
     Products are straightened with the commutation formulas, derived from the
     relations: ``E K^b = q^-2b K^b E``, ``K^b F^i = q^-2bi F^i K^b`` and
@@ -621,10 +632,12 @@ def small_quantum_sl2(ell: int, q: Any, field: Field | str) -> MultiplicationTab
     (27, ('1', 'E', 'E^2', 'K'))
     """
     ell = _check_int(ell, "small_quantum_sl2: ell", 3)
-    if ell % 2 == 0:
-        raise SpecError(f"small_quantum_sl2: ell must be odd, got {ell}")
+    N = ell if ell % 2 else ell // 2  # E^N = F^N = 0
     F = _as_field(field)
-    qq = F(q)
+    try:
+        qq = F(q)
+    except CoefficientError as exc:
+        raise CoefficientError(f"q = {q!r}: {exc}") from None
     if qq == 0:
         raise SpecError(f"small_quantum_sl2: q = 0 is not a root of unity in {F.name}")
     order = _multiplicative_order(qq, ell)
@@ -649,7 +662,7 @@ def small_quantum_sl2(ell: int, q: Any, field: Field | str) -> MultiplicationTab
             sum((qp(-2 * m) for m in range(a)), zero) * inv,
             -sum((qp(2 * m) for m in range(a)), zero) * inv,
         )
-        for a in range(ell)
+        for a in range(N)
     ]
 
     def left_E(v: dict[tuple[int, int, int], Any]) -> dict[tuple[int, int, int], Any]:
@@ -659,7 +672,7 @@ def small_quantum_sl2(ell: int, q: Any, field: Field | str) -> MultiplicationTab
             out[key] = out.get(key, zero) + c
 
         for (a, b, c), w in v.items():
-            if c + 1 < ell:
+            if c + 1 < N:
                 add((a, b, c + 1), w * qp(-2 * b))
             if a > 0:
                 kp, km = bracket[a]
@@ -669,9 +682,9 @@ def small_quantum_sl2(ell: int, q: Any, field: Field | str) -> MultiplicationTab
 
     # EF[c][d] = E^c F^d as {(i, j, k): coefficient}
     EF = []
-    for c in range(ell):
+    for c in range(N):
         row = []
-        for d in range(ell):
+        for d in range(N):
             v = {(d, 0, 0): one}
             for _ in range(c):
                 v = left_E(v)
@@ -679,15 +692,15 @@ def small_quantum_sl2(ell: int, q: Any, field: Field | str) -> MultiplicationTab
         EF.append(row)
 
     def ix(a: int, b: int, c: int) -> int:
-        return (a * ell + b) * ell + c
+        return (a * ell + b) * N + c
 
-    monomials = [(a, b, c) for a in range(ell) for b in range(ell) for c in range(ell)]
+    monomials = [(a, b, c) for a in range(N) for b in range(ell) for c in range(N)]
     products: dict[tuple[int, int], dict[int, Any]] = {}
     for a, b, c in monomials:
         for d, e, f in monomials:
             acc: dict[int, Any] = {}
             for (i, j, k), w in EF[c][d].items():
-                if a + i >= ell or k + f >= ell:
+                if a + i >= N or k + f >= N:
                     continue
                 key = ix(a + i, (b + j + e) % ell, k + f)
                 acc[key] = acc.get(key, zero) + w * qp(-2 * (b * i + k * e))

@@ -14,7 +14,7 @@ from typing import Any
 import networkx as nx
 
 from hwcat.errors import CoefficientError, QuiverError, RelationError
-from hwcat.exact import Field
+from hwcat.exact import Field, coefficient_prefix, split_factors, split_signed_terms
 
 __all__ = ["Arrow", "Quiver", "Path", "parse_arrow", "parse_relation", "format_path"]
 
@@ -110,21 +110,8 @@ def format_path(quiver: Quiver, path: Path, vertex: int | None = None) -> str:
 
 
 def _split_terms(text: str) -> list[tuple[int, str]]:
-    terms: list[tuple[int, str]] = []
-    sign = 1
-    buf = ""
-    for ch in text:
-        if ch in "+-":
-            if buf.strip():
-                terms.append((sign, buf.strip()))
-                buf = ""
-                sign = 1
-            sign *= 1 if ch == "+" else -1
-        else:
-            buf += ch
-    if buf.strip():
-        terms.append((sign, buf.strip()))
-    elif text.strip() and text.strip()[-1] in "+-":
+    terms, dangling = split_signed_terms(text)
+    if dangling:
         raise RelationError(f"relation {text!r} ends with a sign")
     return terms
 
@@ -151,17 +138,27 @@ def parse_relation(text: str, quiver: Quiver, field: Field) -> dict[Path, Any]:
         raise RelationError(f"relation {text!r} is empty")
     out: dict[Path, Any] = {}
     ends: tuple[int, int] | None = None
+    gen = getattr(field, "gen_name", None)
+    if gen is not None and gen in aidx:
+        raise RelationError(
+            f"relation {text!r}: {gen!r} names both an arrow and the generator of {field}; "
+            f"rename the generator (e.g. field = \"{field.name.split(',')[0].rstrip(')')}, w)\")"
+        )
     for sign, term in terms:
-        factors = [f.strip() for f in term.split("*")]
+        factors = split_factors(term)
         if any(f == "" for f in factors):
             raise RelationError(f"relation {text!r}: term {term!r} is malformed")
         coef = field.one
-        if _NUMBER_RE.match(factors[0]) and (len(factors) > 1 or factors[0] not in aidx):
-            try:
-                coef = field.parse(factors[0])
-            except CoefficientError as exc:
-                raise CoefficientError(f"relation {text!r}: {exc}") from None
-            factors = factors[1:]
+        if _NUMBER_RE.match(factors[0]) and len(factors) > 1 and factors[0] in aidx:
+            names = set(aidx) - {factors[0]}  # a number before other factors is a coefficient
+        else:
+            names = aidx
+        n_before = len(factors)
+        try:
+            coef, factors = coefficient_prefix(field, factors, names)
+        except CoefficientError as exc:
+            raise CoefficientError(f"relation {text!r}: {exc}") from None
+        if len(factors) < n_before:
             if not factors:
                 raise RelationError(
                     f"relation {text!r}: term {term!r} is a scalar; relations must lie in the "
@@ -175,7 +172,8 @@ def parse_relation(text: str, quiver: Quiver, field: Field) -> dict[Path, Any]:
                         f"relation {text!r}: term {term!r} is a trivial path (vertex); relations "
                         "must lie in the square of the arrow ideal"
                     )
-                raise RelationError(f"relation {text!r}: {f!r} is not an arrow")
+                hint = f" (the generator of {field} is {gen!r})" if gen is not None else ""
+                raise RelationError(f"relation {text!r}: {f!r} is not an arrow{hint}")
             path.append(aidx[f])
         for x, y in zip(path, path[1:], strict=False):
             if quiver.arrows[x].target != quiver.arrows[y].source:

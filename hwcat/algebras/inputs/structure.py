@@ -156,6 +156,8 @@ class StructureAlgebra:
         self.dim = n = len(self.basis)
         self.name = name
         self._p = field.p if isinstance(field, PrimeField) else 0
+        # the characteristic (also for GF(p^k), whose elements are not raw ints)
+        self._char = field.characteristic
         if len(set(self.basis)) != n:
             dup = next(b for b in self.basis if self.basis.count(b) > 1)
             raise StructureConstantsError(f"basis element {dup!r} is listed twice")
@@ -510,6 +512,8 @@ class StructureAlgebra:
         # (Schwartz-Zippel).
         if self._p:
             miss = 1 - (1 - Fraction(1, self._p)) ** 3
+        elif self._char:  # GF(p^k): uniform vectors over the whole field
+            miss = 1 - (1 - Fraction(1, self.field.order)) ** 3
         else:
             miss = Fraction(3, 2 * _QQ_SAMPLE + 1)
         if trials is None:
@@ -532,6 +536,10 @@ class StructureAlgebra:
     def _random_raw(self, rng: random.Random) -> list[Any]:
         if self._p:
             return [rng.randrange(self._p) for _ in range(self.dim)]
+        if self._char:
+            F, p = self.field, self._char
+            return [F.from_coeffs([rng.randrange(p) for _ in range(F.degree)])
+                    for _ in range(self.dim)]
         return [self.field(rng.randint(-_QQ_SAMPLE, _QQ_SAMPLE)) for _ in range(self.dim)]
 
     def _associativity_exact(self) -> None:

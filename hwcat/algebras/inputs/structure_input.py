@@ -21,7 +21,6 @@ Examples
 
 from __future__ import annotations
 
-import re
 from collections.abc import Mapping, Sequence
 from typing import Any
 
@@ -33,7 +32,14 @@ from hwcat.errors import (
     InternalInconsistency,
     StructureConstantsError,
 )
-from hwcat.exact import Field, Mat, select_independent_rows
+from hwcat.exact import (
+    Field,
+    Mat,
+    coefficient_prefix,
+    select_independent_rows,
+    split_factors,
+    split_signed_terms,
+)
 from hwcat.exact.polys import select_columns
 
 __all__ = [
@@ -50,25 +56,11 @@ __all__ = [
 
 # -- text: combinations and product rules ------------------------------------------
 
-_COEF = re.compile(r"^\s*(\d+(?:\s*/\s*\d+)?)\s*$")
 
 
 def _split_signed(text: str) -> list[tuple[int, str]]:
-    terms: list[tuple[int, str]] = []
-    sign = 1
-    buf = ""
-    for ch in text:
-        if ch in "+-":
-            if buf.strip():
-                terms.append((sign, buf.strip()))
-                buf = ""
-                sign = 1
-            sign *= 1 if ch == "+" else -1
-        else:
-            buf += ch
-    if buf.strip():
-        terms.append((sign, buf.strip()))
-    elif text.strip() and text.strip()[-1] in "+-":
+    terms, dangling = split_signed_terms(text)
+    if dangling:
         raise StructureConstantsError(f"{text!r} ends with a sign")
     return terms
 
@@ -101,16 +93,13 @@ def parse_combination(
     if not terms:
         raise StructureConstantsError(f"{text!r} is empty")
     for sign, term in terms:
-        factors = [f.strip() for f in term.split("*")]
+        factors = split_factors(term)
         if any(f == "" for f in factors):
             raise StructureConstantsError(f"{text!r}: term {term!r} is malformed")
-        coef = field.one
-        if _COEF.match(factors[0]) and factors[0] not in index:
-            try:
-                coef = field.parse(factors[0].replace(" ", ""))
-            except CoefficientError as exc:
-                raise CoefficientError(f"{text!r}: {exc}") from None
-            factors = factors[1:]
+        try:
+            coef, factors = coefficient_prefix(field, factors, index)
+        except CoefficientError as exc:
+            raise CoefficientError(f"{text!r}: {exc}") from None
         if not factors:
             raise StructureConstantsError(
                 f"{text!r}: term {term!r} is a bare number; write it times a basis element "
@@ -384,16 +373,13 @@ def matrix_expression(text: str, field: Field, generators: Mapping[str, Mat]) ->
     if not terms:
         raise StructureConstantsError(f"{text!r} is empty")
     for sign, term in terms:
-        factors = [f.strip() for f in term.split("*")]
+        factors = split_factors(term)
         if any(f == "" for f in factors):
             raise StructureConstantsError(f"{text!r}: term {term!r} is malformed")
-        coef = field.one
-        if _COEF.match(factors[0]) and factors[0] not in generators:
-            try:
-                coef = field.parse(factors[0].replace(" ", ""))
-            except CoefficientError as exc:
-                raise CoefficientError(f"{text!r}: {exc}") from None
-            factors = factors[1:]
+        try:
+            coef, factors = coefficient_prefix(field, factors, generators)
+        except CoefficientError as exc:
+            raise CoefficientError(f"{text!r}: {exc}") from None
         M = Mat.identity(field, N)
         for f in factors:
             if f == "1":

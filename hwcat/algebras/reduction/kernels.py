@@ -14,7 +14,7 @@ from typing import Any
 
 from hwcat.algebras.inputs.structure import StructureAlgebra
 from hwcat.errors import InternalInconsistency
-from hwcat.exact import Mat, echelon
+from hwcat.exact import Mat, echelon, restrict_scalars, rows_over_extension
 from hwcat.exact.polys import Poly, lifted_power_trace, select_columns, sparse_matrix
 
 __all__ = [
@@ -28,6 +28,7 @@ __all__ = [
     "krylov",
     "minpoly",
     "small_radical",
+    "small_radical_by_restriction",
 ]
 
 
@@ -111,6 +112,21 @@ def minpoly(F, d: int, c: Sequence[Any]) -> Poly:
     return Poly.from_coeffs(F, [-x for x in c] + [F.one])
 
 
+def small_radical_by_restriction(K, mult: list[Mat]) -> Mat:
+    """Radical of a small algebra over ``GF(p^k)`` through the same algebra over ``GF(p)``.
+
+    The algebra of dimension ``c`` over ``K`` is one of dimension ``c k`` over the
+    prime field (basis ``t^a c_l``); both have the same radical, since ``K`` is
+    central: the ``K``-span of a nilpotent ideal is a nilpotent ideal (common
+    practice).  The prime-field radical is read back as vectors over ``K``.
+    """
+    d = K.degree
+    t = K.gen
+    big = [restrict_scalars(mult[l].scale(t**a)) for l in range(len(mult)) for a in range(d)]
+    J = small_radical(K.base, big)
+    return echelon(rows_over_extension(K, J))
+
+
 def small_radical(F, mult: list[Mat]) -> Mat:
     """Radical of a small algebra given by its right multiplication matrices.
 
@@ -119,6 +135,8 @@ def small_radical(F, mult: list[Mat]) -> Mat:
     the lifted-trace chain on the regular representation.
     """
     c = len(mult)
+    if getattr(F, "degree", 1) > 1 and F.characteristic and F.characteristic <= c:
+        return small_radical_by_restriction(F, mult)
     tau = [sum((mult[l][a, a] for a in range(c)), F.zero) for l in range(c)]
 
     def gram(psi: Sequence[Any]) -> Mat:

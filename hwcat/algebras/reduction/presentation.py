@@ -83,6 +83,10 @@ class Presentation:
 def _coef_text(F: Field, c: Any) -> str:
     s = F.to_str(c)
     p = F.characteristic
+    if getattr(F, "degree", 1) > 1:  # an extension field: a polynomial in its generator
+        if any(ch in s[1:] for ch in "+-") or (s.startswith("-") and "*" in s):
+            return f"({s})"
+        return s
     if p and int(s) > p // 2:  # GF(p): print p - 1 as -1
         s = str(int(s) - p)
     return s

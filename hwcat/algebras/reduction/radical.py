@@ -128,8 +128,13 @@ def trace_radical(A: StructureAlgebra, method: str = "auto") -> Mat:
     d = A.natural[0].nrows if use_natural else A.dim
     p = F.characteristic
     trace_ok = p == 0 or p > d
+    prime = getattr(F, "degree", 1) == 1  # the lifted traces need integer lifts: GF(p) only
     if method == "auto":
         method = "trace" if trace_ok else "lifted-trace"
+    if method == "lifted-trace" and not prime and not trace_ok:
+        raise StructureConstantsError(
+            f"radical: method 'lifted-trace' needs a prime field, not {F}; use 'reduction'"
+        )
     if method == "trace":
         if not trace_ok:
             raise StructureConstantsError(
@@ -257,7 +262,12 @@ def _combination(S: StructureAlgebra, vecs: list[list[Any]], rng: random.Random)
     """A random linear combination of raw vectors."""
     out = [S._zero_raw()] * S.dim
     for v in vecs:
-        c = rng.randrange(1, 1000) if S._p else S.field(rng.randint(-9, 9))
+        if S._p:
+            c = rng.randrange(1, 1000)
+        elif S._char:  # GF(p^k): uniform over the whole field
+            c = S.field.from_coeffs([rng.randrange(S._char) for _ in range(S.field.degree)])
+        else:
+            c = S.field(rng.randint(-9, 9))
         out = [a + c * b for a, b in zip(out, v, strict=True)]
     return [x % S._p for x in out] if S._p else out
 
@@ -339,7 +349,9 @@ def _split_semisimple(S: StructureAlgebra, rng: random.Random) -> list[list[Any]
     return prim
 
 
-def primitive_idempotents(A: StructureAlgebra, *, seed: int = 0) -> list[list[Any]]:
+def primitive_idempotents(
+    A: StructureAlgebra, *, seed: int = 0, rad: Mat | None = None
+) -> list[list[Any]]:
     """A complete set of primitive orthogonal idempotents by the quotient route.
 
     Radical (:func:`radical`), semisimple quotient, its centre split by random
@@ -348,7 +360,8 @@ def primitive_idempotents(A: StructureAlgebra, *, seed: int = 0) -> list[list[An
     Returned as raw coordinate lists.
     """
     rng = random.Random(seed)
-    rad = trace_radical(A)
+    if rad is None:
+        rad = trace_radical(A)
     S, kept = _quotient(A, rad)
     prim = _split_semisimple(S, rng)
     out: list[list[Any]] = []

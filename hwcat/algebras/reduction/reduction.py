@@ -100,7 +100,7 @@ from hwcat.algebras.reduction.radical import (
     trace_radical,
 )
 from hwcat.errors import InternalInconsistency, NotSplitError, StructureConstantsError
-from hwcat.exact import Mat, echelon, select_independent_rows
+from hwcat.exact import Mat, echelon, select_independent_rows, splitting_field_hint
 from hwcat.exact.polys import (
     Poly,
     fitting_polynomials,
@@ -259,22 +259,31 @@ def _new_class(A: StructureAlgebra, e: list[Any], R: Mat, index, rows) -> _Class
     )
 
 
-def _residue_field_error(A, c: int, codim: int, mult, rad) -> None:
+def _residue_field_error(A, c: int, codim: int, mult, rad, minpoly: Poly | None = None) -> None:
+    hint = splitting_field_hint(A.field, codim, minpoly.coeffs() if minpoly is not None else None)
     raise NotSplitError(
         f"a simple module of the algebra does not split over {A.field}: the corner e A e of an "
         f"indecomposable projective (dimension {c}) is local, but its residue algebra has "
         f"dimension {codim} over {A.field} (the endomorphism ring of the simple is a proper "
-        "extension of the field). Remedy: use a field containing the missing roots (another "
-        "prime p), or supply a complete set of primitive orthogonal idempotents in the spec"
+        f"extension of the field){hint}. Remedy: use a field containing the missing roots, "
+        "or supply a complete set of primitive orthogonal idempotents in the spec"
     )
+
+
+def _random_element(F: Any, rng: random.Random, nonzero: bool = False) -> Any:
+    """A random element of a finite extension field (uniform on its coefficients)."""
+    while True:
+        x = F.from_coeffs([rng.randrange(F.characteristic) for _ in range(F.degree)])
+        if x or not nonzero:
+            return x
 
 
 def _dim_left_ideal(A: StructureAlgebra, f: list[Any], R: Mat) -> int:
     """``dim A f`` (= trace of R when the characteristic exceeds the dimension)."""
-    p = A._p
+    p = A._char
     if p == 0 or p > A.dim:
         t = sum((a * b for a, b in zip(A.raw(A.trace_functional()), f, strict=True)), A._zero_raw())
-        return int(t % p) if p else int(t)
+        return int(t) % p if p else int(t)
     return R.rank()
 
 
@@ -304,7 +313,7 @@ class _Search:
     max_attempts: int = 32
 
     def __post_init__(self) -> None:
-        p = self.A._p
+        p = self.A._char
         self.trace_exact = p == 0 or p > self.A.dim
         self.tau = self.A.raw(self.A.trace_functional())
         self.pool: list[tuple[list[Any], Mat]] = []
@@ -321,6 +330,8 @@ class _Search:
             t0 = time.perf_counter()
             if A._p:
                 w = [self.rng.randrange(A._p) for _ in range(A.dim)]
+            elif A._char:  # GF(p^k): dense over the whole field
+                w = [_random_element(A.field, self.rng) for _ in range(A.dim)]
             else:
                 w = [A.field(self.rng.randint(-3, 3)) for _ in range(A.dim)]
             self.pool.append((w, A._action(w, None, left=False)))
@@ -366,7 +377,7 @@ class _Search:
             return "explore" if unk else "skip"
         if sum(r) == 0:
             return "explore"
-        p = self.A._p
+        p = self.A._char
         return "explore" if (int(self.trace(node.f)) - explained) % p else "defer"
 
     def random_sparse(self, node: _Node) -> list[Any]:
@@ -377,6 +388,10 @@ class _Search:
             top = min(len(core), 32 * grow)
             k = rng.randint(max(1, top // 2), top) if A._p < 5 else top
             coef = lambda: rng.randrange(1, A._p)  # noqa: E731
+        elif A._char:  # GF(p^k): random nonzero scalars from the whole field
+            top = min(len(core), 32 * grow)
+            k = rng.randint(max(1, top // 2), top) if A._char < 5 else top
+            coef = lambda: _random_element(A.field, rng, nonzero=True)  # noqa: E731
         else:
             # over QQ a component M_r(QQ) splits only with rational eigenvalues: single basis
             # elements (often of small rank in a corner) work best, larger sums now and then
@@ -443,7 +458,7 @@ class _Search:
                 scored = []
                 for kid in kids:
                     known = sum(self.known_ranks(kid.f))
-                    scored.append(((known > 0, self.trace(kid.f) if self.trace_exact else 0), kid))
+                    scored.append(((known > 0, int(self.trace(kid.f)) if self.trace_exact else 0), kid))
                 scored.sort(key=lambda s: s[0])
                 stack.extend(k for _, k in reversed(scored))
 
@@ -553,22 +568,36 @@ def _residue_check(A: StructureAlgebra, mult: list[Mat], rad: Mat, rng: random.R
         Q = Mat.vstack(F, [rad, Mat.unit_rows(F, c, comp)], c)
     d = c - rad.nrows
     Qi = Q.inverse()  # coordinates in the basis (rad, complement)
-    for _ in range(4):
-        x = Mat.from_flat(F, 1, c, [F(rng.randrange(1, 97)) for _ in range(c)])
+    def residue_minpoly(x: list[Any]) -> list[tuple[Poly, int]]:
         # right multiplication by x on the quotient corner / rad
         Rx = Mat.zeros(F, c, c)
-        for l, xl in enumerate(x.entries()):
+        for l, xl in enumerate(x):
             if xl != 0:
                 Rx = Rx + mult[l].scale(xl)
         Mq = (Q @ Rx @ Qi).take_rows(list(range(rad.nrows, c)))
         Mq = select_columns(Mq, list(range(rad.nrows, c)))
         K, co = krylov(Mat.unit_rows(F, d, [0]), Mq)
-        facs = minpoly(F, K.nrows, co).factor()
+        return minpoly(F, K.nrows, co).factor()
+
+    for _ in range(4):
+        facs = residue_minpoly([F(rng.randrange(1, 97)) for _ in range(c)])
         if len(facs) == 1 and facs[0][1] == 1 and facs[0][0].degree == d:
-            _residue_field_error(A, c, d, mult, rad)
+            # a proper field extension: name it by the simplest primitive element at hand
+            best = facs[0][0]
+            if F.characteristic == 0 and c <= 16:
+                for j in range(c):
+                    g = residue_minpoly([F.one if k == j else F.zero for k in range(c)])
+                    if len(g) == 1 and g[0][0].degree == d and _height(g[0][0]) < _height(best):
+                        best = g[0][0]
+            _residue_field_error(A, c, d, mult, rad, best)
         if len(facs) > 1:
             break
     raise _NotPrimitive()
+
+
+def _height(g: Poly) -> int:
+    """Size of a rational polynomial's coefficients (to pick a readable one)."""
+    return sum(len(str(x)) for x in g.coeffs())
 
 
 # ----------------------------------------------------------------------------------
@@ -826,7 +855,8 @@ def radical(A: StructureAlgebra, method: str = "auto", *, seed: int = 0) -> Mat:
     if method == "auto":
         d = A.natural[0].nrows if A.natural is not None else A.dim
         p = A.field.characteristic
-        if p and p <= d and d > LIFTED_TRACE_LIMIT:
+        prime = getattr(A.field, "degree", 1) == 1  # lifted traces need GF(p)
+        if p and p <= d and (d > LIFTED_TRACE_LIMIT or not prime):
             return reduce_algebra(A, seed=seed).radical()
     return trace_radical(A, method)
 
@@ -865,7 +895,7 @@ def reduce_algebra(
         timings["idempotents"] = time.perf_counter() - t0
         return _finish(A, classes, "supplied idempotents", seed, timings)
     if method == "quotient":
-        ids = primitive_idempotents(A, seed=seed)
+        ids = primitive_idempotents(A, seed=seed, rad=radical(A, seed=seed))
         timings["idempotents"] = time.perf_counter() - t0
         t1 = time.perf_counter()
         classes = _classes_from_idempotents(A, ids)
