@@ -26,6 +26,13 @@ from hwcat.theory.highest_weight import (
     standard_filtration,
     standard_module,
 )
+from hwcat.theory.homological import (
+    ext_dimension,
+    ext_dimensions,
+    global_dimension,
+    injective_dimension,
+    projective_dimension,
+)
 from hwcat.theory.orders import PartialOrder, parse_order, total_order
 from hwcat.theory.search import is_quasi_hereditary, quasi_hereditary_orders
 from hwcat.theory.structure import describe
@@ -63,4 +70,10 @@ __all__ = [
     "is_quasi_hereditary",
     "HwcatError",
     "InternalInconsistency",
+    # homological dimensions and Ext (what fuzzed claims typically need)
+    "global_dimension",
+    "projective_dimension",
+    "injective_dimension",
+    "ext_dimension",
+    "ext_dimensions",
 ]

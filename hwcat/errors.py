@@ -24,6 +24,8 @@ __all__ = [
     "StructureConstantsError",
     "NotSplitError",
     "InternalInconsistency",
+    "CampaignError",
+    "MissingExtra",
 ]
 
 
@@ -77,3 +79,14 @@ class NotSplitError(HwcatError, ValueError):
 
 class InternalInconsistency(HwcatError, AssertionError):
     """Two independent computations of the same fact disagree: a bug in hwcat."""
+
+
+# -- campaigns (fuzzing and surveys) -------------------------------------------------
+
+
+class CampaignError(HwcatError, ValueError):
+    """Bad input to a fuzz campaign or survey: claim file, function, options, grid."""
+
+
+class MissingExtra(HwcatError, ImportError):
+    """An optional dependency is not installed; the message says which extra brings it."""
