@@ -32,5 +32,4 @@ from __future__ import annotations
 from hwcat.campaigns.fuzz import FuzzReport, fuzz, load_claim
 from hwcat.campaigns.survey import SurveyTable, parse_grid, survey, write_csv
 
-__all__ = ["fuzz", "FuzzReport", "load_claim", "survey", "SurveyTable", "parse_grid",
-           "write_csv"]
+__all__ = ["fuzz", "FuzzReport", "load_claim", "survey", "SurveyTable", "parse_grid", "write_csv"]

@@ -44,8 +44,11 @@ def _define(req: dict) -> dict:
     exec(code, namespace)  # the user's claim file: running it is the point
     fn = namespace.get(req["function"])
     if not callable(fn):
-        return {"status": "error", "exception": "NameError",
-                "message": f"{req['filename']} defines no function {req['function']!r}"}
+        return {
+            "status": "error",
+            "exception": "NameError",
+            "message": f"{req['filename']} defines no function {req['function']!r}",
+        }
     _CLAIMS[req["key"]] = fn
     return {"status": "ok"}
 
@@ -67,11 +70,19 @@ def evaluate_claim(fn, spec_text: str) -> dict:
     try:
         value = fn(A)
     except AssertionError as exc:
-        return {"status": "fails", "exception": type(exc).__name__, "message": str(exc),
-                "traceback": traceback.format_exc(limit=-4)}
+        return {
+            "status": "fails",
+            "exception": type(exc).__name__,
+            "message": str(exc),
+            "traceback": traceback.format_exc(limit=-4),
+        }
     except Exception as exc:  # noqa: BLE001 -- any other error is reported, not raised
-        return {"status": "error", "exception": type(exc).__name__, "message": str(exc),
-                "traceback": traceback.format_exc(limit=-4)}
+        return {
+            "status": "error",
+            "exception": type(exc).__name__,
+            "message": str(exc),
+            "traceback": traceback.format_exc(limit=-4),
+        }
     if value is False:
         return {"status": "fails", "returned": "False"}
     return {"status": "holds", "returned": _short(value)}
@@ -110,8 +121,10 @@ def _handle(req: dict) -> dict:
         return evaluate_claim(_CLAIMS[req["key"]], req["spec"])
     if op == "survey":
         try:
-            return {"status": "ok", "row": survey_row(req["family"], req["params"],
-                                                       req.get("seed", 0))}
+            return {
+                "status": "ok",
+                "row": survey_row(req["family"], req["params"], req.get("seed", 0)),
+            }
         except Exception as exc:  # noqa: BLE001 -- a failing member gets a row saying so
             return {"status": "error", "exception": type(exc).__name__, "message": str(exc)}
     if op == "ping":

@@ -115,8 +115,11 @@ class FuzzReport:
             f"{c[s]} {s}" for s in ("timeout", "error", "crashed", "lost") if c.get(s)
         )
         tail = f" ({extra})" if extra else ""
-        lost = f"; {len(self.lost_workers)} worker(s) lost and their tasks retried" if (
-            self.lost_workers) else ""
+        lost = (
+            f"; {len(self.lost_workers)} worker(s) lost and their tasks retried"
+            if (self.lost_workers)
+            else ""
+        )
         speed = f"{self.seconds:.1f} s, {self.rate():.1f} examples/s on {self.workers} worker(s)"
         if self.found:
             ce = self.counterexample
@@ -158,16 +161,16 @@ def load_claim(ref: str) -> dict[str, str]:
     try:
         exec(compile(source, path, "exec"), namespace)  # the user's claim file
     except Exception as exc:  # noqa: BLE001 -- any failure of the file is bad input
-        raise CampaignError(f"{path}: the claim file fails to load: "
-                            f"{type(exc).__name__}: {exc}") from None
+        raise CampaignError(
+            f"{path}: the claim file fails to load: {type(exc).__name__}: {exc}"
+        ) from None
     finally:
         if added:
             sys.path.remove(directory)
     if not callable(namespace.get(function)):
         raise CampaignError(f"{path}: no function {function!r} in the claim file")
     key = hashlib.sha256(f"{path}\0{function}\0{source}".encode()).hexdigest()[:16]
-    return {"key": key, "source": source, "filename": os.path.abspath(path),
-            "function": function}
+    return {"key": key, "source": source, "filename": os.path.abspath(path), "function": function}
 
 
 def _outcome(answer: dict) -> str:
@@ -253,8 +256,14 @@ def fuzz(
         field = parse_field(field).name
     if timeout is not None and not timeout > 0:
         raise CampaignError(f"--timeout {timeout!r}: must be positive")
-    settings = {"seed": seed, "kinds": list(kinds), "max_vertices": max_vertices,
-                "field": field, "examples": examples, "timeout": timeout}
+    settings = {
+        "seed": seed,
+        "kinds": list(kinds),
+        "max_vertices": max_vertices,
+        "field": field,
+        "examples": examples,
+        "timeout": timeout,
+    }
     if client is not None:
         return _run(client, claim, info, settings, out, shrink, progress)
     with open_client(workers, scheduler) as c:
@@ -275,8 +284,17 @@ def _run(client, ref, info, settings, out, shrink, progress) -> FuzzReport:
     stop = distributed.Variable(f"{run_id}-stop", client=client)
     stop.set(examples)
     futures = {
-        client.submit(fuzz_chunk, info, settings, c, timeout, stop.name, pure=False,
-                      priority=-c, key=f"{run_id}-{c}"): c
+        client.submit(
+            fuzz_chunk,
+            info,
+            settings,
+            c,
+            timeout,
+            stop.name,
+            pure=False,
+            priority=-c,
+            key=f"{run_id}-{c}",
+        ): c
         for c in range(nchunks)
     }
     pending = set(futures)
@@ -320,9 +338,14 @@ def _run(client, ref, info, settings, out, shrink, progress) -> FuzzReport:
                             stop.set(first_fail)
                 if bar is not None:
                     bar.update(len(results))
-                    bar.set_postfix(failures=fails_seen, timeouts=sum(
-                        r["status"] == "timeout" for cr in chunk_results.values()
-                        for r in cr["results"]))
+                    bar.set_postfix(
+                        failures=fails_seen,
+                        timeouts=sum(
+                            r["status"] == "timeout"
+                            for cr in chunk_results.values()
+                            for r in cr["results"]
+                        ),
+                    )
             if first_fail is not None:
                 for fut in list(pending):
                     if futures[fut] * CHUNK > first_fail:
@@ -351,15 +374,25 @@ def _run(client, ref, info, settings, out, shrink, progress) -> FuzzReport:
             if a["index"] == first_fail:
                 fail_answer = a
             elif a["status"] not in ("holds", "fails") and len(problems) < 50:
-                problems.append({k: a.get(k) for k in ("index", "kind", "status", "exception",
-                                                         "message", "spec") if k in a})
+                problems.append(
+                    {
+                        k: a.get(k)
+                        for k in ("index", "kind", "status", "exception", "message", "spec")
+                        if k in a
+                    }
+                )
     for c in lost_chunks:
         if first_fail is None or c * CHUNK < first_fail:
             n = min(CHUNK, examples - c * CHUNK)
             counts["lost"] += n
-            problems.append({"chunk": c, "status": "lost",
-                             "message": f"examples {c * CHUNK}..{c * CHUNK + n - 1} were not "
-                                        "evaluated: their task killed workers repeatedly"})
+            problems.append(
+                {
+                    "chunk": c,
+                    "status": "lost",
+                    "message": f"examples {c * CHUNK}..{c * CHUNK + n - 1} were not "
+                    "evaluated: their task killed workers repeatedly",
+                }
+            )
     counterexample = None
     if fail_answer is not None:
         counterexample = _counterexample(client, info, fail_answer, timeout, shrink)
@@ -395,8 +428,10 @@ def _counterexample(client, info, answer, timeout, shrink) -> dict[str, Any]:
         if not cands:
             break
         texts = [spec_to_toml(c) for c in cands]
-        futs = [client.submit(evaluate_specs, info, [(i, t)], timeout, pure=False)
-                for i, t in enumerate(texts)]
+        futs = [
+            client.submit(evaluate_specs, info, [(i, t)], timeout, pure=False)
+            for i, t in enumerate(texts)
+        ]
         picked = None
         for i, fut in enumerate(futs):
             try:
@@ -451,12 +486,16 @@ def _write(report: FuzzReport, out: Path) -> FuzzReport:
             }
             rec_path = out / "counterexample.json"
             rec_path.write_text(json.dumps(record, indent=2) + "\n", encoding="utf-8")
-            files = {"spec": str(spec_path), "original_spec": str(orig_path),
-                     "record": str(rec_path)}
+            files = {
+                "spec": str(spec_path),
+                "original_spec": str(orig_path),
+                "record": str(rec_path),
+            }
         files["campaign"] = str(out / "campaign.json")
         final = FuzzReport(**{**report.__dict__, "files": files})
-        (out / "campaign.json").write_text(json.dumps(final.to_dict(), indent=2) + "\n",
-                                           encoding="utf-8")
+        (out / "campaign.json").write_text(
+            json.dumps(final.to_dict(), indent=2) + "\n", encoding="utf-8"
+        )
     except OSError as exc:
         raise CampaignError(f"--out {out}: cannot write: {exc.strerror or exc}") from None
     return final

@@ -99,8 +99,9 @@ def _commutative_specs(max_vertices: int, field):
         if pairs:
             for _ in range(draw(st.integers(0, 3))):
                 paths = parallel[draw(st.sampled_from(pairs))]
-                i, j = draw(st.lists(st.integers(0, len(paths) - 1), min_size=2, max_size=2,
-                                     unique=True))
+                i, j = draw(
+                    st.lists(st.integers(0, len(paths) - 1), min_size=2, max_size=2, unique=True)
+                )
                 text = " - ".join("*".join(Q.arrows[k].name for k in paths[m]) for m in (i, j))
                 if text not in relations:
                     relations.append(text)

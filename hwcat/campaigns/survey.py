@@ -35,8 +35,16 @@ from hwcat.errors import CampaignError, HwcatError
 
 __all__ = ["SurveyTable", "survey", "parse_grid", "RESULT_COLUMNS"]
 
-RESULT_COLUMNS = ("status", "dimension", "simples", "quasi_hereditary", "structures",
-                  "global_dimension", "seconds", "message")
+RESULT_COLUMNS = (
+    "status",
+    "dimension",
+    "simples",
+    "quasi_hereditary",
+    "structures",
+    "global_dimension",
+    "seconds",
+    "message",
+)
 _RANGE = re.compile(r"^\s*(-?\d+)\s*\.\.\s*(-?\d+)\s*$")
 
 
@@ -100,9 +108,13 @@ class SurveyTable:
     seconds: float
 
     def to_dict(self) -> dict[str, Any]:
-        return {"family": self.family, "columns": list(self.columns),
-                "rows": [dict(r) for r in self.rows], "workers": self.workers,
-                "seconds": round(self.seconds, 3)}
+        return {
+            "family": self.family,
+            "columns": list(self.columns),
+            "rows": [dict(r) for r in self.rows],
+            "workers": self.workers,
+            "seconds": round(self.seconds, 3),
+        }
 
     def to_csv(self) -> str:
         buf = io.StringIO()
@@ -122,8 +134,10 @@ class SurveyTable:
         c = self.counts()
         parts = ", ".join(f"{n} {s}" for s, n in sorted(c.items()))
         qh = sum(1 for r in self.rows if r.get("quasi_hereditary") is True)
-        return (f"survey {self.family}: {len(self.rows)} members ({parts}); {qh} "
-                f"quasi-hereditary; {self.seconds:.1f} s on {self.workers} worker(s)")
+        return (
+            f"survey {self.family}: {len(self.rows)} members ({parts}); {qh} "
+            f"quasi-hereditary; {self.seconds:.1f} s on {self.workers} worker(s)"
+        )
 
 
 def survey(
@@ -167,9 +181,18 @@ def _run(client, family, keys, members, timeout, progress) -> SurveyTable:
     start = time.perf_counter()
     watch = WorkerWatch(client)
     run_id = f"hwcat-survey-{family}-{time.time_ns()}"
-    futs = [client.submit(survey_member, family, {k: str(v) for k, v in m.items()}, timeout,
-                          pure=False, priority=-i, key=f"{run_id}-{i}")
-            for i, m in enumerate(members)]
+    futs = [
+        client.submit(
+            survey_member,
+            family,
+            {k: str(v) for k, v in m.items()},
+            timeout,
+            pure=False,
+            priority=-i,
+            key=f"{run_id}-{i}",
+        )
+        for i, m in enumerate(members)
+    ]
     bar = None
     if progress:
         try:
@@ -184,8 +207,11 @@ def _run(client, family, keys, members, timeout, progress) -> SurveyTable:
         for fut in distributed.as_completed(futs):
             i = index[fut.key]
             if fut.exception() is not None:
-                answers[i] = {"status": "lost", "message": f"{type(fut.exception()).__name__}: "
-                              "the task killed workers repeatedly"}
+                answers[i] = {
+                    "status": "lost",
+                    "message": f"{type(fut.exception()).__name__}: "
+                    "the task killed workers repeatedly",
+                }
             else:
                 answers[i] = fut.result()
             if bar is not None:
@@ -211,8 +237,13 @@ def _run(client, family, keys, members, timeout, progress) -> SurveyTable:
             exc = a.get("exception")
             row["message"] = f"{exc}: {a.get('message')}" if exc else a.get("message")
         rows.append(row)
-    return SurveyTable(family, tuple(keys) + RESULT_COLUMNS, tuple(rows),
-                       watch.worker_count(), time.perf_counter() - start)
+    return SurveyTable(
+        family,
+        tuple(keys) + RESULT_COLUMNS,
+        tuple(rows),
+        watch.worker_count(),
+        time.perf_counter() - start,
+    )
 
 
 def write_csv(table: SurveyTable, path: str | os.PathLike) -> None:

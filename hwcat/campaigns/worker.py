@@ -177,8 +177,9 @@ def fuzz_chunk(
     from hwcat.algebras.families.quivers import spec_to_toml
     from hwcat.campaigns.generate import CHUNK, spec_chunk
 
-    specs = spec_chunk(settings["seed"], chunk, settings["kinds"], settings["max_vertices"],
-                       settings["field"])
+    specs = spec_chunk(
+        settings["seed"], chunk, settings["kinds"], settings["max_vertices"], settings["field"]
+    )
     start = chunk * CHUNK
     specs = specs[: max(0, settings["examples"] - start)]
     digest = hashlib.sha256()
@@ -198,8 +199,12 @@ def fuzz_chunk(
         results.append(answer)
         if answer["status"] == "fails":
             break
-    return {"results": results, "digest": digest.hexdigest(), "drawn": len(specs),
-            "worker": _where()}
+    return {
+        "results": results,
+        "digest": digest.hexdigest(),
+        "drawn": len(specs),
+        "worker": _where(),
+    }
 
 
 def survey_member(family: str, params: dict, timeout: float | None) -> dict:

@@ -77,10 +77,19 @@ def _cmd_survey(args: argparse.Namespace) -> int:
 
 def _where(p: argparse.ArgumentParser) -> None:
     g = p.add_mutually_exclusive_group()
-    g.add_argument("--workers", type=int, default=None, metavar="W",
-                   help="worker processes of a new local cluster (default 2)")
-    g.add_argument("--scheduler", metavar="ADDRESS", default=None,
-                   help="address of a running Dask scheduler, e.g. tcp://host:8786")
+    g.add_argument(
+        "--workers",
+        type=int,
+        default=None,
+        metavar="W",
+        help="worker processes of a new local cluster (default 2)",
+    )
+    g.add_argument(
+        "--scheduler",
+        metavar="ADDRESS",
+        default=None,
+        help="address of a running Dask scheduler, e.g. tcp://host:8786",
+    )
 
 
 def register(sub) -> None:
@@ -94,20 +103,35 @@ def register(sub) -> None:
     )
     p.add_argument("claim", metavar="FILE.py:FUNCTION")
     p.add_argument("--examples", type=int, default=200, help="how many algebras (default 200)")
-    p.add_argument("--max-vertices", type=int, default=3, help="at most this many simples "
-                   "(default 3)")
-    p.add_argument("--field", default=None,
-                   help="QQ or GF(p); default: drawn from QQ, GF(2), GF(3), GF(101), GF(2^61-1)")
-    p.add_argument("--kind", action="append", metavar="KIND",
-                   help="general, acyclic, nakayama, commutative (repeat or comma-separate; "
-                   "default general)")
+    p.add_argument(
+        "--max-vertices", type=int, default=3, help="at most this many simples (default 3)"
+    )
+    p.add_argument(
+        "--field",
+        default=None,
+        help="QQ or GF(p); default: drawn from QQ, GF(2), GF(3), GF(101), GF(2^61-1)",
+    )
+    p.add_argument(
+        "--kind",
+        action="append",
+        metavar="KIND",
+        help="general, acyclic, nakayama, commutative (repeat or comma-separate; default general)",
+    )
     p.add_argument("--seed", type=int, default=0, help="campaign seed (default 0)")
     _where(p)
-    p.add_argument("--timeout", type=float, default=10.0,
-                   help="seconds per example before it counts as a timeout (default 10; 0: none)")
+    p.add_argument(
+        "--timeout",
+        type=float,
+        default=10.0,
+        help="seconds per example before it counts as a timeout (default 10; 0: none)",
+    )
     p.add_argument("--no-shrink", action="store_true", help="write the counterexample as drawn")
-    p.add_argument("--out", required=True, metavar="DIR",
-                   help="directory for counterexample.toml/.json and campaign.json")
+    p.add_argument(
+        "--out",
+        required=True,
+        metavar="DIR",
+        help="directory for counterexample.toml/.json and campaign.json",
+    )
     p.add_argument("--json", action="store_true", help="print the campaign report as JSON")
     p.set_defaults(func=_cmd_fuzz)
 
@@ -122,8 +146,9 @@ def register(sub) -> None:
     s.add_argument("family")
     s.add_argument("params", nargs="*", metavar="key=values")
     _where(s)
-    s.add_argument("--timeout", type=float, default=120.0,
-                   help="seconds per member (default 120; 0: none)")
+    s.add_argument(
+        "--timeout", type=float, default=120.0, help="seconds per member (default 120; 0: none)"
+    )
     s.add_argument("-o", "--output", required=True, metavar="TABLE.csv")
     s.add_argument("--json", action="store_true", help="also print the table as JSON")
     s.set_defaults(func=_cmd_survey)
