@@ -68,6 +68,10 @@ def open_client(workers: int | None = None, scheduler: str | None = None) -> Ite
     try:
         yield client
     finally:
+        from hwcat.campaigns.worker import close_evaluators
+
+        with contextlib.suppress(Exception):
+            client.run(close_evaluators)
         client.close()
         cluster.close()
 

@@ -40,6 +40,8 @@ class Evaluator:
         )
         self.defined = set()
         self._buffer = b""
+        # wait for the imports, so that they do not count against the first time limit
+        self.request({"op": "ping"}, None)
 
     def stop(self) -> None:
         if self.proc is not None:
@@ -73,6 +75,8 @@ class Evaluator:
         if self.proc is None or self.proc.poll() is not None:
             self.stop()
             self._start()
+            if self.proc is None:
+                return {"status": "crashed", "message": "the evaluating process did not start"}
         start = time.monotonic()
         try:
             self.proc.stdin.write((json.dumps(req) + "\n").encode())
