@@ -19,7 +19,7 @@ import pytest
 import hwcat
 from hwcat.campaigns.generate import CHUNK, check_kinds, spec_chunk
 from hwcat.campaigns.shrink import candidates, size_key
-from hwcat.campaigns.survey import parse_grid
+from hwcat.campaigns.surveys import parse_grid
 from hwcat.campaigns.worker import Evaluator
 from hwcat.cli import main
 from hwcat.errors import CampaignError
@@ -275,10 +275,10 @@ def test_a_worker_that_dies_is_reported_and_its_examples_retried(cluster, tmp_pa
     from hwcat.campaigns.worker import close_evaluators
 
     cluster.run(close_evaluators)  # fresh evaluating processes see the variable
-    report = hwcat.campaigns.fuzz(f"{CLAIMS}:kills_its_worker_once", examples=60, seed=3,
+    report = hwcat.campaigns.fuzz(f"{CLAIMS}:kills_its_worker_once", examples=10, seed=3,
                                   client=cluster)
     assert marker.exists()
     assert len(report.lost_workers) == 1
-    assert report.examples_run == 60 and report.counts["holds"] == 60
+    assert report.examples_run == 10 and report.counts["holds"] == 10
     assert not report.found
     assert "lost and their tasks retried" in report.summary()

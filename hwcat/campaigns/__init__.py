@@ -7,10 +7,10 @@ this package imports Dask only when a campaign starts.
 
 * :func:`fuzz` -- test a claim (``"FILE.py:FUNCTION"``) on random algebras,
   shrink the first counterexample and write it as a spec file;
-  :mod:`hwcat.campaigns.fuzz` describes the rules, and
+  :mod:`hwcat.campaigns.fuzzing` describes the rules, and
   :mod:`hwcat.campaigns.generate` the distribution of the algebras.
 * :func:`survey` -- one row per member of a built-in family over a parameter
-  grid (:mod:`hwcat.campaigns.survey`).
+  grid (:mod:`hwcat.campaigns.surveys`).
 
 Workers receive spec text or family parameters and return plain data (JSON
 shaped); each worker evaluates in a separate process that it kills when an
@@ -29,7 +29,7 @@ A notebook session (not run here: it starts worker processes)::
 
 from __future__ import annotations
 
-from hwcat.campaigns.fuzz import FuzzReport, fuzz, load_claim
-from hwcat.campaigns.survey import SurveyTable, parse_grid, survey, write_csv
+from hwcat.campaigns.fuzzing import FuzzReport, fuzz, load_claim
+from hwcat.campaigns.surveys import SurveyTable, parse_grid, survey, write_csv
 
 __all__ = ["fuzz", "FuzzReport", "load_claim", "survey", "SurveyTable", "parse_grid", "write_csv"]

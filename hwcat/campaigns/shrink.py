@@ -13,7 +13,7 @@ Every move takes a format-1 quiver spec dict to a smaller one:
 
 Each move lowers the key ``(vertices, arrows, relation terms, relations,
 vanish_from_length)`` in lexicographic order, so the greedy descent of
-:func:`hwcat.campaigns.fuzz.fuzz` (take the first candidate, in the order
+:func:`hwcat.campaigns.fuzzing.fuzz` (take the first candidate, in the order
 listed by :func:`candidates`, on which the claim still fails; repeat) ends.
 Vertex and arrow names are kept, so the result reads against the original.
 """

@@ -159,9 +159,9 @@ def _stop_check(stop: str | None):
 
     def check(index: int) -> bool:
         try:
-            return var.get(timeout=5) <= index
-        except Exception:  # noqa: BLE001 -- no answer: keep going
-            return False
+            return var.get(timeout=2) <= index
+        except Exception:  # noqa: BLE001 -- the campaign is over (variable deleted)
+            return True
 
     return check
 

@@ -19,7 +19,7 @@ def _cmd_fuzz(args: argparse.Namespace) -> int:
     from hwcat.campaigns.cluster import require_dask
 
     require_dask()
-    from hwcat.campaigns.fuzz import fuzz
+    from hwcat.campaigns.fuzzing import fuzz
 
     report = fuzz(
         args.claim,
@@ -58,7 +58,7 @@ def _cmd_survey(args: argparse.Namespace) -> int:
     from hwcat.campaigns.cluster import require_dask
 
     require_dask()
-    from hwcat.campaigns.survey import survey, write_csv
+    from hwcat.campaigns.surveys import survey, write_csv
 
     table = survey(
         args.family,

@@ -356,7 +356,7 @@ def _run(client, ref, info, settings, out, shrink, progress) -> FuzzReport:
             bar.close()
         for fut in pending:
             fut.cancel()
-        stop.delete()
+        stop.set(-1)  # chunks still running stop at their next example
     watch.poll()
     counts = dict.fromkeys(STATUSES, 0)
     problems: list[dict] = []
@@ -394,8 +394,11 @@ def _run(client, ref, info, settings, out, shrink, progress) -> FuzzReport:
                 }
             )
     counterexample = None
-    if fail_answer is not None:
-        counterexample = _counterexample(client, info, fail_answer, timeout, shrink)
+    try:
+        if fail_answer is not None:
+            counterexample = _counterexample(client, info, fail_answer, timeout, shrink)
+    finally:
+        stop.delete()
     seconds = time.perf_counter() - start
     report = FuzzReport(
         claim=ref,
