@@ -18,6 +18,7 @@ import time
 
 __all__ = ["Evaluator", "fuzz_chunk", "evaluate_specs", "survey_member", "close_evaluators"]
 
+_STOP_INTERVAL = 0.25
 _LOCAL = threading.local()
 _ALL: list[Evaluator] = []
 _ALL_LOCK = threading.Lock()
@@ -156,12 +157,18 @@ def _stop_check(stop: str | None):
     from distributed import Variable
 
     var = Variable(stop)
+    state = {"asked": 0.0, "value": None}
 
     def check(index: int) -> bool:
-        try:
-            return var.get(timeout=2) <= index
-        except Exception:  # noqa: BLE001 -- the campaign is over (variable deleted)
-            return True
+        # ask the scheduler at most every _STOP_INTERVAL seconds (a round trip each)
+        now = time.monotonic()
+        if state["value"] is None or now - state["asked"] >= _STOP_INTERVAL:
+            state["asked"] = now
+            try:
+                state["value"] = var.get(timeout=2)
+            except Exception:  # noqa: BLE001 -- the campaign is over (variable deleted)
+                state["value"] = -1
+        return state["value"] <= index
 
     return check
 
