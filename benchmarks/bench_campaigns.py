@@ -52,7 +52,10 @@ def on_cluster(workers: int, examples: int, seed: int) -> tuple[float, int, str]
     import distributed
 
     cluster = distributed.LocalCluster(
-        n_workers=workers, threads_per_worker=1, processes=True, dashboard_address=None,
+        n_workers=workers,
+        threads_per_worker=1,
+        processes=True,
+        dashboard_address=None,
         silence_logs=logging.CRITICAL,
     )
     client = distributed.Client(cluster)
@@ -85,10 +88,13 @@ def main() -> None:
         t, n, digest = on_cluster(w, examples, seed)
         digests.add(digest)
         per_worker[w] = n / t
-        rows.append([f"dask, {w} worker(s)", n, f"{t:.2f}", f"{n / t:.1f}",
-                     f"{(n / t) / (n0 / t0):.2f}"])
-    print(f"fuzz campaign, claim {CLAIM.rsplit(':', 1)[1]}, kinds {','.join(KINDS)}, "
-          f"max 3 vertices, seed {seed}")
+        rows.append(
+            [f"dask, {w} worker(s)", n, f"{t:.2f}", f"{n / t:.1f}", f"{(n / t) / (n0 / t0):.2f}"]
+        )
+    print(
+        f"fuzz campaign, claim {CLAIM.rsplit(':', 1)[1]}, kinds {','.join(KINDS)}, "
+        f"max 3 vertices, seed {seed}"
+    )
     print(table(rows, ["run", "examples", "seconds", "examples/s", "ratio to serial"]))
     print(f"speed-up 2 workers / 1 worker: {per_worker[2] / per_worker[1]:.2f}")
     print(f"same examples on 1 and 2 workers: {len(digests) == 1}")

@@ -75,8 +75,12 @@ def test_shrink_moves_are_quotients_and_lower_the_size():
     assert all(size_key(c) < size_key(spec) for c in cands)
     # keeping vertex 3 alone is the quotient by e1, e2: k[x]/(x^2)  (derived)
     only3 = cands[2]["quiver"]
-    assert only3 == {"vertices": ["3"], "arrows": ["x: 3 -> 3"], "relations": ["x*x"],
-                     "vanish_from_length": 4}
+    assert only3 == {
+        "vertices": ["3"],
+        "arrows": ["x: 3 -> 3"],
+        "relations": ["x*x"],
+        "vanish_from_length": 4,
+    }
     # deleting arrow c drops the term 2*c*x and keeps a*b*x
     no_c = [c for c in cands if c["quiver"]["arrows"] == ["a: 1 -> 2", "b: 2 -> 3", "x: 3 -> 3"]]
     assert no_c[0]["quiver"]["relations"] == ["x*x", "a*b*x"]
@@ -89,8 +93,10 @@ def test_shrink_moves_are_quotients_and_lower_the_size():
 
 def test_parse_grid():
     assert parse_grid("linear-a", {"n": "1..3"}) == [{"n": 1}, {"n": 2}, {"n": 3}]
-    assert parse_grid("schur", {"r": [2, 3], "field": "GF(2);GF(3)"})[3] == {"r": 3,
-                                                                          "field": "GF(3)"}
+    assert parse_grid("schur", {"r": [2, 3], "field": "GF(2);GF(3)"})[3] == {
+        "r": 3,
+        "field": "GF(3)",
+    }
     with pytest.raises(CampaignError, match="unknown parameter"):
         parse_grid("linear-a", {"m": "2"})
     with pytest.raises(CampaignError, match="empty range"):
@@ -99,7 +105,9 @@ def test_parse_grid():
 
 def test_evaluator_kills_a_slow_example_and_goes_on():
     claim = hwcat.campaigns.load_claim(f"{CLAIMS}:sleeps_on_loops")
-    loop = 'field = "QQ"\n[quiver]\nvertices = ["1"]\narrows = ["x: 1 -> 1"]\nvanish_from_length = 2\n'
+    loop = (
+        'field = "QQ"\n[quiver]\nvertices = ["1"]\narrows = ["x: 1 -> 1"]\nvanish_from_length = 2\n'
+    )
     plain = 'field = "QQ"\n[quiver]\nvertices = ["1", "2"]\narrows = ["a: 1 -> 2"]\n'
     ev = Evaluator()
     try:
@@ -142,7 +150,9 @@ def test_without_dask_the_commands_say_how_to_install_it(monkeypatch, tmp_path, 
 def test_hwcat_does_not_import_dask():
     import subprocess
 
-    code = "import sys, hwcat, hwcat.cli; print('distributed' in sys.modules, 'dask' in sys.modules)"
+    code = (
+        "import sys, hwcat, hwcat.cli; print('distributed' in sys.modules, 'dask' in sys.modules)"
+    )
     out = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, check=True)
     assert out.stdout.strip() == "False False"
 
@@ -170,8 +180,13 @@ def cluster():
     import logging
 
     before = {p.pid for p in _descendants()}
-    lc = distributed.LocalCluster(n_workers=2, threads_per_worker=1, processes=True,
-                                  dashboard_address=None, silence_logs=logging.CRITICAL)
+    lc = distributed.LocalCluster(
+        n_workers=2,
+        threads_per_worker=1,
+        processes=True,
+        dashboard_address=None,
+        silence_logs=logging.CRITICAL,
+    )
     client = distributed.Client(lc)
     yield client
     from hwcat.campaigns.worker import close_evaluators
@@ -191,8 +206,7 @@ def cluster():
 def test_false_claim_is_refuted_and_shrunk_to_one_vertex(cluster, tmp_path):
     # A local algebra other than the field is not quasi-hereditary (Dlab, Ringel,
     # Illinois J. Math. 33 (1989)): so the claim fails on every algebra with a loop.
-    report = hwcat.campaigns.fuzz(FALSE_CLAIM, examples=100, seed=0, client=cluster,
-                                  out=tmp_path)
+    report = hwcat.campaigns.fuzz(FALSE_CLAIM, examples=100, seed=0, client=cluster, out=tmp_path)
     assert report.found and report.exit_code == 1
     ce = report.counterexample
     spec = tomllib.loads(Path(report.files["spec"]).read_text())
@@ -207,8 +221,18 @@ def test_false_claim_is_refuted_and_shrunk_to_one_vertex(cluster, tmp_path):
     assert main(["check", report.files["spec"]]) == 1
     # same seed, same counterexample, through the command line and a second client
     out2 = tmp_path / "again"
-    rc = main(["fuzz", FALSE_CLAIM, "--examples", "100", "--scheduler",
-               cluster.scheduler.address, "--out", str(out2)])
+    rc = main(
+        [
+            "fuzz",
+            FALSE_CLAIM,
+            "--examples",
+            "100",
+            "--scheduler",
+            cluster.scheduler.address,
+            "--out",
+            str(out2),
+        ]
+    )
     assert rc == 1
     again = json.loads((out2 / "campaign.json").read_text())
     assert again["counterexample"]["index"] == ce["index"]
@@ -219,8 +243,7 @@ def test_false_claim_is_refuted_and_shrunk_to_one_vertex(cluster, tmp_path):
 def test_ringel_bound_survives(cluster):
     # C. M. Ringel, J. Pure Appl. Algebra 214 (2010): quasi-hereditary with n simples
     # implies global dimension at most 2n - 2.
-    report = hwcat.campaigns.fuzz(RINGEL, examples=100, seed=1, kinds=ALL_KINDS,
-                                  client=cluster)
+    report = hwcat.campaigns.fuzz(RINGEL, examples=100, seed=1, kinds=ALL_KINDS, client=cluster)
     assert not report.found and report.exit_code == 0
     assert report.examples_run == 100
     assert report.counts["holds"] + report.counts["timeout"] == 100
@@ -229,15 +252,26 @@ def test_ringel_bound_survives(cluster):
 
 @pytest.mark.slow
 def test_ringel_bound_survives_long(cluster):
-    report = hwcat.campaigns.fuzz(RINGEL, examples=1000, seed=2, kinds=ALL_KINDS,
-                                  max_vertices=4, client=cluster, timeout=30)
+    report = hwcat.campaigns.fuzz(
+        RINGEL, examples=1000, seed=2, kinds=ALL_KINDS, max_vertices=4, client=cluster, timeout=30
+    )
     assert not report.found
     assert report.counts["error"] == report.counts["crashed"] == 0
 
 
 def test_claim_raising_on_the_first_example_is_bad_input(cluster, capsys, tmp_path):
-    rc = main(["fuzz", f"{CLAIMS}:raises_type_error", "--scheduler", cluster.scheduler.address,
-               "--examples", "10", "--out", str(tmp_path)])
+    rc = main(
+        [
+            "fuzz",
+            f"{CLAIMS}:raises_type_error",
+            "--scheduler",
+            cluster.scheduler.address,
+            "--examples",
+            "10",
+            "--out",
+            str(tmp_path),
+        ]
+    )
     assert rc == 2
     assert "AttributeError" in capsys.readouterr().err
 
@@ -255,8 +289,20 @@ def test_survey_rows_errors_and_timeouts(cluster, tmp_path):
     # TL_n(0) is quasi-hereditary iff n is odd (Koenig-Xi criterion for the cellular
     # algebra TL_n: the cell form of the empty... from memory); the big member times out.
     csv_path = tmp_path / "tl.csv"
-    rc = main(["survey", "temperley-lieb", "n=2,3,9", "delta=0", "--scheduler",
-               cluster.scheduler.address, "--timeout", "3", "-o", str(csv_path)])
+    rc = main(
+        [
+            "survey",
+            "temperley-lieb",
+            "n=2,3,9",
+            "delta=0",
+            "--scheduler",
+            cluster.scheduler.address,
+            "--timeout",
+            "3",
+            "-o",
+            str(csv_path),
+        ]
+    )
     assert rc == 0
     lines = csv_path.read_text().splitlines()
     assert lines[0].startswith("n,delta,status,dimension,simples,quasi_hereditary")
@@ -266,8 +312,7 @@ def test_survey_rows_errors_and_timeouts(cluster, tmp_path):
     assert by_n["9"][2] == "timeout"
 
 
-def test_a_worker_that_dies_is_reported_and_its_examples_retried(cluster, tmp_path,
-                                                                   monkeypatch):
+def test_a_worker_that_dies_is_reported_and_its_examples_retried(cluster, tmp_path, monkeypatch):
     marker = tmp_path / "killed"
     # the workers read the environment when the claim runs in their evaluating process,
     # which inherits the worker's environment: set it on the workers
@@ -275,8 +320,9 @@ def test_a_worker_that_dies_is_reported_and_its_examples_retried(cluster, tmp_pa
     from hwcat.campaigns.worker import close_evaluators
 
     cluster.run(close_evaluators)  # fresh evaluating processes see the variable
-    report = hwcat.campaigns.fuzz(f"{CLAIMS}:kills_its_worker_once", examples=10, seed=3,
-                                  client=cluster)
+    report = hwcat.campaigns.fuzz(
+        f"{CLAIMS}:kills_its_worker_once", examples=10, seed=3, client=cluster
+    )
     assert marker.exists()
     assert len(report.lost_workers) == 1
     assert report.examples_run == 10 and report.counts["holds"] == 10

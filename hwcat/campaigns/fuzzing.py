@@ -319,7 +319,7 @@ def _run(client, ref, info, settings, out, shrink, progress) -> FuzzReport:
                     continue
                 exc = fut.exception()
                 if exc is not None:
-                    lost_chunks.append(c)
+                    lost_chunks.append((c, f"{type(exc).__name__}: {exc}"))
                     continue
                 res = fut.result()
                 chunk_results[c] = res
@@ -383,7 +383,7 @@ def _run(client, ref, info, settings, out, shrink, progress) -> FuzzReport:
                         if k in a
                     }
                 )
-    for c in lost_chunks:
+    for c, why in lost_chunks:
         if first_fail is None or c * CHUNK < first_fail:
             n = min(CHUNK, examples - c * CHUNK)
             counts["lost"] += n
@@ -392,7 +392,7 @@ def _run(client, ref, info, settings, out, shrink, progress) -> FuzzReport:
                     "chunk": c,
                     "status": "lost",
                     "message": f"examples {c * CHUNK}..{c * CHUNK + n - 1} were not "
-                    "evaluated: their task killed workers repeatedly",
+                    f"evaluated: their task failed ({why})",
                 }
             )
     counterexample = None

@@ -209,8 +209,8 @@ def _run(client, family, keys, members, timeout, progress) -> SurveyTable:
             if fut.exception() is not None:
                 answers[i] = {
                     "status": "lost",
-                    "message": f"{type(fut.exception()).__name__}: "
-                    "the task killed workers repeatedly",
+                    "message": f"the task failed ({type(fut.exception()).__name__}: "
+                    f"{fut.exception()})",
                 }
             else:
                 answers[i] = fut.result()
