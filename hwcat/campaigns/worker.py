@@ -31,18 +31,31 @@ class Evaluator:
         self.proc: subprocess.Popen | None = None
         self.defined: set[str] = set()
         self._buffer = b""
+        self._ready = False
 
-    def _start(self) -> None:
-        self.proc = subprocess.Popen(
-            [sys.executable, "-m", "hwcat.campaigns.child"],
-            stdin=subprocess.PIPE,
-            stdout=subprocess.PIPE,
-            stderr=subprocess.DEVNULL,
-        )
-        self.defined = set()
-        self._buffer = b""
-        # wait for the imports, so that they do not count against the first time limit
-        self.request({"op": "ping"}, None)
+    def warm(self) -> None:
+        """Start the process without waiting for it (it imports while we draw examples)."""
+        if self.proc is None or self.proc.poll() is not None:
+            self.stop()
+            self.proc = subprocess.Popen(
+                [sys.executable, "-m", "hwcat.campaigns.child"],
+                stdin=subprocess.PIPE,
+                stdout=subprocess.PIPE,
+                stderr=subprocess.DEVNULL,
+            )
+            self.defined = set()
+            self._buffer = b""
+            self._ready = False
+
+    def _ensure(self) -> bool:
+        """A running process that has finished its imports (so that they do not count
+        against the first time limit)."""
+        self.warm()
+        if not self._ready:
+            self._ready = True
+            if self.request({"op": "ping"}, None).get("status") != "ok":
+                self.stop()
+        return self.proc is not None
 
     def stop(self) -> None:
         if self.proc is not None:
@@ -73,11 +86,8 @@ class Evaluator:
 
     def request(self, req: dict, timeout: float | None) -> dict:
         """Send one request; ``{"status": "timeout"}`` or ``{"status": "crashed"}`` on trouble."""
-        if self.proc is None or self.proc.poll() is not None:
-            self.stop()
-            self._start()
-            if self.proc is None:
-                return {"status": "crashed", "message": "the evaluating process did not start"}
+        if not self._ensure():
+            return {"status": "crashed", "message": "the evaluating process did not start"}
         start = time.monotonic()
         try:
             self.proc.stdin.write((json.dumps(req) + "\n").encode())
@@ -85,7 +95,11 @@ class Evaluator:
         except BrokenPipeError:
             self.stop()
             return {"status": "crashed", "message": "the evaluating process ended"}
-        line = self._readline(None if timeout is None else start + timeout)
+        try:
+            line = self._readline(None if timeout is None else start + timeout)
+        except (AttributeError, OSError, ValueError):  # stopped from another thread
+            self.stop()
+            return {"status": "crashed", "message": "the evaluating process was stopped"}
         if line is None:
             self.stop()
             return {"status": "timeout", "seconds": round(time.monotonic() - start, 3)}
@@ -115,14 +129,18 @@ def _evaluator() -> Evaluator:
 
 
 def close_evaluators() -> int:
-    """Stop every evaluating process of this worker; returns how many there were."""
+    """Stop every evaluating process of this worker; returns how many were running.
+
+    The evaluators stay registered to their threads and start a fresh process
+    when next asked.
+    """
     with _ALL_LOCK:
         evs = list(_ALL)
-        _ALL.clear()
+    running = 0
     for ev in evs:
+        running += ev.proc is not None
         ev.stop()
-    _LOCAL.__dict__.pop("evaluator", None)
-    return len(evs)
+    return running
 
 
 def _where() -> str:
@@ -188,13 +206,14 @@ def fuzz_chunk(
     from hwcat.algebras.families.quivers import spec_to_toml
     from hwcat.campaigns.generate import CHUNK, spec_chunk
 
+    ev = _evaluator()
+    ev.warm()
     specs = spec_chunk(
         settings["seed"], chunk, settings["kinds"], settings["max_vertices"], settings["field"]
     )
     start = chunk * CHUNK
     specs = specs[: max(0, settings["examples"] - start)]
     digest = hashlib.sha256()
-    ev = _evaluator()
     results = []
     stopped = _stop_check(stop)
     for offset, (kind, spec) in enumerate(specs):
