@@ -299,7 +299,7 @@ def _run(client, ref, info, settings, out, shrink, progress) -> FuzzReport:
     }
     pending = set(futures)
     chunk_results: dict[int, dict] = {}
-    lost_chunks: list[int] = []
+    lost_chunks: list[tuple[int, str]] = []
     first_fail: int | None = None
     bar = _progress(examples, progress)
     fails_seen = 0
@@ -357,6 +357,8 @@ def _run(client, ref, info, settings, out, shrink, progress) -> FuzzReport:
         for fut in pending:
             fut.cancel()
         stop.set(-1)  # chunks still running stop at their next example
+        if sys.exc_info()[0] is not None:
+            stop.delete()
     watch.poll()
     counts = dict.fromkeys(STATUSES, 0)
     problems: list[dict] = []
