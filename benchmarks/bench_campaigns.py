@@ -10,6 +10,7 @@ cluster, no evaluating process and no time limit.
 
     python benchmarks/bench_campaigns.py            # 400 examples
     python benchmarks/bench_campaigns.py --quick    # 100 examples
+    python benchmarks/bench_campaigns.py --max-vertices 4 --examples 300   # costlier examples
 """
 
 from __future__ import annotations
@@ -35,20 +36,20 @@ CLAIM = f"{ROOT / 'tests' / 'data' / 'claims.py'}:ringel_global_dimension_bound"
 KINDS = ["general", "acyclic", "nakayama", "commutative"]
 
 
-def serial(examples: int, seed: int) -> tuple[float, int]:
+def serial(examples: int, seed: int, max_vertices: int) -> tuple[float, int]:
     sys.path.insert(0, str(ROOT / "tests" / "data"))
     from claims import ringel_global_dimension_bound
 
     start = time.perf_counter()
     n = 0
     for c in range(-(-examples // CHUNK)):
-        for _, spec in spec_chunk(seed, c, KINDS, 3, None)[: examples - c * CHUNK]:
+        for _, spec in spec_chunk(seed, c, KINDS, max_vertices, None)[: examples - c * CHUNK]:
             assert ringel_global_dimension_bound(load_spec_text(spec_to_toml(spec)))
             n += 1
     return time.perf_counter() - start, n
 
 
-def on_cluster(workers: int, examples: int, seed: int) -> tuple[float, int, str]:
+def on_cluster(workers: int, examples: int, seed: int, max_vertices: int) -> tuple[float, int, str]:
     import distributed
 
     cluster = distributed.LocalCluster(
@@ -60,8 +61,9 @@ def on_cluster(workers: int, examples: int, seed: int) -> tuple[float, int, str]
     )
     client = distributed.Client(cluster)
     try:
-        fuzz(CLAIM, examples=2 * CHUNK * workers, seed=seed + 1, kinds=KINDS, client=client)
-        report = fuzz(CLAIM, examples=examples, seed=seed, kinds=KINDS, client=client)
+        kw = {"kinds": KINDS, "max_vertices": max_vertices, "timeout": 60, "client": client}
+        fuzz(CLAIM, examples=2 * CHUNK * workers, seed=seed + 1, **kw)
+        report = fuzz(CLAIM, examples=examples, seed=seed, **kw)
     finally:
         from hwcat.campaigns.worker import close_evaluators
 
@@ -76,16 +78,17 @@ def main() -> None:
     ap = argparse.ArgumentParser()
     ap.add_argument("--quick", action="store_true")
     ap.add_argument("--examples", type=int, default=None)
+    ap.add_argument("--max-vertices", type=int, default=3)
     args = ap.parse_args()
     examples = args.examples or (100 if args.quick else 400)
     seed = 11
     rows = []
-    t0, n0 = serial(examples, seed)
+    t0, n0 = serial(examples, seed, args.max_vertices)
     rows.append(["serial (naive, in process)", n0, f"{t0:.2f}", f"{n0 / t0:.1f}", "-"])
     per_worker = {}
     digests = set()
     for w in (1, 2):
-        t, n, digest = on_cluster(w, examples, seed)
+        t, n, digest = on_cluster(w, examples, seed, args.max_vertices)
         digests.add(digest)
         per_worker[w] = n / t
         rows.append(
@@ -93,7 +96,7 @@ def main() -> None:
         )
     print(
         f"fuzz campaign, claim {CLAIM.rsplit(':', 1)[1]}, kinds {','.join(KINDS)}, "
-        f"max 3 vertices, seed {seed}"
+        f"max {args.max_vertices} vertices, seed {seed}"
     )
     print(table(rows, ["run", "examples", "seconds", "examples/s", "ratio to serial"]))
     print(f"speed-up 2 workers / 1 worker: {per_worker[2] / per_worker[1]:.2f}")
