@@ -53,12 +53,16 @@ def test_generation_is_deterministic_and_kinds_are_checked():
 
 
 def test_commutative_kind_draws_commutativity_relations():
+    from hwcat.algebras.families.quivers import spec_to_toml
+
     specs = [s for c in range(2) for _, s in spec_chunk(3, c, ["commutative"], 4, "QQ")]
     rels = [r for s in specs for r in s["quiver"].get("relations", [])]
     assert rels, "derived: 100 draws on up to 4 vertices give some commutative square"
     for r in rels:
         left, right = r.split(" - ")
-        assert "*" in left and "*" in right
+        assert left.count("*") == right.count("*") >= 1  # same length: a homogeneous relation
+    for spec in specs:  # every draw is a valid spec
+        hwcat.load_spec_text(spec_to_toml(spec))
 
 
 def test_shrink_moves_are_quotients_and_lower_the_size():
@@ -248,6 +252,7 @@ def test_ringel_bound_survives(cluster):
     assert report.examples_run == 100
     assert report.counts["holds"] + report.counts["timeout"] == 100
     assert report.counts["holds"] >= 90
+    assert report.counts["invalid"] == report.counts["error"] == 0
 
 
 @pytest.mark.slow
@@ -256,7 +261,7 @@ def test_ringel_bound_survives_long(cluster):
         RINGEL, examples=1000, seed=2, kinds=ALL_KINDS, max_vertices=4, client=cluster, timeout=30
     )
     assert not report.found
-    assert report.counts["error"] == report.counts["crashed"] == 0
+    assert report.counts["error"] == report.counts["crashed"] == report.counts["invalid"] == 0
 
 
 def test_claim_raising_on_the_first_example_is_bad_input(cluster, capsys, tmp_path):

@@ -22,7 +22,8 @@ Kinds of algebras (``kinds``; each example picks one kind uniformly):
     with random zero relations.
 ``commutative``
     an acyclic quiver (as for ``acyclic``) whose relations are up to 3
-    commutativity relations ``p - q`` between parallel paths of length 2 to 3.
+    commutativity relations ``p - q`` between parallel paths of the same
+    length, 2 or 3.
 
 The field is ``field`` when given, else drawn from
 :data:`hwcat.strategies.DEFAULT_FIELDS`.  Within a chunk Hypothesis starts
@@ -81,7 +82,7 @@ def _commutative_specs(max_vertices: int, field):
     def build(draw):
         Q = draw(hs.quivers(1, max_vertices, 2 * max_vertices, acyclic=True))
         F = draw(field)
-        parallel: dict[tuple[int, int], list[tuple[int, ...]]] = {}
+        parallel: dict[tuple[int, int, int], list[tuple[int, ...]]] = {}
         layer = [(i,) for i in range(len(Q.arrows))]
         for _ in range(2):
             nxt = []
@@ -89,7 +90,8 @@ def _commutative_specs(max_vertices: int, field):
                 for i, a in enumerate(Q.arrows):
                     if a.source == Q.arrows[p[-1]].target:
                         q = p + (i,)
-                        group = parallel.setdefault((Q.path_source(q), Q.path_target(q)), [])
+                        key = (Q.path_source(q), Q.path_target(q), len(q))
+                        group = parallel.setdefault(key, [])
                         if len(group) < _MAX_PARALLEL:
                             group.append(q)
                             nxt.append(q)
