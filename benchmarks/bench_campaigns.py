@@ -17,6 +17,7 @@ from __future__ import annotations
 
 import argparse
 import logging
+import os
 import sys
 import time
 from pathlib import Path
@@ -100,6 +101,10 @@ def main() -> None:
     )
     print(table(rows, ["run", "examples", "seconds", "examples/s", "ratio to serial"]))
     print(f"speed-up 2 workers / 1 worker: {per_worker[2] / per_worker[1]:.2f}")
+    print(
+        f"machine: {os.cpu_count()} cores, load average {os.getloadavg()[0]:.1f} "
+        "(the speed-up needs idle cores)"
+    )
     print(f"same examples on 1 and 2 workers: {len(digests) == 1}")
 
 
