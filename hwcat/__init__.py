@@ -34,6 +34,7 @@ from hwcat.theory.highest_weight import (
 )
 from hwcat.theory.homological import (
     ext_dimension,
+    ext_dimensions,
     global_dimension,
     injective_dimension,
     projective_dimension,
@@ -81,6 +82,7 @@ __all__ = [
     "injective_dimension",
     "global_dimension",
     "ext_dimension",
+    "ext_dimensions",
     "tilting_module",
     "tilting_modules",
     "ringel_dual",

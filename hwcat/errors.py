@@ -25,6 +25,8 @@ __all__ = [
     "StructureConstantsError",
     "NotSplitError",
     "InternalInconsistency",
+    "CampaignError",
+    "MissingExtra",
 ]
 
 
@@ -86,3 +88,14 @@ class InternalInconsistency(HwcatError, AssertionError):
 
 class CertificateError(HwcatError, ValueError):
     """A certificate file that cannot be read or is not a certificate (wrong shape or version)."""
+
+
+# -- campaigns (fuzzing and surveys) -------------------------------------------------
+
+
+class CampaignError(HwcatError, ValueError):
+    """Bad input to a fuzz campaign or survey: claim file, function, options, grid."""
+
+
+class MissingExtra(HwcatError, ImportError):
+    """An optional dependency is not installed; the message says which extra brings it."""

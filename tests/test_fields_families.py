@@ -166,8 +166,7 @@ def test_radical_over_gf4_by_both_routes():
     # practice); the quotient route and the lifted traces (refused off prime fields) agree
     from hwcat.algebras.families.tables import cyclic_group_algebra
     from hwcat.algebras.inputs.structure import from_table
-    from hwcat.algebras.reduction.reduction import radical
-    from hwcat.algebras.reduction.reduction import reduce_algebra
+    from hwcat.algebras.reduction.reduction import radical, reduce_algebra
     from hwcat.errors import StructureConstantsError
 
     A = from_table(cyclic_group_algebra(6, "GF(4)"))
