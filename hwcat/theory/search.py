@@ -77,6 +77,7 @@ modules; Catalan numbers for linear A_n).
 
 from __future__ import annotations
 
+import heapq
 from collections.abc import Iterator
 from dataclasses import dataclass, field
 from math import factorial
@@ -201,17 +202,6 @@ class _Lattice:
         return (F | ((1 << u) - 1)) & ~self.linked[S][u] & R
 
 
-def _linked(rows: dict[int, tuple], n: int) -> tuple[int, ...]:
-    """Per vertex ``v`` outside ``S``: the ``w`` with ``e_v B e_w != 0`` or ``e_w B e_v != 0``."""
-    lk = [0] * n
-    for v, r in rows.items():
-        out = r[1] & ~(1 << v)
-        lk[v] |= out
-        for w in bits(out):
-            lk[w] |= 1 << v
-    return tuple(lk)
-
-
 def _explore(
     A: BasicAlgebra,
     tc: TraceCache,
@@ -233,16 +223,13 @@ def _explore(
         for S, cnt in level.items():
             lat.deepest = S
             R = full & ~S
-            rows = {s: tc.row(S, s) for s in bits(R)}
-            valid = 0
-            for u in bits(R):
-                if above[u] & R:
-                    continue
-                if tc.step_ok(S, u, rows):
-                    valid |= 1 << u
+            cand = R
+            if upper is not None:
+                cand = mask(u for u in bits(R) if not above[u] & R)
+            valid, lk = tc.survey(S, cand)
             lat.steps[S] = valid
             if structures:
-                lat.linked[S] = lk = _linked(rows, n)
+                lat.linked[S] = lk
             for u in bits(valid):
                 T = S | (1 << u)
                 if T in nxt:
@@ -257,12 +244,20 @@ def _explore(
                 lat.structures = sum(states.values())
                 continue
             dead = lat.isolated(S)
+            # v linked to u alone: isolated once u is taken (independence survives quotients)
+            only = [0] * n
+            for v in bits(R):
+                x = lk[v]
+                if x and not x & (x - 1):
+                    only[x.bit_length() - 1] |= 1 << v
             for F, m in states.items():
                 if F & dead:
                     continue
                 for u in bits(valid & ~F):
                     T = S | (1 << u)
                     F2 = (F | ((1 << u) - 1)) & ~lk[u] & R & ~(1 << u)
+                    if F2 & only[u]:
+                        continue
                     d = nflags.get(T)
                     if d is None:
                         nflags[T] = {F2: m}
@@ -448,7 +443,7 @@ def _combine(A: BasicAlgebra, combo) -> Structure:
     sd: list[tuple[int, ...]] = [()] * n
     cd: list[tuple[int, ...]] = [()] * n
     pairs: list[tuple[int, int]] = []
-    rep: list[int] = []
+    chains: list[list[int]] = []
     for comp, B, tc, path in combo:
         s = _structure(B, tc, path)
         for i, v in enumerate(comp):
@@ -460,9 +455,12 @@ def _combine(A: BasicAlgebra, combo) -> Structure:
             sd[v] = tuple(full_s)
             cd[v] = tuple(full_c)
         pairs.extend((comp[a], comp[b]) for a, b in s.essential_order.less)
-        rep.extend(comp[i] for i in path)
+        chains.append([comp[i] for i in path])
+    # vertices of different blocks are independent: the smallest order of the
+    # structure takes, at each step, the smallest next vertex of the blocks' smallest orders
+    rep = tuple(heapq.merge(*chains))
     ess = PartialOrder.from_relations(A.vertices, pairs)
-    return Structure(A.vertices, tuple(sd), tuple(cd), ess, tuple(rep))
+    return Structure(A.vertices, tuple(sd), tuple(cd), ess, rep)
 
 
 def _reaches_full(A: BasicAlgebra, tc: TraceCache) -> bool:

@@ -33,17 +33,28 @@ from hwcat.exact.matrices import echelon
 __all__ = ["TraceCache", "bits", "mask"]
 
 
-def bits(m: int) -> list[int]:
-    """The elements of a bitmask.
+_BITS: dict[int, tuple[int, ...]] = {}
+_BITS_LIMIT = 1 << 20
+
+
+def bits(m: int) -> tuple[int, ...]:
+    """The elements of a bitmask, in increasing order (memoised: the search asks often).
 
     >>> bits(0b1011)
-    [0, 1, 3]
+    (0, 1, 3)
     """
-    out = []
-    while m:
-        low = m & -m
-        out.append(low.bit_length() - 1)
-        m ^= low
+    out = _BITS.get(m)
+    if out is None:
+        items = []
+        x = m
+        while x:
+            low = x & -x
+            items.append(low.bit_length() - 1)
+            x ^= low
+        out = tuple(items)
+        if len(_BITS) >= _BITS_LIMIT:
+            _BITS.clear()
+        _BITS[m] = out
     return out
 
 
@@ -118,8 +129,13 @@ class TraceCache:
             V = self.vertex_trace(u, s)
             K = list(K0)
             for t in bits(base[2]):
-                if V[t].nrows:
-                    K[t] = echelon(Mat.vstack(F, [K0[t], V[t]], dims[t]))
+                v = V[t]
+                if not v.nrows:
+                    continue
+                if not K0[t].nrows or v.nrows == dims[t]:
+                    K[t] = v  # nothing to add to, or everything
+                else:
+                    K[t] = echelon(Mat.vstack(F, [K0[t], v], dims[t]))
             e = self._entry(s, tuple(K))
         self._e[(T, s)] = e
         return e
@@ -154,6 +170,53 @@ class TraceCache:
         K = self.entry(T, s)[0][t]
         _, _, kept = quotient_map(K, self._pdims[s][t])
         return [self.A.words[s][t][k] for k in kept]
+
+    def survey(self, S: int, candidates: int) -> tuple[int, tuple[int, ...]]:
+        """Everything the search needs at the reachable set ``S``, from cached data.
+
+        Returns ``(valid, linked)``: the bitmask of the ``u`` in ``candidates``
+        for which :meth:`step_ok` holds, and per vertex ``v`` outside ``S`` the
+        bitmask of the other ``w`` outside ``S`` with ``e_v B e_w != 0`` or
+        ``e_w B e_v != 0`` in ``B = A / A e_S A`` (zero for the vertices in ``S``).
+        """
+        n = self.A.n
+        sup = self.support
+        E = self._e
+        R = ((1 << n) - 1) & ~S
+        ent: list[Any] = [None] * n
+        col = [0] * n
+        lk = [0] * n
+        for s in bits(R):
+            e = E.get((S & sup[s], s))
+            if e is None:
+                e = self.entry(S, s)
+            ent[s] = e
+            out = e[2] & ~(1 << s)
+            lk[s] |= out
+            for t in bits(out):
+                col[t] |= 1 << s
+        valid = 0
+        for u in bits(candidates):
+            eu = ent[u]
+            if eu[1][u] != 1:
+                continue
+            eB = eu[3]
+            U = 1 << u
+            ok = True
+            for s in bits(col[u]):
+                es = ent[s]
+                X = S & sup[s]
+                after = E.get((X | U, s))
+                if after is None:
+                    after = self._add(X, u, s)
+                if es[3] - after[3] != es[1][u] * eB:
+                    ok = False
+                    break
+            if ok:
+                valid |= U
+        for u in bits(R):
+            lk[u] |= col[u]
+        return valid, tuple(lk)
 
     def step_ok(self, S: int, u: int, rows: dict[int, tuple] | None = None) -> bool:
         """Whether ``A e_u A`` is a heredity ideal of ``A / A e_S A`` (the test of :meth:`step_failure`).
