@@ -32,7 +32,7 @@ from hwcat.strategies import (
     linear_nakayama_algebras,
     quivers,
 )
-from hwcat.theory.highest_weight import standard_filtration, standard_module
+from hwcat.theory.highest_weight import costandard_module, standard_filtration, standard_module
 from hwcat.theory.orders import total_order
 from hwcat.theory.search import is_quasi_hereditary, quasi_hereditary_orders
 
@@ -264,6 +264,11 @@ def test_structure_count_against_former_search(A):
             key[u] = tc.kernel_key(S, u)
             S |= 1 << u
         listed.add(tuple(key))
+        # dimension vectors from cached traces = the modules built the former way
+        P = total_order(A.vertices, s.representative)
+        for L in range(A.n):
+            assert s.standard_dimension_vectors[L] == standard_module(A, L, P).dims
+            assert s.costandard_dimension_vectors[L] == costandard_module(A, L, P).dims
     assert listed == set(sigs)
 
 

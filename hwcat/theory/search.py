@@ -84,8 +84,8 @@ from math import factorial
 from typing import Any
 
 from hwcat.algebras.hub.basic import BasicAlgebra
-from hwcat.theory.highest_weight import costandard_module, trace_cache
-from hwcat.theory.orders import PartialOrder, total_order
+from hwcat.theory.highest_weight import trace_cache
+from hwcat.theory.orders import PartialOrder
 from hwcat.theory.traces import TraceCache, bits, mask
 
 __all__ = [
@@ -323,20 +323,26 @@ def count_quasi_hereditary_extensions(A: BasicAlgebra, order: PartialOrder) -> i
 
 
 def _structure(A: BasicAlgebra, tc: TraceCache, path: tuple[int, ...]) -> Structure:
+    """The structure of a quasi-hereditary order ``path`` (highest first), from cached traces.
+
+    With ``B = A / A e_S A`` for the set ``S`` above ``u``: ``Delta(u) = P_B(u)``
+    and ``nabla(u)`` is the injective hull ``I_B(u)`` of the simple over ``B``
+    (the largest submodule of ``I(u)`` killed by ``A e_S A``), so
+    ``[nabla(u) : L(t)] = dim e_t B e_u``.
+    """
     n = A.n
     sd: list[tuple[int, ...]] = [()] * n
+    cd: list[tuple[int, ...]] = [()] * n
     S = 0
     for u in path:
         sd[u] = tc.qdims(S, u)
+        cd[u] = tuple(tc.qdim(S, t, u) if not S >> t & 1 else 0 for t in range(n))
         S |= 1 << u
-    sdims = tuple(sd)
-    rep = total_order(A.vertices, path)
-    cdims = tuple(costandard_module(A, L, rep).dims for L in range(n))
-    pairs = {
-        (mu, L) for L in range(n) for mu in range(n) if mu != L and (sdims[L][mu] or cdims[L][mu])
-    }
-    ess = PartialOrder.from_relations(A.vertices, sorted(pairs))
-    return Structure(A.vertices, sdims, cdims, ess, path)
+    pairs = [
+        (mu, L) for L in range(n) for mu in range(n) if mu != L and (sd[L][mu] or cd[L][mu])
+    ]
+    ess = PartialOrder.from_relations(A.vertices, pairs)
+    return Structure(A.vertices, tuple(sd), tuple(cd), ess, path)
 
 
 def quasi_hereditary_orders(

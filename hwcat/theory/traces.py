@@ -15,7 +15,13 @@ Two facts keep the work small (both are immediate from the definition):
 * the trace of ``T`` in ``P(s)`` depends only on ``T`` intersected with the
   support of ``P(s)`` (the vertices ``u`` with ``e_s A e_u != 0``), so traces
   are cached under that smaller key and shared by every set with the same
-  intersection.
+  intersection;
+* when every arrow maps each basis path of every ``P(s)`` to a multiple of one
+  basis path or to zero (path algebras, monomial relations, and many
+  commutativity relations such as those of Auslander algebras of truncated
+  polynomial rings), every trace is spanned by basis paths: traces are then
+  kept as sets of basis paths (bitmasks), sums are unions and dimensions are
+  counts, with no linear algebra at all ("path mode").
 
 :class:`TraceCache` computes each trace once; :meth:`TraceCache.row` gives the
 dimension vector of a projective of the quotient from cached data.
@@ -82,26 +88,78 @@ class TraceCache:
         self._pdims = [A.projective_dims(s) for s in range(n)]
         #: support of P(s): the vertices t with e_s A e_t != 0
         self.support = [mask(t for t in range(n) if self._pdims[s][t]) for s in range(n)]
-        self._vt: dict[tuple[int, int], list[Mat]] = {}
+        self._vt: dict[tuple[int, int], Any] = {}
         self._e: dict[tuple[int, int], tuple] = {}
+        #: per s and arrow: basis index -> image index (-1: zero), or None when not in path mode
+        self._moves = self._path_moves()
+        self.path_mode = self._moves is not None
         for s in range(n):
-            zero = tuple(Mat.zeros(F, 0, d) for d in self._pdims[s])
+            if self.path_mode:
+                zero: tuple = (0,) * n
+            else:
+                zero = tuple(Mat.zeros(F, 0, d) for d in self._pdims[s])
             self._e[(0, s)] = self._entry(s, zero)
 
+    def _path_moves(self) -> list[list[list[int]]] | None:
+        """Right multiplication by each arrow on the basis paths of each ``P(s)``, if monomial."""
+        A = self.A
+        out = []
+        for s in range(A.n):
+            per = []
+            for m in A.action[s]:
+                moves = []
+                for row in m.raw_rows():
+                    nz = [k for k, x in enumerate(row) if x != 0]
+                    if len(nz) > 1:
+                        return None
+                    moves.append(nz[0] if nz else -1)
+                per.append(moves)
+            out.append(per)
+        return out
+
     def _entry(self, s: int, K) -> tuple:
-        q = tuple(d - k.nrows for d, k in zip(self._pdims[s], K, strict=True))
+        if self.path_mode:
+            q = tuple(d - k.bit_count() for d, k in zip(self._pdims[s], K, strict=True))
+        else:
+            q = tuple(d - k.nrows for d, k in zip(self._pdims[s], K, strict=True))
         return (K, q, mask(t for t, x in enumerate(q) if x), sum(q))
 
-    def vertex_trace(self, u: int, s: int) -> list[Mat]:
-        """Echelon bases of ``e_s A e_u A`` inside ``P(s)`` (the trace of one vertex)."""
+    def vertex_trace(self, u: int, s: int) -> Any:
+        """``e_s A e_u A`` inside ``P(s)`` (the trace of one vertex): per vertex echelon
+        bases, or in path mode per vertex the bitmask of the basis paths spanning it."""
         key = (u, s)
         if key not in self._vt:
             A = self.A
             dims, maps = A.projective_rep(s)
-            self._vt[key] = closure(
-                A.field, dims, maps, A.arrows, {u: Mat.identity(A.field, dims[u])}
-            )
+            if self.path_mode:
+                self._vt[key] = self._path_closure(s, u)
+            else:
+                self._vt[key] = closure(
+                    A.field, dims, maps, A.arrows, {u: Mat.identity(A.field, dims[u])}
+                )
         return self._vt[key]
+
+    def _path_closure(self, s: int, u: int) -> tuple[int, ...]:
+        A = self.A
+        n = A.n
+        got = [0] * n
+        got[u] = (1 << self._pdims[s][u]) - 1
+        outs: list[list[int]] = [[] for _ in range(n)]
+        for i, a in enumerate(A.arrows):
+            outs[a.source].append(i)
+        todo = [(u, j) for j in range(self._pdims[s][u])]
+        moves = self._moves[s]  # type: ignore[index]
+        while todo:
+            v, j = todo.pop()
+            for i in outs[v]:
+                k = moves[i][j]
+                if k < 0:
+                    continue
+                t = A.arrows[i].target
+                if not got[t] >> k & 1:
+                    got[t] |= 1 << k
+                    todo.append((t, k))
+        return tuple(got)
 
     def entry(self, T: int, s: int) -> tuple:
         """The cache entry of the trace of ``T`` in ``P(s)`` (see the class docstring)."""
@@ -123,6 +181,9 @@ class TraceCache:
         K0 = base[0]
         if not base[1][u]:
             e = base  # e_s B e_u = 0: nothing new
+        elif self.path_mode:
+            V = self.vertex_trace(u, s)
+            e = self._entry(s, tuple(k | v for k, v in zip(K0, V, strict=True)))
         else:
             F = self.A.field
             dims = self._pdims[s]
@@ -142,7 +203,11 @@ class TraceCache:
 
     def kernel(self, T: int, s: int) -> list[Mat]:
         """Echelon bases of ``e_s A e_T A`` inside ``P(s)``."""
-        return list(self.entry(T, s)[0])
+        K = self.entry(T, s)[0]
+        if not self.path_mode:
+            return list(K)
+        F = self.A.field
+        return [Mat.unit_rows(F, d, bits(k)) for d, k in zip(self._pdims[s], K, strict=True)]
 
     def extend(self, S: int, u: int, s: int) -> list[Mat]:
         """The trace of ``S + {u}`` in ``P(s)``, computed from the trace of ``S``."""
@@ -163,11 +228,11 @@ class TraceCache:
 
     def kernel_key(self, T: int, s: int) -> tuple:
         """A hashable key identifying the trace of ``T`` in ``P(s)`` exactly."""
-        return tuple(k.key() for k in self.entry(T, s)[0])
+        return tuple(k.key() for k in self.kernel(T, s))
 
     def kept_words(self, T: int, s: int, t: int) -> list[tuple[int, ...]]:
         """Basis paths of ``P(s)`` at ``t`` that survive modulo the trace (a quotient basis)."""
-        K = self.entry(T, s)[0][t]
+        K = self.kernel(T, s)[t]
         _, _, kept = quotient_map(K, self._pdims[s][t])
         return [self.A.words[s][t][k] for k in kept]
 
