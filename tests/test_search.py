@@ -313,3 +313,12 @@ def test_decision_and_count_agree_on_a_shared_cache():
     assert is_quasi_hereditary(A)
     assert trace_cache(A) is trace_cache(A)
     assert quasi_hereditary_orders(A, list_limit=0).structures == 1
+
+
+@settings(max_examples=30, deadline=None)
+@given(bound_quiver_algebras(max_vertices=6, max_arrows=4))
+def test_blocks_by_bitmasks_match_networkx(A):
+    # the search's own block split agrees with the hub's (networkx connected components)
+    from hwcat.theory.search import _components
+
+    assert _components(A) == A.components()

@@ -84,8 +84,14 @@ class PartialOrder:
                     acc |= above[low.bit_length() - 1]
                     m ^= low
                 above[v] = acc
-            less = frozenset((a, b) for a in range(n) for b in range(n) if above[a] >> b & 1)
-            return cls(tuple(vertices), less)
+            less = []
+            for a in range(n):
+                m = above[a]
+                while m:
+                    low = m & -m
+                    less.append((a, low.bit_length() - 1))
+                    m ^= low
+            return cls(tuple(vertices), frozenset(less))
         G = nx.DiGraph()
         G.add_nodes_from(range(len(vertices)))
         G.add_edges_from(pairs)

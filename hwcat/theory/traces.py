@@ -16,12 +16,13 @@ Two facts keep the work small (both are immediate from the definition):
   support of ``P(s)`` (the vertices ``u`` with ``e_s A e_u != 0``), so traces
   are cached under that smaller key and shared by every set with the same
   intersection;
-* when every arrow maps each basis path of every ``P(s)`` to a multiple of one
+* when every arrow maps each basis path of ``P(s)`` to a multiple of one
   basis path or to zero (path algebras, monomial relations, and many
   commutativity relations such as those of Auslander algebras of truncated
-  polynomial rings), every trace is spanned by basis paths: traces are then
-  kept as sets of basis paths (bitmasks), sums are unions and dimensions are
-  counts, with no linear algebra at all ("path mode").
+  polynomial rings), every trace in ``P(s)`` is spanned by basis paths: the
+  traces in ``P(s)`` are then kept as sets of basis paths (bitmasks), sums
+  are unions and dimensions are counts, with no linear algebra at all ("path
+  mode", decided for each ``P(s)`` separately).
 
 :class:`TraceCache` computes each trace once; :meth:`TraceCache.row` gives the
 dimension vector of a projective of the quotient from cached data.
@@ -90,35 +91,35 @@ class TraceCache:
         self.support = [mask(t for t in range(n) if self._pdims[s][t]) for s in range(n)]
         self._vt: dict[tuple[int, int], Any] = {}
         self._e: dict[tuple[int, int], tuple] = {}
-        #: per s and arrow: basis index -> image index (-1: zero), or None when not in path mode
-        self._moves = self._path_moves()
-        self.path_mode = self._moves is not None
+        #: per s: per arrow, basis index -> image index (-1: zero); None when P(s) is not in path mode
+        self._moves = [self._path_moves(s) for s in range(n)]
+        #: per s: whether the traces in P(s) are kept as sets of basis paths
+        self.path_mode = [m is not None for m in self._moves]
         for s in range(n):
-            if self.path_mode:
+            if self.path_mode[s]:
                 zero: tuple = (0,) * n
             else:
                 zero = tuple(Mat.zeros(F, 0, d) for d in self._pdims[s])
             self._e[(0, s)] = self._entry(s, zero)
 
-    def _path_moves(self) -> list[list[list[int]]] | None:
-        """Right multiplication by each arrow on the basis paths of each ``P(s)``, if monomial."""
-        A = self.A
-        out = []
-        for s in range(A.n):
-            per = []
-            for m in A.action[s]:
-                moves = []
-                for row in m.raw_rows():
-                    nz = [k for k, x in enumerate(row) if x != 0]
-                    if len(nz) > 1:
-                        return None
-                    moves.append(nz[0] if nz else -1)
-                per.append(moves)
-            out.append(per)
-        return out
+    def _path_moves(self, s: int) -> list[list[int]] | None:
+        """Right multiplication by each arrow on the basis paths of ``P(s)``, if monomial."""
+        per = []
+        for m in self.A.action[s]:
+            r, c = m.nrows, m.ncols
+            moves = [-1] * r
+            if r and c:
+                for k, x in enumerate(m.entries()):
+                    if x:
+                        i = k // c
+                        if moves[i] >= 0:
+                            return None
+                        moves[i] = k - i * c
+            per.append(moves)
+        return per
 
     def _entry(self, s: int, K) -> tuple:
-        if self.path_mode:
+        if self.path_mode[s]:
             q = tuple(d - k.bit_count() for d, k in zip(self._pdims[s], K, strict=True))
         else:
             q = tuple(d - k.nrows for d, k in zip(self._pdims[s], K, strict=True))
@@ -131,7 +132,7 @@ class TraceCache:
         if key not in self._vt:
             A = self.A
             dims, maps = A.projective_rep(s)
-            if self.path_mode:
+            if self.path_mode[s]:
                 self._vt[key] = self._path_closure(s, u)
             else:
                 self._vt[key] = closure(
@@ -148,7 +149,8 @@ class TraceCache:
         for i, a in enumerate(A.arrows):
             outs[a.source].append(i)
         todo = [(u, j) for j in range(self._pdims[s][u])]
-        moves = self._moves[s]  # type: ignore[index]
+        moves = self._moves[s]
+        assert moves is not None
         while todo:
             v, j = todo.pop()
             for i in outs[v]:
@@ -181,7 +183,7 @@ class TraceCache:
         K0 = base[0]
         if not base[1][u]:
             e = base  # e_s B e_u = 0: nothing new
-        elif self.path_mode:
+        elif self.path_mode[s]:
             V = self.vertex_trace(u, s)
             e = self._entry(s, tuple(k | v for k, v in zip(K0, V, strict=True)))
         else:
@@ -204,7 +206,7 @@ class TraceCache:
     def kernel(self, T: int, s: int) -> list[Mat]:
         """Echelon bases of ``e_s A e_T A`` inside ``P(s)``."""
         K = self.entry(T, s)[0]
-        if not self.path_mode:
+        if not self.path_mode[s]:
             return list(K)
         F = self.A.field
         return [Mat.unit_rows(F, d, bits(k)) for d, k in zip(self._pdims[s], K, strict=True)]
