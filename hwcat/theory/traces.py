@@ -42,6 +42,7 @@ __all__ = ["TraceCache", "bits", "mask"]
 
 _BITS: dict[int, tuple[int, ...]] = {}
 _BITS_LIMIT = 1 << 20
+_BYTE = [tuple(i for i in range(8) if b >> i & 1) for b in range(256)]
 
 
 def bits(m: int) -> tuple[int, ...]:
@@ -52,13 +53,18 @@ def bits(m: int) -> tuple[int, ...]:
     """
     out = _BITS.get(m)
     if out is None:
-        items = []
-        x = m
-        while x:
-            low = x & -x
-            items.append(low.bit_length() - 1)
-            x ^= low
-        out = tuple(items)
+        if m < 256:
+            out = _BYTE[m]
+        else:
+            items: list[int] = []
+            x, base = m, 0
+            while x:
+                b = x & 255
+                if b:
+                    items += [base + i for i in _BYTE[b]]
+                x >>= 8
+                base += 8
+            out = tuple(items)
         if len(_BITS) >= _BITS_LIMIT:
             _BITS.clear()
         _BITS[m] = out
@@ -270,13 +276,21 @@ class TraceCache:
             eB = eu[3]
             U = 1 << u
             ok = True
+            qu = eu[1]
+            tops = bits(eu[2])
             for s in bits(col[u]):
                 es = ent[s]
+                a = es[1][u]
                 X = S & sup[s]
                 after = E.get((X | U, s))
                 if after is None:
+                    # e_s B e_u (x) e_u B e_t embeds in e_s B e_t: a count may already fail
+                    qs = es[1]
+                    if any(a * qu[t] > qs[t] for t in tops):
+                        ok = False
+                        break
                     after = self._add(X, u, s)
-                if es[3] - after[3] != es[1][u] * eB:
+                if es[3] - after[3] != a * eB:
                     ok = False
                     break
             if ok:
