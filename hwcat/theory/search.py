@@ -170,7 +170,9 @@ class _Lattice:
 
     n: int
     steps: dict[int, int] = field(default_factory=dict)  # reachable S -> mask of valid steps
-    linked: dict[int, tuple[int, ...]] = field(default_factory=dict)  # S -> per vertex: not independent
+    linked: dict[int, tuple[int, ...]] = field(
+        default_factory=dict
+    )  # S -> per vertex: not independent
     parent: dict[int, int] = field(default_factory=dict)  # T -> a vertex u with T - u reachable
     orders: int = 0
     structures: int = 0
@@ -356,14 +358,21 @@ def _structure(A: BasicAlgebra, tc: TraceCache, path: tuple[int, ...]) -> Struct
     n = A.n
     sd: list[tuple[int, ...]] = [()] * n
     cd: list[tuple[int, ...]] = [()] * n
+    below = [0] * n  # bitmask of the mu with [Delta(L) : mu] or [nabla(L) : mu] nonzero
     S = 0
     for u in path:
-        sd[u] = tc.qdims(S, u)
-        cd[u] = tuple(tc.qdim(S, t, u) if not S >> t & 1 else 0 for t in range(n))
+        rows = [None if S >> t & 1 else tc.row(S, t) for t in range(n)]
+        ru = rows[u]
+        assert ru is not None
+        sd[u] = ru[0]
+        cd[u] = tuple(0 if r is None else r[0][u] for r in rows)
+        b = ru[1]
+        for t, r in enumerate(rows):
+            if r is not None and r[1] >> u & 1:
+                b |= 1 << t
+        below[u] = b & ~(1 << u)
         S |= 1 << u
-    pairs = [
-        (mu, L) for L in range(n) for mu in range(n) if mu != L and (sd[L][mu] or cd[L][mu])
-    ]
+    pairs = [(mu, L) for L in range(n) for mu in bits(below[L])]
     ess = PartialOrder.from_relations(A.vertices, pairs)
     return Structure(A.vertices, tuple(sd), tuple(cd), ess, path)
 

@@ -95,6 +95,18 @@ class TraceCache:
         self._pdims = [A.projective_dims(s) for s in range(n)]
         #: support of P(s): the vertices t with e_s A e_t != 0
         self.support = [mask(t for t in range(n) if self._pdims[s][t]) for s in range(n)]
+        # the step test for u at S reads only the traces in P(u) and in the P(s) with
+        # u in their support, so it depends only on S & region[u]; answers are kept
+        region = []
+        for u in range(n):
+            r = self.support[u]
+            for s in range(n):
+                if self.support[s] >> u & 1:
+                    r |= self.support[s] | (1 << s)
+            region.append(r)
+        #: per vertex u: the vertices whose membership in S can change the step test for u
+        self.region = region
+        self._steps: dict[tuple[int, int], bool] = {}
         self._vt: dict[tuple[int, int], Any] = {}
         self._e: dict[tuple[int, int], tuple] = {}
         #: per s: per arrow, basis index -> image index (-1: zero); None when P(s) is not in path mode
@@ -269,9 +281,18 @@ class TraceCache:
             for t in bits(out):
                 col[t] |= 1 << s
         valid = 0
+        memo = self._steps
+        region = self.region
         for u in bits(candidates):
+            key = (S & region[u], u)
+            known = memo.get(key)
+            if known is not None:
+                if known:
+                    valid |= 1 << u
+                continue
             eu = ent[u]
             if eu[1][u] != 1:
+                memo[key] = False
                 continue
             eB = eu[3]
             U = 1 << u
@@ -293,6 +314,7 @@ class TraceCache:
                 if es[3] - after[3] != a * eB:
                     ok = False
                     break
+            memo[key] = ok
             if ok:
                 valid |= U
         for u in bits(R):
