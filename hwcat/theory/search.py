@@ -169,6 +169,7 @@ class _Lattice:
     """The reachable sets of one algebra and what the counts and the listing need."""
 
     n: int
+    block: int  # the vertices searched (a union of blocks of the algebra)
     steps: dict[int, int] = field(default_factory=dict)  # reachable S -> mask of valid steps
     linked: dict[int, tuple[int, ...]] = field(
         default_factory=dict
@@ -180,7 +181,7 @@ class _Lattice:
 
     @property
     def full(self) -> int:
-        return (1 << self.n) - 1
+        return self.block
 
     @property
     def reachable(self) -> int:
@@ -230,10 +231,15 @@ def _explore(
     tc: TraceCache,
     upper: PartialOrder | None = None,
     structures: bool = True,
+    block: int | None = None,
 ) -> _Lattice:
-    """Visit every reachable set once; count orders and (optionally) structures."""
+    """Visit every reachable set once; count orders and (optionally) structures.
+
+    ``block`` (a union of blocks of ``A``, default all vertices) is searched
+    inside ``A`` itself: the traces in the ``P(s)`` of a block see only its vertices.
+    """
     n = A.n
-    lat = _Lattice(n)
+    lat = _Lattice(n, (1 << n) - 1 if block is None else block)
     full = lat.full
     above = [0] * n
     if upper is not None:
@@ -249,7 +255,7 @@ def _explore(
             cand = R
             if upper is not None:
                 cand = mask(u for u in bits(R) if not above[u] & R)
-            valid, lk = tc.survey(S, cand)
+            valid, lk = tc.survey(S, cand, full)
             lat.steps[S] = valid
             if structures:
                 lat.linked[S] = lk
@@ -335,9 +341,9 @@ def count_structures(A: BasicAlgebra) -> int:
     """
     out = 1
     with _no_cycle_collection():
+        tc = trace_cache(A)
         for comp in _components(A):
-            B = A if len(comp) == A.n else A.full_subalgebra(comp)
-            out *= _explore(B, trace_cache(B)).structures
+            out *= _explore(A, tc, block=mask(comp)).structures
     return out
 
 
@@ -347,34 +353,36 @@ def count_quasi_hereditary_extensions(A: BasicAlgebra, order: PartialOrder) -> i
         return _explore(A, trace_cache(A), order, structures=False).orders
 
 
-def _structure(A: BasicAlgebra, tc: TraceCache, path: tuple[int, ...]) -> Structure:
-    """The structure of a quasi-hereditary order ``path`` (highest first), from cached traces.
+def _fill(tc: TraceCache, n: int, path: tuple[int, ...], sd, cd, below) -> None:
+    """Standard and costandard dimension vectors along ``path`` (one block's order, highest first).
 
     With ``B = A / A e_S A`` for the set ``S`` above ``u``: ``Delta(u) = P_B(u)``
     and ``nabla(u)`` is the injective hull ``I_B(u)`` of the simple over ``B``
     (the largest submodule of ``I(u)`` killed by ``A e_S A``), so
-    ``[nabla(u) : L(t)] = dim e_t B e_u``.
+    ``[nabla(u) : L(t)] = dim e_t B e_u``.  ``below[u]`` collects the ``mu != u``
+    with ``[Delta(u) : L(mu)]`` or ``[nabla(u) : L(mu)]`` nonzero.
     """
-    n = A.n
-    sd: list[tuple[int, ...]] = [()] * n
-    cd: list[tuple[int, ...]] = [()] * n
-    below = [0] * n  # bitmask of the mu with [Delta(L) : mu] or [nabla(L) : mu] nonzero
     S = 0
+    block = bits(mask(path))  # other blocks of the algebra see nothing of this one
     for u in path:
-        rows = [None if S >> t & 1 else tc.row(S, t) for t in range(n)]
-        ru = rows[u]
-        assert ru is not None
+        rows = [(t, tc.row(S, t)) for t in block if not S >> t & 1]
+        ru = tc.row(S, u)
         sd[u] = ru[0]
-        cd[u] = tuple(0 if r is None else r[0][u] for r in rows)
+        c = [0] * n
         b = ru[1]
-        for t, r in enumerate(rows):
-            if r is not None and r[1] >> u & 1:
+        for t, r in rows:
+            x = r[0][u]
+            if x:
+                c[t] = x
                 b |= 1 << t
+        cd[u] = tuple(c)
         below[u] = b & ~(1 << u)
         S |= 1 << u
-    pairs = [(mu, L) for L in range(n) for mu in bits(below[L])]
-    ess = PartialOrder.from_relations(A.vertices, pairs)
-    return Structure(A.vertices, tuple(sd), tuple(cd), ess, path)
+
+
+def _structure(A: BasicAlgebra, tc: TraceCache, path: tuple[int, ...]) -> Structure:
+    """The structure of a quasi-hereditary total order ``path`` (highest first), from cached traces."""
+    return _combine(A, tc, [path])
 
 
 def quasi_hereditary_orders(
@@ -436,34 +444,29 @@ def _components(A: BasicAlgebra) -> list[list[int]]:
 def _orders(A: BasicAlgebra, list_limit: int | None) -> OrdersResult:
     comps = _components(A)
     n = A.n
-    per_block = []
-    for comp in comps:
-        B = A if len(comps) == 1 else A.full_subalgebra(comp)
-        tc = trace_cache(B)
-        per_block.append((comp, B, tc, _explore(B, tc)))
-    qh = all(lat.orders > 0 for *_, lat in per_block)
+    tc = trace_cache(A)
+    per_block = [(comp, _explore(A, tc, block=mask(comp))) for comp in comps]
+    qh = all(lat.orders > 0 for _, lat in per_block)
     total = 0
     nstruct = 0
     structs: list[Structure] = []
     listed_all = True
     if qh:
         total = factorial(n)
-        for comp, *_, lat in per_block:
+        for comp, lat in per_block:
             total = total // factorial(len(comp)) * lat.orders
         nstruct = 1
-        for *_, lat in per_block:
+        for _, lat in per_block:
             nstruct *= lat.structures
         cap = nstruct if list_limit is None else min(list_limit, nstruct)
         if cap:
-            for combo in _product_capped(
-                [(comp, B, tc, iter_structure_orders(lat)) for comp, B, tc, lat in per_block], cap
-            ):
-                structs.append(_combine(A, combo))
+            for combo in _product_capped([iter_structure_orders(lat) for _, lat in per_block], cap):
+                structs.append(_combine(A, tc, combo))
         listed_all = len(structs) >= nstruct
     best: list[int] = []
-    for comp, *_, lat in per_block:
+    for _, lat in per_block:
         target = lat.full if lat.orders else lat.deepest
-        best.extend(comp[i] for i in lat.chain_to(target))
+        best.extend(lat.chain_to(target))
     return OrdersResult(
         name=A.name,
         vertices=A.vertices,
@@ -473,7 +476,7 @@ def _orders(A: BasicAlgebra, list_limit: int | None) -> OrdersResult:
         structure_list=tuple(structs),
         listed_all=listed_all,
         blocks=tuple(tuple(A.vertices[v] for v in c) for c in comps),
-        reachable_sets=sum(lat.reachable for *_, lat in per_block),
+        reachable_sets=sum(lat.reachable for _, lat in per_block),
         best_attempt=tuple(best),
     )
 
@@ -481,10 +484,10 @@ def _orders(A: BasicAlgebra, list_limit: int | None) -> OrdersResult:
 def _product_capped(blocks, cap: int):
     """The first ``cap`` combinations of one smallest order per block (the first block varies slowest)."""
     pools: list[list] = []
-    for comp, B, tc, it in blocks:
+    for it in blocks:
         pool = []
         for path in it:
-            pool.append((comp, B, tc, path))
+            pool.append(path)
             if len(pool) >= cap:
                 break
         pools.append(pool)
@@ -502,41 +505,28 @@ def _product_capped(blocks, cap: int):
     return out[:cap]
 
 
-def _combine(A: BasicAlgebra, combo) -> Structure:
-    """Glue the structures of the blocks into one structure of ``A``."""
+def _combine(A: BasicAlgebra, tc: TraceCache, paths: list[tuple[int, ...]]) -> Structure:
+    """Glue the structures of the blocks (each given by its smallest order) into one of ``A``."""
     n = A.n
-    if len(combo) == 1 and len(combo[0][0]) == n:
-        _, B, tc, path = combo[0]
-        return _structure(B, tc, path)
     sd: list[tuple[int, ...]] = [()] * n
     cd: list[tuple[int, ...]] = [()] * n
-    pairs: list[tuple[int, int]] = []
-    chains: list[list[int]] = []
-    for comp, B, tc, path in combo:
-        s = _structure(B, tc, path)
-        for i, v in enumerate(comp):
-            full_s = [0] * n
-            full_c = [0] * n
-            for j, w in enumerate(comp):
-                full_s[w] = s.standard_dimension_vectors[i][j]
-                full_c[w] = s.costandard_dimension_vectors[i][j]
-            sd[v] = tuple(full_s)
-            cd[v] = tuple(full_c)
-        pairs.extend((comp[a], comp[b]) for a, b in s.essential_order.less)
-        chains.append([comp[i] for i in path])
+    below = [0] * n
+    for path in paths:
+        _fill(tc, n, path, sd, cd, below)
     # vertices of different blocks are independent: the smallest order of the
     # structure takes, at each step, the smallest next vertex of the blocks' smallest orders
-    rep = tuple(heapq.merge(*chains))
+    rep = tuple(heapq.merge(*paths))
+    pairs = [(mu, L) for L in range(n) for mu in bits(below[L])]
     ess = PartialOrder.from_relations(A.vertices, pairs)
     return Structure(A.vertices, tuple(sd), tuple(cd), ess, rep)
 
 
-def _reaches_full(A: BasicAlgebra, tc: TraceCache) -> bool:
-    """Depth-first: is some total order quasi-hereditary?  Each set is tested at most once."""
-    n = A.n
-    full = (1 << n) - 1
+def _reaches_full(A: BasicAlgebra, tc: TraceCache, block: int) -> bool:
+    """Depth-first: is ``block`` removable by a heredity chain?  Each set is tested at most once."""
+    full = block
+    vs = bits(block)
     dead: set[int] = set()
-    stack = [(0, iter(range(n)))]
+    stack = [(0, iter(vs))]
     while stack:
         S, it = stack[-1]
         if S == full:
@@ -547,7 +537,7 @@ def _reaches_full(A: BasicAlgebra, tc: TraceCache) -> bool:
             T = S | (1 << u)
             if T in dead or not tc.step_ok(S, u):
                 continue
-            stack.append((T, iter(range(n))))
+            stack.append((T, iter(vs)))
             break
         else:
             dead.add(S)
@@ -568,9 +558,9 @@ def is_quasi_hereditary(A: BasicAlgebra, order: PartialOrder | None = None) -> b
 
         return heredity_chain(A, order).holds
     with _no_cycle_collection():
+        tc = trace_cache(A)
         for comp in _components(A):
-            B = A if len(comp) == A.n else A.full_subalgebra(comp)
-            if not _reaches_full(B, trace_cache(B)):
+            if not _reaches_full(A, tc, mask(comp)):
                 return False
     return True
 

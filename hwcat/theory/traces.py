@@ -109,6 +109,9 @@ class TraceCache:
         self._steps: dict[tuple[int, int], bool] = {}
         self._vt: dict[tuple[int, int], Any] = {}
         self._e: dict[tuple[int, int], tuple] = {}
+        self._outs: list[list[int]] = [[] for _ in range(n)]  # arrows leaving each vertex
+        for i, a in enumerate(A.arrows):
+            self._outs[a.source].append(i)
         #: per s: per arrow, basis index -> image index (-1: zero); None when P(s) is not in path mode
         self._moves = [self._path_moves(s) for s in range(n)]
         #: per s: whether the traces in P(s) are kept as sets of basis paths
@@ -123,8 +126,9 @@ class TraceCache:
     def _path_moves(self, s: int) -> list[list[int]] | None:
         """Right multiplication by each arrow on the basis paths of ``P(s)``, if monomial."""
         per = []
-        for m in self.A.action[s]:
-            r, c = m.nrows, m.ncols
+        dims = self._pdims[s]
+        for a, m in zip(self.A.arrows, self.A.action[s], strict=True):
+            r, c = dims[a.source], dims[a.target]
             moves = [-1] * r
             if r and c:
                 for k, x in enumerate(m.entries()):
@@ -137,11 +141,16 @@ class TraceCache:
         return per
 
     def _entry(self, s: int, K) -> tuple:
-        if self.path_mode[s]:
-            q = tuple(d - k.bit_count() for d, k in zip(self._pdims[s], K, strict=True))
-        else:
-            q = tuple(d - k.nrows for d, k in zip(self._pdims[s], K, strict=True))
-        return (K, q, mask(t for t, x in enumerate(q) if x), sum(q))
+        dims = self._pdims[s]
+        q = [0] * len(dims)
+        nz = 0
+        path = self.path_mode[s]
+        for t in bits(self.support[s]):
+            x = dims[t] - (K[t].bit_count() if path else K[t].nrows)
+            if x:
+                q[t] = x
+                nz |= 1 << t
+        return (K, tuple(q), nz, sum(q))
 
     def vertex_trace(self, u: int, s: int) -> Any:
         """``e_s A e_u A`` inside ``P(s)`` (the trace of one vertex): per vertex echelon
@@ -163,9 +172,7 @@ class TraceCache:
         n = A.n
         got = [0] * n
         got[u] = (1 << self._pdims[s][u]) - 1
-        outs: list[list[int]] = [[] for _ in range(n)]
-        for i, a in enumerate(A.arrows):
-            outs[a.source].append(i)
+        outs = self._outs
         todo = [(u, j) for j in range(self._pdims[s][u])]
         moves = self._moves[s]
         assert moves is not None
@@ -256,18 +263,22 @@ class TraceCache:
         _, _, kept = quotient_map(K, self._pdims[s][t])
         return [self.A.words[s][t][k] for k in kept]
 
-    def survey(self, S: int, candidates: int) -> tuple[int, tuple[int, ...]]:
+    def survey(
+        self, S: int, candidates: int, within: int | None = None
+    ) -> tuple[int, tuple[int, ...]]:
         """Everything the search needs at the reachable set ``S``, from cached data.
 
         Returns ``(valid, linked)``: the bitmask of the ``u`` in ``candidates``
         for which :meth:`step_ok` holds, and per vertex ``v`` outside ``S`` the
         bitmask of the other ``w`` outside ``S`` with ``e_v B e_w != 0`` or
         ``e_w B e_v != 0`` in ``B = A / A e_S A`` (zero for the vertices in ``S``).
+        ``within`` (a union of blocks of ``A``; default: all vertices) limits the
+        vertices looked at.
         """
         n = self.A.n
         sup = self.support
         E = self._e
-        R = ((1 << n) - 1) & ~S
+        R = (((1 << n) - 1) if within is None else within) & ~S
         ent: list[Any] = [None] * n
         col = [0] * n
         lk = [0] * n
