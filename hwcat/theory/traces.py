@@ -294,16 +294,19 @@ class TraceCache:
         valid = 0
         memo = self._steps
         region = self.region
+        W = ((1 << n) - 1) if within is None else within
         for u in bits(candidates):
-            key = (S & region[u], u)
-            known = memo.get(key)
+            # kept only when the test can recur: sets are visited once each
+            key = (S & region[u], u) if region[u] & W != W else None
+            known = memo.get(key) if key is not None else None
             if known is not None:
                 if known:
                     valid |= 1 << u
                 continue
             eu = ent[u]
             if eu[1][u] != 1:
-                memo[key] = False
+                if key is not None:
+                    memo[key] = False
                 continue
             eB = eu[3]
             U = 1 << u
@@ -325,7 +328,8 @@ class TraceCache:
                 if es[3] - after[3] != a * eB:
                     ok = False
                     break
-            memo[key] = ok
+            if key is not None:
+                memo[key] = ok
             if ok:
                 valid |= U
         for u in bits(R):
