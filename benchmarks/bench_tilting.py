@@ -54,11 +54,24 @@ def main() -> None:
 
         tdim, tt, tm = measure(tilt)
         (rdim, ok), tr, rm = measure(dual)
-        rows.append([label, A.n, A.dim, tdim, f"{tt:.2f}", f"{tm:.0f}", rdim, f"{tr:.2f}", f"{rm:.0f}", ok])
+        rows.append(
+            [label, A.n, A.dim, tdim, f"{tt:.2f}", f"{tm:.0f}", rdim, f"{tr:.2f}", f"{rm:.0f}", ok]
+        )
     print(
         table(
             rows,
-            ["algebra", "simples", "dim A", "dim T", "T(L) s", "RSS MiB", "dim R(A)", "R and R(R) s", "RSS MiB", "R(R(A)) ~ A"],
+            [
+                "algebra",
+                "simples",
+                "dim A",
+                "dim T",
+                "T(L) s",
+                "RSS MiB",
+                "dim R(A)",
+                "R and R(R) s",
+                "RSS MiB",
+                "R(R(A)) ~ A",
+            ],
         )
     )
 
