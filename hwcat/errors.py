@@ -23,6 +23,7 @@ __all__ = [
     "OrderError",
     "StructureConstantsError",
     "NotSplitError",
+    "ResourceLimitError",
     "InternalInconsistency",
 ]
 
@@ -73,6 +74,10 @@ class StructureConstantsError(SpecError):
 
 class NotSplitError(HwcatError, ValueError):
     """A simple component of the semisimple quotient does not split over the given field."""
+
+
+class ResourceLimitError(HwcatError, ValueError):
+    """The work asked for exceeds a resource limit of :mod:`hwcat.limits` (raise it to go on)."""
 
 
 class InternalInconsistency(HwcatError, AssertionError):

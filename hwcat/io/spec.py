@@ -15,7 +15,13 @@ from typing import Any
 from hwcat.algebras.hub.basic import BasicAlgebra
 from hwcat.algebras.hub.quiver import Quiver, parse_relation
 from hwcat.algebras.inputs.bound import bound_quiver_algebra
-from hwcat.errors import HwcatError, SpecError, SpecSyntaxError, StructureConstantsError
+from hwcat.errors import (
+    HwcatError,
+    ResourceLimitError,
+    SpecError,
+    SpecSyntaxError,
+    StructureConstantsError,
+)
 from hwcat.exact import Field, parse_field
 
 __all__ = [
@@ -161,6 +167,8 @@ def _quiver_algebra(spec: Spec) -> BasicAlgebra:
         key = (
             "quiver.vanish_from_length"
             if N is not None and "vanish_from_length =" in str(exc)
+            else "quiver"
+            if isinstance(exc, ResourceLimitError)
             else "quiver.relations"
         )
         raise type(exc)(f"{src}: {key}: {exc}") from None
