@@ -23,6 +23,7 @@ from hwcat.errors import (
     StructureConstantsError,
 )
 from hwcat.exact import Field, parse_field
+from hwcat.limits import resource_limits
 
 __all__ = [
     "Spec",
@@ -383,16 +384,39 @@ def build_algebra(spec: Spec) -> BasicAlgebra:
     return _BUILDERS[spec.kind](spec)
 
 
-def load_spec(path: str | FilePath) -> BasicAlgebra:
-    """Read a spec file and build its algebra."""
-    return build_algebra(read_spec(path))
+def load_spec(
+    path: str | FilePath,
+    *,
+    max_dim: int | None = None,
+    max_vertices: int | None = None,
+    max_products: int | None = None,
+) -> BasicAlgebra:
+    """Read a spec file and build its algebra.
+
+    ``max_dim``, ``max_vertices`` and ``max_products`` raise (or lower) the
+    resource limits of :mod:`hwcat.limits` for this build.
+    """
+    with resource_limits(max_dim=max_dim, max_vertices=max_vertices, max_products=max_products):
+        return build_algebra(read_spec(path))
 
 
-def load_spec_text(text: str, source: str = "<spec>") -> BasicAlgebra:
-    """Build the algebra of spec text.
+def load_spec_text(
+    text: str,
+    source: str = "<spec>",
+    *,
+    max_dim: int | None = None,
+    max_vertices: int | None = None,
+    max_products: int | None = None,
+) -> BasicAlgebra:
+    """Build the algebra of spec text (limits as in :func:`load_spec`).
 
     >>> A = load_spec_text('field = "GF(3)"\\n[quiver]\\nvertices = ["x"]\\narrows = ["t: x -> x"]\\nvanish_from_length = 3')
     >>> A.dim, A.field
     (3, GF(3))
+    >>> load_spec_text('field = "QQ"\\n[quiver]\\nvertices = ["x"]\\narrows = ["t: x -> x"]\\nvanish_from_length = 30', max_dim=20)
+    Traceback (most recent call last):
+        ...
+    hwcat.errors.ResourceLimitError: <spec>: quiver: with every path of length 30 or more zero, the path algebra has dimension at least 21 (the paths of length up to 20), above the limit max_dim = 20; raise it with --max-dim N (Python: max_dim=N)
     """
-    return build_algebra(read_spec_text(text, source))
+    with resource_limits(max_dim=max_dim, max_vertices=max_vertices, max_products=max_products):
+        return build_algebra(read_spec_text(text, source))

@@ -589,6 +589,11 @@ class StructureAlgebra:
             v[k] = c
         return self.element_text(self.vec(v))
 
+    def _factor_text(self, u: list[Any]) -> str:
+        """A raw vector as a factor of a product: bracketed when it has several terms."""
+        text = self.element_text(self.vec(u))
+        return f"({text})" if (" + " in text or " - " in text) else text
+
     def _unit_defect(self, u: list[Any]) -> str | None:
         """``None`` if ``u`` is a two-sided identity, else a description of a failure."""
         n = self.dim
@@ -605,9 +610,7 @@ class StructureAlgebra:
             out = {k: (v % p if p else v) for k, v in out.items()}
             out = {k: v for k, v in out.items() if v}
             if out != {j: one}:
-                return (
-                    f"{self.element_text(self.vec(u))} * {self.basis[j]} = {self._dict_text(out)}"
-                )
+                return f"{self._factor_text(u)} * {self.basis[j]} = {self._dict_text(out)}"
         right: list[dict[int, Any]] = [{} for _ in range(n)]
         for i in supp:
             is_, ks, cs = self._cols[i]
@@ -617,9 +620,7 @@ class StructureAlgebra:
             out = {k: (v % p if p else v) for k, v in right[j].items()}
             out = {k: v for k, v in out.items() if v}
             if out != {j: one}:
-                return (
-                    f"{self.basis[j]} * {self.element_text(self.vec(u))} = {self._dict_text(out)}"
-                )
+                return f"{self.basis[j]} * {self._factor_text(u)} = {self._dict_text(out)}"
         return None
 
     def _establish_unit(self, unit: Sequence[Any] | None, seed: int) -> list[Any]:
@@ -651,33 +652,86 @@ class StructureAlgebra:
         for u in cands:
             if self._unit_defect(u) is None:
                 return u
+        return self._solve_unit(seed)
+
+    def _basis_times_raw(self, j: int, x: list[Any]) -> list[Any]:
+        """``b_j * x`` for a raw vector ``x``."""
+        out = [self._zero_raw()] * self.dim
+        ms, ks, cs = self._row_terms()[j]
+        for m, k, c in zip(ms, ks, cs, strict=True):
+            xm = x[m]
+            if xm:
+                out[k] += xm * c
+        if self._p:
+            p = self._p
+            return [v % p for v in out]
+        return out
+
+    def _solve_unit(self, seed: int) -> list[Any]:
+        """The two-sided identity, solved exactly from ``u*b_j = b_j = b_j*u`` for all ``j``.
+
+        Every identity satisfies ``u*r = r`` for any ``r``; a few random ``r``
+        give an affine space ``u0 + span(K)`` that contains it (usually a single
+        point).  The equations for the basis elements, taken in batches, then
+        cut that space down, and the survivor is checked on the whole basis.
+        The space is never empty when an identity exists, and it ends as a single
+        point, since the identity of an algebra is unique.
+        """
+        F, n = self.field, self.dim
         rng = random.Random(seed + 1)
-        # a left identity u satisfies u * r = r for every r; stack a few random r
         blocks, rhs = [], []
         for _ in range(3):
             r = self._random_raw(rng)
             blocks.append(self._action(r, None, left=False))
             rhs.append(r)
         M = Mat.hstack(F, blocks)
-        b = Mat.from_flat(F, 1, n * len(rhs), [x for r in rhs for x in r])
+        b = matrix_from_ints(F, 1, n * len(rhs), [x for r in rhs for x in r])
         sol = M.solve_left(b)
         if sol is None:
             raise StructureConstantsError(
                 "the algebra has no identity element (no u with u*x = x for all x); give the "
                 "unit explicitly if this is a mistake"
             )
-        if M.rank() < n:
-            raise StructureConstantsError(
-                "could not determine the identity element from the table (the left identities "
-                "form a family); give unit = ... explicitly"
-            )
-        u = self.raw(sol.entries())
-        defect = self._unit_defect(u)
+        u0 = self.raw(sol.entries())
+        K = M.left_kernel()
+        j = 0
+        while K.nrows and j < n:
+            k = K.nrows
+            kraw = [self.raw(row) for row in K.raw_rows()]
+            size = max(1, 2_000_000 // (2 * k * n))
+            batch = range(j, min(n, j + size))
+            rows = []
+            for x in kraw:
+                row: list[Any] = []
+                for jj in batch:
+                    row += self._times_basis_raw(x, jj)
+                    row += self._basis_times_raw(jj, x)
+                rows.extend(row)
+            target: list[Any] = []
+            for jj in batch:
+                for prod in (self._times_basis_raw(u0, jj), self._basis_times_raw(jj, u0)):
+                    t = [-v for v in prod]
+                    t[jj] += 1
+                    target += t
+            width = len(target)
+            C = matrix_from_ints(F, k, width, rows)
+            lam = C.solve_left(matrix_from_ints(F, 1, width, target))
+            if lam is None:
+                raise StructureConstantsError(
+                    "the algebra has no identity element: no u satisfies u*b = b = b*u for "
+                    "every basis element b"
+                )
+            u0 = self.raw((Mat.from_flat(F, 1, n, self.vec(u0)) + lam @ K).entries())
+            K = C.left_kernel() @ K
+            j += len(batch)
+        if K.nrows:
+            raise InternalInconsistency("two different identity elements were found")
+        defect = self._unit_defect(u0)
         if defect is not None:
             raise StructureConstantsError(
-                f"the algebra has no two-sided identity element (the only candidate fails: {defect})"
+                f"the algebra has no identity element (the only candidate fails: {defect})"
             )
-        return u
+        return u0
 
     # -- output ------------------------------------------------------------------------
     def products_dict(self) -> dict[tuple[int, int], dict[int, Any]]:
