@@ -182,3 +182,35 @@ def test_wrong_unit_message_brackets_the_factor() -> None:
     with pytest.raises(StructureConstantsError) as info:
         StructureAlgebra(F, ["a", "b", "c"], table, [F(1), F(1), F(0)])
     assert "(a + b) * c = 0" in str(info.value)
+
+
+# -- the exact associativity check by matrix products -------------------------------------
+
+
+@pytest.mark.parametrize("field", FIELDS, ids=str)
+def test_associativity_by_matrices_agrees_with_the_term_by_term_check(field) -> None:
+    # upper-triangular 4 x 4 matrices (associative: common practice) in a random basis,
+    # then one structure constant changed: both exact methods must find a failing triple,
+    # and the triple the matrix method names must fail when recomputed term by term
+    units, unit = matrix_units(4, lambda a, b: a <= b)
+    n = len(units)
+    rng = random.Random(7)
+    P = random_invertible(n, field, rng)
+    new, u = rewrite(matrix_unit_table(units), unit, n, field, P)
+    A = StructureAlgebra(field, [f"f{i}" for i in range(n)], new, u, associativity="skip")
+    A._associativity_by_matrices()  # associative: no error
+    A._associativity_by_terms()
+    # change one constant in place (the unit check has passed already)
+    B = A
+    j = next(j for j in range(n) if len(B._cols[j][2]))
+    cs = B._cols[j][2]
+    cs[0] = (cs[0] + 1) % field.p if getattr(field, "p", 0) else cs[0] + 1
+    with pytest.raises(StructureConstantsError, match="not associative") as by_matrices:
+        B._associativity_by_matrices()
+    with pytest.raises(StructureConstantsError, match="not associative"):
+        B._associativity_by_terms()
+    # the named triple fails term by term
+    m = __import__("re").search(r"\((f\d+)\*(f\d+)\)\*(f\d+)", str(by_matrices.value))
+    i, j, k = (int(x[1:]) for x in m.groups())
+    with pytest.raises(StructureConstantsError):
+        B._associativity_triple(i, j, k)

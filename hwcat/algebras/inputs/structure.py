@@ -32,6 +32,7 @@ Examples
 
 from __future__ import annotations
 
+import math
 import random
 from array import array
 from collections.abc import Mapping, Sequence
@@ -535,6 +536,92 @@ class StructureAlgebra:
         return [self.field(rng.randint(-_QQ_SAMPLE, _QQ_SAMPLE)) for _ in range(self.dim)]
 
     def _associativity_exact(self) -> None:
+        """All basis triples, exactly: by matrix products for dense tables, term by term
+        for sparse ones (the cheaper of the two by a count of the multiplications)."""
+        n = self.dim
+        sparse_cost = self.nnz * self.nnz // max(n, 1)  # terms of all (b_i b_j) b_k
+        matrix_cost = n**5 // 20  # dense products, in compiled code
+        if n and matrix_cost < sparse_cost:
+            self._associativity_by_matrices()
+        else:
+            self._associativity_by_terms()
+
+    def _associativity_by_matrices(self) -> None:
+        """``(b_i b_j) b_k = b_i (b_j b_k)`` for all triples as ``2n`` matrix products.
+
+        With ``R_j`` the matrix of right multiplication by ``b_j`` (row ``i`` is
+        ``b_i b_j``), ``S`` the ``n^2 x n`` stack of the ``R_j`` and ``V`` the
+        ``n x n^2`` matrix whose row ``m`` is ``R_m`` read row by row, the entry
+        ``(j, i, r)`` of ``S R_k`` is the coefficient of ``b_r`` in
+        ``(b_i b_j) b_k`` and the same entry of ``R_k V`` is that of
+        ``b_i (b_j b_k)``.  Every triple is compared, exactly.  Over ``QQ`` the
+        constants are first multiplied by their common denominator ``D`` (the
+        equations are homogeneous of degree 2, so both sides scale by ``D^2``):
+        products of integer matrices are much cheaper than of fractions.
+        """
+        values = [list(cs) for _, _, cs in self._cols]
+        if not self._p:
+            F = self.field
+            D = 1
+            for cs in values:
+                for c in cs:
+                    d = F.denominator(c)
+                    if D % d:
+                        D = D * d // math.gcd(D, d)
+            if D != 1:
+                scale = F(D)
+                values = [[c * scale for c in cs] for cs in values]
+        self._associativity_matrix_check(values)
+
+    def _associativity_matrix_check(self, values: list[list[Any]]) -> None:
+        """The matrix comparison of :meth:`_associativity_by_matrices`, with the constants
+        of column ``j`` given by ``values[j]``; a failure is located and reported."""
+        n, F = self.dim, self.field
+        zero = self._zero_raw()
+        Rs = []
+        for (is_, ks, _), cs in zip(self._cols, values, strict=True):
+            acc: list[Any] = [zero] * (n * n)
+            for i, k, c in zip(is_, ks, cs, strict=True):
+                acc[i * n + k] = c
+            Rs.append(matrix_from_ints(F, n, n, acc))
+        S = Mat.vstack(F, Rs, n)
+        V = Mat.vstack(F, [Mat.from_flat(F, 1, n * n, R.entries()) for R in Rs], n * n)
+        for k, Rk in enumerate(Rs):
+            lhs = (S @ Rk).entries()
+            rhs = (Rk @ V).entries()
+            if lhs != rhs:
+                q = next(q for q in range(len(lhs)) if lhs[q] != rhs[q])
+                j, i = q // (n * n), (q // n) % n
+                self._associativity_triple(i, j, k)
+                raise InternalInconsistency(  # pragma: no cover - the triple must fail
+                    f"associativity: the matrix check and the triple ({i}, {j}, {k}) disagree"
+                )
+
+    def _associativity_triple(self, i: int, j: int, k: int) -> None:
+        """Raise the error for a failing triple (computed term by term)."""
+        P = self._pairs()
+        zero = self._zero_raw()
+        p = self._p
+        lhs: dict[int, Any] = {}
+        for m, c in P.get((i, j), {}).items():
+            for r, d in P.get((m, k), {}).items():
+                lhs[r] = lhs.get(r, zero) + c * d
+        rhs: dict[int, Any] = {}
+        for m, c in P.get((j, k), {}).items():
+            for r, d in P.get((i, m), {}).items():
+                rhs[r] = rhs.get(r, zero) + c * d
+        lhs = {r: v % p if p else v for r, v in lhs.items()}
+        rhs = {r: v % p if p else v for r, v in rhs.items()}
+        lhs = {r: v for r, v in lhs.items() if v}
+        rhs = {r: v for r, v in rhs.items() if v}
+        if lhs != rhs:
+            b = self.basis
+            raise StructureConstantsError(
+                f"the multiplication is not associative: ({b[i]}*{b[j]})*{b[k]} = "
+                f"{self._dict_text(lhs)} but {b[i]}*({b[j]}*{b[k]}) = {self._dict_text(rhs)}"
+            )
+
+    def _associativity_by_terms(self) -> None:
         P = self._pairs()
         n = self.dim
         zero = self._zero_raw()
