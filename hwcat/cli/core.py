@@ -8,6 +8,7 @@ import json
 import sys
 from collections.abc import Sequence
 
+from hwcat.cli import positive_int
 from hwcat.errors import InternalInconsistency, OrderError, SpecError
 from hwcat.io.render import render_orders, render_structure, render_verdict, to_json
 from hwcat.io.spec import build_algebra, read_spec
@@ -35,10 +36,12 @@ def _cmd_check(args: argparse.Namespace) -> int:
     from hwcat.theory.verdict import check_order
 
     spec, A = _load(args)
-    text, source = (args.order, "command line") if args.order else (spec.order, "spec file")
+    text, source = (
+        (args.order, "command line") if args.order is not None else (spec.order, "spec file")
+    )
     search_info = None
     search_dict = None
-    if text:
+    if text is not None:
         try:
             order = parse_order(text, A.vertices)
         except OrderError as exc:
@@ -60,8 +63,10 @@ def _cmd_check(args: argparse.Namespace) -> int:
                 A, order, order_source="found by search: essential order of a structure"
             )
             search_info = (
-                f"no order given; the search found {r.quasi_hereditary_total_orders} quasi-hereditary total orders in "
-                f"{r.structures} structure(s); checking the first structure's essential order"
+                f"no order given; the search found {r.quasi_hereditary_total_orders} quasi-hereditary "
+                f"total order{'' if r.quasi_hereditary_total_orders == 1 else 's'} in "
+                f"{r.structures} structure{'' if r.structures == 1 else 's'}; "
+                "checking the first structure's essential order"
             )
         else:
             chain = list(r.best_attempt)
@@ -75,7 +80,7 @@ def _cmd_check(args: argparse.Namespace) -> int:
             )
             search_info = (
                 f"no order given and NO order makes the algebra quasi-hereditary; the longest heredity chain found has "
-                f"{len(chain)} step(s): {' > '.join(A.vertices[i] for i in chain) or '(none)'}; "
+                f"{len(chain)} step{'' if len(chain) == 1 else 's'}: {' > '.join(A.vertices[i] for i in chain) or '(none)'}; "
                 "the axioms below are for that attempt completed in spec order"
             )
             if verdict.quasi_hereditary:
@@ -182,8 +187,8 @@ def _order_for(spec, A, text_arg):
     from hwcat.theory.orders import parse_order
     from hwcat.theory.search import quasi_hereditary_orders
 
-    text, source = (text_arg, "command line") if text_arg else (spec.order, "spec file")
-    if text:
+    text, source = (text_arg, "command line") if text_arg is not None else (spec.order, "spec file")
+    if text is not None:
         try:
             return parse_order(text, A.vertices)
         except OrderError as exc:
@@ -250,7 +255,9 @@ def register(sub: argparse._SubParsersAction) -> None:
     o.add_argument("spec", help="algebra spec file")
     o.add_argument("--json", action="store_true", help="print one JSON object")
     o.add_argument("--all", action="store_true", help="list every structure")
-    o.add_argument("--limit", type=int, default=20, help="how many structures to list (default 20)")
+    o.add_argument(
+        "--limit", type=positive_int, default=20, help="how many structures to list (default 20)"
+    )
     o.set_defaults(func=_cmd_orders)
     pr = sub.add_parser(
         "presentation",

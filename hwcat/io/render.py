@@ -80,8 +80,9 @@ def render_structure(r) -> str:
     title = f"Structure of {r.name}" if r.name else "Structure of the algebra"
     lines = [
         title,
-        f"  field {r.field}; dimension {r.dimension}; {len(v)} simple modules; "
-        f"Loewy length {r.loewy_length}; {len(r.blocks)} block(s)",
+        f"  field {r.field}; dimension {r.dimension}; {len(v)} simple module"
+        f"{'' if len(v) == 1 else 's'}; Loewy length {r.loewy_length}; {len(r.blocks)} block"
+        f"{'' if len(r.blocks) == 1 else 's'}",
     ]
     if any(m != 1 for m in r.morita):
         lines.append(
@@ -199,7 +200,9 @@ def render_orders(r) -> str:
         f"  blocks: {len(r.blocks)}; vertex sets reached by the heredity search: {r.reachable_sets}"
     )
     if not r.quasi_hereditary:
-        lines.append("  quasi-hereditary: no (it is not quasi-hereditary for any order of the simples)")
+        lines.append(
+            "  quasi-hereditary: no (it is not quasi-hereditary for any order of the simples)"
+        )
         chain = " > ".join(vs[i] for i in r.best_attempt) or "(none)"
         lines.append(f"  longest heredity chain found: {chain}")
         return "\n".join(lines)

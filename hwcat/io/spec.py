@@ -224,6 +224,14 @@ def _multiplication_structure(spec: Spec):
     for i, b in enumerate(basis):
         if not b.strip() or any(ch in b for ch in "*+-= "):
             raise _err(SpecError, src, f"multiplication.basis[{i}]", f"{b!r} is not a valid name")
+        if all(ch.isdigit() or ch == "/" for ch in b):
+            raise _err(
+                SpecError,
+                src,
+                f"multiplication.basis[{i}]",
+                f"{b!r} is a number, which would read as a coefficient in -1*{b}; "
+                "a name must contain a letter",
+            )
         if b in seen:
             raise _err(
                 StructureConstantsError, src, f"multiplication.basis[{i}]", f"{b!r} is listed twice"
