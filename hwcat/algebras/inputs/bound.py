@@ -333,7 +333,7 @@ def _graded(
                 order = sorted(range(len(cols)), key=lambda c: cols[c][0], reverse=True)
                 pos = {c: p for p, c in enumerate(order)}  # column -> position (descending)
                 gens = _relation_images(F, Q, degrees, rel_by_end.get(t, ()), s, d, cols, pos)
-                work += len(cols) * gens.nrows
+                work += len(cols) * max(gens.nrows, 1)
                 pi, _, kept = quotient_map(gens, len(cols))
                 # kept positions are in descending word order; store ascending
                 kept_words = [cols[order[p]][0] for p in kept]

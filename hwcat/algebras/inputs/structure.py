@@ -46,6 +46,7 @@ from hwcat.errors import (
 )
 from hwcat.exact import Field, Mat, PrimeField
 from hwcat.exact.polys import matrix_from_ints, sparse_matrix
+from hwcat.limits import check_products
 
 __all__ = [
     "StructureAlgebra",
@@ -162,6 +163,7 @@ class StructureAlgebra:
             raise StructureConstantsError(f"basis element {dup!r} is listed twice")
         if n == 0:
             raise StructureConstantsError("the basis is empty (the zero algebra has no unit)")
+        check_products(n, f"the algebra {name!r}" if name else "the algebra")
         self._index = {b: i for i, b in enumerate(self.basis)}
         cols_i: list[list[int]] = [[] for _ in range(n)]
         cols_k: list[list[int]] = [[] for _ in range(n)]
