@@ -147,3 +147,24 @@ def test_work_budget_ends_in_a_clear_refusal(monkeypatch) -> None:
     msg = str(info.value)
     assert "not shown to be finite dimensional within the work budget" in msg
     assert "give vanish_from_length" in msg and "survive (for example 'x*" in msg
+
+
+def test_command_line_options_before_or_after_the_command(tmp_path, capsys) -> None:
+    from hwcat.cli import main
+
+    path = tmp_path / "comm.toml"
+    path.write_text(
+        'field = "GF(101)"\n[quiver]\nvertices = ["1"]\narrows = ["x: 1 -> 1", "y: 1 -> 1"]\n'
+        'relations = ["x*y - y*x"]\nvanish_from_length = 30\n',
+        encoding="utf-8",
+    )
+    for argv in (
+        ["--max-dim", "100", "describe", str(path)],
+        ["describe", str(path), "--max-dim", "100"],
+    ):
+        assert main(argv) == 2
+        err = capsys.readouterr().err
+        assert "max_dim = 100; raise it with --max-dim N" in err and len(err.splitlines()) == 1
+    # the dimension is 465 (derived above): a limit of 465 lets it through
+    assert main(["describe", str(path), "--max-dim", "465", "--json"]) == 0
+    assert '"dimension": 465' in capsys.readouterr().out

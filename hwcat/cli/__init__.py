@@ -102,6 +102,16 @@ def main(argv: Sequence[str] | None = None) -> int:
         return 2
     except BrokenPipeError:  # output piped into a pager or head
         return 0
+    except MemoryError:
+        print(
+            "hwcat: error: out of memory; the input is too large for this machine (the limits "
+            "--max-dim, --max-products and --max-vertices refuse such work unless raised)",
+            file=sys.stderr,
+        )
+        return 2
+    except KeyboardInterrupt:
+        print("hwcat: interrupted", file=sys.stderr)
+        return 130
 
 
 if __name__ == "__main__":  # pragma: no cover
