@@ -20,7 +20,7 @@
 
 from hwcat.algebras import BasicAlgebra, Quiver, bound_quiver_algebra
 from hwcat.algebras.families.registry import family_algebra
-from hwcat.errors import HwcatError, InternalInconsistency
+from hwcat.errors import HwcatError, InternalInconsistency, ResourceLimitError
 from hwcat.exact import GF, QQ, Mat, parse_field
 from hwcat.io.spec import load, load_spec, load_spec_text
 from hwcat.modules import Module, hom, hom_dimension, injective, projective, simple
@@ -87,5 +87,6 @@ __all__ = [
     "tilting_modules",
     "ringel_dual",
     "HwcatError",
+    "ResourceLimitError",
     "InternalInconsistency",
 ]

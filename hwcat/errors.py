@@ -24,6 +24,7 @@ __all__ = [
     "VertexError",
     "StructureConstantsError",
     "NotSplitError",
+    "ResourceLimitError",
     "InternalInconsistency",
     "CampaignError",
     "MissingExtra",
@@ -80,6 +81,10 @@ class StructureConstantsError(SpecError):
 
 class NotSplitError(HwcatError, ValueError):
     """A simple component of the semisimple quotient does not split over the given field."""
+
+
+class ResourceLimitError(HwcatError, ValueError):
+    """The work asked for exceeds a resource limit of :mod:`hwcat.limits` (raise it to go on)."""
 
 
 class InternalInconsistency(HwcatError, AssertionError):

@@ -7,6 +7,7 @@ import argparse
 import sys
 from collections.abc import Sequence
 
+from hwcat.cli import positive_int
 from hwcat.cli.common import (
     add_algebra_source,
     load_algebra,
@@ -190,7 +191,9 @@ def register(sub: argparse._SubParsersAction) -> None:
     add_algebra_source(o)
     o.add_argument("--json", action="store_true", help="print one JSON object")
     o.add_argument("--all", action="store_true", help="list every structure")
-    o.add_argument("--limit", type=int, default=20, help="how many structures to list (default 20)")
+    o.add_argument(
+        "--limit", type=positive_int, default=20, help="how many structures to list (default 20)"
+    )
     o.set_defaults(func=_cmd_orders)
     pr = sub.add_parser(
         "presentation",

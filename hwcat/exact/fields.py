@@ -94,6 +94,10 @@ class Field:
     def one(self) -> Any:
         return self._from_int(1)
 
+    def denominator(self, x: Any) -> int:
+        """The denominator of ``x`` (1 outside ``QQ``)."""
+        return 1
+
     def to_str(self, x: Any) -> str:
         """The text form of an element, parseable again by :meth:`parse`."""
         return str(x)
@@ -141,6 +145,10 @@ class RationalField(Field):
         if not entries:
             return flint.fmpq_mat(nrows, ncols)
         return flint.fmpq_mat(nrows, ncols, entries)
+
+    def denominator(self, x: Any) -> int:
+        """The denominator of ``x`` in lowest terms."""
+        return int(x.q)
 
     def to_int_or_str(self, x: Any) -> int | str:
         if x.q == 1:

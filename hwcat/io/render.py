@@ -252,7 +252,9 @@ def render_orders(r) -> str:
         f"  blocks: {len(r.blocks)}; vertex sets reached by the heredity search: {r.reachable_sets}"
     )
     if not r.quasi_hereditary:
-        lines.append("  quasi-hereditary: no (it is not quasi-hereditary for any order of the simples)")
+        lines.append(
+            "  quasi-hereditary: no (it is not quasi-hereditary for any order of the simples)"
+        )
         chain = " > ".join(vs[i] for i in r.best_attempt) or "(none)"
         lines.append(f"  longest heredity chain found: {chain}")
         return "\n".join(lines)

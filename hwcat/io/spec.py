@@ -16,8 +16,15 @@ from typing import Any
 from hwcat.algebras.hub.basic import BasicAlgebra
 from hwcat.algebras.hub.quiver import Quiver, parse_relation
 from hwcat.algebras.inputs.bound import bound_quiver_algebra
-from hwcat.errors import HwcatError, SpecError, SpecSyntaxError, StructureConstantsError
+from hwcat.errors import (
+    HwcatError,
+    ResourceLimitError,
+    SpecError,
+    SpecSyntaxError,
+    StructureConstantsError,
+)
 from hwcat.exact import Field, parse_field
+from hwcat.limits import resource_limits
 
 __all__ = [
     "Spec",
@@ -164,6 +171,8 @@ def _quiver_algebra(spec: Spec) -> BasicAlgebra:
         key = (
             "quiver.vanish_from_length"
             if N is not None and "vanish_from_length =" in str(exc)
+            else "quiver"
+            if isinstance(exc, ResourceLimitError)
             else "quiver.relations"
         )
         raise type(exc)(f"{src}: {key}: {exc}") from None
@@ -218,6 +227,14 @@ def _multiplication_structure(spec: Spec):
     for i, b in enumerate(basis):
         if not b.strip() or any(ch in b for ch in "*+-= "):
             raise _err(SpecError, src, f"multiplication.basis[{i}]", f"{b!r} is not a valid name")
+        if all(ch.isdigit() or ch == "/" for ch in b):
+            raise _err(
+                SpecError,
+                src,
+                f"multiplication.basis[{i}]",
+                f"{b!r} is a number, which would read as a coefficient in -1*{b}; "
+                "a name must contain a letter",
+            )
         if b in seen:
             raise _err(
                 StructureConstantsError, src, f"multiplication.basis[{i}]", f"{b!r} is listed twice"
@@ -450,35 +467,67 @@ def build_algebra(spec: Spec) -> BasicAlgebra:
 
 
 def load(
-    path: str | FilePath | None = None, *, family: str | None = None, **params: Any
+    path: str | FilePath | None = None,
+    *,
+    family: str | None = None,
+    max_dim: int | None = None,
+    max_vertices: int | None = None,
+    max_products: int | None = None,
+    **params: Any,
 ) -> BasicAlgebra:
     """The algebra of a spec file, or of a built-in family with its parameters.
 
     ``load("alg.toml")`` reads a spec file; ``load(family="temperley-lieb", n=4,
     delta=0, field="GF(3)")`` builds a family member (parameters as values or text).
+    ``max_dim``, ``max_vertices`` and ``max_products`` set the resource limits of
+    :mod:`hwcat.limits` for this build.
 
     >>> load(family="temperley-lieb", n=4, delta=0, field="GF(3)").n
     2
     """
     if (path is None) == (family is None):
         raise SpecError("load: give either a spec file or family=NAME, not both or neither")
-    if path is not None:
-        if params:
-            raise SpecError(f"load: parameters {sorted(params)} only go with family=NAME")
-        return load_spec(path)
-    return build_algebra(family_source([family, *(f"{k}={v}" for k, v in params.items())]))
+    if path is not None and params:
+        raise SpecError(f"load: parameters {sorted(params)} only go with family=NAME")
+    with resource_limits(max_dim=max_dim, max_vertices=max_vertices, max_products=max_products):
+        if path is not None:
+            return build_algebra(read_spec(path))
+        return build_algebra(family_source([family, *(f"{k}={v}" for k, v in params.items())]))
 
 
-def load_spec(path: str | FilePath) -> BasicAlgebra:
-    """Read a spec file and build its algebra."""
-    return build_algebra(read_spec(path))
+def load_spec(
+    path: str | FilePath,
+    *,
+    max_dim: int | None = None,
+    max_vertices: int | None = None,
+    max_products: int | None = None,
+) -> BasicAlgebra:
+    """Read a spec file and build its algebra.
+
+    ``max_dim``, ``max_vertices`` and ``max_products`` raise (or lower) the
+    resource limits of :mod:`hwcat.limits` for this build.
+    """
+    with resource_limits(max_dim=max_dim, max_vertices=max_vertices, max_products=max_products):
+        return build_algebra(read_spec(path))
 
 
-def load_spec_text(text: str, source: str = "<spec>") -> BasicAlgebra:
-    """Build the algebra of spec text.
+def load_spec_text(
+    text: str,
+    source: str = "<spec>",
+    *,
+    max_dim: int | None = None,
+    max_vertices: int | None = None,
+    max_products: int | None = None,
+) -> BasicAlgebra:
+    """Build the algebra of spec text (limits as in :func:`load_spec`).
 
     >>> A = load_spec_text('field = "GF(3)"\\n[quiver]\\nvertices = ["x"]\\narrows = ["t: x -> x"]\\nvanish_from_length = 3')
     >>> A.dim, A.field
     (3, GF(3))
+    >>> load_spec_text('field = "QQ"\\n[quiver]\\nvertices = ["x"]\\narrows = ["t: x -> x"]\\nvanish_from_length = 30', max_dim=20)
+    Traceback (most recent call last):
+        ...
+    hwcat.errors.ResourceLimitError: <spec>: quiver: with every path of length 30 or more zero, the path algebra has dimension at least 21 (the paths of length up to 20), above the limit max_dim = 20; raise it with --max-dim N (Python: max_dim=N)
     """
-    return build_algebra(read_spec_text(text, source))
+    with resource_limits(max_dim=max_dim, max_vertices=max_vertices, max_products=max_products):
+        return build_algebra(read_spec_text(text, source))

@@ -394,7 +394,7 @@ def check_order(
                 "projectives_without_standard_filtration": missing,
                 "text": "needs standard filtrations of the projectives: "
                 + ", ".join(f"P({x})" for x in missing)
-                + " have none",
+                + (" has none" if len(missing) == 1 else " have none"),
             },
         )
     DEt = tuple(tuple(sum(D[i][k] * E[j][k] for k in range(n)) for j in range(n)) for i in range(n))

@@ -32,6 +32,7 @@ from typing import Any
 
 from hwcat.errors import SpecError
 from hwcat.exact.fields import Field, parse_field
+from hwcat.limits import check_vertices
 
 __all__ = [
     "linear_A",
@@ -56,6 +57,8 @@ def _check_int(value: Any, what: str, minimum: int) -> int:
         raise SpecError(f"{what} must be an integer, got {value!r}")
     if value < minimum:
         raise SpecError(f"{what} must be at least {minimum}, got {value}")
+    if what == "n":
+        check_vertices(value)
     return value
 
 
@@ -113,9 +116,9 @@ def linear_A(n: int, vanish_from_length: int | None = None, field: Field | str =
     >>> linear_A(2)["quiver"]
     {'vertices': ['1', '2'], 'arrows': ['a1: 1 -> 2']}
     """
-    n = _check_int(n, "linear_A: n", 1)
+    n = _check_int(n, "n", 1)
     if vanish_from_length is not None:
-        _check_int(vanish_from_length, "linear_A: vanish_from_length", 2)
+        _check_int(vanish_from_length, "vanish_from_length", 2)
     arrows = [f"a{i}: {i} -> {i + 1}" for i in range(1, n)]
     return _spec(
         f"linear A_{n}{_vanish_suffix(vanish_from_length)}",
@@ -144,9 +147,9 @@ def alternating_A(n: int, vanish_from_length: int | None = None, field: Field | 
     >>> alternating_A(4)["quiver"]["arrows"]
     ['a1: 1 -> 2', 'a2: 3 -> 2', 'a3: 3 -> 4']
     """
-    n = _check_int(n, "alternating_A: n", 1)
+    n = _check_int(n, "n", 1)
     if vanish_from_length is not None:
-        _check_int(vanish_from_length, "alternating_A: vanish_from_length", 2)
+        _check_int(vanish_from_length, "vanish_from_length", 2)
     arrows = [f"a{i}: {i} -> {i + 1}" if i % 2 else f"a{i}: {i + 1} -> {i}" for i in range(1, n)]
     return _spec(
         f"alternating A_{n}{_vanish_suffix(vanish_from_length)}",
@@ -186,7 +189,7 @@ def auslander_truncated_polynomial(n: int, field: Field | str = "QQ") -> dict:
     >>> auslander_truncated_polynomial(3)["quiver"]["relations"]
     ['a1*b1', 'b1*a1 - a2*b2']
     """
-    n = _check_int(n, "auslander_truncated_polynomial: n", 1)
+    n = _check_int(n, "n", 1)
     arrows = [f"a{i}: {i} -> {i + 1}" for i in range(1, n)]
     arrows += [f"b{i}: {i + 1} -> {i}" for i in range(1, n)]
     relations = ["a1*b1"] if n >= 2 else []
@@ -226,7 +229,7 @@ def zigzag_A(n: int, field: Field | str = "QQ") -> dict:
     >>> zigzag_A(3)["quiver"]["relations"]
     ['a1*a2', 'b2*b1', 'b1*a1 - a2*b2']
     """
-    n = _check_int(n, "zigzag_A: n", 1)
+    n = _check_int(n, "n", 1)
     arrows = [f"a{i}: {i} -> {i + 1}" for i in range(1, n)]
     arrows += [f"b{i}: {i + 1} -> {i}" for i in range(1, n)]
     relations = [f"a{i}*a{i + 1}" for i in range(1, n - 1)]

@@ -41,6 +41,7 @@ from hwcat.algebras.inputs.structure import StructureAlgebra, from_table
 from hwcat.algebras.reduction.reduction import Reduction, reduce_algebra
 from hwcat.errors import HwcatError, SpecError
 from hwcat.exact import parse_field
+from hwcat.limits import resource_limits
 
 __all__ = [
     "Family",
@@ -241,8 +242,26 @@ def _spec_algebra(spec: Mapping[str, Any]) -> BasicAlgebra:
     )
 
 
-def family_algebra(family: str, *, seed: int = 0, **params: Any) -> BasicAlgebra:
-    """The hub algebra of any built-in family (reduced to its basic algebra for tables)."""
+def family_algebra(
+    family: str,
+    *,
+    seed: int = 0,
+    max_dim: int | None = None,
+    max_vertices: int | None = None,
+    max_products: int | None = None,
+    **params: Any,
+) -> BasicAlgebra:
+    """The hub algebra of any built-in family (reduced to its basic algebra for tables).
+
+    ``max_dim``, ``max_vertices``, ``max_products`` change the resource limits
+    of :mod:`hwcat.limits` for this build; the family's size is checked before
+    it is built.
+    """
+    with resource_limits(max_dim=max_dim, max_vertices=max_vertices, max_products=max_products):
+        return _family_algebra(family, seed, params)
+
+
+def _family_algebra(family: str, seed: int, params: dict[str, Any]) -> BasicAlgebra:
     fam = _family(family)
     try:
         if fam.kind == "table":

@@ -27,6 +27,7 @@ from __future__ import annotations
 
 import gc
 import itertools
+import math
 from collections.abc import Iterable
 from dataclasses import dataclass
 from math import comb
@@ -34,6 +35,7 @@ from typing import Any
 
 from hwcat.errors import CoefficientError, SpecError, StructureConstantsError
 from hwcat.exact.fields import QQ, Field, parse_field
+from hwcat.limits import check_products, current_limits, limit_error
 
 __all__ = [
     "MultiplicationTable",
@@ -168,27 +170,28 @@ def _half_diagrams(n: int) -> list[tuple[int, ...]]:
     """
     out: list[tuple[int, ...]] = []
     cur = [0] * n
-    stack: list[int] = []
-
-    def rec(pos: int) -> None:
+    # depth-first search with an explicit stack (no recursion: its depth would be n);
+    # a frame is (position, open arcs); the three choices at a position are tried in
+    # the order free point, open an arc, close the innermost arc
+    frames: list[tuple[int, tuple[int, ...], tuple[int, ...]]] = [(0, (), ())]
+    while frames:
+        pos, stack, assigned = frames.pop()
         if pos == n:
             if not stack:
-                out.append(tuple(cur))
-            return
+                h = list(cur)
+                for x, y in zip(assigned[::2], assigned[1::2], strict=True):
+                    h[x] = y
+                out.append(tuple(h))
+            continue
+        nxt = []
         if not stack:
-            cur[pos] = -1
-            rec(pos + 1)
+            nxt.append((pos + 1, stack, assigned + (pos, -1)))
         if len(stack) < n - pos - 1:
-            stack.append(pos)
-            rec(pos + 1)
-            stack.pop()
+            nxt.append((pos + 1, stack + (pos,), assigned))
         if stack:
-            o = stack.pop()
-            cur[o], cur[pos] = pos, o
-            rec(pos + 1)
-            stack.append(o)
-
-    rec(0)
+            o = stack[-1]
+            nxt.append((pos + 1, stack[:-1], assigned + (o, pos, pos, o)))
+        frames.extend(reversed(nxt))
     return out
 
 
@@ -315,7 +318,10 @@ def temperley_lieb(n: int, delta: Any, field: Field | str = QQ) -> Multiplicatio
     >>> T.products[(1, 1)]
     {1: 4}
     """
-    n = _check_int(n, "temperley_lieb: n", 0)
+    n = _check_int(n, "n", 0)
+    if n > 200 and current_limits().max_dim < 2**n:  # Catalan(n) > 2^n: refuse at once
+        raise limit_error("max_dim", f"TL_{n} has dimension Catalan({n}), more than 2^{n}")
+    check_products(math.comb(2 * n, n) // (n + 1), f"TL_{n}")
     F = _as_field(field)
     try:
         d = F(delta)
@@ -427,7 +433,8 @@ def schur_algebra_2(r: int, field: Field | str = QQ) -> MultiplicationTable:
     >>> S.products[(1, 2)]
     {0: 1}
     """
-    r = _check_int(r, "schur_algebra_2: r", 0)
+    r = _check_int(r, "r", 0)
+    check_products(math.comb(r + 3, 3), f"S(2, {r})")
     F = _as_field(field)
     mats = sorted(
         (
@@ -520,7 +527,12 @@ def symmetric_group_algebra(n: int, field: Field | str = QQ) -> MultiplicationTa
     >>> S.basis[next(iter(S.products[(1, 2)]))]
     '(1,3,2)'
     """
-    n = _check_int(n, "symmetric_group_algebra: n", 0)
+    n = _check_int(n, "n", 0)
+    if n > 30 and current_limits().max_dim < 10**32:  # refuse before computing n!
+        raise limit_error(
+            "max_dim", f"the group algebra of S_{n} has dimension {n}!, more than 10^32"
+        )
+    check_products(math.factorial(n), f"the group algebra of S_{n}")
     F = _as_field(field)
     perms = list(itertools.permutations(range(n)))
     idx = {p: k for k, p in enumerate(perms)}
@@ -546,7 +558,8 @@ def cyclic_group_algebra(m: int, field: Field | str = QQ) -> MultiplicationTable
     >>> cyclic_group_algebra(4, "GF(2)").basis
     ('1', 'g', 'g^2', 'g^3')
     """
-    m = _check_int(m, "cyclic_group_algebra: m", 1)
+    m = _check_int(m, "m", 1)
+    check_products(m, f"the group algebra of C_{m}")
     F = _as_field(field)
     one = F.one
     products = {(i, j): {(i + j) % m: one} for i in range(m) for j in range(m)}
@@ -631,20 +644,21 @@ def small_quantum_sl2(ell: int, q: Any, field: Field | str) -> MultiplicationTab
     >>> u.dim, u.basis[:4]
     (27, ('1', 'E', 'E^2', 'K'))
     """
-    ell = _check_int(ell, "small_quantum_sl2: ell", 3)
+    ell = _check_int(ell, "ell", 3)
     N = ell if ell % 2 else ell // 2  # E^N = F^N = 0
+    check_products(N * N * ell, f"u_q(sl_2) with ell = {ell}")
     F = _as_field(field)
     try:
         qq = F(q)
     except CoefficientError as exc:
         raise CoefficientError(f"q = {q!r}: {exc}") from None
     if qq == 0:
-        raise SpecError(f"small_quantum_sl2: q = 0 is not a root of unity in {F.name}")
+        raise SpecError(f"q = 0 is not a root of unity in {F.name}")
     order = _multiplicative_order(qq, ell)
     if order != ell:
         found = f"has multiplicative order {order}" if order else f"satisfies q^{ell} != 1"
         raise SpecError(
-            f"small_quantum_sl2: q = {F.to_str(qq)} {found} in {F.name}; "
+            f"q = {F.to_str(qq)} {found} in {F.name}; "
             f"it must be a root of unity of order exactly {ell}"
         )
     zero, one = F.zero, F.one

@@ -32,6 +32,7 @@ Examples
 
 from __future__ import annotations
 
+import math
 import random
 from array import array
 from collections.abc import Mapping, Sequence
@@ -45,6 +46,7 @@ from hwcat.errors import (
 )
 from hwcat.exact import Field, Mat, PrimeField
 from hwcat.exact.polys import matrix_from_ints, sparse_matrix
+from hwcat.limits import check_products
 
 __all__ = [
     "StructureAlgebra",
@@ -163,6 +165,7 @@ class StructureAlgebra:
             raise StructureConstantsError(f"basis element {dup!r} is listed twice")
         if n == 0:
             raise StructureConstantsError("the basis is empty (the zero algebra has no unit)")
+        check_products(n, f"the algebra {name!r}" if name else "the algebra")
         self._index = {b: i for i, b in enumerate(self.basis)}
         cols_i: list[list[int]] = [[] for _ in range(n)]
         cols_k: list[list[int]] = [[] for _ in range(n)]
@@ -543,6 +546,92 @@ class StructureAlgebra:
         return [self.field(rng.randint(-_QQ_SAMPLE, _QQ_SAMPLE)) for _ in range(self.dim)]
 
     def _associativity_exact(self) -> None:
+        """All basis triples, exactly: by matrix products for dense tables, term by term
+        for sparse ones (the cheaper of the two by a count of the multiplications)."""
+        n = self.dim
+        sparse_cost = self.nnz * self.nnz // max(n, 1)  # terms of all (b_i b_j) b_k
+        matrix_cost = n**5 // 20  # dense products, in compiled code
+        if n and matrix_cost < sparse_cost:
+            self._associativity_by_matrices()
+        else:
+            self._associativity_by_terms()
+
+    def _associativity_by_matrices(self) -> None:
+        """``(b_i b_j) b_k = b_i (b_j b_k)`` for all triples as ``2n`` matrix products.
+
+        With ``R_j`` the matrix of right multiplication by ``b_j`` (row ``i`` is
+        ``b_i b_j``), ``S`` the ``n^2 x n`` stack of the ``R_j`` and ``V`` the
+        ``n x n^2`` matrix whose row ``m`` is ``R_m`` read row by row, the entry
+        ``(j, i, r)`` of ``S R_k`` is the coefficient of ``b_r`` in
+        ``(b_i b_j) b_k`` and the same entry of ``R_k V`` is that of
+        ``b_i (b_j b_k)``.  Every triple is compared, exactly.  Over ``QQ`` the
+        constants are first multiplied by their common denominator ``D`` (the
+        equations are homogeneous of degree 2, so both sides scale by ``D^2``):
+        products of integer matrices are much cheaper than of fractions.
+        """
+        values = [list(cs) for _, _, cs in self._cols]
+        if not self._p:
+            F = self.field
+            D = 1
+            for cs in values:
+                for c in cs:
+                    d = F.denominator(c)
+                    if D % d:
+                        D = D * d // math.gcd(D, d)
+            if D != 1:
+                scale = F(D)
+                values = [[c * scale for c in cs] for cs in values]
+        self._associativity_matrix_check(values)
+
+    def _associativity_matrix_check(self, values: list[list[Any]]) -> None:
+        """The matrix comparison of :meth:`_associativity_by_matrices`, with the constants
+        of column ``j`` given by ``values[j]``; a failure is located and reported."""
+        n, F = self.dim, self.field
+        zero = self._zero_raw()
+        Rs = []
+        for (is_, ks, _), cs in zip(self._cols, values, strict=True):
+            acc: list[Any] = [zero] * (n * n)
+            for i, k, c in zip(is_, ks, cs, strict=True):
+                acc[i * n + k] = c
+            Rs.append(matrix_from_ints(F, n, n, acc))
+        S = Mat.vstack(F, Rs, n)
+        V = Mat.vstack(F, [Mat.from_flat(F, 1, n * n, R.entries()) for R in Rs], n * n)
+        for k, Rk in enumerate(Rs):
+            lhs = (S @ Rk).entries()
+            rhs = (Rk @ V).entries()
+            if lhs != rhs:
+                q = next(q for q in range(len(lhs)) if lhs[q] != rhs[q])
+                j, i = q // (n * n), (q // n) % n
+                self._associativity_triple(i, j, k)
+                raise InternalInconsistency(  # pragma: no cover - the triple must fail
+                    f"associativity: the matrix check and the triple ({i}, {j}, {k}) disagree"
+                )
+
+    def _associativity_triple(self, i: int, j: int, k: int) -> None:
+        """Raise the error for a failing triple (computed term by term)."""
+        P = self._pairs()
+        zero = self._zero_raw()
+        p = self._p
+        lhs: dict[int, Any] = {}
+        for m, c in P.get((i, j), {}).items():
+            for r, d in P.get((m, k), {}).items():
+                lhs[r] = lhs.get(r, zero) + c * d
+        rhs: dict[int, Any] = {}
+        for m, c in P.get((j, k), {}).items():
+            for r, d in P.get((i, m), {}).items():
+                rhs[r] = rhs.get(r, zero) + c * d
+        lhs = {r: v % p if p else v for r, v in lhs.items()}
+        rhs = {r: v % p if p else v for r, v in rhs.items()}
+        lhs = {r: v for r, v in lhs.items() if v}
+        rhs = {r: v for r, v in rhs.items() if v}
+        if lhs != rhs:
+            b = self.basis
+            raise StructureConstantsError(
+                f"the multiplication is not associative: ({b[i]}*{b[j]})*{b[k]} = "
+                f"{self._dict_text(lhs)} but {b[i]}*({b[j]}*{b[k]}) = {self._dict_text(rhs)}"
+            )
+
+    def _associativity_by_terms(self) -> None:
         P = self._pairs()
         n = self.dim
         zero = self._zero_raw()
@@ -597,6 +686,11 @@ class StructureAlgebra:
             v[k] = c
         return self.element_text(self.vec(v))
 
+    def _factor_text(self, u: list[Any]) -> str:
+        """A raw vector as a factor of a product: bracketed when it has several terms."""
+        text = self.element_text(self.vec(u))
+        return f"({text})" if (" + " in text or " - " in text) else text
+
     def _unit_defect(self, u: list[Any]) -> str | None:
         """``None`` if ``u`` is a two-sided identity, else a description of a failure."""
         n = self.dim
@@ -613,9 +707,7 @@ class StructureAlgebra:
             out = {k: (v % p if p else v) for k, v in out.items()}
             out = {k: v for k, v in out.items() if v}
             if out != {j: one}:
-                return (
-                    f"{self.element_text(self.vec(u))} * {self.basis[j]} = {self._dict_text(out)}"
-                )
+                return f"{self._factor_text(u)} * {self.basis[j]} = {self._dict_text(out)}"
         right: list[dict[int, Any]] = [{} for _ in range(n)]
         for i in supp:
             is_, ks, cs = self._cols[i]
@@ -625,9 +717,7 @@ class StructureAlgebra:
             out = {k: (v % p if p else v) for k, v in right[j].items()}
             out = {k: v for k, v in out.items() if v}
             if out != {j: one}:
-                return (
-                    f"{self.basis[j]} * {self.element_text(self.vec(u))} = {self._dict_text(out)}"
-                )
+                return f"{self.basis[j]} * {self._factor_text(u)} = {self._dict_text(out)}"
         return None
 
     def _establish_unit(self, unit: Sequence[Any] | None, seed: int) -> list[Any]:
@@ -659,33 +749,86 @@ class StructureAlgebra:
         for u in cands:
             if self._unit_defect(u) is None:
                 return u
+        return self._solve_unit(seed)
+
+    def _basis_times_raw(self, j: int, x: list[Any]) -> list[Any]:
+        """``b_j * x`` for a raw vector ``x``."""
+        out = [self._zero_raw()] * self.dim
+        ms, ks, cs = self._row_terms()[j]
+        for m, k, c in zip(ms, ks, cs, strict=True):
+            xm = x[m]
+            if xm:
+                out[k] += xm * c
+        if self._p:
+            p = self._p
+            return [v % p for v in out]
+        return out
+
+    def _solve_unit(self, seed: int) -> list[Any]:
+        """The two-sided identity, solved exactly from ``u*b_j = b_j = b_j*u`` for all ``j``.
+
+        Every identity satisfies ``u*r = r`` for any ``r``; a few random ``r``
+        give an affine space ``u0 + span(K)`` that contains it (usually a single
+        point).  The equations for the basis elements, taken in batches, then
+        cut that space down, and the survivor is checked on the whole basis.
+        The space is never empty when an identity exists, and it ends as a single
+        point, since the identity of an algebra is unique.
+        """
+        F, n = self.field, self.dim
         rng = random.Random(seed + 1)
-        # a left identity u satisfies u * r = r for every r; stack a few random r
         blocks, rhs = [], []
         for _ in range(3):
             r = self._random_raw(rng)
             blocks.append(self._action(r, None, left=False))
             rhs.append(r)
         M = Mat.hstack(F, blocks)
-        b = Mat.from_flat(F, 1, n * len(rhs), [x for r in rhs for x in r])
+        b = matrix_from_ints(F, 1, n * len(rhs), [x for r in rhs for x in r])
         sol = M.solve_left(b)
         if sol is None:
             raise StructureConstantsError(
                 "the algebra has no identity element (no u with u*x = x for all x); give the "
                 "unit explicitly if this is a mistake"
             )
-        if M.rank() < n:
-            raise StructureConstantsError(
-                "could not determine the identity element from the table (the left identities "
-                "form a family); give unit = ... explicitly"
-            )
-        u = self.raw(sol.entries())
-        defect = self._unit_defect(u)
+        u0 = self.raw(sol.entries())
+        K = M.left_kernel()
+        j = 0
+        while K.nrows and j < n:
+            k = K.nrows
+            kraw = [self.raw(row) for row in K.raw_rows()]
+            size = max(1, 2_000_000 // (2 * k * n))
+            batch = range(j, min(n, j + size))
+            rows = []
+            for x in kraw:
+                row: list[Any] = []
+                for jj in batch:
+                    row += self._times_basis_raw(x, jj)
+                    row += self._basis_times_raw(jj, x)
+                rows.extend(row)
+            target: list[Any] = []
+            for jj in batch:
+                for prod in (self._times_basis_raw(u0, jj), self._basis_times_raw(jj, u0)):
+                    t = [-v for v in prod]
+                    t[jj] += 1
+                    target += t
+            width = len(target)
+            C = matrix_from_ints(F, k, width, rows)
+            lam = C.solve_left(matrix_from_ints(F, 1, width, target))
+            if lam is None:
+                raise StructureConstantsError(
+                    "the algebra has no identity element: no u satisfies u*b = b = b*u for "
+                    "every basis element b"
+                )
+            u0 = self.raw((Mat.from_flat(F, 1, n, self.vec(u0)) + lam @ K).entries())
+            K = C.left_kernel() @ K
+            j += len(batch)
+        if K.nrows:
+            raise InternalInconsistency("two different identity elements were found")
+        defect = self._unit_defect(u0)
         if defect is not None:
             raise StructureConstantsError(
-                f"the algebra has no two-sided identity element (the only candidate fails: {defect})"
+                f"the algebra has no identity element (the only candidate fails: {defect})"
             )
-        return u
+        return u0
 
     # -- output ------------------------------------------------------------------------
     def products_dict(self) -> dict[tuple[int, int], dict[int, Any]]:
