@@ -23,6 +23,7 @@ __all__ = [
     "OrderError",
     "StructureConstantsError",
     "NotSplitError",
+    "WorkBudgetExceeded",
     "InternalInconsistency",
 ]
 
@@ -73,6 +74,19 @@ class StructureConstantsError(SpecError):
 
 class NotSplitError(HwcatError, ValueError):
     """A simple component of the semisimple quotient does not split over the given field."""
+
+
+class WorkBudgetExceeded(HwcatError, RuntimeError):
+    """A computation reached its work budget (e.g. a syzygy larger than allowed).
+
+    Not a mathematical answer: the message names the budget and how to raise
+    it.  ``degree`` is the step that was not computed, ``size`` the dimension
+    that exceeded ``limit``.
+    """
+
+    def __init__(self, message: str, *, degree: int = 0, size: int = 0, limit: int = 0) -> None:
+        super().__init__(message)
+        self.degree, self.size, self.limit = degree, size, limit
 
 
 class InternalInconsistency(HwcatError, AssertionError):

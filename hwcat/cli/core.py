@@ -29,6 +29,21 @@ def _cmd_describe(args: argparse.Namespace) -> int:
     return 0
 
 
+def _budget(args: argparse.Namespace) -> dict:
+    """The work budget of the homological part, from the command line."""
+    return {"bound": args.homological_bound, "max_syzygy_dimension": args.max_syzygy_dimension}
+
+
+def _positive(text: str) -> int:
+    try:
+        value = int(text)
+    except ValueError:
+        raise argparse.ArgumentTypeError(f"{text!r} is not an integer") from None
+    if value < 1:
+        raise argparse.ArgumentTypeError(f"{text!r}: expected an integer >= 1")
+    return value
+
+
 def _cmd_check(args: argparse.Namespace) -> int:
     from hwcat.theory.orders import parse_order, total_order
     from hwcat.theory.search import quasi_hereditary_orders
@@ -44,7 +59,9 @@ def _cmd_check(args: argparse.Namespace) -> int:
         except OrderError as exc:
             where = "--order" if source == "command line" else f"{spec.source}: order"
             raise OrderError(f"{where}: {exc}") from None
-        verdict = check_order(A, order, order_source=source, homological=not args.no_homological)
+        verdict = check_order(
+            A, order, order_source=source, homological=not args.no_homological, **_budget(args)
+        )
     else:
         r = quasi_hereditary_orders(A, list_limit=1)
         search_dict = {
@@ -57,7 +74,11 @@ def _cmd_check(args: argparse.Namespace) -> int:
         if r.quasi_hereditary:
             order = r.structure_list[0].essential_order
             verdict = check_order(
-                A, order, order_source="found by search: essential order of a structure"
+                A,
+                order,
+                order_source="found by search: essential order of a structure",
+                homological=not args.no_homological,
+                **_budget(args),
             )
             search_info = (
                 f"no order given; the search found {r.quasi_hereditary_total_orders} quasi-hereditary total orders in "
@@ -72,6 +93,7 @@ def _cmd_check(args: argparse.Namespace) -> int:
                 order,
                 order_source="best attempt of the search",
                 homological=not args.no_homological,
+                **_budget(args),
             )
             search_info = (
                 f"no order given and NO order makes the algebra quasi-hereditary; the longest heredity chain found has "
@@ -244,6 +266,22 @@ def register(sub: argparse._SubParsersAction) -> None:
         "--no-homological",
         action="store_true",
         help="skip the Ext conditions, global dimension, tilting modules and Ringel dual",
+    )
+    c.add_argument(
+        "--max-syzygy-dimension",
+        type=_positive,
+        default=None,
+        metavar="N",
+        help="work budget: build no syzygy or projective term larger than N "
+        "(default 600); beyond it the answer is 'at least k' or 'undecided'",
+    )
+    c.add_argument(
+        "--homological-bound",
+        type=_positive,
+        default=None,
+        metavar="K",
+        help="work budget: resolve at most K + 1 steps for projective dimensions "
+        "(default 2n + 2, n simples; 2n - 1 for a quasi-hereditary order)",
     )
     c.set_defaults(func=_cmd_check)
     o = sub.add_parser("orders", help="all quasi-hereditary orders and quasi-hereditary structures")

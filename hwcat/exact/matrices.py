@@ -121,7 +121,8 @@ class Mat:
         return self._m.tolist()
 
     def row(self, i: int) -> Mat:
-        return self.take_rows([i])
+        n = self.ncols
+        return Mat.from_flat(self.field, 1, n, [self._m[i, j] for j in range(n)])
 
     def is_zero(self) -> bool:
         return all(x == 0 for x in self._m.entries())
@@ -189,14 +190,28 @@ class Mat:
     # -- assembly --------------------------------------------------------------
     def take_rows(self, idx: Sequence[int]) -> Mat:
         n = self.ncols
-        e = self._m.entries()
-        flat = [e[i * n + j] for i in idx for j in range(n)]
+        m = self._m
+        if 4 * len(idx) < m.nrows():  # a few rows: read them, not the whole matrix
+            flat = [m[i, j] for i in idx for j in range(n)]
+        else:
+            e = m.entries()
+            flat = [e[i * n + j] for i in idx for j in range(n)]
         return Mat.from_flat(self.field, len(idx), n, flat)
+
+    def split_rows(self) -> list[Mat]:
+        """The rows as ``1 x ncols`` matrices (one pass over the entries)."""
+        n = self.ncols
+        e = self._m.entries()
+        return [Mat.from_flat(self.field, 1, n, e[i * n : (i + 1) * n]) for i in range(self.nrows)]
 
     def take_cols(self, idx: Sequence[int]) -> Mat:
         n = self.ncols
-        e = self._m.entries()
-        flat = [e[i * n + j] for i in range(self.nrows) for j in idx]
+        m = self._m
+        if 4 * len(idx) < n:
+            flat = [m[i, j] for i in range(m.nrows()) for j in idx]
+        else:
+            e = m.entries()
+            flat = [e[i * n + j] for i in range(self.nrows) for j in idx]
         return Mat.from_flat(self.field, self.nrows, len(idx), flat)
 
     @staticmethod

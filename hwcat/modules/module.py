@@ -229,8 +229,7 @@ class Module:
         gens = []
         for v, R in enumerate(self.radical_spaces()):
             C = complement(R, self.dims[v])
-            for i in range(C.nrows):
-                gens.append((v, C.take_rows([i])))
+            gens.extend((v, row) for row in C.split_rows())
         self._memo["generators"] = gens
         return gens
 

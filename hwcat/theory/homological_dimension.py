@@ -23,15 +23,21 @@ infinite projective dimension.  And if every simple had a finite resolution,
 the classes of the simples in the Grothendieck group would be integer
 combinations of those of the projectives, the columns of the Cartan matrix,
 whose determinant would then be ``+-1``; so a determinant other than ``+-1``
-proves the global dimension infinite (Eilenberg's observation).  In that case
-the costly search for repeats through Hom is skipped and only the cheap
-exact tests run for each simple.
+proves the global dimension infinite (S. Eilenberg, *Algebras of
+cohomologically finite dimension*, Comment. Math. Helv. 28 (1954); from
+memory).  :func:`global_dimension` tests the determinant first and then
+answers "infinite" without computing any resolution.
 
-Limits: a computation that reaches the bound first reports "at least
-bound + 1"; one that meets a syzygy ``Omega^k`` of dimension larger than
-``max_syzygy_dimension`` (syzygies can grow geometrically) stops there with
-"at least k".  Repeats are sought through Hom only in syzygies of dimension
-at most :data:`SPLIT_CHECK_LIMIT`.
+Work budget: every computation has two limits with documented defaults, both
+keyword arguments (and options of ``hwcat check``): ``bound``, the number of
+steps (default :func:`default_bound`), and ``max_syzygy_dimension``, the
+largest syzygy or projective term built (default
+:data:`DEFAULT_MAX_SYZYGY_DIMENSION`; syzygies can grow geometrically).  A
+computation that reaches the bound first reports "at least bound + 1" (limit
+``"bound"``); one that would build a syzygy or term of ``Omega^k`` larger than
+``max_syzygy_dimension`` stops there with "at least k" (limit
+``"max_syzygy_dimension"``).  So every call ends.  Repeats are sought through
+Hom only in syzygies of dimension at most :data:`SPLIT_CHECK_LIMIT`.
 
 Examples
 --------
@@ -52,12 +58,18 @@ from typing import Any
 import networkx as nx
 
 from hwcat.algebras.hub.basic import BasicAlgebra
-from hwcat.errors import InternalInconsistency
+from hwcat.errors import InternalInconsistency, WorkBudgetExceeded
 from hwcat.exact import Mat, contains
 from hwcat.modules import Module, simple
 from hwcat.modules.hom import _hom_system, homomorphism_from_images
 from hwcat.modules.module import is_homomorphism
-from hwcat.theory.resolutions import _dual, _need_int, _Step, _steps
+from hwcat.theory.resolutions import (
+    DEFAULT_MAX_SYZYGY_DIMENSION,
+    _dual,
+    _need_int,
+    _Step,
+    _steps,
+)
 
 __all__ = [
     "SyzygyRepeat",
@@ -79,9 +91,6 @@ __all__ = [
 
 DEFAULT_TRIES = 8
 """Random combinations tried per Hom pair before giving up (a miss is never a verdict)."""
-
-DEFAULT_MAX_SYZYGY_DIMENSION = 2000
-"""Dimension computations stop at a larger syzygy (syzygies can grow geometrically)."""
 
 SPLIT_CHECK_LIMIT = 400
 """Repeats of a syzygy as a summand of a later one are sought by Hom only up to this dimension."""
@@ -445,7 +454,10 @@ def _scan(
     A = M.algebra
     inv: dict[int, tuple] = {}
     for k in range(1, lim.bound + 2):
-        steps = _steps(M, k)
+        try:
+            steps = _steps(M, k, lim.max_dim)
+        except WorkBudgetExceeded as exc:
+            return HomologicalDimension("at_least", exc.degree, limit="max_syzygy_dimension")
         X = steps[k - 1].syzygy
         if X.dim == 0:
             return _finite(k - 1)
@@ -537,6 +549,8 @@ class GlobalDimension:
     projective dimension: ``witness_simple`` and ``witness`` say which and why)
     or ``"at_least"`` (no infinite dimension was proved and some simple
     reached a limit; ``value`` is the largest lower bound found).
+    ``projective_dimensions`` is empty when the Cartan determinant decided
+    (no resolution was computed).
     """
 
     case: str
@@ -558,7 +572,7 @@ class GlobalDimension:
             "bound": self.bound,
             "projective_dimensions": [
                 {"simple": s, "case": d.case, "value": d.json_value(), "limit": d.limit}
-                for s, d in zip(self.simples, self.projective_dimensions, strict=True)
+                for s, d in zip(self.simples, self.projective_dimensions, strict=False)
             ],
             "witness_simple": self.witness_simple,
             "witness": None if self.witness is None else self.witness.to_dict(),
@@ -578,23 +592,31 @@ def global_dimension(
 ) -> GlobalDimension:
     """The global dimension of ``A``: the largest projective dimension of a simple.
 
-    The simples are treated as in :func:`projective_dimension` (same
-    arguments), and the links between them and the Cartan determinant are
-    used as in the module notes.  The case ``"at_least"`` gives the largest
-    lower bound found.
+    A Cartan determinant other than ``+-1`` answers "infinite" at once
+    (Eilenberg; witness reason ``"cartan_determinant"``).  Otherwise the
+    simples are treated as in :func:`projective_dimension` (same arguments,
+    same work budget), and the links between them are used as in the module
+    notes.  The case ``"at_least"`` gives the largest lower bound found.
 
     >>> from hwcat.io.spec import load_spec_text
     >>> A = load_spec_text('field = "GF(2)"\\n[quiver]\\nvertices = ["1", "2", "3"]\\n'
     ...                    'arrows = ["a: 1 -> 2", "b: 2 -> 3", "c: 3 -> 1"]\\nvanish_from_length = 2')
     >>> g = global_dimension(A)
-    >>> g.json_value(), g.witness.reason, [(x.source, x.degree, x.target) for x in g.witness.links]
-    ('infinite', 'simple_summand_cycle', [('1', 3, '1')])
+    >>> g.json_value(), g.witness.reason, g.witness.cartan_determinant
+    ('infinite', 'cartan_determinant', 2)
+    >>> B = load_spec_text('field = "QQ"\\n[quiver]\\nvertices = ["1", "2"]\\n'
+    ...                    'arrows = ["a: 1 -> 2", "b: 2 -> 1"]\\nrelations = ["a*b"]\\n'
+    ...                    'vanish_from_length = 3')
+    >>> g = global_dimension(B)
+    >>> g.case, g.value
+    ('finite', 2)
     """
     lim = _limits(A, bound, max_syzygy_dimension, tries)
     b = lim.bound
     det = _determinant(A.cartan())
-    if abs(det) != 1:  # infinite already: no costly search for repeats through Hom
-        lim = _Limits(lim.bound, lim.max_dim, lim.tries, split_limit=0)
+    if abs(det) != 1:  # Eilenberg: infinite, decided before any resolution
+        w = InfiniteDimensionWitness(cartan_determinant=det)
+        return GlobalDimension("infinite", None, b, tuple(A.vertices), (), None, w)
     rng = random.Random(seed)
     names = A.vertices
     links: dict[tuple[int, int], SimpleSummand] = {}
