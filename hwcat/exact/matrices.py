@@ -43,6 +43,9 @@ __all__ = [
 ]
 
 
+_EMPTY: dict[tuple, Mat] = {}  # shared 0 x n and n x 0 matrices
+
+
 class Mat:
     """An exact matrix over a field (row-vector convention).
 
@@ -75,10 +78,18 @@ class Mat:
 
     @classmethod
     def zeros(cls, field: Field, nrows: int, ncols: int) -> Mat:
+        if nrows == 0 or ncols == 0:  # empty matrices have no entries to change: share them
+            key = (field, nrows, ncols)
+            m = _EMPTY.get(key)
+            if m is None:
+                m = _EMPTY[key] = cls(field, field._raw_matrix(nrows, ncols, []))
+            return m
         return cls(field, field._raw_matrix(nrows, ncols, []))
 
     @classmethod
     def identity(cls, field: Field, n: int) -> Mat:
+        if n == 0:
+            return cls.zeros(field, 0, 0)
         m = field._raw_matrix(n, n, [])
         one = field.one
         for i in range(n):
@@ -125,7 +136,8 @@ class Mat:
         return Mat.from_flat(self.field, 1, n, [self._m[i, j] for j in range(n)])
 
     def is_zero(self) -> bool:
-        return all(x == 0 for x in self._m.entries())
+        r, c = self.shape
+        return r == 0 or c == 0 or self._m == self.field._raw_matrix(r, c, [])
 
     def nonzero_rows(self) -> list[int]:
         n = self.ncols

@@ -186,9 +186,10 @@ def _require_qh(A: BasicAlgebra, order: PartialOrder) -> None:
 
 def tilting_module(A: BasicAlgebra, L: int, order: PartialOrder) -> TiltingModule:
     """``T(L)`` by Ringel's construction, verified (see the module notes)."""
-    key = ("tilting", L, order.less)
-    if key in A._cache:
-        return A._cache[key]
+    return A.cached(("tilting", L, order.less), lambda: _tilting_module(A, L, order))
+
+
+def _tilting_module(A: BasicAlgebra, L: int, order: PartialOrder) -> TiltingModule:
     _require_qh(A, order)
     M = standard_module(A, L, order)
     steps = []
@@ -207,9 +208,7 @@ def tilting_module(A: BasicAlgebra, L: int, order: PartialOrder) -> TiltingModul
         raise InternalInconsistency(f"[T({A.vertices[L]}) : L({A.vertices[L]})] = {M.dims[L]}")
     if not is_local_endomorphism_ring(M, L):
         raise InternalInconsistency(f"T({A.vertices[L]}) is decomposable")
-    T = TiltingModule(L, M, sf.multiplicities, cf.multiplicities, tuple(steps))
-    A._cache[key] = T
-    return T
+    return TiltingModule(L, M, sf.multiplicities, cf.multiplicities, tuple(steps))
 
 
 def tilting_modules(A: BasicAlgebra, order: PartialOrder) -> list[TiltingModule]:

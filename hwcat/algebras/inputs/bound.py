@@ -378,7 +378,7 @@ def _divide_by_elements(A: BasicAlgebra, elements: list[dict[Path, Any]]) -> Bas
             memo: dict[Path, Mat] = {(): Mat.identity(F, dx)}
             total = Mat.zeros(F, dx, A.block_dim(s, t))
             for path, c in r.items():
-                total = total + A._extend(s, memo, path).scale(c)
+                total = total + A.extend_path(s, memo, path).scale(c)
             gens_by_s[s].setdefault(t, []).append(total)
     reps, starts = [], []
     for s in range(n):
