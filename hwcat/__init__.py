@@ -14,22 +14,59 @@
 True
 """
 
-from hwcat.algebras import BasicAlgebra, Quiver, bound_quiver_algebra
-from hwcat.errors import HwcatError, InternalInconsistency
-from hwcat.exact import GF, QQ, Mat, parse_field
-from hwcat.io.spec import load_spec, load_spec_text
-from hwcat.modules import Module, hom, hom_dimension, injective, projective, simple
-from hwcat.theory.highest_weight import (
-    costandard_filtration,
-    costandard_module,
-    heredity_chain,
-    standard_filtration,
-    standard_module,
-)
-from hwcat.theory.orders import PartialOrder, parse_order, total_order
-from hwcat.theory.search import is_quasi_hereditary, quasi_hereditary_orders
-from hwcat.theory.structure import describe
-from hwcat.theory.verdict import check_order
+from __future__ import annotations
+
+import importlib
+from typing import Any
+
+# Public names and the module each lives in.  They are imported on first use
+# (PEP 562), so ``import hwcat`` and the command line start quickly; the
+# command line imports only what a command needs.
+_WHERE = {
+    "BasicAlgebra": "hwcat.algebras",
+    "Quiver": "hwcat.algebras",
+    "bound_quiver_algebra": "hwcat.algebras",
+    "HwcatError": "hwcat.errors",
+    "InternalInconsistency": "hwcat.errors",
+    "GF": "hwcat.exact",
+    "QQ": "hwcat.exact",
+    "Mat": "hwcat.exact",
+    "parse_field": "hwcat.exact",
+    "load_spec": "hwcat.io.spec",
+    "load_spec_text": "hwcat.io.spec",
+    "Module": "hwcat.modules",
+    "hom": "hwcat.modules",
+    "hom_dimension": "hwcat.modules",
+    "injective": "hwcat.modules",
+    "projective": "hwcat.modules",
+    "simple": "hwcat.modules",
+    "costandard_filtration": "hwcat.theory.highest_weight",
+    "costandard_module": "hwcat.theory.highest_weight",
+    "heredity_chain": "hwcat.theory.highest_weight",
+    "standard_filtration": "hwcat.theory.highest_weight",
+    "standard_module": "hwcat.theory.highest_weight",
+    "PartialOrder": "hwcat.theory.orders",
+    "parse_order": "hwcat.theory.orders",
+    "total_order": "hwcat.theory.orders",
+    "is_quasi_hereditary": "hwcat.theory.search",
+    "quasi_hereditary_orders": "hwcat.theory.search",
+    "describe": "hwcat.theory.structure",
+    "check_order": "hwcat.theory.verdict",
+}
+
+
+def __getattr__(name: str) -> Any:
+    where = _WHERE.get(name)
+    if where is None:
+        raise AttributeError(f"module 'hwcat' has no attribute {name!r}")
+    value = getattr(importlib.import_module(where), name)
+    globals()[name] = value
+    return value
+
+
+def __dir__() -> list[str]:
+    return sorted(set(globals()) | set(_WHERE))
+
 
 __version__ = "0.1.0"
 

@@ -9,18 +9,22 @@ import sys
 from collections.abc import Sequence
 
 from hwcat.errors import InternalInconsistency, OrderError, SpecError
-from hwcat.io.render import render_orders, render_structure, render_verdict, to_json
-from hwcat.io.spec import build_algebra, read_spec
+
+# the mathematics (and python-flint) is imported inside the commands, so that
+# the parser and ``--help`` start quickly
 
 __all__ = ["register"]
 
 
 def _load(args: argparse.Namespace):
+    from hwcat.io.spec import build_algebra, read_spec
+
     spec = read_spec(args.spec)
     return spec, build_algebra(spec)
 
 
 def _cmd_describe(args: argparse.Namespace) -> int:
+    from hwcat.io.render import render_structure, to_json
     from hwcat.theory.structure import describe
 
     _, A = _load(args)
@@ -45,6 +49,7 @@ def _positive(text: str) -> int:
 
 
 def _cmd_check(args: argparse.Namespace) -> int:
+    from hwcat.io.render import render_verdict
     from hwcat.theory.orders import parse_order, total_order
     from hwcat.theory.search import quasi_hereditary_orders
     from hwcat.theory.verdict import check_order
@@ -116,6 +121,7 @@ def _cmd_check(args: argparse.Namespace) -> int:
 
 
 def _cmd_orders(args: argparse.Namespace) -> int:
+    from hwcat.io.render import render_orders, to_json
     from hwcat.theory.search import quasi_hereditary_orders
 
     _, A = _load(args)
@@ -173,6 +179,7 @@ def _parse_assignments(items: Sequence[str]) -> dict[str, str]:
 def _cmd_family(args: argparse.Namespace) -> int:
     from hwcat.algebras.families.registry import FAMILIES, family_algebra
     from hwcat.algebras.reduction.presentation import presentation_toml
+    from hwcat.io.render import render_structure, to_json
     from hwcat.theory.structure import describe
 
     if args.list or not args.name:

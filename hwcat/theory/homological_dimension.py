@@ -53,9 +53,7 @@ from __future__ import annotations
 import random
 from collections.abc import Callable, Sequence
 from dataclasses import dataclass
-from typing import Any
-
-import networkx as nx
+from typing import TYPE_CHECKING, Any
 
 from hwcat.algebras.hub.basic import BasicAlgebra
 from hwcat.errors import InternalInconsistency, WorkBudgetExceeded
@@ -70,6 +68,10 @@ from hwcat.theory.resolutions import (
     _Step,
     _steps,
 )
+
+if TYPE_CHECKING:
+    import networkx as nx
+
 
 __all__ = [
     "SyzygyRepeat",
@@ -675,6 +677,8 @@ def _close_links(
     A: BasicAlgebra, dims: list[HomologicalDimension], links: dict[tuple[int, int], SimpleSummand]
 ) -> list[HomologicalDimension]:
     """Propagate infinity along the links; check them against the finite dimensions."""
+    import networkx as nx
+
     for (i, j), link in links.items():
         di, dj = dims[i], dims[j]
         if di.case == "finite" and not (dj.case == "finite" and dj.value <= di.value - link.degree):
@@ -712,4 +716,6 @@ def _close_links(
 
 
 def _on_cycle(G: nx.DiGraph, v: int) -> bool:
+    import networkx as nx
+
     return G.has_edge(v, v) or any(nx.has_path(G, u, v) for u in G.successors(v))

@@ -34,15 +34,17 @@ from __future__ import annotations
 
 from collections.abc import Sequence
 from itertools import islice
-from typing import Any
-
-import networkx as nx
+from typing import TYPE_CHECKING, Any
 
 from hwcat.algebras.hub.basic import BasicAlgebra
 from hwcat.algebras.hub.quiver import Path, Quiver, format_path
 from hwcat.algebras.hub.rep import closure, quotient
 from hwcat.errors import InternalInconsistency, NotFiniteDimensional, RelationError
 from hwcat.exact import Field, Mat, assemble, contains, quotient_map
+
+if TYPE_CHECKING:
+    import networkx as nx
+
 
 __all__ = ["bound_quiver_algebra", "MAX_DEGREE"]
 
@@ -259,6 +261,8 @@ def _relation_images(
 
 def _surviving_cycle(Q: Quiver, degrees: list[_Degree], D: int) -> Path | None:
     """A cycle of the graph of normal paths of length D - 1 (edges: normal paths of length D)."""
+    import networkx as nx
+
     n = len(Q.vertices)
     if len(degrees) <= D:
         return None
@@ -282,6 +286,8 @@ def _surviving_cycle(Q: Quiver, degrees: list[_Degree], D: int) -> Path | None:
 
 def _normal_path_graph(Q: Quiver, degrees: list[_Degree], D: int) -> nx.DiGraph:
     """Nodes: normal paths of length D - 1 (vertices when D = 1); edges: normal paths of length D."""
+    import networkx as nx
+
     n = len(Q.vertices)
     G = nx.DiGraph()
     for s in range(n):
@@ -311,6 +317,8 @@ def _certified_cycle(
     the relations, and ``c`` acts on it as a cyclic permutation, so no power of
     ``c`` lies in ``I``.  Sound, not complete.
     """
+    import networkx as nx
+
     if len(degrees) <= D:
         return None
     terms = {p for r in relations for p in r}
