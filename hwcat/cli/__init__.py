@@ -4,6 +4,9 @@ Each command lives in a module of this package with a ``register(sub)``
 function that adds its subparser; this module only builds the parser from
 them and turns errors into exit codes.
 
+Long commands show progress on standard error when it is a terminal (never
+with ``--json`` and never in pipes).
+
 Exit codes: 0 success (or a mathematical "yes"), 1 a mathematical "no"
 (e.g. not quasi-hereditary), 2 bad input.
 """
@@ -17,7 +20,7 @@ from collections.abc import Sequence
 
 from hwcat.errors import HwcatError, InternalInconsistency
 
-__all__ = ["main", "build_parser", "COMMAND_MODULES"]
+__all__ = ["main", "build_parser", "show_progress", "COMMAND_MODULES"]
 
 COMMAND_MODULES = ("core",)
 """Modules of :mod:`hwcat.cli` whose ``register`` adds commands, in help order."""
@@ -37,6 +40,10 @@ def build_parser() -> argparse.ArgumentParser:
 def main(argv: Sequence[str] | None = None) -> int:
     parser = build_parser()
     args = parser.parse_args(argv)
+    from hwcat import progress
+
+    if show_progress(sys.stderr, args):
+        progress.enable(sys.stderr)  # bars appear for steps longer than a second
     try:
         return args.func(args)
     except InternalInconsistency:
@@ -46,6 +53,14 @@ def main(argv: Sequence[str] | None = None) -> int:
         return 2
     except BrokenPipeError:  # output piped into a pager or head
         return 0
+    finally:
+        progress.disable()
+
+
+def show_progress(stream, args: argparse.Namespace) -> bool:
+    """Progress is shown on a terminal only, and never with ``--json``."""
+    isatty = getattr(stream, "isatty", None)
+    return bool(isatty and isatty()) and not getattr(args, "json", False)
 
 
 if __name__ == "__main__":  # pragma: no cover

@@ -61,6 +61,7 @@ from hwcat.exact import Mat, contains
 from hwcat.modules import Module, simple
 from hwcat.modules.hom import _hom_system, homomorphism_from_images
 from hwcat.modules.module import is_homomorphism
+from hwcat.progress import task
 from hwcat.theory.resolutions import (
     DEFAULT_MAX_SYZYGY_DIMENSION,
     _dual,
@@ -623,22 +624,28 @@ def global_dimension(
     names = A.vertices
     links: dict[tuple[int, int], SimpleSummand] = {}
     dims: list[HomologicalDimension] = []
-    for i in range(A.n):
+    with task("global dimension: simples", total=A.n) as advance:
+        for i in range(A.n):
 
-        def on_syzygy(k: int, X: Module, step: _Step, i: int = i) -> HomologicalDimension | None:
-            for j, vec in simple_summands(X).items():
-                text = _element_texts(A, step.cover.summands, j, vec @ step.kernel[j])
-                link = links.setdefault((i, j), SimpleSummand(names[i], k, names[j], text))
-                if j == i:
-                    return HomologicalDimension("infinite", None, InfiniteDimensionWitness((link,)))
-                if j < i and dims[j].case == "infinite":
-                    w = dims[j].witness
-                    return HomologicalDimension(
-                        "infinite", None, InfiniteDimensionWitness((link,) + w.links, w.repeat)
-                    )
-            return None
+            def on_syzygy(
+                k: int, X: Module, step: _Step, i: int = i
+            ) -> HomologicalDimension | None:
+                for j, vec in simple_summands(X).items():
+                    text = _element_texts(A, step.cover.summands, j, vec @ step.kernel[j])
+                    link = links.setdefault((i, j), SimpleSummand(names[i], k, names[j], text))
+                    if j == i:
+                        return HomologicalDimension(
+                            "infinite", None, InfiniteDimensionWitness((link,))
+                        )
+                    if j < i and dims[j].case == "infinite":
+                        w = dims[j].witness
+                        return HomologicalDimension(
+                            "infinite", None, InfiniteDimensionWitness((link,) + w.links, w.repeat)
+                        )
+                return None
 
-        dims.append(_scan(simple(A, i), lim, rng, on_syzygy))
+            dims.append(_scan(simple(A, i), lim, rng, on_syzygy))
+            advance(1)
     dims = _close_links(A, dims, links)
     simples = tuple(names)
     bad = [i for i, d in enumerate(dims) if d.case == "infinite"]

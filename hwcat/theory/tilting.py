@@ -40,6 +40,7 @@ from hwcat.errors import InternalInconsistency, OrderError
 from hwcat.exact import Mat, echelon, select_independent_rows
 from hwcat.modules import Module, direct_sum, hom
 from hwcat.modules.module import kernel_spaces
+from hwcat.progress import task
 from hwcat.theory.highest_weight import (
     costandard_filtration,
     heredity_chain,
@@ -213,7 +214,12 @@ def _tilting_module(A: BasicAlgebra, L: int, order: PartialOrder) -> TiltingModu
 
 def tilting_modules(A: BasicAlgebra, order: PartialOrder) -> list[TiltingModule]:
     """All ``T(L)``, in vertex order."""
-    return [tilting_module(A, L, order) for L in range(A.n)]
+    out = []
+    with task("tilting modules", total=A.n) as step:
+        for L in range(A.n):
+            out.append(tilting_module(A, L, order))
+            step(1)
+    return out
 
 
 _IDENT = re.compile(r"[^A-Za-z0-9_]")

@@ -8,6 +8,7 @@ from typing import Any
 from hwcat.algebras.hub.basic import BasicAlgebra
 from hwcat.errors import InternalInconsistency
 from hwcat.modules import injective, projective
+from hwcat.progress import task
 from hwcat.theory.highest_weight import (
     FiltrationResult,
     costandard_filtration,
@@ -247,22 +248,24 @@ def _ext_axioms(
             undecided.append({"standard": A.vertices[L], "degree": exc.degree, "text": str(exc)})
             return None
 
-    for L in range(n):
-        for mu in range(n):
-            e = ext(Ds[L], Ns[mu], 2, L)
-            if e is None:
-                break
-            for i in (1, 2):
-                if e[i]:
-                    bad.append(
-                        {
-                            "standard": A.vertices[L],
-                            "costandard": A.vertices[mu],
-                            "degree": i,
-                            "dimension": e[i],
-                            "text": f"dim Ext^{i}(Delta({A.vertices[L]}), nabla({A.vertices[mu]})) = {e[i]}",
-                        }
-                    )
+    with task("Ext(Delta, nabla)", total=n) as step:
+        for L in range(n):
+            step(1)
+            for mu in range(n):
+                e = ext(Ds[L], Ns[mu], 2, L)
+                if e is None:
+                    break
+                for i in (1, 2):
+                    if e[i]:
+                        bad.append(
+                            {
+                                "standard": A.vertices[L],
+                                "costandard": A.vertices[mu],
+                                "degree": i,
+                                "dimension": e[i],
+                                "text": f"dim Ext^{i}(Delta({A.vertices[L]}), nabla({A.vertices[mu]})) = {e[i]}",
+                            }
+                        )
     a1 = _ext_axiom(
         "ext-standard-costandard", "Ext^i(Delta(L), nabla(mu)) = 0 for i = 1, 2", bad, undecided
     )
