@@ -133,10 +133,33 @@ class PartialOrder:
         return sum(count.values())
 
     def first_extension(self) -> tuple[int, ...]:
-        """The linear extension that takes, at each step, the first available vertex."""
-        import networkx as nx
+        """The linear extension that takes, at each step, the first available vertex.
 
-        return tuple(nx.lexicographical_topological_sort(self.graph().reverse()))
+        Highest first: a vertex is available once every vertex above it is
+        taken (computed once per order, with a heap; no graph is built).
+        """
+        return self._first_extension
+
+    @cached_property
+    def _first_extension(self) -> tuple[int, ...]:
+        import heapq
+
+        above = [0] * self.n  # number of vertices above v not yet taken
+        below: list[list[int]] = [[] for _ in range(self.n)]
+        for a, b in self.less:  # a < b
+            above[a] += 1
+            below[b].append(a)
+        heap = [v for v in range(self.n) if above[v] == 0]
+        heapq.heapify(heap)
+        out = []
+        while heap:
+            v = heapq.heappop(heap)
+            out.append(v)
+            for a in below[v]:
+                above[a] -= 1
+                if above[a] == 0:
+                    heapq.heappush(heap, a)
+        return tuple(out)
 
     def chain_text(self) -> str:
         """``"a > b > c"`` for a total order; cover relations otherwise."""
