@@ -18,32 +18,72 @@
 2
 """
 
-from hwcat.algebras import BasicAlgebra, Quiver, bound_quiver_algebra
-from hwcat.algebras.families.registry import family_algebra
-from hwcat.errors import HwcatError, InternalInconsistency, ResourceLimitError
-from hwcat.exact import GF, QQ, Mat, parse_field
-from hwcat.io.spec import load, load_spec, load_spec_text
-from hwcat.modules import Module, hom, hom_dimension, injective, projective, simple
-from hwcat.theory.check import check
-from hwcat.theory.highest_weight import (
-    costandard_filtration,
-    costandard_module,
-    heredity_chain,
-    standard_filtration,
-    standard_module,
-)
-from hwcat.theory.homological import (
-    ext_dimension,
-    ext_dimensions,
-    global_dimension,
-    injective_dimension,
-    projective_dimension,
-)
-from hwcat.theory.orders import PartialOrder, parse_order, total_order
-from hwcat.theory.search import is_quasi_hereditary, quasi_hereditary_orders
-from hwcat.theory.structure import describe
-from hwcat.theory.tilting import ringel_dual, tilting_module, tilting_modules
-from hwcat.theory.verdict import check_order
+from __future__ import annotations
+
+import importlib
+from typing import Any
+
+# Public names and the module each lives in.  They are imported on first use
+# (PEP 562), so ``import hwcat`` and the command line start quickly; the
+# command line imports only what a command needs.
+_WHERE = {
+    "BasicAlgebra": "hwcat.algebras",
+    "Quiver": "hwcat.algebras",
+    "bound_quiver_algebra": "hwcat.algebras",
+    "family_algebra": "hwcat.algebras.families.registry",
+    "HwcatError": "hwcat.errors",
+    "InternalInconsistency": "hwcat.errors",
+    "ResourceLimitError": "hwcat.errors",
+    "WorkBudgetExceeded": "hwcat.errors",
+    "GF": "hwcat.exact",
+    "QQ": "hwcat.exact",
+    "Mat": "hwcat.exact",
+    "parse_field": "hwcat.exact",
+    "load": "hwcat.io.spec",
+    "load_spec": "hwcat.io.spec",
+    "load_spec_text": "hwcat.io.spec",
+    "Module": "hwcat.modules",
+    "hom": "hwcat.modules",
+    "hom_dimension": "hwcat.modules",
+    "injective": "hwcat.modules",
+    "projective": "hwcat.modules",
+    "simple": "hwcat.modules",
+    "check": "hwcat.theory.check",
+    "costandard_filtration": "hwcat.theory.highest_weight",
+    "costandard_module": "hwcat.theory.highest_weight",
+    "heredity_chain": "hwcat.theory.highest_weight",
+    "standard_filtration": "hwcat.theory.highest_weight",
+    "standard_module": "hwcat.theory.highest_weight",
+    "ext_dimension": "hwcat.theory.homological",
+    "ext_dimensions": "hwcat.theory.homological",
+    "global_dimension": "hwcat.theory.homological",
+    "injective_dimension": "hwcat.theory.homological",
+    "projective_dimension": "hwcat.theory.homological",
+    "PartialOrder": "hwcat.theory.orders",
+    "parse_order": "hwcat.theory.orders",
+    "total_order": "hwcat.theory.orders",
+    "is_quasi_hereditary": "hwcat.theory.search",
+    "quasi_hereditary_orders": "hwcat.theory.search",
+    "describe": "hwcat.theory.structure",
+    "ringel_dual": "hwcat.theory.tilting",
+    "tilting_module": "hwcat.theory.tilting",
+    "tilting_modules": "hwcat.theory.tilting",
+    "check_order": "hwcat.theory.verdict",
+}
+
+
+def __getattr__(name: str) -> Any:
+    where = _WHERE.get(name)
+    if where is None:
+        raise AttributeError(f"module 'hwcat' has no attribute {name!r}")
+    value = getattr(importlib.import_module(where), name)
+    globals()[name] = value
+    return value
+
+
+def __dir__() -> list[str]:
+    return sorted(set(globals()) | set(_WHERE))
+
 
 __version__ = "0.1.0"
 
@@ -88,5 +128,6 @@ __all__ = [
     "ringel_dual",
     "HwcatError",
     "ResourceLimitError",
+    "WorkBudgetExceeded",
     "InternalInconsistency",
 ]

@@ -25,6 +25,7 @@ __all__ = [
     "StructureConstantsError",
     "NotSplitError",
     "ResourceLimitError",
+    "WorkBudgetExceeded",
     "InternalInconsistency",
     "CampaignError",
     "MissingExtra",
@@ -85,6 +86,19 @@ class NotSplitError(HwcatError, ValueError):
 
 class ResourceLimitError(HwcatError, ValueError):
     """The work asked for exceeds a resource limit of :mod:`hwcat.limits` (raise it to go on)."""
+
+
+class WorkBudgetExceeded(HwcatError, RuntimeError):
+    """A computation reached its work budget (e.g. a syzygy larger than allowed).
+
+    Not a mathematical answer: the message names the budget and how to raise
+    it.  ``degree`` is the step that was not computed, ``size`` the dimension
+    that exceeded ``limit``.
+    """
+
+    def __init__(self, message: str, *, degree: int = 0, size: int = 0, limit: int = 0) -> None:
+        super().__init__(message)
+        self.degree, self.size, self.limit = degree, size, limit
 
 
 class InternalInconsistency(HwcatError, AssertionError):

@@ -69,3 +69,16 @@ def test_every_json_key_is_documented():
         keys |= _keys(data, set()) - set(data.get("simples", []))
     missing = sorted(k for k in keys if f"`{k}`" not in doc)
     assert not missing, f"JSON keys not documented in specs/FORMAT.md: {missing}"
+
+
+def test_command_line_imports_lazily():
+    # the parser needs neither the graph library nor the exact arithmetic backend
+    import subprocess
+    import sys
+
+    code = (
+        "import sys, hwcat.cli; hwcat.cli.build_parser(); "
+        "print('networkx' in sys.modules, 'flint' in sys.modules)"
+    )
+    out = subprocess.run([sys.executable, "-c", code], capture_output=True, text=True, check=True)
+    assert out.stdout.strip() == "False False"

@@ -126,3 +126,63 @@ def test_ringel_dual_command_roundtrip(tmp_path, capsys):
     cartan = lambda p: json.loads(run(capsys, "describe", p, "--json")[1])["cartan"]  # noqa: E731
     assert cartan(r2) == cartan(LANTERN)
     assert run(capsys, "ringel-dual", "specs/examples/carousel.toml")[0] == 1
+
+
+# Two loops at vertex 2 and an arrow 1 -> 2, paths of length 4 and more vanish: the
+# syzygies of the simples grow geometrically (derived), det(Cartan) = 15 (sympy below).
+GROWING = """field = "QQ"
+[quiver]
+vertices = ["1", "2"]
+arrows = ["a1: 2 -> 2", "a2: 1 -> 2", "a3: 2 -> 2"]
+vanish_from_length = 4
+"""
+
+
+def test_check_cartan_determinant_decides_global_dimension(tmp_path, capsys):
+    import sympy
+
+    from hwcat.io.spec import load_spec_text
+
+    assert sympy.Matrix(load_spec_text(GROWING).cartan()).det() == 15
+    # Eilenberg (Comment. Math. Helv. 28, 1954; from memory): det(C) != +-1 => infinite
+    code, out, _ = run(capsys, "check", write(tmp_path, GROWING), "--order", "1 > 2", "--json")
+    d = json.loads(out)
+    assert code == 1 and d["global_dimension"] == "infinite"
+    assert d["global_dimension_detail"]["witness"]["reason"] == "cartan_determinant"
+    code, out, _ = run(capsys, "check", write(tmp_path, GROWING), "--order", "1 > 2")
+    assert "det Cartan = 15" in out
+
+
+def test_check_work_budget_leaves_ext_axioms_undecided(tmp_path, capsys):
+    # for 2 > 1, Delta(1) = L(1) has projective terms of dimension 8, 15, 120, 240 (derived)
+    path = write(tmp_path, GROWING)
+    code, out, _ = run(
+        capsys, "check", path, "--order", "2 > 1", "--json", "--max-syzygy-dimension", "100"
+    )
+    d = json.loads(out)
+    ext = {a["name"]: a for a in d["axioms"]}["ext-standard-costandard"]
+    assert code == 1 and ext["holds"] is None and ext["witness"]["undecided"]
+    assert "max_syzygy_dimension = 100" in ext["witness"]["undecided"][0]["text"]
+    # with the default budget the same axiom is decided
+    code, out, _ = run(capsys, "check", path, "--order", "2 > 1", "--json")
+    ext = {a["name"]: a for a in json.loads(out)["axioms"]}["ext-standard-costandard"]
+    assert ext["holds"] in (True, False)
+    code, out, _ = run(capsys, "check", path, "--order", "2 > 1", "--max-syzygy-dimension", "100")
+    assert "[undecided] ext-standard-costandard" in out
+
+
+@pytest.mark.parametrize("value", ["0", "x"])
+def test_check_bad_budget_exit_2(tmp_path, capsys, value):
+    assert main(["check", write(tmp_path, GROWING), "--max-syzygy-dimension", value]) == 2
+    assert "--max-syzygy-dimension" in capsys.readouterr().err
+
+
+def test_check_homological_bound_option(tmp_path, capsys):
+    # linear A_5 with rad^2 = 0: global dimension 4 (derived: Omega L(i) = L(i+1))
+    path = write(tmp_path, linear_A(5, vanish_from_length=2))
+    code, out, _ = run(capsys, "check", path, "--order", "1 < 2 < 3 < 4 < 5", "--json")
+    assert json.loads(out)["global_dimension"] == 4
+    code, out, _ = run(
+        capsys, "check", path, "--order", "1 < 2 < 3 < 4 < 5", "--json", "--homological-bound", "2"
+    )
+    assert json.loads(out)["global_dimension"] == {"at_least": 3}

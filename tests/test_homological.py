@@ -47,7 +47,7 @@ from hwcat.algebras.families.quivers import (
     zigzag_A,
 )
 from hwcat.algebras.inputs.bound import bound_quiver_algebra
-from hwcat.errors import HwcatError
+from hwcat.errors import HwcatError, WorkBudgetExceeded
 from hwcat.exact import GF, QQ, Mat, contains, echelon
 from hwcat.io.spec import load_spec_text
 from hwcat.modules import (
@@ -61,6 +61,7 @@ from hwcat.modules import (
 )
 from hwcat.modules.module import Module, image_spaces, is_homomorphism, kernel_spaces
 from hwcat.strategies import bound_quiver_algebras, modules, quivers
+from hwcat.theory import homological_dimension
 from hwcat.theory.homological import (
     ext_dimension,
     ext_dimensions,
@@ -443,7 +444,7 @@ def test_bound_reached_first():
     assert global_dimension(A, bound=4).to_dict()["global_dimension"] == 4
 
 
-def test_cartan_determinant_decides_when_the_bound_is_reached():
+def test_cartan_determinant_decides_when_the_bound_is_reached(monkeypatch):
     # syzygies of the simples grow without repeating within the bound (derived);
     # det(Cartan) = 4 (sympy), so the global dimension is infinite (Eilenberg, from memory)
     A = spec_text(
@@ -458,9 +459,15 @@ def test_cartan_determinant_decides_when_the_bound_is_reached():
         ],
     )
     assert sympy.Matrix(A.cartan()).det() == 4
+
+    def no_resolution(*args, **kwargs):
+        raise AssertionError("a resolution was computed")
+
+    monkeypatch.setattr(homological_dimension, "_steps", no_resolution)
     g = global_dimension(A, bound=3)
     assert g.case == "infinite" and g.witness.reason == "cartan_determinant"
-    assert [d.case for d in g.projective_dimensions] == ["at_least"] * 3
+    # decided before any resolution: no projective dimension was computed
+    assert g.projective_dimensions == () and g.to_dict()["projective_dimensions"] == []
     check_witness(A, g)
 
 
@@ -479,8 +486,16 @@ def test_size_limit():
     S = simple(A, 0)
     d = projective_dimension(S, max_syzygy_dimension=10)
     assert d.case == "at_least" and d.limit == "max_syzygy_dimension"
-    assert syzygy(S, d.value).dim > 10 >= max(syzygy(S, k).dim for k in range(d.value))
+    # Omega^k(S) or its projective cover P_k is the first thing larger than the budget
+    k = d.value
+    big = max(syzygy(S, k).dim, projective_resolution(S, k).terms[k].dim)
+    assert big > 10 >= max(syzygy(S, j).dim for j in range(k))
+    assert all(P.dim <= 10 for P in projective_resolution(S, k - 1).terms)
     assert projective_dimension(S, bound=2).to_dict()["limit"] == "bound"
+    with pytest.raises(WorkBudgetExceeded, match="max_syzygy_dimension = 10"):
+        projective_resolution(simple(A, 0), k, max_syzygy_dimension=10)
+    with pytest.raises(WorkBudgetExceeded):
+        ext_dimensions(simple(A, 0), simple(A, 1), k, max_syzygy_dimension=10)
 
 
 def check_witness(A, g):
@@ -580,3 +595,34 @@ def test_projective_dimension_of_modules(data):
 @given(bound_quiver_algebras(max_vertices=4, max_arrows=6, max_relations=3))
 def test_global_dimension_properties_larger(A):
     check_global_dimension(A, bound=6, cap=400)
+
+
+# -- the work budget ------------------------------------------------------------------------------------------
+
+
+@FAST
+@given(SMALL_ALGEBRAS, st.integers(1, 30))
+def test_work_budget_gives_lower_bounds_or_the_same_answer(A, cap):
+    # a smaller budget may only stop earlier: "at least k" with k at most the true value,
+    # otherwise the same answer as with the larger budget (derived from the definitions)
+    for i in range(A.n):
+        S = simple(A, i)
+        small = projective_dimension(S, bound=4, max_syzygy_dimension=cap)
+        large = projective_dimension(simple(A, i), bound=4, max_syzygy_dimension=CAP)
+        if small.limit == "max_syzygy_dimension":
+            assert large.case == "infinite" or large.value >= small.value
+            k = small.value
+            terms = projective_resolution(simple(A, i), k).terms
+            assert max((P.dim for P in terms[:k]), default=0) <= cap
+            assert cap < max(terms[k].dim, syzygy(S, k).dim)
+        else:
+            assert (small.case, small.value) == (large.case, large.value)
+        for j in range(A.n):
+            try:
+                e = ext_dimensions(simple(A, i), simple(A, j), 2, max_syzygy_dimension=cap)
+            except WorkBudgetExceeded as exc:
+                assert exc.size > cap == exc.limit and exc.degree <= 3
+                continue
+            # dim Ext^k(S_i, S_j) = multiplicity of P(j) in P_k (minimal resolution) [ASS]
+            mult = projective_resolution(simple(A, i), 2).multiplicities()
+            assert list(e) == [m[j] for m in mult] + [0] * (3 - len(mult))

@@ -105,3 +105,22 @@ def test_total_order_roundtrip():
     P = total_order(V, [2, 0, 3, 1])
     assert P.is_total and P.first_extension() == (2, 0, 3, 1)
     assert parse_order(P.chain_text(), V) == P
+
+
+PAIRS = st.integers(1, 7).flatmap(
+    lambda n: st.tuples(
+        st.just(n),
+        st.lists(st.tuples(st.integers(0, n - 1), st.integers(0, n - 1)), max_size=10),
+    )
+)
+
+
+@settings(max_examples=60, deadline=None)
+@given(PAIRS)
+def test_first_extension_matches_networkx(data):
+    # reference: networkx's lexicographical topological sort of "b before a" for a < b
+    n, pairs = data
+    pairs = [(a, b) for a, b in pairs if a < b]  # acyclic: a < b only for a smaller index
+    order = PartialOrder.from_relations([str(v) for v in range(n)], pairs)
+    G = order.graph().reverse()
+    assert order.first_extension() == tuple(nx.lexicographical_topological_sort(G))

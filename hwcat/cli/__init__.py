@@ -4,6 +4,9 @@ Each command lives in a module of this package with a ``register(sub)``
 function that adds its subparser; this module only builds the parser from
 them and turns errors into exit codes.
 
+Long commands show progress on standard error when it is a terminal (never
+with ``--json`` and never in pipes).
+
 Exit codes: 0 success (or a mathematical "yes"), 1 a mathematical "no"
 (e.g. not quasi-hereditary), 2 bad input.
 """
@@ -18,7 +21,7 @@ from collections.abc import Sequence
 from hwcat.errors import HwcatError, InternalInconsistency
 from hwcat.limits import DEFAULT_LIMITS, resource_limits
 
-__all__ = ["main", "build_parser", "positive_int", "COMMAND_MODULES"]
+__all__ = ["main", "build_parser", "positive_int", "show_progress", "COMMAND_MODULES"]
 
 COMMAND_MODULES = ("core", "report", "certificates", "campaigns")
 """Modules of :mod:`hwcat.cli` whose ``register`` adds commands, in help order."""
@@ -90,6 +93,10 @@ def main(argv: Sequence[str] | None = None) -> int:
         args = parser.parse_args(argv)
     except SystemExit as exc:  # --help, or a bad option (one line already printed)
         return exc.code if isinstance(exc.code, int) else 0
+    from hwcat import progress
+
+    if show_progress(sys.stderr, args):
+        progress.enable(sys.stderr)  # bars appear for steps longer than a second
     try:
         with resource_limits(
             max_dim=args.max_dim, max_vertices=args.max_quiver_vertices, max_products=args.max_products
@@ -112,6 +119,14 @@ def main(argv: Sequence[str] | None = None) -> int:
     except KeyboardInterrupt:
         print("hwcat: interrupted", file=sys.stderr)
         return 130
+    finally:
+        progress.disable()
+
+
+def show_progress(stream, args: argparse.Namespace) -> bool:
+    """Progress is shown on a terminal only, and never with ``--json``."""
+    isatty = getattr(stream, "isatty", None)
+    return bool(isatty and isatty()) and not getattr(args, "json", False)
 
 
 if __name__ == "__main__":  # pragma: no cover

@@ -1,6 +1,7 @@
 """What several commands share: how an algebra is named on the command line, and writing files.
 
-Every command that reads one algebra takes either a spec file (``SPEC``) or a
+Nothing here imports the mathematics at module level, so that building the
+parser stays fast.  Every command that reads one algebra takes either a spec file (``SPEC``) or a
 built-in family (``--family NAME KEY=VALUE ...``), through
 :func:`add_algebra_source` and :func:`load_algebra`.
 """
@@ -10,7 +11,6 @@ from __future__ import annotations
 import argparse
 
 from hwcat.errors import OrderError, SpecError
-from hwcat.io.spec import build_algebra, family_source, read_spec
 
 __all__ = [
     "add_algebra_source",
@@ -37,6 +37,8 @@ def add_algebra_source(p: argparse.ArgumentParser) -> None:
 
 def load_algebra(args: argparse.Namespace):
     """The spec (a :class:`~hwcat.io.spec.Spec`) and its algebra, from ``SPEC`` or ``--family``."""
+    from hwcat.io.spec import build_algebra, family_source, read_spec
+
     if (args.spec is None) == (args.family is None):
         raise SpecError("give exactly one of a spec file or --family NAME KEY=VALUE ...")
     spec = read_spec(args.spec) if args.spec is not None else family_source(args.family)

@@ -16,7 +16,9 @@ from hwcat.cli.common import (
     write_text,
 )
 from hwcat.errors import SpecError
-from hwcat.io.render import render_orders, render_structure, render_verdict, to_json
+
+# the mathematics (and python-flint) is imported inside the commands, so that
+# the parser and ``--help`` start quickly
 
 __all__ = ["register"]
 
@@ -26,6 +28,7 @@ def _load(args: argparse.Namespace):
 
 
 def _cmd_describe(args: argparse.Namespace) -> int:
+    from hwcat.io.render import render_structure, to_json
     from hwcat.theory.structure import describe
 
     _, A = _load(args)
@@ -38,18 +41,37 @@ def _cmd_describe(args: argparse.Namespace) -> int:
     return 0
 
 
+def _budget(args: argparse.Namespace) -> dict:
+    """The work budget of the homological part, from the command line."""
+    return {"bound": args.homological_bound, "max_syzygy_dimension": args.max_syzygy_dimension}
+
+
+def _positive(text: str) -> int:
+    try:
+        value = int(text)
+    except ValueError:
+        raise argparse.ArgumentTypeError(f"{text!r} is not an integer") from None
+    if value < 1:
+        raise argparse.ArgumentTypeError(f"{text!r}: expected an integer >= 1")
+    return value
+
+
 def _cmd_check(args: argparse.Namespace) -> int:
+    from hwcat.io.render import render_verdict, to_json
     from hwcat.theory.check import as_order, check
 
     spec, A = _load(args)
     text, source = order_argument(spec, args.order)
     order = None if text is None else with_order_context(spec, source, lambda: as_order(A, text))
-    verdict = check(A, order, order_source=source, homological=not args.no_homological)
+    verdict = check(
+        A, order, order_source=source, homological=not args.no_homological, **_budget(args)
+    )
     print(to_json(verdict) if args.json else render_verdict(verdict))
     return 0 if verdict.quasi_hereditary else 1
 
 
 def _cmd_orders(args: argparse.Namespace) -> int:
+    from hwcat.io.render import render_orders, to_json
     from hwcat.theory.search import quasi_hereditary_orders
 
     _, A = _load(args)
@@ -103,6 +125,7 @@ def _parse_assignments(items: Sequence[str]) -> dict[str, str]:
 def _cmd_family(args: argparse.Namespace) -> int:
     from hwcat.algebras.families.registry import FAMILIES, family_algebra
     from hwcat.algebras.reduction.presentation import presentation_toml
+    from hwcat.io.render import render_structure, to_json
     from hwcat.theory.structure import describe
 
     if args.list or not args.name:
@@ -185,6 +208,22 @@ def register(sub: argparse._SubParsersAction) -> None:
         "--no-homological",
         action="store_true",
         help="skip the Ext conditions, global dimension, tilting modules and Ringel dual",
+    )
+    c.add_argument(
+        "--max-syzygy-dimension",
+        type=_positive,
+        default=None,
+        metavar="N",
+        help="work budget: build no syzygy or projective term larger than N "
+        "(default 600); beyond it the answer is 'at least k' or 'undecided'",
+    )
+    c.add_argument(
+        "--homological-bound",
+        type=_positive,
+        default=None,
+        metavar="K",
+        help="work budget: resolve at most K + 1 steps for projective dimensions "
+        "(default 2n + 2, n simples; 2n - 1 for a quasi-hereditary order)",
     )
     c.set_defaults(func=_cmd_check)
     o = sub.add_parser("orders", help="all quasi-hereditary orders and quasi-hereditary structures")

@@ -187,7 +187,10 @@ class PrimeField(Field):
     def _raw_matrix(self, nrows: int, ncols: int, entries: list) -> Any:
         if not entries:
             return flint.nmod_mat(nrows, ncols, self.p)
-        return flint.nmod_mat(nrows, ncols, [int(e) for e in entries], self.p)
+        try:  # nmod entries of this modulus (or Python ints) are taken as they are
+            return flint.nmod_mat(nrows, ncols, entries, self.p)
+        except (TypeError, ValueError):
+            return flint.nmod_mat(nrows, ncols, [int(e) for e in entries], self.p)
 
     def to_int_or_str(self, x: Any) -> int | str:
         return int(x)

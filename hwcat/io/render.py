@@ -195,9 +195,9 @@ def render_verdict(v) -> str:
     lines.append("Axioms:")
     w = max(len(a.name) for a in v.axioms)
     for a in v.axioms:
-        mark = "holds" if a.holds else "FAILS"
+        mark = "holds" if a.holds else "undecided" if a.holds is None else "FAILS"
         lines.append(f"  [{mark}] {a.name:<{w}}  {a.summary}")
-        if not a.holds:
+        if a.holds is False:
             lines.extend(_witness_lines(a.witness))
     lines.append("Standard modules Delta(L):")
     lines.extend(_module_table(vs, v.standards))
@@ -219,7 +219,7 @@ def render_verdict(v) -> str:
     lines.append("Cartan matrix C[i][j] = [P(j) : L(i)]:")
     lines.append(matrix_text(v.cartan, [f"L({x})" for x in vs], [f"P({x})" for x in vs]))
     if v.global_dimension is not None:
-        lines.append(f"Global dimension: {v.global_dimension}")
+        lines.append(f"Global dimension: {v.global_dimension}{_gldim_reason(v.global_dimension)}")
     if v.tilting is not None:
         lines.append(
             "Indecomposable tilting modules T(L) (dimension vector; (T : Delta(mu)); (T : nabla(mu))):"
@@ -242,6 +242,18 @@ def render_verdict(v) -> str:
             matrix_text(v.ringel_dual_cartan, [f"T({x})" for x in vs], [f"T({x})" for x in vs])
         )
     return "\n".join(lines)
+
+
+def _gldim_reason(g) -> str:
+    """Why a global dimension is infinite or only bounded below (text after the value)."""
+    if g.case == "infinite" and g.witness is not None:
+        if g.witness.reason == "cartan_determinant":
+            return f"  (det Cartan = {g.witness.cartan_determinant}, not +-1)"
+        return f"  ({g.witness.reason.replace('_', ' ')}, simple {g.witness_simple})"
+    if g.case == "at_least":
+        limits = sorted({d.limit for d in g.projective_dimensions if d.limit})
+        return f"  (work budget reached: {', '.join(limits)}; raise it to go further)"
+    return ""
 
 
 def render_orders(r) -> str:

@@ -30,7 +30,14 @@ from typing import Any
 
 from hwcat.algebras.hub.basic import BasicAlgebra
 from hwcat.algebras.hub.quiver import Path
-from hwcat.algebras.hub.rep import closure, generated_word_basis, path_matrix, quotient, restrict
+from hwcat.algebras.hub.rep import (
+    ArrowMaps,
+    closure,
+    generated_word_basis,
+    path_matrix,
+    quotient,
+    restrict,
+)
 from hwcat.errors import InternalInconsistency
 from hwcat.exact import Mat, complement, echelon
 
@@ -65,14 +72,12 @@ class Module:
     ) -> None:
         self.algebra = algebra
         self.dims = tuple(int(d) for d in dims)
-        self.maps = tuple(maps)
+        if len(self.dims) != algebra.n:
+            raise InternalInconsistency("module data do not match the algebra")
+        # only the maps between nonzero spaces are stored (shapes checked there)
+        self.maps = ArrowMaps(algebra.field, self.dims, algebra.arrows, maps)
         self.name = name
         self._memo: dict[Any, Any] = {}
-        if len(self.dims) != algebra.n or len(self.maps) != len(algebra.arrows):
-            raise InternalInconsistency("module data do not match the algebra")
-        for m, a in zip(self.maps, algebra.arrows, strict=True):
-            if m.shape != (self.dims[a.source], self.dims[a.target]):
-                raise InternalInconsistency(f"arrow {a.name}: matrix of shape {m.shape}")
 
     # -- basic data ------------------------------------------------------------------
     @property
@@ -136,9 +141,9 @@ class Module:
         """``rad M`` per vertex: the sum of the images of the arrows."""
         F = self.field
         imgs: list[list[Mat]] = [[] for _ in self.dims]
-        for m, a in zip(self.maps, self.algebra.arrows, strict=True):
-            if m.nrows and m.ncols:
-                imgs[a.target].append(m)
+        arrows = self.algebra.arrows
+        for i, m in self.maps.items():
+            imgs[arrows[i].target].append(m)
         return [
             echelon(Mat.vstack(F, imgs[v], self.dims[v]))
             if imgs[v]
@@ -157,8 +162,9 @@ class Module:
         """``soc M`` per vertex: vectors killed by every arrow."""
         F = self.field
         outs: list[list[Mat]] = [[] for _ in self.dims]
-        for m, a in zip(self.maps, self.algebra.arrows, strict=True):
-            outs[a.source].append(m)
+        arrows = self.algebra.arrows
+        for i, m in self.maps.items():
+            outs[arrows[i].source].append(m)
         res = []
         for v, d in enumerate(self.dims):
             if not outs[v] or d == 0:
@@ -180,8 +186,9 @@ class Module:
         while any(r.nrows for r in series[-1]):
             cur = series[-1]
             imgs: list[list[Mat]] = [[] for _ in self.dims]
-            for m, a in zip(self.maps, arrows, strict=True):
-                if cur[a.source].nrows and m.ncols:
+            for i, m in self.maps.items():
+                a = arrows[i]
+                if cur[a.source].nrows:
                     imgs[a.target].append(cur[a.source] @ m)
             series.append(
                 [
@@ -229,8 +236,7 @@ class Module:
         gens = []
         for v, R in enumerate(self.radical_spaces()):
             C = complement(R, self.dims[v])
-            for i in range(C.nrows):
-                gens.append((v, C.take_rows([i])))
+            gens.extend((v, row) for row in C.split_rows())
         self._memo["generators"] = gens
         return gens
 
@@ -310,21 +316,23 @@ def image_spaces(M: Module, N: Module, f: Sequence[Mat]) -> list[Mat]:
 def projective(A: BasicAlgebra, s: str | int) -> Module:
     """The indecomposable projective ``P(s) = e_s A``."""
     s = A.vertex_index(s)
-    key = ("module:projective", s)
-    if key not in A._cache:
+
+    def build() -> Module:
         dims, maps = A.projective_rep(s)
-        A._cache[key] = Module(A, dims, maps, f"P({A.vertices[s]})")
-    return A._cache[key]
+        return Module(A, dims, maps, f"P({A.vertices[s]})")
+
+    return A.cached(("module:projective", s), build)
 
 
 def injective(A: BasicAlgebra, s: str | int) -> Module:
     """The indecomposable injective ``I(s) = D(A e_s)``."""
     s = A.vertex_index(s)
-    key = ("module:injective", s)
-    if key not in A._cache:
+
+    def build() -> Module:
         dims, maps = A.injective_rep(s)
-        A._cache[key] = Module(A, dims, maps, f"I({A.vertices[s]})")
-    return A._cache[key]
+        return Module(A, dims, maps, f"I({A.vertices[s]})")
+
+    return A.cached(("module:injective", s), build)
 
 
 def simple(A: BasicAlgebra, s: str | int) -> Module:

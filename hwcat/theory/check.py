@@ -92,15 +92,22 @@ def check(
     *,
     order_source: str = "given",
     homological: bool = True,
+    bound: int | None = None,
+    max_syzygy_dimension: int | None = None,
 ) -> OrderVerdict:
     """The verdict for ``order``; with no order, for the family's natural order if the
-    algebra has one, else for the order the search chooses."""
+    algebra has one, else for the order the search chooses.  ``bound`` and
+    ``max_syzygy_dimension`` are the homological work budget (see
+    :func:`~hwcat.theory.verdict.check_order`)."""
+    budget = {"bound": bound, "max_syzygy_dimension": max_syzygy_dimension}
     if order is None and A.natural_order:
         order, order_source = A.natural_order, "the family's natural order"
     if order is not None:
-        return check_order(A, as_order(A, order), order_source=order_source, homological=homological)
+        return check_order(
+            A, as_order(A, order), order_source=order_source, homological=homological, **budget
+        )
     chosen, source, summary = chosen_by_search(A)
-    verdict = check_order(A, chosen, order_source=source, homological=homological)
+    verdict = check_order(A, chosen, order_source=source, homological=homological, **budget)
     if verdict.quasi_hereditary != summary.quasi_hereditary_for_some_order:
         raise InternalInconsistency(
             "the search says quasi-hereditary for some order: "

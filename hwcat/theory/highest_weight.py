@@ -46,9 +46,7 @@ __all__ = [
 
 def trace_cache(A: BasicAlgebra) -> TraceCache:
     """The algebra's (shared) cache of traces of vertex sets."""
-    if "traces" not in A._cache:
-        A._cache["traces"] = TraceCache(A)
-    return A._cache["traces"]
+    return A.cached("traces", lambda: TraceCache(A))
 
 
 def _check_order(A: BasicAlgebra, order: PartialOrder) -> None:
@@ -74,12 +72,12 @@ def standard_module(A: BasicAlgebra, L: str | int, order: PartialOrder) -> Modul
     """
     L = A.vertex_index(L)
     _check_order(A, order)
-    key = ("standard", L, order.less)
-    if key not in A._cache:
+
+    def build() -> Module:
         K = trace_cache(A).kernel(_not_below(order, L), L)
-        M = projective(A, L).quotient(K, f"Delta({A.vertices[L]})")
-        A._cache[key] = M
-    return A._cache[key]
+        return projective(A, L).quotient(K, f"Delta({A.vertices[L]})")
+
+    return A.cached(("standard", L, order.less), build)
 
 
 def costandard_module(A: BasicAlgebra, L: str | int, order: PartialOrder) -> Module:

@@ -23,15 +23,21 @@ infinite projective dimension.  And if every simple had a finite resolution,
 the classes of the simples in the Grothendieck group would be integer
 combinations of those of the projectives, the columns of the Cartan matrix,
 whose determinant would then be ``+-1``; so a determinant other than ``+-1``
-proves the global dimension infinite (Eilenberg's observation).  In that case
-the costly search for repeats through Hom is skipped and only the cheap
-exact tests run for each simple.
+proves the global dimension infinite (S. Eilenberg, *Algebras of
+cohomologically finite dimension*, Comment. Math. Helv. 28 (1954); from
+memory).  :func:`global_dimension` tests the determinant first and then
+answers "infinite" without computing any resolution.
 
-Limits: a computation that reaches the bound first reports "at least
-bound + 1"; one that meets a syzygy ``Omega^k`` of dimension larger than
-``max_syzygy_dimension`` (syzygies can grow geometrically) stops there with
-"at least k".  Repeats are sought through Hom only in syzygies of dimension
-at most :data:`SPLIT_CHECK_LIMIT`.
+Work budget: every computation has two limits with documented defaults, both
+keyword arguments (and options of ``hwcat check``): ``bound``, the number of
+steps (default :func:`default_bound`), and ``max_syzygy_dimension``, the
+largest syzygy or projective term built (default
+:data:`DEFAULT_MAX_SYZYGY_DIMENSION`; syzygies can grow geometrically).  A
+computation that reaches the bound first reports "at least bound + 1" (limit
+``"bound"``); one that would build a syzygy or term of ``Omega^k`` larger than
+``max_syzygy_dimension`` stops there with "at least k" (limit
+``"max_syzygy_dimension"``).  So every call ends.  Repeats are sought through
+Hom only in syzygies of dimension at most :data:`SPLIT_CHECK_LIMIT`.
 
 Examples
 --------
@@ -47,17 +53,26 @@ from __future__ import annotations
 import random
 from collections.abc import Callable, Sequence
 from dataclasses import dataclass
-from typing import Any
-
-import networkx as nx
+from typing import TYPE_CHECKING, Any
 
 from hwcat.algebras.hub.basic import BasicAlgebra
-from hwcat.errors import InternalInconsistency
+from hwcat.errors import InternalInconsistency, WorkBudgetExceeded
 from hwcat.exact import Mat, contains
 from hwcat.modules import Module, simple
 from hwcat.modules.hom import _hom_system, homomorphism_from_images
 from hwcat.modules.module import is_homomorphism
-from hwcat.theory.resolutions import _dual, _need_int, _Step, _steps
+from hwcat.progress import task
+from hwcat.theory.resolutions import (
+    DEFAULT_MAX_SYZYGY_DIMENSION,
+    _dual,
+    _need_int,
+    _Step,
+    _steps,
+)
+
+if TYPE_CHECKING:
+    import networkx as nx
+
 
 __all__ = [
     "SyzygyRepeat",
@@ -79,9 +94,6 @@ __all__ = [
 
 DEFAULT_TRIES = 8
 """Random combinations tried per Hom pair before giving up (a miss is never a verdict)."""
-
-DEFAULT_MAX_SYZYGY_DIMENSION = 2000
-"""Dimension computations stop at a larger syzygy (syzygies can grow geometrically)."""
 
 SPLIT_CHECK_LIMIT = 400
 """Repeats of a syzygy as a summand of a later one are sought by Hom only up to this dimension."""
@@ -448,7 +460,10 @@ def _scan(
     A = M.algebra
     inv: dict[int, tuple] = {}
     for k in range(1, lim.bound + 2):
-        steps = _steps(M, k)
+        try:
+            steps = _steps(M, k, lim.max_dim)
+        except WorkBudgetExceeded as exc:
+            return HomologicalDimension("at_least", exc.degree, limit="max_syzygy_dimension")
         X = steps[k - 1].syzygy
         if X.dim == 0:
             return _finite(k - 1)
@@ -540,6 +555,8 @@ class GlobalDimension:
     projective dimension: ``witness_simple`` and ``witness`` say which and why)
     or ``"at_least"`` (no infinite dimension was proved and some simple
     reached a limit; ``value`` is the largest lower bound found).
+    ``projective_dimensions`` is empty when the Cartan determinant decided
+    (no resolution was computed).
     """
 
     case: str
@@ -561,7 +578,7 @@ class GlobalDimension:
             "bound": self.bound,
             "projective_dimensions": [
                 {"simple": s, "case": d.case, "value": d.json_value(), "limit": d.limit}
-                for s, d in zip(self.simples, self.projective_dimensions, strict=True)
+                for s, d in zip(self.simples, self.projective_dimensions, strict=False)
             ],
             "witness_simple": self.witness_simple,
             "witness": None if self.witness is None else self.witness.to_dict(),
@@ -581,43 +598,57 @@ def global_dimension(
 ) -> GlobalDimension:
     """The global dimension of ``A``: the largest projective dimension of a simple.
 
-    The simples are treated as in :func:`projective_dimension` (same
-    arguments), and the links between them and the Cartan determinant are
-    used as in the module notes.  The case ``"at_least"`` gives the largest
-    lower bound found.
+    A Cartan determinant other than ``+-1`` answers "infinite" at once
+    (Eilenberg; witness reason ``"cartan_determinant"``).  Otherwise the
+    simples are treated as in :func:`projective_dimension` (same arguments,
+    same work budget), and the links between them are used as in the module
+    notes.  The case ``"at_least"`` gives the largest lower bound found.
 
     >>> from hwcat.io.spec import load_spec_text
     >>> A = load_spec_text('field = "GF(2)"\\n[quiver]\\nvertices = ["1", "2", "3"]\\n'
     ...                    'arrows = ["a: 1 -> 2", "b: 2 -> 3", "c: 3 -> 1"]\\nvanish_from_length = 2')
     >>> g = global_dimension(A)
-    >>> g.json_value(), g.witness.reason, [(x.source, x.degree, x.target) for x in g.witness.links]
-    ('infinite', 'simple_summand_cycle', [('1', 3, '1')])
+    >>> g.json_value(), g.witness.reason, g.witness.cartan_determinant
+    ('infinite', 'cartan_determinant', 2)
+    >>> B = load_spec_text('field = "QQ"\\n[quiver]\\nvertices = ["1", "2"]\\n'
+    ...                    'arrows = ["a: 1 -> 2", "b: 2 -> 1"]\\nrelations = ["a*b"]\\n'
+    ...                    'vanish_from_length = 3')
+    >>> g = global_dimension(B)
+    >>> g.case, g.value
+    ('finite', 2)
     """
     lim = _limits(A, bound, max_syzygy_dimension, tries)
     b = lim.bound
     det = _determinant(A.cartan())
-    if abs(det) != 1:  # infinite already: no costly search for repeats through Hom
-        lim = _Limits(lim.bound, lim.max_dim, lim.tries, split_limit=0)
+    if abs(det) != 1:  # Eilenberg: infinite, decided before any resolution
+        w = InfiniteDimensionWitness(cartan_determinant=det)
+        return GlobalDimension("infinite", None, b, tuple(A.vertices), (), None, w)
     rng = random.Random(seed)
     names = A.vertices
     links: dict[tuple[int, int], SimpleSummand] = {}
     dims: list[HomologicalDimension] = []
-    for i in range(A.n):
+    with task("global dimension: simples", total=A.n) as advance:
+        for i in range(A.n):
 
-        def on_syzygy(k: int, X: Module, step: _Step, i: int = i) -> HomologicalDimension | None:
-            for j, vec in simple_summands(X).items():
-                text = _element_texts(A, step.cover.summands, j, vec @ step.kernel[j])
-                link = links.setdefault((i, j), SimpleSummand(names[i], k, names[j], text))
-                if j == i:
-                    return HomologicalDimension("infinite", None, InfiniteDimensionWitness((link,)))
-                if j < i and dims[j].case == "infinite":
-                    w = dims[j].witness
-                    return HomologicalDimension(
-                        "infinite", None, InfiniteDimensionWitness((link,) + w.links, w.repeat)
-                    )
-            return None
+            def on_syzygy(
+                k: int, X: Module, step: _Step, i: int = i
+            ) -> HomologicalDimension | None:
+                for j, vec in simple_summands(X).items():
+                    text = _element_texts(A, step.cover.summands, j, vec @ step.kernel[j])
+                    link = links.setdefault((i, j), SimpleSummand(names[i], k, names[j], text))
+                    if j == i:
+                        return HomologicalDimension(
+                            "infinite", None, InfiniteDimensionWitness((link,))
+                        )
+                    if j < i and dims[j].case == "infinite":
+                        w = dims[j].witness
+                        return HomologicalDimension(
+                            "infinite", None, InfiniteDimensionWitness((link,) + w.links, w.repeat)
+                        )
+                return None
 
-        dims.append(_scan(simple(A, i), lim, rng, on_syzygy))
+            dims.append(_scan(simple(A, i), lim, rng, on_syzygy))
+            advance(1)
     dims = _close_links(A, dims, links)
     simples = tuple(names)
     bad = [i for i, d in enumerate(dims) if d.case == "infinite"]
@@ -656,6 +687,8 @@ def _close_links(
     A: BasicAlgebra, dims: list[HomologicalDimension], links: dict[tuple[int, int], SimpleSummand]
 ) -> list[HomologicalDimension]:
     """Propagate infinity along the links; check them against the finite dimensions."""
+    import networkx as nx
+
     for (i, j), link in links.items():
         di, dj = dims[i], dims[j]
         if di.case == "finite" and not (dj.case == "finite" and dj.value <= di.value - link.degree):
@@ -693,4 +726,6 @@ def _close_links(
 
 
 def _on_cycle(G: nx.DiGraph, v: int) -> bool:
+    import networkx as nx
+
     return G.has_edge(v, v) or any(nx.has_path(G, u, v) for u in G.successors(v))

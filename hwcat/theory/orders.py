@@ -25,11 +25,13 @@ import re
 from collections.abc import Iterator, Sequence
 from dataclasses import dataclass
 from functools import cached_property
-from typing import Any
-
-import networkx as nx
+from typing import TYPE_CHECKING, Any
 
 from hwcat.errors import OrderError
+
+if TYPE_CHECKING:
+    import networkx as nx
+
 
 __all__ = ["PartialOrder", "parse_order", "total_order"]
 
@@ -92,6 +94,8 @@ class PartialOrder:
                     less.append((a, low.bit_length() - 1))
                     m ^= low
             return cls(tuple(vertices), frozenset(less))
+        import networkx as nx
+
         G = nx.DiGraph()
         G.add_nodes_from(range(len(vertices)))
         G.add_edges_from(pairs)
@@ -118,6 +122,8 @@ class PartialOrder:
 
     def graph(self) -> nx.DiGraph:
         """Edges ``a -> b`` for ``a < b`` (transitively closed)."""
+        import networkx as nx
+
         G = nx.DiGraph()
         G.add_nodes_from(range(self.n))
         G.add_edges_from(self.less)
@@ -126,6 +132,8 @@ class PartialOrder:
     @cached_property
     def hasse(self) -> nx.DiGraph:
         """The Hasse diagram: cover relations ``a -> b`` (a < b, nothing between)."""
+        import networkx as nx
+
         return nx.transitive_reduction(self.graph())
 
     def covers(self) -> list[tuple[int, int]]:
@@ -141,6 +149,8 @@ class PartialOrder:
 
     def linear_extensions(self) -> Iterator[tuple[int, ...]]:
         """All total orders refining this one, each listed from highest to lowest."""
+        import networkx as nx
+
         G = self.graph().reverse()  # edges b -> a for a < b: topological = highest first
         for order in nx.all_topological_sorts(G):
             yield tuple(order)
@@ -163,8 +173,33 @@ class PartialOrder:
         return sum(count.values())
 
     def first_extension(self) -> tuple[int, ...]:
-        """The linear extension that takes, at each step, the first available vertex."""
-        return tuple(nx.lexicographical_topological_sort(self.graph().reverse()))
+        """The linear extension that takes, at each step, the first available vertex.
+
+        Highest first: a vertex is available once every vertex above it is
+        taken (computed once per order, with a heap; no graph is built).
+        """
+        return self._first_extension
+
+    @cached_property
+    def _first_extension(self) -> tuple[int, ...]:
+        import heapq
+
+        above = [0] * self.n  # number of vertices above v not yet taken
+        below: list[list[int]] = [[] for _ in range(self.n)]
+        for a, b in self.less:  # a < b
+            above[a] += 1
+            below[b].append(a)
+        heap = [v for v in range(self.n) if above[v] == 0]
+        heapq.heapify(heap)
+        out = []
+        while heap:
+            v = heapq.heappop(heap)
+            out.append(v)
+            for a in below[v]:
+                above[a] -= 1
+                if above[a] == 0:
+                    heapq.heappush(heap, a)
+        return tuple(out)
 
     def chain_text(self) -> str:
         """``"a > b > c"`` for a total order; cover relations otherwise."""

@@ -25,6 +25,17 @@ the path matrices of ``N``; no Hom system is solved.
 *Injective coresolutions* are the duals of the minimal projective
 resolutions of ``D M`` over the opposite algebra.
 
+Work budget
+-----------
+Syzygies can grow geometrically (over a local algebra with two loops their
+dimension roughly doubles at each step), so every computation here takes
+``max_syzygy_dimension`` (default :data:`DEFAULT_MAX_SYZYGY_DIMENSION`): no
+syzygy and no projective term larger than that is built.  Reaching it raises
+:class:`~hwcat.errors.WorkBudgetExceeded` naming the degree; the dimension
+functions of :mod:`hwcat.theory.homological_dimension` turn it into the answer
+"at least k".  Pass a larger value (``hwcat check --max-syzygy-dimension``) to
+go further.
+
 References
 ----------
 I. Assem, D. Simson, A. Skowronski, *Elements of the Representation Theory of
@@ -50,7 +61,7 @@ from dataclasses import dataclass
 from typing import Any
 
 from hwcat.algebras.hub.basic import BasicAlgebra
-from hwcat.errors import HwcatError, InternalInconsistency
+from hwcat.errors import HwcatError, InternalInconsistency, WorkBudgetExceeded
 from hwcat.exact import Mat
 from hwcat.modules import Module, direct_sum, projective
 from hwcat.modules.module import kernel_spaces
@@ -66,7 +77,18 @@ __all__ = [
     "injective_coresolution",
     "ext_dimension",
     "ext_dimensions",
+    "DEFAULT_MAX_SYZYGY_DIMENSION",
+    "max_syzygy_dimension_or_default",
 ]
+
+DEFAULT_MAX_SYZYGY_DIMENSION = 600
+"""Largest syzygy or projective term built by default (the work budget).
+
+Chosen so that a step of a resolution at this size takes well under a second
+over QQ and GF(p) on one core (``benchmarks/bench_homological.py``, budget
+section): ``hwcat check`` on algebras of dimension up to 60 stays within
+seconds even when syzygies grow geometrically.
+"""
 
 _STEPS = "homological:steps"
 _DUAL = "homological:dual"
@@ -76,6 +98,35 @@ def _need_int(value: Any, what: str, minimum: int) -> int:
     if isinstance(value, bool) or not isinstance(value, int) or value < minimum:
         raise HwcatError(f"{what} = {value!r}: expected an integer >= {minimum}")
     return value
+
+
+def max_syzygy_dimension_or_default(value: int | None) -> int:
+    """``value`` checked (an integer >= 1), or the default budget when ``None``."""
+    if value is None:
+        return DEFAULT_MAX_SYZYGY_DIMENSION
+    return _need_int(value, "max_syzygy_dimension", 1)
+
+
+def _over_budget(name: str, degree: int, what: str, size: int, limit: int) -> WorkBudgetExceeded:
+    return WorkBudgetExceeded(
+        f"{what} of {name or 'the module'} at degree {degree} has dimension {size} > "
+        f"max_syzygy_dimension = {limit} (raise it with max_syzygy_dimension=... or "
+        "hwcat check --max-syzygy-dimension)",
+        degree=degree,
+        size=size,
+        limit=limit,
+    )
+
+
+def _budgeted_cover(X: Module, degree: int, limit: int, name: str) -> ProjectiveCover:
+    """The cover of ``X = Omega^degree``, refused when ``X`` or the cover exceeds ``limit``."""
+    if X.dim > limit:
+        raise _over_budget(name, degree, "the syzygy", X.dim, limit)
+    A = X.algebra
+    size = sum(sum(A.projective_dims(v)) for v, _ in X.generators())
+    if size > limit:
+        raise _over_budget(name, degree, "the projective term", size, limit)
+    return projective_cover(X)
 
 
 # -- projective covers ----------------------------------------------------------------------
@@ -187,14 +238,19 @@ class _Step:
     syzygy: Module  # Omega^{i+1}
 
 
-def _steps(M: Module, count: int) -> list[_Step]:
-    """The first ``count`` steps of the minimal resolution (fewer if it ends), cached on ``M``."""
+def _steps(M: Module, count: int, limit: int | None = None) -> list[_Step]:
+    """The first ``count`` steps of the minimal resolution (fewer if it ends), cached on ``M``.
+
+    Raises :class:`~hwcat.errors.WorkBudgetExceeded` before building a
+    syzygy or term larger than ``limit`` (default: the default budget).
+    """
+    limit = max_syzygy_dimension_or_default(limit)
     steps: list[_Step] = M._memo.setdefault(_STEPS, [])
     while len(steps) < count:
         X = M if not steps else steps[-1].syzygy
         if X.dim == 0:
             break
-        c = projective_cover(X)
+        c = _budgeted_cover(X, len(steps), limit, M.name)
         K = kernel_spaces(c.cover, X, c.projection)
         label = f"Omega^{len(steps) + 1}({M.name})" if M.name else ""
         steps.append(_Step(c, tuple(K), c.cover.submodule(K, label)))
@@ -273,14 +329,19 @@ class ProjectiveResolution:
         }
 
 
-def projective_resolution(M: Module, length: int) -> ProjectiveResolution:
+def projective_resolution(
+    M: Module, length: int, *, max_syzygy_dimension: int | None = None
+) -> ProjectiveResolution:
     """The minimal projective resolution of ``M`` up to the term ``P_length``.
 
     Fewer terms come back when the resolution ends earlier (see
     :attr:`ProjectiveResolution.complete`).  The steps are cached on ``M``.
+    Raises :class:`~hwcat.errors.WorkBudgetExceeded` when a syzygy or term
+    would exceed ``max_syzygy_dimension`` (default
+    :data:`DEFAULT_MAX_SYZYGY_DIMENSION`).
     """
     _need_int(length, "length", 0)
-    steps = _steps(M, length + 1)
+    steps = _steps(M, length + 1, max_syzygy_dimension)
     return ProjectiveResolution(
         M,
         tuple(s.cover for s in steps),
@@ -289,17 +350,19 @@ def projective_resolution(M: Module, length: int) -> ProjectiveResolution:
     )
 
 
-def projective_presentation(M: Module) -> ProjectiveResolution:
+def projective_presentation(
+    M: Module, *, max_syzygy_dimension: int | None = None
+) -> ProjectiveResolution:
     """The minimal projective presentation ``P_1 -> P_0 -> M -> 0`` (the resolution up to ``P_1``)."""
-    return projective_resolution(M, 1)
+    return projective_resolution(M, 1, max_syzygy_dimension=max_syzygy_dimension)
 
 
-def syzygy(M: Module, i: int = 1) -> Module:
+def syzygy(M: Module, i: int = 1, *, max_syzygy_dimension: int | None = None) -> Module:
     """``Omega^i(M)``, the ``i``-th syzygy in the minimal resolution (``Omega^0(M) = M``)."""
     _need_int(i, "i", 0)
     if i == 0:
         return M
-    steps = _steps(M, i)
+    steps = _steps(M, i, max_syzygy_dimension)
     return steps[i - 1].syzygy if len(steps) == i else _zero_module(M.algebra)
 
 
@@ -372,7 +435,9 @@ class InjectiveCoresolution:
         }
 
 
-def injective_coresolution(M: Module, length: int) -> InjectiveCoresolution:
+def injective_coresolution(
+    M: Module, length: int, *, max_syzygy_dimension: int | None = None
+) -> InjectiveCoresolution:
     """The minimal injective coresolution of ``M`` up to the term ``I^length``.
 
     >>> from hwcat.io.spec import load_spec_text
@@ -381,7 +446,7 @@ def injective_coresolution(M: Module, length: int) -> InjectiveCoresolution:
     >>> injective_coresolution(simple(A, 1), 3).multiplicities()
     ((0, 1), (1, 0))
     """
-    R = projective_resolution(_dual(M), length)
+    R = projective_resolution(_dual(M), length, max_syzygy_dimension=max_syzygy_dimension)
     terms = tuple(_named_dual(c.cover, f"I^{i}") for i, c in enumerate(R.covers))
     coaug = tuple(m.transpose() for m in R.augmentation) if R.covers else ()
     return InjectiveCoresolution(
@@ -402,7 +467,7 @@ def _named_dual(P: Module, name: str) -> Module:
 # -- Ext --------------------------------------------------------------------------------------------
 
 
-def _hom_differential(R: ProjectiveResolution, i: int, N: Module) -> Mat:
+def _hom_differential(R: ProjectiveResolution | _ExtData, i: int, N: Module) -> Mat:
     """``Hom(P_(i-1), N) -> Hom(P_i, N)`` in the coordinates ``(u_k)``, ``u_k`` in ``N_(v_k)``.
 
     The block from summand ``k`` (vertex ``v``) of ``P_(i-1)`` to generator
@@ -447,11 +512,22 @@ def _hom_differential(R: ProjectiveResolution, i: int, N: Module) -> Mat:
     return Mat.from_flat(F, nrows, ncols, flat)
 
 
-def ext_dimensions(M: Module, N: Module, degree: int) -> tuple[int, ...]:
+@dataclass(frozen=True, eq=False)
+class _ExtData:
+    covers: tuple[ProjectiveCover, ...]  # P_0 .. P_(degree+1)
+    inclusions: tuple[tuple[Mat, ...], ...]  # Omega^1 in P_0 .. Omega^(degree+1) in P_degree
+
+
+def ext_dimensions(
+    M: Module, N: Module, degree: int, *, max_syzygy_dimension: int | None = None
+) -> tuple[int, ...]:
     """``(dim Ext^0(M, N), ..., dim Ext^degree(M, N))`` from the minimal resolution of ``M``.
 
     ``Ext^0`` is ``Hom``.  The resolution of ``M`` is cached on ``M``, so
-    many calls with the same ``M`` share it.
+    many calls with the same ``M`` share it.  Only the terms ``P_0, ...,
+    P_(degree+1)`` are built (the syzygy after the last term is not needed);
+    :class:`~hwcat.errors.WorkBudgetExceeded` is raised when one of them or
+    a syzygy would exceed ``max_syzygy_dimension``.
 
     >>> from hwcat.io.spec import load_spec_text
     >>> from hwcat.modules import simple
@@ -464,7 +540,12 @@ def ext_dimensions(M: Module, N: Module, degree: int) -> tuple[int, ...]:
     _need_int(degree, "degree", 0)
     if M.algebra is not N.algebra:
         raise InternalInconsistency("Ext between modules over different algebras")
-    R = projective_resolution(M, degree + 1)
+    limit = max_syzygy_dimension_or_default(max_syzygy_dimension)
+    steps = _steps(M, degree + 1, limit)
+    covers = [s.cover for s in steps]
+    if len(steps) == degree + 1 and steps[-1].syzygy.dim:
+        covers.append(_budgeted_cover(steps[-1].syzygy, degree + 1, limit, M.name))
+    R = _ExtData(tuple(covers), tuple(s.kernel for s in steps))
     homs = [sum(N.dims[v] for v in c.summands) for c in R.covers]
     ranks = [0] + [_hom_differential(R, i, N).rank() for i in range(1, len(R.covers))]
     out = []

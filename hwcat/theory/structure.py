@@ -8,6 +8,7 @@ from typing import Any
 from hwcat.algebras.hub.basic import BasicAlgebra
 from hwcat.modules import Module, injective, projective
 from hwcat.modules.loewy import LoewyDiagram, is_indecomposable_projective_injective, loewy_diagram
+from hwcat.progress import task
 
 __all__ = ["ModuleSummary", "StructureReport", "describe", "summarise_module"]
 
@@ -95,6 +96,12 @@ class StructureReport:
         }
 
 
+def _summary(M: Module, step) -> ModuleSummary:
+    out = summarise_module(M)
+    step(1)
+    return out
+
+
 def describe(A: BasicAlgebra) -> StructureReport:
     """The structure report of an algebra.
 
@@ -104,8 +111,9 @@ def describe(A: BasicAlgebra) -> StructureReport:
     >>> r.dimension, r.cartan, r.loewy_length
     (3, ((1, 0), (1, 1)), 2)
     """
-    Ps = tuple(summarise_module(projective(A, s)) for s in range(A.n))
-    Is = tuple(summarise_module(injective(A, s)) for s in range(A.n))
+    with task("projective and injective modules", total=2 * A.n) as step:
+        Ps = tuple(_summary(projective(A, s), step) for s in range(A.n))
+        Is = tuple(_summary(injective(A, s), step) for s in range(A.n))
     return StructureReport(
         name=A.name,
         field=A.field.name,

@@ -8,6 +8,7 @@ from typing import Any
 from hwcat.algebras.hub.basic import BasicAlgebra
 from hwcat.errors import InternalInconsistency
 from hwcat.modules import injective, projective
+from hwcat.progress import task
 from hwcat.theory.highest_weight import (
     FiltrationResult,
     costandard_filtration,
@@ -66,10 +67,14 @@ class SearchSummary:
 
 @dataclass(frozen=True)
 class Axiom:
-    """One axiom: its name, whether it holds, a one-line summary and the witness data."""
+    """One axiom: its name, whether it holds, a one-line summary and the witness data.
+
+    ``holds`` is ``None`` when the work budget of a homological computation
+    was reached before the axiom was decided (the summary says where).
+    """
 
     name: str
-    holds: bool
+    holds: bool | None
     summary: str
     witness: Any = None
 
@@ -265,36 +270,55 @@ def _filtered(
     )
 
 
-def _ext_axioms(A: BasicAlgebra, order: PartialOrder, Ds, Ns) -> tuple[Axiom, Axiom]:
-    """The Ext conditions: Ext^1,2(Delta, nabla) = 0, and Ext^1(Delta(L), Delta(mu)) != 0 only if L < mu."""
+def _ext_axioms(
+    A: BasicAlgebra, order: PartialOrder, Ds, Ns, max_syzygy_dimension: int | None
+) -> tuple[Axiom, Axiom]:
+    """The Ext conditions: Ext^1,2(Delta, nabla) = 0, and Ext^1(Delta(L), Delta(mu)) != 0 only if L < mu.
+
+    A standard module whose resolution reaches the work budget leaves its
+    pairs undecided (``holds`` is ``None`` unless another pair already fails).
+    """
+    from hwcat.errors import WorkBudgetExceeded
     from hwcat.theory.homological import ext_dimensions
 
     n = A.n
-    bad = []
-    for L in range(n):
-        for mu in range(n):
-            e = ext_dimensions(Ds[L], Ns[mu], 2)
-            for i in (1, 2):
-                if e[i]:
-                    bad.append(
-                        {
-                            "standard": A.vertices[L],
-                            "costandard": A.vertices[mu],
-                            "degree": i,
-                            "dimension": e[i],
-                            "text": f"dim Ext^{i}(Delta({A.vertices[L]}), nabla({A.vertices[mu]})) = {e[i]}",
-                        }
-                    )
-    a1 = Axiom(
-        "ext-standard-costandard",
-        not bad,
-        "Ext^i(Delta(L), nabla(mu)) = 0 for i = 1, 2" if not bad else bad[0]["text"],
-        bad or None,
+    bad, undecided = [], []
+
+    def ext(M, N, degree: int, L: int):
+        try:
+            return ext_dimensions(M, N, degree, max_syzygy_dimension=max_syzygy_dimension)
+        except WorkBudgetExceeded as exc:
+            undecided.append({"standard": A.vertices[L], "degree": exc.degree, "text": str(exc)})
+            return None
+
+    with task("Ext(Delta, nabla)", total=n) as step:
+        for L in range(n):
+            step(1)
+            for mu in range(n):
+                e = ext(Ds[L], Ns[mu], 2, L)
+                if e is None:
+                    break
+                for i in (1, 2):
+                    if e[i]:
+                        bad.append(
+                            {
+                                "standard": A.vertices[L],
+                                "costandard": A.vertices[mu],
+                                "degree": i,
+                                "dimension": e[i],
+                                "text": f"dim Ext^{i}(Delta({A.vertices[L]}), nabla({A.vertices[mu]})) = {e[i]}",
+                            }
+                        )
+    a1 = _ext_axiom(
+        "ext-standard-costandard", "Ext^i(Delta(L), nabla(mu)) = 0 for i = 1, 2", bad, undecided
     )
-    bad2 = []
+    bad2, undecided = [], []
     for L in range(n):
         for mu in range(n):
-            d = ext_dimensions(Ds[L], Ds[mu], 1)[1]
+            e = ext(Ds[L], Ds[mu], 1, L)
+            if e is None:
+                break
+            d = e[1]
             if d and not order.lt(L, mu):
                 bad2.append(
                     {
@@ -305,13 +329,25 @@ def _ext_axioms(A: BasicAlgebra, order: PartialOrder, Ds, Ns) -> tuple[Axiom, Ax
                         f"{A.vertices[L]} is not below {A.vertices[mu]}",
                     }
                 )
-    a2 = Axiom(
-        "ext-quiver-standard",
-        not bad2,
-        "Ext^1(Delta(L), Delta(mu)) != 0 only if L < mu" if not bad2 else bad2[0]["text"],
-        bad2 or None,
+    a2 = _ext_axiom(
+        "ext-quiver-standard", "Ext^1(Delta(L), Delta(mu)) != 0 only if L < mu", bad2, undecided
     )
     return a1, a2
+
+
+def _ext_axiom(name: str, statement: str, bad: list, undecided: list) -> Axiom:
+    if bad:
+        return Axiom(name, False, bad[0]["text"], bad)
+    if undecided:
+        u = undecided[0]
+        return Axiom(
+            name,
+            None,
+            f"undecided: the resolution of Delta({u['standard']}) reached the work budget at "
+            f"degree {u['degree']}",
+            {"undecided": undecided},
+        )
+    return Axiom(name, True, statement, None)
 
 
 def check_order(
@@ -321,8 +357,15 @@ def check_order(
     order_source: str = "given",
     extensions: bool = True,
     homological: bool = True,
+    bound: int | None = None,
+    max_syzygy_dimension: int | None = None,
 ) -> OrderVerdict:
     """Check every highest-weight axiom for ``order``; the verdict with witnesses.
+
+    ``bound`` and ``max_syzygy_dimension`` are the work budget of the
+    homological part (see :mod:`hwcat.theory.homological_dimension`; defaults
+    there): the global dimension may come back as "at least k" and an Ext
+    axiom as undecided, but the check always ends.
 
     ``quasi_hereditary`` is the module-theoretic verdict (standard modules
     schurian and projectives standardly filtered); the heredity chain is
@@ -428,12 +471,15 @@ def check_order(
         from hwcat.theory.homological import global_dimension
         from hwcat.theory.tilting import ringel_dual, tilting_modules
 
-        extra = _ext_axioms(A, order, Ds, Ns)
-        if qh and not all(a.holds for a in extra):
+        extra = _ext_axioms(A, order, Ds, Ns, max_syzygy_dimension)
+        if qh and any(a.holds is False for a in extra):
             raise InternalInconsistency("quasi-hereditary, yet an Ext condition fails")
-        gd = global_dimension(A, bound=max(2 * n - 1, 1) if qh else None)
+        if bound is None and qh:
+            bound = max(2 * n - 1, 1)
+        gd = global_dimension(A, bound=bound, max_syzygy_dimension=max_syzygy_dimension)
         if qh:
-            if gd.case != "finite" or gd.value > max(2 * n - 2, 0):
+            # "at least k" is a proven lower bound too
+            if gd.case == "infinite" or gd.value > max(2 * n - 2, 0):
                 raise InternalInconsistency(
                     f"quasi-hereditary with {n} simples but global dimension {gd} (Ringel 2010: at most 2n - 2)"
                 )

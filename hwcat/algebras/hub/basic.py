@@ -11,28 +11,49 @@ it.  The data are
   under taking prefixes; the trivial path ``()`` is the first basis element of
   ``e_s A e_s``;
 * for each vertex ``s`` and arrow ``a`` the matrix of right multiplication by
-  ``a`` on ``e_s A``, from ``e_s A e_source(a)`` to ``e_s A e_target(a)``.
+  ``a`` on ``e_s A``, from ``e_s A e_source(a)`` to ``e_s A e_target(a)``;
+  only the nonzero ones are stored (:meth:`BasicAlgebra.action_matrix` gives
+  any of them, :meth:`BasicAlgebra.action_support` the arrows stored at ``s``).
 
 So ``e_s A`` is the indecomposable projective right module ``P(s)`` as a
 representation of the quiver, and the product of two basis elements
 ``x * w`` (``w`` a basis path) is ``x`` acted on by the arrows of ``w`` in turn.
 Everything is stored block by block: no dense ``dim A x dim A`` matrix.
+
+Analyses keep per-algebra results (projective modules, traces, standard
+modules, ...) through :meth:`BasicAlgebra.cached`, never through private
+attributes.
 """
 
 from __future__ import annotations
 
 import copy
-from collections.abc import Iterable, Sequence
+from collections.abc import Callable, Iterable, Sequence
 from typing import Any
 
-import networkx as nx
-
 from hwcat.algebras.hub.quiver import Arrow, Path, Quiver, format_path
-from hwcat.algebras.hub.rep import closure, cyclic_word_basis, quotient
+from hwcat.algebras.hub.rep import ArrowMaps, closure, cyclic_word_basis, quotient
 from hwcat.errors import InternalInconsistency, VertexError
 from hwcat.exact import Field, Mat
 
 __all__ = ["BasicAlgebra"]
+
+
+class _ActionRow(Sequence):
+    """``action[s]``: one matrix per arrow, the zero ones made on demand (not stored)."""
+
+    __slots__ = ("_A", "_s")
+
+    def __init__(self, A: BasicAlgebra, s: int) -> None:
+        self._A, self._s = A, s
+
+    def __len__(self) -> int:
+        return len(self._A.quiver.arrows)
+
+    def __getitem__(self, i):  # type: ignore[override]
+        if isinstance(i, slice):
+            return tuple(self[k] for k in range(*i.indices(len(self))))
+        return self._A.action_matrix(self._s, i)
 
 
 class BasicAlgebra:
@@ -74,7 +95,15 @@ class BasicAlgebra:
         self.words: tuple[tuple[tuple[Path, ...], ...], ...] = tuple(
             tuple(tuple(words[s][t]) for t in range(n)) for s in range(n)
         )
-        self.action: tuple[tuple[Mat, ...], ...] = tuple(tuple(a) for a in action)
+        self._check_action(action)
+        self._action: tuple[dict[int, Mat], ...] = tuple(
+            {
+                i: m
+                for i, m in (row.items() if isinstance(row, ArrowMaps) else enumerate(row))
+                if m.nrows and m.ncols and not m.is_zero()
+            }
+            for row in action
+        )
         self.name = name
         self.morita = tuple(morita) if morita is not None else (1,) * n
         self.relations = tuple(relations) if relations is not None else None
@@ -82,7 +111,47 @@ class BasicAlgebra:
         self.natural_order: str | None = None  # a family's natural highest-weight order, as text
         self._check()
 
+    # -- caching ----------------------------------------------------------------
+    def cached(self, key: Any, compute: Callable[[], Any]) -> Any:
+        """The value stored under ``key``, computing and storing ``compute()`` the first time.
+
+        The per-algebra memory of every analysis (projectives, traces, standard
+        modules, ...).  Keys are tuples whose first entry names the kind of
+        value, e.g. ``("module:projective", s)``.
+
+        >>> from hwcat.io.spec import load_spec_text
+        >>> A = load_spec_text('field = "QQ"\\n[quiver]\\nvertices = ["1"]')
+        >>> A.cached(("answer",), lambda: 42), A.cached(("answer",), lambda: 0)
+        (42, 42)
+        """
+        try:
+            return self._cache[key]
+        except KeyError:
+            value = self._cache[key] = compute()
+            return value
+
+    def is_cached(self, key: Any) -> bool:
+        """Whether a value is stored under ``key``."""
+        return key in self._cache
+
     # -- basic data ------------------------------------------------------------
+    @property
+    def action(self) -> tuple[Sequence[Mat], ...]:
+        """``action[s][a]``: right multiplication by arrow ``a`` on ``e_s A`` (zeros made on demand)."""
+        return tuple(_ActionRow(self, s) for s in range(self.n))
+
+    def action_matrix(self, s: int, a: int) -> Mat:
+        """Right multiplication by arrow ``a`` on ``e_s A``, ``e_s A e_source(a) -> e_s A e_target(a)``."""
+        m = self._action[s].get(a)
+        if m is not None:
+            return m
+        arrow = self.quiver.arrows[a]
+        return Mat.zeros(self.field, self.block_dim(s, arrow.source), self.block_dim(s, arrow.target))
+
+    def action_support(self, s: int) -> tuple[int, ...]:
+        """The arrows whose action on ``e_s A`` is nonzero (the only ones stored)."""
+        return tuple(sorted(self._action[s]))
+
     @property
     def vertices(self) -> tuple[str, ...]:
         return self.quiver.vertices
@@ -162,13 +231,16 @@ class BasicAlgebra:
 
     def projective_rep(self, s: int) -> tuple[tuple[int, ...], tuple[Mat, ...]]:
         """``P(s) = e_s A`` as ``(dims, maps)``."""
-        return self.projective_dims(s), self.action[s]
+        dims = self.projective_dims(s)
+        return dims, ArrowMaps(self.field, dims, self.arrows, dict(self._action[s]))
 
     def injective_rep(self, s: int) -> tuple[tuple[int, ...], tuple[Mat, ...]]:
         """``I(s) = D(A e_s)`` as ``(dims, maps)`` (dual of the opposite's projective)."""
         op = self.opposite()
         dims, maps = op.projective_rep(s)
-        return dims, tuple(m.transpose() for m in maps)
+        return dims, ArrowMaps(
+            self.field, dims, self.arrows, {i: m.transpose() for i, m in maps.items()}
+        )
 
     def path_text(self, path: Path, vertex: int | None = None) -> str:
         return format_path(self.quiver, path, vertex)
@@ -196,19 +268,26 @@ class BasicAlgebra:
         return text[2:] if text.startswith("+ ") else "-" + text[2:]
 
     # -- consistency -------------------------------------------------------------
+    def _check_action(self, action: Sequence[Sequence[Mat]]) -> None:
+        if len(action) != self.n:
+            raise InternalInconsistency("words/action do not match the vertices")
+        for s, row in enumerate(action):
+            if len(row) != len(self.arrows):
+                raise InternalInconsistency("one action matrix per arrow is needed")
+            if isinstance(row, ArrowMaps) and row.dims == self.projective_dims(s):
+                continue  # shapes checked when it was made
+            for i, a in enumerate(self.arrows):
+                m = row[i]
+                if m.shape != (self.block_dim(s, a.source), self.block_dim(s, a.target)):
+                    raise InternalInconsistency(f"action of arrow {a.name} has shape {m.shape}")
+
     def _check(self) -> None:
         n = self.n
-        if len(self.words) != n or len(self.action) != n:
+        if len(self.words) != n:
             raise InternalInconsistency("words/action do not match the vertices")
         for s in range(n):
             if not self.words[s][s] or self.words[s][s][0] != ():
                 raise InternalInconsistency(f"e_{s} A e_{s} must start with the trivial path")
-            if len(self.action[s]) != len(self.arrows):
-                raise InternalInconsistency("one action matrix per arrow is needed")
-            for i, a in enumerate(self.arrows):
-                m = self.action[s][i]
-                if m.shape != (self.block_dim(s, a.source), self.block_dim(s, a.target)):
-                    raise InternalInconsistency(f"action of arrow {a.name} has shape {m.shape}")
         for i, a in enumerate(self.arrows):
             if (i,) not in self.word_index(a.source, a.target):
                 raise InternalInconsistency(f"arrow {a.name} is not a basis element")
@@ -232,7 +311,7 @@ class BasicAlgebra:
                 ws = self.words[a.target][s]
                 rows = []
                 for w in ws:
-                    rows.append(self._extend(u, memo, w))
+                    rows.append(self.extend_path(u, memo, w))
                 per_s[s] = Mat.vstack(F, rows, self.block_dim(u, s))
             left.append(per_s)
         opq = Quiver(self.vertices, tuple(Arrow(a.name, a.target, a.source) for a in self.arrows))
@@ -252,10 +331,14 @@ class BasicAlgebra:
         self._cache["opposite"] = op
         return op
 
-    def _extend(self, u: int, memo: dict[Path, Mat], w: Path) -> Mat:
+    def extend_path(self, u: int, memo: dict[Path, Mat], w: Path) -> Mat:
+        """``x * w`` for the rows ``x = memo[()]`` of ``e_u A``, along the arrows of ``w``.
+
+        ``memo`` maps paths to products already known (prefixes are reused).
+        """
         if w in memo:
             return memo[w]
-        v = self._extend(u, memo, w[:-1]) @ self.action[u][w[-1]]
+        v = self.extend_path(u, memo, w[:-1]) @ self.action_matrix(u, w[-1])
         memo[w] = v
         return v
 
@@ -277,15 +360,24 @@ class BasicAlgebra:
         vector at ``s``).  A prefix-closed basis of paths is chosen by
         :func:`~hwcat.algebras.hub.rep.cyclic_word_basis` and the action rewritten in it.
         """
-        n = len(quiver.vertices)
         words, action = [], []
         for s, (dims, maps) in enumerate(reps):
             start = starts[s] if starts is not None else Mat.unit_rows(field, dims[s], [0])
             ws, rows = cyclic_word_basis(field, dims, maps, quiver.arrows, s, start)
-            inv = [rows[t].inverse() for t in range(n)]
-            act = [rows[a.source] @ maps[i] @ inv[a.target] for i, a in enumerate(quiver.arrows)]
+            maps = ArrowMaps(field, dims, quiver.arrows, maps)
+            inv: dict[int, Mat] = {}
+
+            def inverse(t: int, rows=rows, inv=inv) -> Mat:
+                if t not in inv:
+                    inv[t] = rows[t].inverse()
+                return inv[t]
+
+            act = {
+                i: rows[quiver.arrows[i].source] @ m @ inverse(quiver.arrows[i].target)
+                for i, m in maps.items()
+            }
             words.append(ws)
-            action.append(act)
+            action.append(ArrowMaps(field, dims, quiver.arrows, act))
         return cls(field, quiver, words, action, name=name, morita=morita)
 
     def quotient_by_vertices(self, S: Iterable[int]) -> BasicAlgebra:
@@ -331,11 +423,20 @@ class BasicAlgebra:
 
     def components(self) -> list[list[int]]:
         """The blocks: vertex sets of the connected components of the quiver."""
-        G = nx.Graph()
-        G.add_nodes_from(range(self.n))
-        G.add_edges_from((a.source, a.target) for a in self.arrows)
-        comps = [sorted(c) for c in nx.connected_components(G)]
-        return sorted(comps)
+        parent = list(range(self.n))
+
+        def root(v: int) -> int:
+            while parent[v] != v:
+                parent[v] = parent[parent[v]]
+                v = parent[v]
+            return v
+
+        for a in self.arrows:
+            parent[root(a.source)] = root(a.target)
+        comps: dict[int, list[int]] = {}
+        for v in range(self.n):
+            comps.setdefault(root(v), []).append(v)
+        return sorted(comps.values())
 
     def full_subalgebra(self, vertices: Sequence[int]) -> BasicAlgebra:
         """``e A e`` for a union of blocks (no path leaves ``vertices``)."""
@@ -360,7 +461,7 @@ class BasicAlgebra:
             [tuple(tuple(remap[x] for x in w) for w in self.words[s][t]) for t in keep]
             for s in keep
         ]
-        action = [[self.action[s][i] for i in arrows] for s in keep]
+        action = [[self.action_matrix(s, i) for i in arrows] for s in keep]
         return BasicAlgebra(
             self.field,
             quiver,
@@ -379,7 +480,7 @@ class BasicAlgebra:
         F = self.field
         du, dt = self.block_dim(s, u), self.block_dim(s, t)
         memo: dict[Path, Mat] = {(): Mat.identity(F, du)}
-        blocks = [self._extend(s, memo, y) for y in self.words[u][t]]
+        blocks = [self.extend_path(s, memo, y) for y in self.words[u][t]]
         return Mat.vstack(F, blocks, dt)
 
     def to_dict(self) -> dict[str, Any]:

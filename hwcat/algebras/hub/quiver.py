@@ -9,12 +9,14 @@ from __future__ import annotations
 
 import re
 from dataclasses import dataclass
-from typing import Any
-
-import networkx as nx
+from typing import TYPE_CHECKING, Any
 
 from hwcat.errors import CoefficientError, QuiverError, RelationError
 from hwcat.exact import Field, coefficient_prefix, split_factors, split_signed_terms
+
+if TYPE_CHECKING:
+    import networkx as nx
+
 
 __all__ = ["Arrow", "Quiver", "Path", "parse_arrow", "parse_relation", "format_path"]
 
@@ -81,6 +83,8 @@ class Quiver:
 
     def graph(self) -> nx.MultiDiGraph:
         """The quiver as a networkx multigraph on vertex indices."""
+        import networkx as nx
+
         G = nx.MultiDiGraph()
         G.add_nodes_from(range(len(self.vertices)))
         for i, a in enumerate(self.arrows):

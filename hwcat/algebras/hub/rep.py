@@ -16,6 +16,7 @@ from hwcat.errors import InternalInconsistency
 from hwcat.exact import Field, Mat, echelon, quotient_map, select_independent_rows
 
 __all__ = [
+    "ArrowMaps",
     "closure",
     "restrict",
     "quotient",
@@ -23,6 +24,74 @@ __all__ = [
     "cyclic_word_basis",
     "generated_word_basis",
 ]
+
+
+class ArrowMaps(Sequence):
+    """One matrix per arrow, storing only the arrows between nonzero spaces.
+
+    ``maps[i]`` of an arrow with a zero-dimensional end is a ``0 x d`` or
+    ``d x 0`` matrix made on demand; :attr:`support` lists the arrows stored.
+    Loops that only need the nonzero maps iterate over :attr:`support`, so a
+    representation supported on a few vertices of a large quiver costs what
+    its support costs.
+    """
+
+    __slots__ = ("field", "dims", "arrows", "_maps", "support")
+
+    def __init__(
+        self,
+        field: Field,
+        dims: Sequence[int],
+        arrows: Sequence[Arrow],
+        maps: Sequence[Mat] | dict[int, Mat],
+    ) -> None:
+        self.field, self.dims, self.arrows = field, tuple(dims), arrows
+        if isinstance(maps, ArrowMaps) and maps.dims == self.dims and maps.arrows is arrows:
+            self._maps, self.support = maps._maps, maps.support
+            return
+        if isinstance(maps, dict):
+            items = maps.items()
+        else:
+            if len(maps) != len(arrows):
+                raise InternalInconsistency("one matrix per arrow is needed")
+            items = (
+                (i, maps[i])
+                for i, a in enumerate(arrows)
+                if self.dims[a.source] and self.dims[a.target]
+            )
+        stored = {}
+        for i, m in items:
+            a = arrows[i]
+            if m.shape != (self.dims[a.source], self.dims[a.target]):
+                raise InternalInconsistency(f"arrow {a.name}: matrix of shape {m.shape}")
+            if m.nrows and m.ncols:
+                stored[i] = m
+        self._maps = stored
+        self.support = tuple(sorted(stored))
+
+    def __len__(self) -> int:
+        return len(self.arrows)
+
+    def __getitem__(self, i):  # type: ignore[override]
+        if isinstance(i, slice):
+            return tuple(self[k] for k in range(*i.indices(len(self))))
+        m = self._maps.get(i)
+        if m is not None:
+            return m
+        if i < 0:
+            return self[i + len(self)]
+        a = self.arrows[i]
+        return Mat.zeros(self.field, self.dims[a.source], self.dims[a.target])
+
+    def items(self) -> list[tuple[int, Mat]]:
+        """``(arrow index, matrix)`` for the stored arrows."""
+        return [(i, self._maps[i]) for i in self.support]
+
+
+def _support(dims: Sequence[int], maps: Sequence[Mat], arrows: Sequence[Arrow]) -> list[int]:
+    if isinstance(maps, ArrowMaps):
+        return list(maps.support)
+    return [i for i, a in enumerate(arrows) if dims[a.source] and dims[a.target]]
 
 
 def closure(
@@ -41,8 +110,8 @@ def closure(
     n = len(dims)
     sub = list(start) if start is not None else [Mat.zeros(field, 0, dims[v]) for v in range(n)]
     out_arrows: list[list[int]] = [[] for _ in range(n)]
-    for i, a in enumerate(arrows):
-        out_arrows[a.source].append(i)
+    for i in _support(dims, maps, arrows):
+        out_arrows[arrows[i].source].append(i)
     todo: list[int] = []
     for v, g in gens.items():
         if g.nrows:
@@ -84,11 +153,13 @@ def restrict(
     Coordinates in a reduced echelon basis are the entries at the pivots.
     """
     pivots = [s.echelon_pivots() for s in sub]
-    out = []
-    for i, a in enumerate(arrows):
-        img = sub[a.source] @ maps[i]
-        out.append(img.take_cols(pivots[a.target]))
-    return out
+    dims = [s.nrows for s in sub]
+    out = {}
+    for i in _support([s.ncols for s in sub], maps, arrows):
+        a = arrows[i]
+        if dims[a.source] and dims[a.target]:
+            out[i] = (sub[a.source] @ maps[i]).take_cols(pivots[a.target])
+    return ArrowMaps(field, dims, arrows, out)
 
 
 def quotient(
@@ -104,8 +175,13 @@ def quotient(
         pi, sec, _ = quotient_map(sub[v], dims[v])
         pis.append(pi)
         sections.append(sec)
-    qmaps = [sections[a.source] @ maps[i] @ pis[a.target] for i, a in enumerate(arrows)]
-    return tuple(p.ncols for p in pis), qmaps, pis
+    qdims = tuple(p.ncols for p in pis)
+    qmaps = {}
+    for i in _support(dims, maps, arrows):
+        a = arrows[i]
+        if qdims[a.source] and qdims[a.target]:
+            qmaps[i] = sections[a.source] @ maps[i] @ pis[a.target]
+    return qdims, ArrowMaps(field, qdims, arrows, qmaps), pis
 
 
 def path_matrix(
@@ -149,8 +225,8 @@ def generated_word_basis(
     elems: list[list[tuple[int, Path]]] = [[] for _ in range(n)]
     rows: list[Mat] = [Mat.zeros(field, 0, dims[v]) for v in range(n)]
     out_arrows: list[list[int]] = [[] for _ in range(n)]
-    for i, a in enumerate(arrows):
-        out_arrows[a.source].append(i)
+    for i in _support(dims, maps, arrows):
+        out_arrows[arrows[i].source].append(i)
     frontier: list[tuple[tuple[int, Path], int, Mat]] = []
     by_vertex: dict[int, list[tuple[tuple[int, Path], Mat]]] = {}
     for g, (v, vec) in enumerate(generators):

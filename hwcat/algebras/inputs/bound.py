@@ -50,9 +50,7 @@ from __future__ import annotations
 from collections.abc import Sequence
 from fractions import Fraction
 from itertools import islice
-from typing import Any
-
-import networkx as nx
+from typing import TYPE_CHECKING, Any
 
 from hwcat.algebras.hub.basic import BasicAlgebra
 from hwcat.algebras.hub.quiver import Path, Quiver, format_path
@@ -60,6 +58,10 @@ from hwcat.algebras.hub.rep import closure, quotient
 from hwcat.errors import InternalInconsistency, NotFiniteDimensional, RelationError
 from hwcat.exact import Field, Mat, assemble, contains, quotient_map
 from hwcat.limits import check_dimension, check_vertices, current_limits, limit_error
+
+if TYPE_CHECKING:
+    import networkx as nx
+
 
 __all__ = ["bound_quiver_algebra", "MAX_DEGREE", "SEARCH_BUDGET", "golod_shafarevich_witness"]
 
@@ -109,9 +111,7 @@ def bound_quiver_algebra(
             "themselves cannot vanish in a bound quiver algebra)"
         )
     check_vertices(len(quiver.vertices))
-    if not relations and (
-        vanish_from_length is not None or nx.is_directed_acyclic_graph(_graph(quiver))
-    ):
+    if not relations and (vanish_from_length is not None or _is_acyclic(quiver)):
         _check_path_count(quiver, vanish_from_length)
     homogeneous, mixed = [], []
     for r, rel in enumerate(relations):
@@ -136,7 +136,15 @@ def bound_quiver_algebra(
     return A
 
 
+def _is_acyclic(Q: Quiver) -> bool:
+    import networkx as nx
+
+    return nx.is_directed_acyclic_graph(_graph(Q))
+
+
 def _graph(Q: Quiver) -> nx.DiGraph:
+    import networkx as nx
+
     G = nx.DiGraph()
     G.add_nodes_from(range(len(Q.vertices)))
     G.add_edges_from((a.source, a.target) for a in Q.arrows)
@@ -192,6 +200,8 @@ def golod_shafarevich_witness(Q: Quiver, relations: Sequence[dict[Path, Any]]) -
         p0 = next(iter(r))
         s, t, d = Q.arrows[p0[0]].source, Q.arrows[p0[-1]].target, len(p0)
         R[s][t][d] = R[s][t].get(d, 0) + 1
+    import networkx as nx
+
     G = _graph(Q)
     supports = [
         sorted(c)
@@ -459,6 +469,8 @@ def _relation_images(
 
 def _surviving_cycle(Q: Quiver, degrees: list[_Degree], D: int) -> Path | None:
     """A cycle of the graph of normal paths of length D - 1 (edges: normal paths of length D)."""
+    import networkx as nx
+
     n = len(Q.vertices)
     if len(degrees) <= D:
         return None
@@ -482,6 +494,8 @@ def _surviving_cycle(Q: Quiver, degrees: list[_Degree], D: int) -> Path | None:
 
 def _normal_path_graph(Q: Quiver, degrees: list[_Degree], D: int) -> nx.DiGraph:
     """Nodes: normal paths of length D - 1 (vertices when D = 1); edges: normal paths of length D."""
+    import networkx as nx
+
     n = len(Q.vertices)
     G = nx.DiGraph()
     for s in range(n):
@@ -511,6 +525,8 @@ def _certified_cycle(
     the relations, and ``c`` acts on it as a cyclic permutation, so no power of
     ``c`` lies in ``I``.  Sound, not complete.
     """
+    import networkx as nx
+
     if len(degrees) <= D:
         return None
     terms = {p for r in relations for p in r}
@@ -578,7 +594,7 @@ def _divide_by_elements(A: BasicAlgebra, elements: list[dict[Path, Any]]) -> Bas
             memo: dict[Path, Mat] = {(): Mat.identity(F, dx)}
             total = Mat.zeros(F, dx, A.block_dim(s, t))
             for path, c in r.items():
-                total = total + A._extend(s, memo, path).scale(c)
+                total = total + A.extend_path(s, memo, path).scale(c)
             gens_by_s[s].setdefault(t, []).append(total)
     reps, starts = [], []
     for s in range(n):

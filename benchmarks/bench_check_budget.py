@@ -1,0 +1,160 @@
+"""Benchmark: ``check`` with the homological part always ends, and quickly.
+
+Draws random bound quiver algebras of dimension at most 60 with
+:mod:`hwcat.strategies` (derandomised, so every run sees the same algebras),
+among them the shape that used to run for minutes (2 vertices, 3 arrows, one
+relation, ``vanish_from_length = 4``, over QQ and GF(101)), and runs the full
+check (Ext axioms, global dimension, tilting modules and Ringel dual when
+quasi-hereditary) for a random total order.  Prints the slowest cases and
+the distribution of times.
+
+Baseline in the same run: the slowest cases again with the work budget
+effectively off (``max_syzygy_dimension`` = 10^9, the Cartan determinant not
+used first), stopped after ``--cap`` seconds.
+
+    python benchmarks/bench_check_budget.py            # 300 algebras
+    python benchmarks/bench_check_budget.py --quick    # 60 algebras
+"""
+
+from __future__ import annotations
+
+import argparse
+import random
+import signal
+import sys
+import time
+import warnings
+from pathlib import Path
+
+sys.path.insert(0, str(Path(__file__).resolve().parents[1]))
+sys.path.insert(0, str(Path(__file__).resolve().parent))
+
+from _common import table
+from hypothesis import HealthCheck, given, settings
+from hypothesis import strategies as st
+
+from hwcat.errors import HwcatError
+from hwcat.exact import GF, QQ
+from hwcat.strategies import algebra_from_spec, bound_quiver_specs
+from hwcat.theory import homological_dimension
+from hwcat.theory.orders import total_order
+from hwcat.theory.verdict import check_order
+
+
+class _Timeout(Exception):
+    pass
+
+
+def _alarm(*_args):
+    raise _Timeout
+
+
+def draw_specs(count: int) -> list[dict]:
+    fields = (QQ, GF(101))
+    shape = st.one_of(
+        *[
+            bound_quiver_specs(2, 2, 3, field=F, max_relations=1, vanish_from_length=True)
+            for F in fields
+        ]
+    ).map(_vanish_from_4)
+    general = st.one_of(
+        *[bound_quiver_specs(1, 4, 6, field=F, max_relations=2, max_path_length=4) for F in fields]
+    )
+    specs: list[dict] = []
+
+    @settings(
+        max_examples=count,
+        database=None,
+        derandomize=True,
+        deadline=None,
+        suppress_health_check=list(HealthCheck),
+    )
+    @given(st.one_of(shape, general))
+    def collect(spec):
+        if spec not in specs:
+            specs.append(spec)
+
+    with warnings.catch_warnings():
+        warnings.simplefilter("ignore")
+        collect()
+    return specs
+
+
+def _vanish_from_4(spec: dict) -> dict:
+    spec["quiver"]["vanish_from_length"] = 4
+    return spec
+
+
+def run_check(A, order, cap: float, **budget) -> float | None:
+    signal.signal(signal.SIGALRM, _alarm)
+    signal.setitimer(signal.ITIMER_REAL, cap)
+    t0 = time.perf_counter()
+    try:
+        check_order(A, order, **budget)
+    except _Timeout:
+        return None
+    finally:
+        signal.setitimer(signal.ITIMER_REAL, 0)
+    return time.perf_counter() - t0
+
+
+def unbudgeted(A, order, cap: float) -> float | None:
+    """The baseline: no size limit and no determinant shortcut."""
+    old = homological_dimension._determinant
+    homological_dimension._determinant = lambda rows: 1
+    try:
+        return run_check(A, order, cap, max_syzygy_dimension=10**9)
+    finally:
+        homological_dimension._determinant = old
+
+
+def main() -> None:
+    ap = argparse.ArgumentParser()
+    ap.add_argument("--quick", action="store_true")
+    ap.add_argument("--cap", type=float, default=30.0, help="seconds before a run is stopped")
+    args = ap.parse_args()
+    specs = draw_specs(60 if args.quick else 300)
+    rng = random.Random(0)
+    timed = []
+    for spec in specs:
+        try:
+            A = algebra_from_spec(spec)
+        except HwcatError:
+            continue
+        if A.dim > 60:
+            continue
+        perm = list(range(A.n))
+        rng.shuffle(perm)
+        order = total_order(A.vertices, perm)
+        t = run_check(A, order, args.cap)
+        timed.append((t if t is not None else float("inf"), A, order, spec))
+    timed.sort(key=lambda x: x[0])
+    times = [t for t, *_ in timed]
+    print(f"{len(timed)} algebras of dimension <= 60; check with the homological part:")
+    for q in (0.5, 0.9, 0.99, 1.0):
+        print(f"  {int(q * 100)}% within {times[min(len(times) - 1, int(q * len(times)))]:.2f} s")
+    rows = []
+    for t, A, order, spec in timed[-8:]:
+        base = unbudgeted(A, order, args.cap)
+        q = spec["quiver"]
+        rows.append(
+            [
+                A.dim,
+                A.field.name,
+                len(q["arrows"]),
+                q.get("vanish_from_length", "-"),
+                f"{t:.2f}",
+                f"> {args.cap:.0f}" if base is None else f"{base:.2f}",
+                f"> {args.cap / t:.0f}x" if base is None else f"{base / t:.1f}x",
+            ]
+        )
+    print(
+        table(
+            rows,
+            ["dim A", "field", "arrows", "vanish", "check s", "unbudgeted s", "ratio"],
+        )
+    )
+
+
+if __name__ == "__main__":
+    main()
