@@ -44,7 +44,12 @@ from hwcat.errors import (
     StructureConstantsError,
 )
 from hwcat.exact import Field, Mat, PrimeField
-from hwcat.exact.polys import matrix_from_ints, sparse_matrix
+from hwcat.exact.polys import matrix_from_ints, matrix_from_residues, sparse_matrix
+
+try:  # optional: vectorised passes over the table (exact int64 arithmetic mod p)
+    import numpy as _np
+except ImportError:  # pragma: no cover - numpy is an optional extra
+    _np = None
 
 __all__ = [
     "StructureAlgebra",
@@ -59,6 +64,12 @@ EXACT_ASSOCIATIVITY_LIMIT = 40
 _TARGET_FAILURE = Fraction(1, 10**6)
 _MAX_TRIALS = 64
 _QQ_SAMPLE = 2**20  # random rational tests draw integer coordinates from [-2^20, 2^20]
+_VECTOR_PRIME_LIMIT = 2**31
+"""Over GF(p) with ``p`` below this bound (and numpy installed) the passes over the table
+that build dense matrices run as int64 array operations: every product of two residues
+is below 2^62 and every accumulated sum of ``dim`` residues stays below 2^63."""
+USE_VECTOR = True
+"""Switch for the vectorised passes (tests compare both paths)."""
 
 
 @dataclass(frozen=True)
@@ -297,6 +308,88 @@ class StructureAlgebra:
             return [v % p for v in out]
         return out
 
+    def _vectorised(self) -> bool:
+        return (
+            USE_VECTOR
+            and _np is not None
+            and 0 < self._p < _VECTOR_PRIME_LIMIT
+            and self.dim < _VECTOR_PRIME_LIMIT
+        )
+
+    def _np_cols(self) -> list[tuple[Any, Any, Any]]:
+        """The table's columns as int64 numpy views (no copy; cached)."""
+        if "np_cols" not in self._cache:
+            np = _np
+            self._cache["np_cols"] = [
+                (
+                    np.frombuffer(is_, dtype=np.int64) if len(is_) else np.zeros(0, np.int64),
+                    np.frombuffer(ks, dtype=np.int64) if len(ks) else np.zeros(0, np.int64),
+                    np.frombuffer(cs, dtype=np.int64) if len(cs) else np.zeros(0, np.int64),
+                )
+                for is_, ks, cs in self._cols
+            ]
+        return self._cache["np_cols"]
+
+    def _action_dense_vectorised(
+        self, y: list[Any], index: Sequence[int] | None, m: int, left: bool
+    ) -> Mat:
+        """The dense branch of :meth:`_action` with int64 arrays (same matrix, exactly)."""
+        np = _np
+        p = self._p
+        n = self.dim
+        cols = self._np_cols()
+        acc = np.zeros(m * m, dtype=np.int64)
+        if index is None:
+            posarr = None
+        else:
+            posarr = np.full(n, -1, dtype=np.int64)
+            posarr[np.asarray(index, dtype=np.int64)] = np.arange(m, dtype=np.int64)
+        if not left:
+            # column j of the table adds y_j c at (i, k); the pairs (i, k) of one column are
+            # distinct, so a fancy-indexed += adds each exactly once
+            for j, yj in enumerate(y):
+                if not yj:
+                    continue
+                i_a, k_a, c_a = cols[j]
+                if not len(i_a):
+                    continue
+                vals = (c_a * (yj % p)) % p
+                if posarr is None:
+                    acc[i_a * m + k_a] += vals
+                    continue
+                a = posarr[i_a]
+                b = posarr[k_a]
+                keep = a >= 0
+                if not keep.all():
+                    a, b, vals = a[keep], b[keep], vals[keep]
+                if len(b) and int(b.min()) < 0:
+                    raise InternalInconsistency("right action leaves the index set")
+                acc[a * m + b] += vals
+        else:
+            yv = np.asarray([int(v) % p for v in y], dtype=np.int64)
+            rows = range(n) if index is None else index
+            for j in rows:
+                i_a, k_a, c_a = cols[j]
+                if not len(i_a):
+                    continue
+                xi = yv[i_a]
+                nz = xi != 0
+                if not nz.any():
+                    continue
+                vals = (xi[nz] * c_a[nz]) % p
+                kk = k_a[nz]
+                if posarr is None:
+                    rj = j
+                else:
+                    rj = int(posarr[j])
+                    kk = posarr[kk]
+                    if int(kk.min()) < 0:
+                        raise InternalInconsistency("left action leaves the index set")
+                # several i may give the same k: add.at accumulates repeated positions
+                np.add.at(acc, rj * m + kk, vals)
+        acc %= p
+        return matrix_from_residues(self.field, m, m, acc)
+
     def _action(self, y: list[Any], index: Sequence[int] | None, left: bool) -> Mat:
         n = self.dim
         F = self.field
@@ -314,6 +407,8 @@ class StructureAlgebra:
         else:
             touched = sum(len(self._cols[j][0]) for j, yj in enumerate(y) if yj)
         dense = touched * 4 > m * m
+        if dense and self._vectorised():
+            return self._action_dense_vectorised(y, index, m, left)
         acc: Any = [self._zero_raw()] * (m * m) if dense else {}
         zero = self._zero_raw()
         if not left:
