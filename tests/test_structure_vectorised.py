@@ -31,15 +31,16 @@ pytest.importorskip("numpy")
 
 
 def _both(fn):
-    """``fn()`` with the plain path and with the vectorised path."""
-    old = structure.USE_VECTOR
+    """``fn()`` with the plain path and with the vectorised path (at every size)."""
+    old, old_min = structure.USE_VECTOR, structure.GRAM_VECTOR_MIN
+    structure.GRAM_VECTOR_MIN = 0
     try:
         structure.USE_VECTOR = False
         plain = fn()
         structure.USE_VECTOR = True
         fast = fn()
     finally:
-        structure.USE_VECTOR = old
+        structure.USE_VECTOR, structure.GRAM_VECTOR_MIN = old, old_min
     return plain, fast
 
 
@@ -74,6 +75,24 @@ def _compare_actions(A, rng):
         phi = _random_raw(A, rng, 1.0)
         plain, fast = _both(lambda: A.gram(A.vec(phi)))  # noqa: B023
         assert plain.tolist() == fast.tolist()
+        rows = rng.sample(range(A.dim), rng.randint(1, A.dim))
+        plain, fast = _both(lambda: A.gram(A.vec(phi), rows=rows))  # noqa: B023
+        assert plain.tolist() == fast.tolist()
+
+
+def _row_terms(A, vector):
+    old = structure.USE_VECTOR
+    try:
+        structure.USE_VECTOR = vector
+        A._cache.pop("rows", None)
+        return [tuple(list(x) for x in t) for t in A._row_terms()]
+    finally:
+        structure.USE_VECTOR = old
+        A._cache.pop("rows", None)
+
+
+def _compare_row_terms(A):
+    assert _row_terms(A, False) == _row_terms(A, True)
 
 
 @settings(max_examples=25, deadline=None)
@@ -84,6 +103,7 @@ def _compare_actions(A, rng):
 def test_vectorised_actions_agree_on_random_quiver_algebras(B, seed):
     A = from_basic_algebra(B)
     _compare_actions(A, random.Random(seed))
+    _compare_row_terms(A)
 
 
 @pytest.mark.parametrize(
@@ -96,7 +116,9 @@ def test_vectorised_actions_agree_on_random_quiver_algebras(B, seed):
     ids=["TL5(0)", "TL5(1)", "S(2,6)"],
 )
 def test_vectorised_actions_agree_on_family_tables(table):
-    _compare_actions(from_table(table), random.Random(7))
+    A = from_table(table)
+    _compare_actions(A, random.Random(7))
+    _compare_row_terms(A)
 
 
 @settings(max_examples=10, deadline=None)

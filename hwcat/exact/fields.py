@@ -21,6 +21,7 @@ True
 from __future__ import annotations
 
 import re
+from array import array
 from fractions import Fraction
 from functools import cache
 from typing import Any
@@ -169,6 +170,13 @@ class PrimeField(Field):
     def _raw_matrix(self, nrows: int, ncols: int, entries: list) -> Any:
         if not entries:
             return flint.nmod_mat(nrows, ncols, self.p)
+        if len(entries) >= 1024:
+            from hwcat.exact.nmod_bulk import nmod_mat_from_residues
+
+            p = self.p
+            M = nmod_mat_from_residues(nrows, ncols, array("q", [int(e) % p for e in entries]), p)
+            if M is not None:
+                return M
         return flint.nmod_mat(nrows, ncols, [int(e) for e in entries], self.p)
 
     def to_int_or_str(self, x: Any) -> int | str:

@@ -25,7 +25,6 @@ Examples
 
 from __future__ import annotations
 
-import ctypes
 from array import array
 from collections.abc import Iterable, Mapping, Sequence
 from typing import Any
@@ -35,6 +34,9 @@ import flint
 from hwcat.errors import InternalInconsistency
 from hwcat.exact.fields import Field, PrimeField
 from hwcat.exact.matrices import Mat
+from hwcat.exact.nmod_bulk import bulk_available, nmod_mat_from_residues
+
+_BULK_MIN = 4096
 
 __all__ = [
     "Poly",
@@ -193,59 +195,12 @@ def fitting_polynomials(factors: Sequence[tuple[Poly, int]]) -> list[Poly]:
 # -- matrix helpers that need flint ------------------------------------------------
 
 
-_LAYOUT: list[Any] = []  # [word offset of the entries pointer] or [None]; probed once
-_BULK_MIN = 4096
-
-
-def _nmod_layout() -> int | None:
-    """Word offset of ``(entries, r, c, stride, mod.n)`` inside a flint ``nmod_mat`` object.
-
-    Probed once on a small matrix with known entries; ``None`` when the layout is not
-    the expected one (then every matrix is filled through flint's list constructor).
-    """
-    if not _LAYOUT:
-        found = None
-        try:
-            probe = flint.nmod_mat(3, 5, list(range(100, 115)), 1009)
-            words = (ctypes.c_uint64 * 10).from_address(id(probe))
-            for off in range(2, 6):
-                if tuple(words[off + 1 : off + 5]) == (3, 5, 5, 1009):
-                    data = (ctypes.c_uint64 * 15).from_address(words[off])
-                    if list(data) == list(range(100, 115)):
-                        found = off
-                    break
-        except Exception:  # pragma: no cover - any surprise disables the bulk path
-            found = None
-        _LAYOUT.append(found)
-    return _LAYOUT[0]
-
-
-def _bulk_nmod_mat(nrows: int, ncols: int, buf: Any, p: int) -> Any:
-    """An ``nmod_mat`` filled by one memory copy from ``buf`` (uint64/int64 residues in
-    ``[0, p)``, row-major), or ``None`` when the bulk path is unavailable."""
-    off = _nmod_layout()
-    if off is None:
-        return None
-    M = flint.nmod_mat(nrows, ncols, p)
-    words = (ctypes.c_uint64 * (off + 5)).from_address(id(M))
-    if tuple(words[off + 1 : off + 5]) != (nrows, ncols, ncols, p):
-        return None
-    mv = memoryview(buf).cast("B")
-    if mv.nbytes != 8 * nrows * ncols:
-        raise InternalInconsistency("bulk matrix fill: buffer of the wrong size")
-    src = (ctypes.c_char * mv.nbytes).from_buffer_copy(mv) if mv.readonly else None
-    if src is None:
-        src = (ctypes.c_char * mv.nbytes).from_buffer(mv)
-    ctypes.memmove(words[off], ctypes.addressof(src), mv.nbytes)
-    return M
-
-
 def matrix_from_residues(field: PrimeField, nrows: int, ncols: int, buf: Any) -> Mat:
     """A dense matrix over GF(p) from a writable buffer of int64 residues in ``[0, p)``
     (row-major: an ``array("q")`` or a numpy int64 array), copied in one piece."""
     p = field.p
     if nrows and ncols and nrows * ncols >= _BULK_MIN:
-        M = _bulk_nmod_mat(nrows, ncols, buf, p)
+        M = nmod_mat_from_residues(nrows, ncols, buf, p)
         if M is not None:
             return Mat(field, M)
     vals = buf.tolist() if hasattr(buf, "tolist") else list(buf)
@@ -261,7 +216,7 @@ def matrix_from_ints(field: Field, nrows: int, ncols: int, values: Sequence[Any]
         return Mat.zeros(field, nrows, ncols)
     if isinstance(field, PrimeField):
         p = field.p
-        if nrows * ncols >= _BULK_MIN and p < 2**63 and _nmod_layout() is not None:
+        if nrows * ncols >= _BULK_MIN and p < 2**63 and bulk_available():
             # flint's list constructor converts entry by entry (about a microsecond each);
             # residues packed into an int64 array are copied in one piece
             return matrix_from_residues(field, nrows, ncols, array("q", [v % p for v in values]))

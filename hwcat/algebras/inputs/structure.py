@@ -70,6 +70,8 @@ that build dense matrices run as int64 array operations: every product of two re
 is below 2^62 and every accumulated sum of ``dim`` residues stays below 2^63."""
 USE_VECTOR = True
 """Switch for the vectorised passes (tests compare both paths)."""
+GRAM_VECTOR_MIN = 4096
+"""Gram matrices with fewer entries are built by the plain loop."""
 
 
 @dataclass(frozen=True)
@@ -390,6 +392,52 @@ class StructureAlgebra:
         acc %= p
         return matrix_from_residues(self.field, m, m, acc)
 
+    def _row_terms_vectorised(self) -> list[tuple[Any, Any, Any]]:
+        """:meth:`_row_terms` by one stable sort of the table's terms by their left factor."""
+        np = _np
+        n = self.dim
+        cols = self._np_cols()
+        lengths = np.asarray([len(c[0]) for c in cols], dtype=np.int64)
+        I = np.concatenate([c[0] for c in cols])
+        order = np.argsort(I, kind="stable")  # within one i, terms stay in the order of j
+        J = np.repeat(np.arange(n, dtype=np.int64), lengths)[order]
+        K = np.concatenate([c[1] for c in cols])[order]
+        C = np.concatenate([c[2] for c in cols])[order]
+        bounds = np.concatenate(([0], np.cumsum(np.bincount(I, minlength=n)))).tolist()
+        del I, order
+        out = []
+        for i in range(n):
+            lo, hi = bounds[i], bounds[i + 1]
+            out.append(
+                (
+                    array("l", J[lo:hi].tobytes()),
+                    array("l", K[lo:hi].tobytes()),
+                    array("q", C[lo:hi].tobytes()),
+                )
+            )
+        return out
+
+    def _gram_vectorised(self, ph: list[Any], rpos: list[int], rows, cols) -> Mat:
+        """The loop of :meth:`gram` with int64 arrays (same matrix, exactly)."""
+        np = _np
+        p = self._p
+        w = len(cols)
+        acc = np.zeros(len(rows) * w, dtype=np.int64)
+        pharr = np.asarray([int(x) % p for x in ph], dtype=np.int64)
+        rp = np.asarray(rpos, dtype=np.int64)
+        npc = self._np_cols()
+        for b, c in enumerate(cols):
+            i_a, k_a, c_a = npc[c]
+            if not len(i_a):
+                continue
+            a = rp[i_a]
+            v = (c_a * pharr[k_a]) % p
+            keep = (a >= 0) & (v != 0)
+            if keep.any():
+                np.add.at(acc, a[keep] * w + b, v[keep])  # one i may occur with several k
+        acc %= p
+        return matrix_from_residues(self.field, len(rows), w, acc)
+
     def _action(self, y: list[Any], index: Sequence[int] | None, left: bool) -> Mat:
         n = self.dim
         F = self.field
@@ -407,7 +455,8 @@ class StructureAlgebra:
         else:
             touched = sum(len(self._cols[j][0]) for j, yj in enumerate(y) if yj)
         dense = touched * 4 > m * m
-        if dense and self._vectorised():
+        if self._vectorised() and (dense or m * m >= GRAM_VECTOR_MIN):
+            # a zero-filled int64 array and one copy into flint beat entry-wise assembly
             return self._action_dense_vectorised(y, index, m, left)
         acc: Any = [self._zero_raw()] * (m * m) if dense else {}
         zero = self._zero_raw()
@@ -474,6 +523,8 @@ class StructureAlgebra:
 
     def _row_terms(self) -> list[tuple[Any, Any, Any]]:
         """For each ``i`` the terms of ``b_i * b_j`` over all ``j``: arrays ``(j, k, c)`` (cached)."""
+        if "rows" not in self._cache and self._vectorised() and self.nnz:
+            self._cache["rows"] = self._row_terms_vectorised()
         if "rows" not in self._cache:
             n = self.dim
             js: list[list[int]] = [[] for _ in range(n)]
@@ -518,6 +569,8 @@ class StructureAlgebra:
             rpos[i] = a
         acc = [self._zero_raw()] * (len(rows) * len(cols))
         w = len(cols)
+        if self._vectorised() and len(rows) * w >= GRAM_VECTOR_MIN:
+            return self._gram_vectorised(ph, rpos, rows, cols)
         for b, c in enumerate(cols):
             is_, ks, cs = self._cols[c]
             for i, k, coef in zip(is_, ks, cs, strict=True):
