@@ -76,6 +76,10 @@ def _compare_actions(A, rng):
         plain, fast = _both(lambda: A.gram(A.vec(phi)))  # noqa: B023
         assert plain.tolist() == fast.tolist()
         rows = rng.sample(range(A.dim), rng.randint(1, A.dim))
+        col = _random_raw(A, rng, 0.7)
+        for js in (None, rows):
+            plain, fast = _both(lambda: A._form_of_products(y, col, js))  # noqa: B023
+            assert plain == fast
         plain, fast = _both(lambda: A.gram(A.vec(phi), rows=rows))  # noqa: B023
         assert plain.tolist() == fast.tolist()
 

@@ -392,6 +392,35 @@ class StructureAlgebra:
         acc %= p
         return matrix_from_residues(self.field, m, m, acc)
 
+    def _form_of_products(
+        self, x: list[Any], col: list[Any], rows: Sequence[int] | None = None
+    ) -> list[Any]:
+        """Raw ``phi`` with ``phi_j = col(x * b_j)`` for ``j`` in ``rows`` (default: all),
+        zero elsewhere: one pass over the table's columns."""
+        phi = [self._zero_raw()] * self.dim
+        js = range(self.dim) if rows is None else rows
+        if self._vectorised():
+            np = _np
+            p = self._p
+            xv = np.asarray([int(v) % p for v in x], dtype=np.int64)
+            cv = np.asarray([int(v) % p for v in col], dtype=np.int64)
+            npc = self._np_cols()
+            for j in js:
+                i_a, k_a, c_a = npc[j]
+                if len(i_a):
+                    t = (xv[i_a] * c_a) % p
+                    phi[j] = int(((t * cv[k_a]) % p).sum() % p)
+            return phi
+        supp = {i for i, v in enumerate(x) if v}
+        for j in js:
+            is_, ks, cs = self._cols[j]
+            acc = self._zero_raw()
+            for i, k, coef in zip(is_, ks, cs, strict=True):
+                if i in supp and col[k]:
+                    acc += x[i] * coef * col[k]
+            phi[j] = acc % self._p if self._p else acc
+        return phi
+
     def _row_terms_vectorised(self) -> list[tuple[Any, Any, Any]]:
         """:meth:`_row_terms` by one stable sort of the table's terms by their left factor."""
         np = _np

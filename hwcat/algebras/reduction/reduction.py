@@ -217,15 +217,7 @@ def _new_class(A: StructureAlgebra, e: list[Any], R: Mat, index, rows) -> _Class
     # phi(b_j) = chi(e b_j e): col is x -> chi(x e) on span(index), then one pass over b_j
     chicol = Mat.from_flat(F, len(chi), 1, chi)
     col = embed(A, (select_columns(R, piv) @ (T @ chicol)).entries(), index)
-    phi = [A._zero_raw()] * A.dim
-    supp = {i for i, x in enumerate(e) if x}
-    for j in range(A.dim) if rows is None else rows:  # e b_j = 0 outside f A
-        is_, ks, cs = A._cols[j]
-        acc = A._zero_raw()
-        for i, k, coef in zip(is_, ks, cs, strict=True):
-            if i in supp and col[k]:
-                acc += e[i] * coef * col[k]
-        phi[j] = acc % A._p if A._p else acc
+    phi = A._form_of_products(e, col, rows)  # e b_j = 0 outside f A
     # G[a][c] = phi(b_a b_c) = chi(e b_a b_c e) vanishes unless b_c e != 0, i.e. c in index
     cols = None if index is None else list(index)
     G = A.gram(A.vec(phi), rows=J, cols=cols)
