@@ -143,3 +143,25 @@ def test_reduction_of_a_family_unchanged_by_the_vectorised_path():
     assert plain.basic.cartan() == fast.basic.cartan()
     assert plain.idempotents == fast.idempotents
     assert plain.simple_dimensions == fast.simple_dimensions == (1, 4, 5)  # derived
+
+
+@pytest.mark.parametrize(("n", "delta", "field"), [(5, 0, "GF(3)"), (6, 1, "GF(5)"), (5, 2, "GF(7)")])
+def test_temperley_lieb_by_columns_matches_the_dictionary_table(n, delta, field, monkeypatch):
+    """The column-built table has the same products as the dictionary-built one, and the
+    same reduction (simples, Cartan matrix, idempotents)."""
+    import hwcat.algebras.families.tables as tables
+
+    plain_table = temperley_lieb(n, delta, field)
+    monkeypatch.setattr(tables, "COLUMN_TABLE_MIN", 0)
+    col_table = temperley_lieb(n, delta, field)
+    assert col_table.columns is not None and plain_table.columns is None
+    assert dict(col_table.products) == plain_table.products
+    assert tables.check_associative(col_table)
+    A, B = from_table(plain_table), from_table(col_table)
+    assert A.nnz == B.nnz
+    for j in range(A.dim):
+        assert sorted(zip(*A._cols[j], strict=True)) == sorted(zip(*B._cols[j], strict=True))
+    ra, rb = reduce_algebra(A), reduce_algebra(B)
+    assert ra.basic.cartan() == rb.basic.cartan()
+    assert ra.simple_dimensions == rb.simple_dimensions
+    assert ra.idempotents == rb.idempotents

@@ -163,6 +163,7 @@ class StructureAlgebra:
         seed: int = 0,
         natural: Sequence[Mat] | None = None,
         trusted: bool = False,
+        columns: Sequence[tuple[Any, Any, Any]] | None = None,
     ) -> None:
         self.field = field
         self.basis = tuple(str(b) for b in basis)
@@ -175,6 +176,38 @@ class StructureAlgebra:
         if n == 0:
             raise StructureConstantsError("the basis is empty (the zero algebra has no unit)")
         self._index = {b: i for i, b in enumerate(self.basis)}
+        if columns is not None:
+            self._init_columns(columns, trusted, products)
+        else:
+            self._init_products(products, trusted)
+        self.natural = tuple(natural) if natural is not None else None
+        self._cache: dict[Any, Any] = {}
+        if unit is not None:  # a wrong given unit is reported as such, before associativity
+            self._unit = self._establish_unit(unit, seed)
+            self.associativity = self._check_associativity(associativity, trials, seed)
+        else:
+            self.associativity = self._check_associativity(associativity, trials, seed)
+            self._unit = self._establish_unit(unit, seed)
+
+    def _init_columns(self, columns: Sequence[tuple[Any, Any, Any]], trusted: bool, products) -> None:
+        """Storage taken over from column arrays (a built-in family's large table)."""
+        n = self.dim
+        if not (trusted and self._p) or products or len(columns) != n:
+            raise InternalInconsistency("column storage is for trusted tables over GF(p) only")
+        nnz = 0
+        for is_, ks, cs in columns:
+            if len(is_) != len(ks) or len(ks) != len(cs):
+                raise InternalInconsistency("columns of different lengths")
+            if len(is_) and not (
+                0 <= min(is_) and max(is_) < n and 0 <= min(ks) and max(ks) < n
+            ):
+                raise StructureConstantsError("a product names an index outside the basis")
+            nnz += len(is_)
+        self._cols = list(columns)
+        self.nnz = nnz
+
+    def _init_products(self, products, trusted: bool) -> None:
+        n = self.dim
         cols_i: list[list[int]] = [[] for _ in range(n)]
         cols_k: list[list[int]] = [[] for _ in range(n)]
         cols_c: list[list[Any]] = [[] for _ in range(n)]
@@ -205,14 +238,6 @@ class StructureAlgebra:
                 (array("l", cols_i[j]), array("l", cols_k[j]), cols_c[j]) for j in range(n)
             ]
         self.nnz = nnz
-        self.natural = tuple(natural) if natural is not None else None
-        self._cache: dict[Any, Any] = {}
-        if unit is not None:  # a wrong given unit is reported as such, before associativity
-            self._unit = self._establish_unit(unit, seed)
-            self.associativity = self._check_associativity(associativity, trials, seed)
-        else:
-            self.associativity = self._check_associativity(associativity, trials, seed)
-            self._unit = self._establish_unit(unit, seed)
 
     # -- coefficients and vectors ------------------------------------------------
     def _raw(self, c: Any) -> Any:
@@ -900,6 +925,19 @@ def from_table(
     unit = [F.zero] * table.dim
     for k, c in table.unit.items():
         unit[k] = c
+    columns = getattr(table, "columns", None)
+    if columns is not None:
+        return StructureAlgebra(
+            F,
+            table.basis,
+            {},
+            unit,
+            name=table.name,
+            associativity=associativity,
+            trusted=True,
+            columns=columns,
+            **kwargs,
+        )
     return StructureAlgebra(
         F,
         table.basis,
