@@ -77,6 +77,9 @@ def _compare_actions(A, rng):
         assert plain.tolist() == fast.tolist()
         rows = rng.sample(range(A.dim), rng.randint(1, A.dim))
         col = _random_raw(A, rng, 0.7)
+        for u in (A._unit, _random_raw(A, rng, 0.3)):
+            plain, fast = _both(lambda: A._unit_defect(u))  # noqa: B023
+            assert plain == fast
         for js in (None, rows):
             plain, fast = _both(lambda: A._form_of_products(y, col, js))  # noqa: B023
             assert plain == fast

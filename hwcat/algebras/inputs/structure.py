@@ -198,10 +198,16 @@ class StructureAlgebra:
         for is_, ks, cs in columns:
             if len(is_) != len(ks) or len(ks) != len(cs):
                 raise InternalInconsistency("columns of different lengths")
-            if len(is_) and not (
-                0 <= min(is_) and max(is_) < n and 0 <= min(ks) and max(ks) < n
-            ):
-                raise StructureConstantsError("a product names an index outside the basis")
+            if len(is_):
+                if _np is not None:
+                    ia = _np.frombuffer(is_, dtype=_np.int64)
+                    ka = _np.frombuffer(ks, dtype=_np.int64)
+                    lo = min(int(ia.min()), int(ka.min()))
+                    hi = max(int(ia.max()), int(ka.max()))
+                else:
+                    lo, hi = min(min(is_), min(ks)), max(max(is_), max(ks))
+                if lo < 0 or hi >= n:
+                    raise StructureConstantsError("a product names an index outside the basis")
             nnz += len(is_)
         self._cols = list(columns)
         self.nnz = nnz
@@ -799,9 +805,18 @@ class StructureAlgebra:
         p = self._p
         supp = [i for i, c in enumerate(u) if c]
         sset = set(supp)
+        if self._vectorised():
+            uv = _np.asarray([int(x) % p for x in u], dtype=_np.int64)
         for j, (is_, ks, cs) in enumerate(self._cols):
             out: dict[int, Any] = {}
-            for i, k, c in zip(is_, ks, cs, strict=True):
+            if self._vectorised():
+                # only the terms b_i * b_j with i in the support of u, picked by one mask
+                i_a, k_a, c_a = self._np_cols()[j]
+                hit = _np.flatnonzero(uv[i_a]).tolist() if len(i_a) else []
+                terms = ((is_[t], ks[t], cs[t]) for t in hit)
+            else:
+                terms = zip(is_, ks, cs, strict=True)
+            for i, k, c in terms:
                 if i in sset:
                     out[k] = out.get(k, zero) + u[i] * c
             out = {k: (v % p if p else v) for k, v in out.items()}
