@@ -84,6 +84,7 @@ from hwcat.algebras.inputs.structure import StructureAlgebra
 from hwcat.algebras.reduction.kernels import (
     apply_transfer,
     as_row,
+    chain_step,
     coords_solver,
     embed,
     krylov,
@@ -142,7 +143,7 @@ class _Class:
     e: list[Any]
     index: list[int] | None  # basis indices spanning A f (None: all)
     rows: list[int] | None  # basis indices spanning f A (None: all)
-    R: Mat  # right multiplication by e on span(index)
+    R: Mat | None  # right multiplication by e on span(index) (None: rebuilt when needed)
     L: Mat  # rows e*b_l (l in J) on span(rows)
     J: list[int]  # basis indices with e*b_l a basis of eA
     corner: list[int]  # basis indices with e*b_l*e a basis of eAe
@@ -315,9 +316,15 @@ class _Search:
                 w = [self.rng.randrange(A._p) for _ in range(A.dim)]
             else:
                 w = [A.field(self.rng.randint(-3, 3)) for _ in range(A.dim)]
-            self.pool.append((w, A._action(w, None, left=False)))
+            keep = A.dim <= KEEP_MATRICES_LIMIT
+            self.pool.append((w, A._action(w, None, left=False) if keep else None))
             self.tick("dense_elements", t0)
-        return self.pool[k]
+        w, Rw = self.pool[k]
+        if Rw is None:
+            t0 = time.perf_counter()
+            Rw = A._action(w, None, left=False)
+            self.tick("dense_elements", t0)
+        return w, Rw
 
     def covered(self) -> int:
         return sum(c.n * c.dim_P for c in self.classes)
@@ -396,7 +403,10 @@ class _Search:
         R = None if node.root else self.ensure_R(node)
         t0 = time.perf_counter()
         v0 = as_row(A, restrict(node.f, node.index))
-        if R is None:
+        if v0.ncols >= 256:
+            step = chain_step([Ry] if R is None else [Ry, R])
+            K, c = krylov(v0, None, step=step, limit=v0.ncols)
+        elif R is None:
             K, c = krylov(v0, Ry, limit=v0.ncols)
         else:
             K, c = krylov(v0, None, step=lambda v: (v @ Ry) @ R, limit=v0.ncols)
@@ -474,6 +484,9 @@ class _Search:
                     self.tick("certify", t0)
                 if sum(self.known_ranks(node.f)):
                     raise InternalInconsistency("a primitive idempotent of a known class was kept")
+                if cl.index is None and self.A.dim > KEEP_MATRICES_LIMIT:
+                    cl.R = None  # rebuilt by _class_R when the basic algebra is assembled
+                node.R = None
                 self.classes.append(cl)
                 return []
 
@@ -653,6 +666,17 @@ class Reduction:
         }
 
 
+KEEP_MATRICES_LIMIT = 2500
+"""Above this dimension the dense ``dim A x dim A`` matrices of the search (random
+elements, simples) are not kept but rebuilt from the table when needed again: one
+vectorised pass over the table costs far less than the memory they would hold."""
+
+
+def _class_R(A: StructureAlgebra, c: _Class) -> Mat:
+    """Right multiplication by the class's idempotent (kept, or rebuilt from the table)."""
+    return c.R if c.R is not None else A._action(c.e, c.index, left=False)
+
+
 def _assemble(A: StructureAlgebra, classes: list[_Class], name: str) -> BasicAlgebra:
     F = A.field
     m = len(classes)
@@ -660,9 +684,11 @@ def _assemble(A: StructureAlgebra, classes: list[_Class], name: str) -> BasicAlg
     gen: dict[tuple[int, int], list[int]] = {}
     basis: dict[tuple[int, int], Mat] = {}
     solver: dict[tuple[int, int], tuple[tuple[int, ...], Mat]] = {}
-    for s, cs in enumerate(classes):
-        for t, ct in enumerate(classes):
-            X = apply_transfer(cs.L, transfer(A, cs.rows, ct.index)) @ ct.R
+    colsR: dict[tuple[int, int], Mat] = {}
+    for t, ct in enumerate(classes):
+        Rt = _class_R(A, ct)  # one right multiplication matrix alive at a time
+        for s, cs in enumerate(classes):
+            X = apply_transfer(cs.L, transfer(A, cs.rows, ct.index)) @ Rt
             pos = select_independent_rows(X) if X.nrows else []
             gen[(s, t)] = [cs.J[k] for k in pos]
             B = X.take_rows(pos) if pos else Mat.zeros(F, 0, X.ncols)
@@ -670,15 +696,13 @@ def _assemble(A: StructureAlgebra, classes: list[_Class], name: str) -> BasicAlg
                 raise InternalInconsistency("corner basis chosen twice differently")
             basis[(s, t)] = B
             solver[(s, t)] = coords_solver(B) if pos else ((), Mat.zeros(F, 0, 0))
+            if pos:
+                piv, T = solver[(s, t)]
+                colsR[(s, t)] = select_columns(Rt, piv) @ T
+        del Rt
     dims = {k: v.nrows for k, v in basis.items()}
     # multiplication: x (in e_s A e_u) times y = e_u b_l e_t is ((x b_l) restricted) e_t
     mult: dict[tuple[int, int, int], list[Mat]] = {}
-    colsR: dict[tuple[int, int], Mat] = {}
-    for s in range(m):
-        for t in range(m):
-            if dims[(s, t)]:
-                piv, T = solver[(s, t)]
-                colsR[(s, t)] = select_columns(classes[t].R, piv) @ T
     for u in range(m):
         for t in range(m):
             for l in gen[(u, t)]:
