@@ -66,6 +66,9 @@ def _compare_actions(A, rng):
                 index = [i for i in range(A.dim) if A.peirce_block(i)[side] == s]
                 plain, fast = _both(lambda: A._action(ys, index, left))  # noqa: B023
                 assert plain.tolist() == fast.tolist()
+                if not left:
+                    T = A._right_action_transposed(ys, index)
+                    assert T.tolist() == plain.transpose().tolist()
         # the plain matrix is right: row i of R_y is b_i * y
         R = A._action(y, None, False)
         for i in rng.sample(range(A.dim), min(4, A.dim)):
@@ -77,6 +80,8 @@ def _compare_actions(A, rng):
         assert plain.tolist() == fast.tolist()
         rows = rng.sample(range(A.dim), rng.randint(1, A.dim))
         col = _random_raw(A, rng, 0.7)
+        R = A._action(y, None, False)
+        assert A._right_action_transposed(y, None).tolist() == R.transpose().tolist()
         for u in (A._unit, _random_raw(A, rng, 0.3)):
             plain, fast = _both(lambda: A._unit_defect(u))  # noqa: B023
             assert plain == fast

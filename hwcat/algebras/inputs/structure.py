@@ -364,9 +364,10 @@ class StructureAlgebra:
         return self._cache["np_cols"]
 
     def _action_dense_vectorised(
-        self, y: list[Any], index: Sequence[int] | None, m: int, left: bool
+        self, y: list[Any], index: Sequence[int] | None, m: int, left: bool, transpose: bool = False
     ) -> Mat:
-        """The dense branch of :meth:`_action` with int64 arrays (same matrix, exactly)."""
+        """The dense branch of :meth:`_action` with int64 arrays (same matrix, exactly;
+        its transpose with ``transpose``, for the right action)."""
         np = _np
         p = self._p
         n = self.dim
@@ -388,7 +389,7 @@ class StructureAlgebra:
                     continue
                 vals = (c_a * (yj % p)) % p
                 if posarr is None:
-                    acc[i_a * m + k_a] += vals
+                    acc[k_a * m + i_a if transpose else i_a * m + k_a] += vals
                     continue
                 a = posarr[i_a]
                 b = posarr[k_a]
@@ -397,7 +398,7 @@ class StructureAlgebra:
                     a, b, vals = a[keep], b[keep], vals[keep]
                 if len(b) and int(b.min()) < 0:
                     raise InternalInconsistency("right action leaves the index set")
-                acc[a * m + b] += vals
+                acc[b * m + a if transpose else a * m + b] += vals
         else:
             yv = np.asarray([int(v) % p for v in y], dtype=np.int64)
             rows = range(n) if index is None else index
@@ -567,6 +568,14 @@ class StructureAlgebra:
         if dense:
             return matrix_from_ints(F, m, m, acc)
         return sparse_matrix(F, m, m, {(q // m, q % m): v for q, v in acc.items()})
+
+    def _right_action_transposed(self, y: list[Any], index: Sequence[int] | None) -> Mat:
+        """The transpose of ``_action(y, index, left=False)``, built as such when the
+        table passes are vectorised (flint's transpose of a large matrix is slow)."""
+        if self._vectorised():
+            m = self.dim if index is None else len(index)
+            return self._action_dense_vectorised(y, index, m, False, transpose=True)
+        return self._action(y, index, left=False).transpose()
 
     def right_action(self, y: Sequence[Any], index: Sequence[int] | None = None) -> Mat:
         """The matrix of ``v -> v * y`` (row ``i`` holds ``b_i * y``).

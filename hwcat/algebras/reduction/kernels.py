@@ -83,15 +83,16 @@ def coords_solver(B: Mat) -> tuple[tuple[int, ...], Mat]:
     return piv, select_columns(B, piv).inverse()
 
 
-def chain_step(mats: Sequence[Mat]):
+def chain_step(mats: Sequence[Mat], transposed: Sequence[Mat] | None = None):
     """``v -> v @ mats[0] @ mats[1] ...`` for single rows ``v``, as column products.
 
     flint multiplies a single row by a square matrix several times slower than
     the square matrix by a single column; the Krylov sequences of the splitting
     search are long chains of such products, so the transposes are taken once
-    and ``v M N = (N^T (M^T v^T))^T``.
+    and ``v M N = (N^T (M^T v^T))^T``.  ``transposed``: the transposes, if known.
     """
-    Ts = [M.transpose() for M in mats]  # (v M N)^T = N^T (M^T v^T): M^T acts first
+    # (v M N)^T = N^T (M^T v^T): M^T acts first
+    Ts = list(transposed) if transposed is not None else [M.transpose() for M in mats]
 
     def step(v: Mat) -> Mat:
         x = v.transpose()

@@ -301,6 +301,7 @@ class _Search:
         self.trace_exact = p == 0 or p > self.A.dim
         self.tau = self.A.raw(self.A.trace_functional())
         self.pool: list[tuple[list[Any], Mat]] = []
+        self.pool_T: dict[int, Mat] = {}  # transposed matrices of the pool (small algebras)
 
     def dense(self, k: int) -> tuple[list[Any], Mat]:
         """The ``k``-th dense random element and its right multiplication matrix.
@@ -325,6 +326,17 @@ class _Search:
             Rw = A._action(w, None, left=False)
             self.tick("dense_elements", t0)
         return w, Rw
+
+    def dense_vector(self, k: int) -> list[Any]:
+        """The ``k``-th dense random element (the same as :meth:`dense`, without its matrix)."""
+        A = self.A
+        while len(self.pool) <= k:
+            if A._p:
+                w = [self.rng.randrange(A._p) for _ in range(A.dim)]
+            else:
+                w = [A.field(self.rng.randint(-3, 3)) for _ in range(A.dim)]
+            self.pool.append((w, None))
+        return self.pool[k][0]
 
     def covered(self) -> int:
         return sum(c.n * c.dim_P for c in self.classes)
@@ -394,8 +406,30 @@ class _Search:
     def split_attempt(self, node: _Node) -> list[Any] | tuple[Poly, int]:
         """Try one random element ``z = f y f``; children vectors, or the single factor."""
         A = self.A
-        F = A.field
         node.attempts += 1
+        m = A.dim if node.index is None else len(node.index)
+        if m >= 256 and A._vectorised():
+            # Krylov chains by column products with the transposes, built as such
+            t0 = time.perf_counter()
+            if node.index is None and A.dim > 64:
+                k = node.depth + node.attempts - 1
+                w = self.dense_vector(k)
+                Ty = self.pool_T.get(k)
+                if Ty is None:
+                    Ty = A._right_action_transposed(w, None)
+                    if A.dim <= KEEP_MATRICES_LIMIT:
+                        self.pool_T[k] = Ty
+            else:
+                Ty = A._right_action_transposed(self.random_sparse(node), node.index)
+            mats = [Ty]
+            if not node.root:
+                mats.append(A._right_action_transposed(node.f, node.index))
+            self.tick("dense_elements", t0)
+            t0 = time.perf_counter()
+            v0 = as_row(A, restrict(node.f, node.index))
+            K, c = krylov(v0, None, step=chain_step([], mats), limit=v0.ncols)
+            self.tick("krylov", t0)
+            return self._children(node, K, c)
         if node.index is None and A._p and A.dim > 64:
             _, Ry = self.dense(node.depth + node.attempts - 1)
         else:
@@ -411,6 +445,12 @@ class _Search:
         else:
             K, c = krylov(v0, None, step=lambda v: (v @ Ry) @ R, limit=v0.ncols)
         self.tick("krylov", t0)
+        return self._children(node, K, c)
+
+    def _children(self, node: _Node, K: Mat, c: list[Any]) -> list[Any] | tuple[Poly, int]:
+        """From the Krylov sequence of ``z``: children vectors, or the single factor."""
+        A = self.A
+        F = A.field
         mu = minpoly(F, K.nrows, c)
         facs = mu.factor()
         if len(facs) == 1:
