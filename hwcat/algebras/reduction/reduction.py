@@ -726,9 +726,15 @@ def _assemble(A: StructureAlgebra, classes: list[_Class], name: str) -> BasicAlg
     solver: dict[tuple[int, int], tuple[tuple[int, ...], Mat]] = {}
     colsR: dict[tuple[int, int], Mat] = {}
     for t, ct in enumerate(classes):
-        Rt = _class_R(A, ct)  # one right multiplication matrix alive at a time
+        # one right multiplication matrix alive at a time, transposed: flint multiplies a
+        # square matrix by a thin one faster than a thin one by a square one
+        if A._vectorised():
+            RtT = A._right_action_transposed(ct.e, ct.index)
+        else:
+            RtT = _class_R(A, ct).transpose()
         for s, cs in enumerate(classes):
-            X = apply_transfer(cs.L, transfer(A, cs.rows, ct.index)) @ Rt
+            Ls = apply_transfer(cs.L, transfer(A, cs.rows, ct.index))
+            X = (RtT @ Ls.transpose()).transpose()  # = Ls @ R_t
             pos = select_independent_rows(X) if X.nrows else []
             gen[(s, t)] = [cs.J[k] for k in pos]
             B = X.take_rows(pos) if pos else Mat.zeros(F, 0, X.ncols)
@@ -738,8 +744,8 @@ def _assemble(A: StructureAlgebra, classes: list[_Class], name: str) -> BasicAlg
             solver[(s, t)] = coords_solver(B) if pos else ((), Mat.zeros(F, 0, 0))
             if pos:
                 piv, T = solver[(s, t)]
-                colsR[(s, t)] = select_columns(Rt, piv) @ T
-        del Rt
+                colsR[(s, t)] = RtT.take_rows(list(piv)).transpose() @ T  # columns piv of R_t
+        del RtT
     dims = {k: v.nrows for k, v in basis.items()}
     # multiplication: x (in e_s A e_u) times y = e_u b_l e_t is ((x b_l) restricted) e_t
     mult: dict[tuple[int, int, int], list[Mat]] = {}
