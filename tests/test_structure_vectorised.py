@@ -205,3 +205,17 @@ def test_reduction_unchanged_when_dense_matrices_are_rebuilt(monkeypatch):
     assert kept.basic.cartan() == rebuilt.basic.cartan()
     assert kept.idempotents == rebuilt.idempotents
     assert kept.basic.dim == rebuilt.basic.dim
+
+
+def test_rank_in_simple_agrees_with_the_plain_loop():
+    """``dim L f`` for random ``f`` by the array path and by the plain loop."""
+    import hwcat.algebras.reduction.reduction as red
+
+    A = from_table(temperley_lieb(6, 0, "GF(3)"))
+    r = reduce_algebra(A)
+    rng = random.Random(3)
+    for c in r._classes:
+        for density in (1.0, 0.1):
+            f = _random_raw(A, rng, density)
+            plain, fast = _both(lambda: red._rank_in_simple(A, c, f))  # noqa: B023
+            assert plain == fast

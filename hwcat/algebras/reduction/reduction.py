@@ -158,6 +158,7 @@ class _Class:
     corner_mult: Any = None
     rowterms: dict[int, list[tuple[int, int, Any]]] = field(default_factory=dict)
     urows: list[list[Any]] | None = None
+    uarray: Any = None  # urows as an int64 array (vectorised ranks)
 
 
 def _right_ideal_basis(A: StructureAlgebra, e: list[Any], rows) -> tuple[list[int], Mat]:
@@ -546,6 +547,8 @@ def _rank_in_simple(A: StructureAlgebra, c: _Class, f: list[Any]) -> int:
     """``dim L f`` for the simple ``L`` of class ``c``: rank of ``(b_s f) U`` over the section."""
     F = A.field
     p = A._p
+    if A._vectorised() and A.dim * (p - 1) ** 2 < 2**63:
+        return _rank_in_simple_vectorised(A, c, f)
     if c.urows is None:
         c.urows = raw_rows(A, c.U)
     width = c.n
@@ -566,6 +569,33 @@ def _rank_in_simple(A: StructureAlgebra, c: _Class, f: list[Any]) -> int:
                         acc[a] += v * u[a]
         rows.append([x % p for x in acc] if p else acc)
     return matrix_from_ints(F, len(rows), width, [x for r in rows for x in r]).rank()
+
+
+def _rank_in_simple_vectorised(A: StructureAlgebra, c: _Class, f: list[Any]) -> int:
+    """:func:`_rank_in_simple` with int64 arrays: ``(b_s f) U`` for the section rows at once
+    (every product of residues and every sum of ``dim A`` of them stays below 2^63)."""
+    import numpy as np
+
+    p = A._p
+    if c.urows is None:
+        c.urows = raw_rows(A, c.U)
+    Ua = c.uarray
+    if Ua is None:
+        Ua = c.uarray = np.asarray(c.urows, dtype=np.int64).reshape(A.dim, c.n)
+    fv = np.asarray([int(x) % p for x in f], dtype=np.int64)
+    out = np.zeros((len(c.sec), A.dim), dtype=np.int64)
+    for r, s in enumerate(c.sec):
+        js, ks, cs = c.rowterms[s]
+        if not len(js):
+            continue
+        ja = np.frombuffer(js, dtype=np.int64)
+        vals = (fv[ja] * np.frombuffer(cs, dtype=np.int64)) % p
+        nz = vals != 0
+        if nz.any():
+            np.add.at(out[r], np.frombuffer(ks, dtype=np.int64)[nz], vals[nz])
+    out %= p
+    M = (out @ Ua) % p
+    return matrix_from_ints(A.field, len(c.sec), c.n, M.ravel().tolist()).rank()
 
 
 def _roots(A: StructureAlgebra) -> list[_Node]:
