@@ -1,25 +1,32 @@
-"""Reduction of structure-constant algebras to their basic algebra: time and memory.
+"""Reduction of structure-constant algebras to their basic algebra: time, memory, ratio.
 
-For each case: the dimension, the number of nonzero structure constants, the
-time to convert the family's table, the time of the reduction (split into its
-phases: dense random elements, Krylov sequences, matrices of tree nodes,
-certification of the simples, assembly of the basic algebra), the peak memory
-traced by ``tracemalloc`` during a second, traced run of the reduction (tracing
-slows Python down several times, so times come from the untraced run), and the
-result (number of simples, radical dimension, dimension of the basic algebra).  A naive
-baseline -- the radical by the lifted-trace chain on the regular
-representation, which is where the cost goes without the splitting tree -- is
-run for the small cases only, for a ratio measured in the same run.
+For each case, in a fresh process (so that the peak memory belongs to that case
+alone): the dimension, the number of nonzero structure constants, the time to
+build the family's table and convert it, the time of the reduction (split into
+its phases: dense random elements, Krylov sequences, matrices of tree nodes,
+certification of the simples, assembly of the basic algebra), and -- measured
+in the same process -- the baseline: one dense rank of a random
+``dim A x dim A`` matrix over the same field.  The ratio is reduction time /
+baseline time (the goal is at most 20).  Peak memory is the peak resident set
+size of the case's process (``resource.getrusage``; it includes flint's
+matrices, which ``tracemalloc`` does not see).
 
-Run ``python benchmarks/bench_reduction.py`` (``--quick`` for small cases only).
+A second, naive baseline -- the radical by the lifted-trace chain on the
+regular representation -- is run for the small cases only (``naive rad s``).
+
+Run ``python benchmarks/bench_reduction.py`` (``--quick`` for small cases only,
+``--large`` to add TL_9, TL_10, S(2, 30), S_7; ``--case NAME`` for one case).
 """
 
 from __future__ import annotations
 
 import argparse
+import json
+import random
+import resource
+import subprocess
 import sys
 import time
-import tracemalloc
 from pathlib import Path
 
 sys.path.insert(0, str(Path(__file__).resolve().parents[1]))
@@ -27,92 +34,170 @@ sys.path.insert(0, str(Path(__file__).resolve().parents[1]))
 from hwcat.algebras.families import tables as ft  # noqa: E402
 from hwcat.algebras.inputs.structure import from_table  # noqa: E402
 from hwcat.algebras.reduction.reduction import radical, reduce_algebra  # noqa: E402
+from hwcat.exact.polys import matrix_from_ints  # noqa: E402
 
-CASES_QUICK = [
-    ("S(2,10) GF(2)", lambda: ft.schur_algebra_2(10, "GF(2)")),
-    ("S(2,10) GF(3)", lambda: ft.schur_algebra_2(10, "GF(3)")),
-    ("TL_6(0) QQ", lambda: ft.temperley_lieb(6, 0, "QQ")),
-    ("TL_7(1) GF(3)", lambda: ft.temperley_lieb(7, 1, "GF(3)")),
-    ("S_5 GF(2)", lambda: ft.symmetric_group_algebra(5, "GF(2)")),
-    ("u_q ell=5 GF(11)", lambda: ft.small_quantum_sl2(5, 3, "GF(11)")),
-]
-CASES_FULL = CASES_QUICK + [
-    ("S(2,15) GF(3)", lambda: ft.schur_algebra_2(15, "GF(3)")),
-    ("S(2,21) GF(2)", lambda: ft.schur_algebra_2(21, "GF(2)")),
-    ("S(2,21) GF(3)", lambda: ft.schur_algebra_2(21, "GF(3)")),
-    ("S(2,21) GF(10007)", lambda: ft.schur_algebra_2(21, "GF(10007)")),
-    ("TL_8(0) GF(5)", lambda: ft.temperley_lieb(8, 0, "GF(5)")),
-    ("TL_8(1) GF(3)", lambda: ft.temperley_lieb(8, 1, "GF(3)")),
-    ("TL_8(2) GF(10007)", lambda: ft.temperley_lieb(8, 2, "GF(10007)")),
-    ("S_6 GF(3)", lambda: ft.symmetric_group_algebra(6, "GF(3)")),
-    ("C_64 GF(2)", lambda: ft.cyclic_group_algebra(64, "GF(2)")),
-]
+CASES_QUICK = {
+    "S(2,10) GF(2)": lambda: ft.schur_algebra_2(10, "GF(2)"),
+    "S(2,10) GF(3)": lambda: ft.schur_algebra_2(10, "GF(3)"),
+    "TL_6(0) QQ": lambda: ft.temperley_lieb(6, 0, "QQ"),
+    "TL_7(1) GF(3)": lambda: ft.temperley_lieb(7, 1, "GF(3)"),
+    "S_5 GF(2)": lambda: ft.symmetric_group_algebra(5, "GF(2)"),
+    "u_q ell=5 GF(11)": lambda: ft.small_quantum_sl2(5, 3, "GF(11)"),
+}
+CASES_FULL = {
+    **CASES_QUICK,
+    "S(2,15) GF(3)": lambda: ft.schur_algebra_2(15, "GF(3)"),
+    "S(2,21) GF(2)": lambda: ft.schur_algebra_2(21, "GF(2)"),
+    "S(2,21) GF(3)": lambda: ft.schur_algebra_2(21, "GF(3)"),
+    "S(2,21) GF(10007)": lambda: ft.schur_algebra_2(21, "GF(10007)"),
+    "TL_8(0) GF(3)": lambda: ft.temperley_lieb(8, 0, "GF(3)"),
+    "TL_8(0) GF(5)": lambda: ft.temperley_lieb(8, 0, "GF(5)"),
+    "TL_8(1) GF(3)": lambda: ft.temperley_lieb(8, 1, "GF(3)"),
+    "TL_8(2) GF(10007)": lambda: ft.temperley_lieb(8, 2, "GF(10007)"),
+    "S_6 GF(2)": lambda: ft.symmetric_group_algebra(6, "GF(2)"),
+    "S_6 GF(3)": lambda: ft.symmetric_group_algebra(6, "GF(3)"),
+    "C_64 GF(2)": lambda: ft.cyclic_group_algebra(64, "GF(2)"),
+}
+CASES_LARGE = {
+    **CASES_FULL,
+    "S(2,30) GF(2)": lambda: ft.schur_algebra_2(30, "GF(2)"),
+    "S(2,30) GF(3)": lambda: ft.schur_algebra_2(30, "GF(3)"),
+    "TL_9(0) GF(5)": lambda: ft.temperley_lieb(9, 0, "GF(5)"),
+    "TL_9(1) GF(5)": lambda: ft.temperley_lieb(9, 1, "GF(5)"),
+    "TL_10(0) GF(3)": lambda: ft.temperley_lieb(10, 0, "GF(3)"),
+    "TL_10(1) GF(5)": lambda: ft.temperley_lieb(10, 1, "GF(5)"),
+    "S_7 GF(2)": lambda: ft.symmetric_group_algebra(7, "GF(2)"),
+    "S_7 GF(3)": lambda: ft.symmetric_group_algebra(7, "GF(3)"),
+}
 BASELINE_LIMIT = 130
 
 
-def run(name, make, trace: bool) -> list[str]:
+def dense_rank_seconds(field, n: int) -> float:
+    """Time of one rank of a random dense ``n x n`` matrix over ``field`` (building excluded)."""
+    rng = random.Random(1)
+    p = field.characteristic
+    if p:
+        vals = [rng.randrange(p) for _ in range(n * n)]
+    else:
+        vals = [field(rng.randint(-9, 9)) for _ in range(n * n)]
+    M = matrix_from_ints(field, n, n, vals)
+    del vals
+    t0 = time.perf_counter()
+    M.rank()
+    return time.perf_counter() - t0
+
+
+def run_case(name: str) -> dict:
+    """One case, in this process; returns the figures as a dictionary."""
+    make = CASES_LARGE[name]
+    t0 = time.perf_counter()
     table = make()
+    t_table = time.perf_counter() - t0
     t0 = time.perf_counter()
     A = from_table(table)
     t_conv = time.perf_counter() - t0
+    del table
     t0 = time.perf_counter()
     r = reduce_algebra(A)
     t_red = time.perf_counter() - t0
-    peak = float("nan")
-    if trace:
-        tracemalloc.start()
-        reduce_algebra(A)
-        _, peak = tracemalloc.get_traced_memory()
-        tracemalloc.stop()
-    phases = ", ".join(
-        f"{k} {v:.1f}" for k, v in r.timings.items() if k not in ("search",) and v >= 0.05
-    )
-    base = "-"
+    t_rank = dense_rank_seconds(A.field, A.dim)
+    naive = None
     if A.dim <= BASELINE_LIMIT and A.field.characteristic:
         t0 = time.perf_counter()
         rad = radical(A, "lifted-trace")
-        base = f"{time.perf_counter() - t0:.2f}"
+        naive = time.perf_counter() - t0
         assert rad.nrows == r.radical_dimension
+    peak = resource.getrusage(resource.RUSAGE_SELF).ru_maxrss / 1024  # KiB on Linux
+    return {
+        "case": name,
+        "dim": A.dim,
+        "nonzero": A.nnz,
+        "table": t_table,
+        "convert": t_conv,
+        "reduce": t_red,
+        "rank": t_rank,
+        "ratio": t_red / t_rank if t_rank > 0 else float("inf"),
+        "peak_mib": peak,
+        "naive": naive,
+        "simples": len(r.simple_dimensions),
+        "rad": r.radical_dimension,
+        "basic": r.basic.dim,
+        "phases": {k: v for k, v in r.timings.items() if k != "search" and v >= 0.05},
+    }
+
+
+def row(d: dict) -> list[str]:
+    phases = ", ".join(f"{k} {v:.1f}" for k, v in d["phases"].items())
     return [
-        name,
-        str(A.dim),
-        str(A.nnz),
-        f"{t_conv:.2f}",
-        f"{t_red:.2f}",
-        f"{peak / 2**20:.0f}",
-        base,
-        str(len(r.simple_dimensions)),
-        str(r.radical_dimension),
-        str(r.basic.dim),
+        d["case"],
+        str(d["dim"]),
+        str(d["nonzero"]),
+        f"{d['table']:.2f}",
+        f"{d['convert']:.2f}",
+        f"{d['reduce']:.2f}",
+        f"{d['rank']:.3f}",
+        f"{d['ratio']:.1f}",
+        f"{d['peak_mib']:.0f}",
+        "-" if d["naive"] is None else f"{d['naive']:.2f}",
+        str(d["simples"]),
+        str(d["rad"]),
+        str(d["basic"]),
         phases,
     ]
 
 
+HEADER = [
+    "case",
+    "dim",
+    "nonzero",
+    "table s",
+    "convert s",
+    "reduce s",
+    "dense rank s",
+    "ratio",
+    "peak MiB",
+    "naive rad s",
+    "simples",
+    "rad",
+    "basic",
+    "phases (s)",
+]
+
+
 def main() -> None:
     ap = argparse.ArgumentParser(description=__doc__.splitlines()[0])
-    ap.add_argument("--quick", action="store_true", help="small cases only")
-    ap.add_argument("--no-memory", action="store_true", help="skip the traced runs")
+    size = ap.add_mutually_exclusive_group()
+    size.add_argument("--quick", action="store_true", help="small cases only")
+    size.add_argument("--large", action="store_true", help="add TL_9, TL_10, S(2,30), S_7")
+    size.add_argument("--case", action="append", help="run only this case (repeatable)")
+    ap.add_argument("--json", action="store_true", help=argparse.SUPPRESS)  # child process
     args = ap.parse_args()
-    header = [
-        "case",
-        "dim",
-        "nonzero",
-        "table s",
-        "reduce s",
-        "peak MiB",
-        "naive rad s",
-        "simples",
-        "rad",
-        "basic",
-        "phases (s)",
-    ]
+    if args.json:
+        print(json.dumps(run_case(args.case[0])))
+        return
+    if args.case:
+        names = args.case
+    else:
+        names = list(CASES_QUICK if args.quick else CASES_LARGE if args.large else CASES_FULL)
+    for name in names:
+        if name not in CASES_LARGE:
+            ap.error(f"unknown case {name!r}; known: {', '.join(CASES_LARGE)}")
+    print("  ".join(HEADER), flush=True)
     rows = []
-    for name, make in CASES_QUICK if args.quick else CASES_FULL:
-        rows.append(run(name, make, not args.no_memory))
+    for name in names:
+        out = subprocess.run(
+            [sys.executable, __file__, "--json", "--case", name],
+            capture_output=True,
+            text=True,
+        )
+        if out.returncode:
+            print(f"{name}: failed: {out.stderr.strip().splitlines()[-1:]}", flush=True)
+            continue
+        rows.append(row(json.loads(out.stdout)))
         print("  ".join(rows[-1]), flush=True)
-    widths = [max(len(r[i]) for r in rows + [header]) for i in range(len(header))]
+    widths = [max(len(r[i]) for r in rows + [HEADER]) for i in range(len(HEADER))]
     print()
-    for r in [header] + rows:
+    for r in [HEADER] + rows:
         print("  ".join(c.rjust(w) if i else c.ljust(w) for i, (c, w) in enumerate(zip(r, widths))))
 
 

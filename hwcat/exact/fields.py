@@ -21,6 +21,7 @@ True
 from __future__ import annotations
 
 import re
+from array import array
 from fractions import Fraction
 from functools import cache
 from typing import Any
@@ -187,6 +188,13 @@ class PrimeField(Field):
     def _raw_matrix(self, nrows: int, ncols: int, entries: list) -> Any:
         if not entries:
             return flint.nmod_mat(nrows, ncols, self.p)
+        if len(entries) >= 1024:
+            from hwcat.exact.nmod_bulk import nmod_mat_from_residues
+
+            p = self.p
+            M = nmod_mat_from_residues(nrows, ncols, array("q", [int(e) % p for e in entries]), p)
+            if M is not None:
+                return M
         try:  # nmod entries of this modulus (or Python ints) are taken as they are
             return flint.nmod_mat(nrows, ncols, entries, self.p)
         except (TypeError, ValueError):

@@ -24,11 +24,15 @@ Examples
 
 from __future__ import annotations
 
+from array import array
 from collections.abc import Iterable, Sequence
 from typing import Any
 
 from hwcat.errors import InternalInconsistency
-from hwcat.exact.fields import Field
+from hwcat.exact.fields import Field, PrimeField
+from hwcat.exact.nmod_bulk import nmod_mat_from_residues, read_residues
+
+_BULK_MIN = 1024  # matrices over GF(p) with this many entries are moved in one piece
 
 __all__ = [
     "Mat",
@@ -204,9 +208,31 @@ class Mat:
     def T(self) -> Mat:
         return self.transpose()
 
+    # -- one-piece access over GF(p) ----------------------------------------------
+    def _residues(self) -> Any:
+        """The entries as an ``array("q")`` (GF(p), large matrices), else ``None``."""
+        if isinstance(self.field, PrimeField) and self.nrows * self.ncols >= _BULK_MIN:
+            return read_residues(self._m)
+        return None
+
+    @classmethod
+    def _from_residues(cls, field: Field, nrows: int, ncols: int, buf: Any) -> Mat:
+        if nrows == 0 or ncols == 0:
+            return cls.zeros(field, nrows, ncols)
+        M = nmod_mat_from_residues(nrows, ncols, buf, field.p)
+        if M is None:  # pragma: no cover - the layout was checked when buf was read
+            return cls.from_flat(field, nrows, ncols, list(buf))
+        return cls(field, M)
+
     # -- assembly --------------------------------------------------------------
     def take_rows(self, idx: Sequence[int]) -> Mat:
         n = self.ncols
+        buf = self._residues()
+        if buf is not None:
+            out = array("q")
+            for i in idx:
+                out.extend(buf[i * n : (i + 1) * n])
+            return Mat._from_residues(self.field, len(idx), n, out)
         m = self._m
         if 4 * len(idx) < m.nrows():  # a few rows: read them, not the whole matrix
             flat = [m[i, j] for i in idx for j in range(n)]
@@ -223,6 +249,11 @@ class Mat:
 
     def take_cols(self, idx: Sequence[int]) -> Mat:
         n = self.ncols
+        buf = self._residues()
+        if buf is not None:
+            idx = list(idx)
+            out = array("q", [buf[b + j] for b in range(0, self.nrows * n, n) for j in idx])
+            return Mat._from_residues(self.field, self.nrows, len(idx), out)
         m = self._m
         if 4 * len(idx) < n:
             flat = [m[i, j] for i in range(m.nrows()) for j in idx]
@@ -238,6 +269,16 @@ class Mat:
             if not mats:
                 raise InternalInconsistency("vstack of no matrices needs ncols")
             ncols = mats[0].ncols
+        if isinstance(field, PrimeField) and sum(m.nrows for m in mats) * ncols >= _BULK_MIN:
+            bufs = [m._residues() if m.nrows * m.ncols >= _BULK_MIN else None for m in mats]
+            out = array("q")
+            for m, b in zip(mats, bufs, strict=True):
+                if m.ncols != ncols:
+                    raise InternalInconsistency(f"vstack: {m.ncols} columns, expected {ncols}")
+                if m.nrows:
+                    out.extend(b if b is not None else array("q", map(int, m._m.entries())))
+            if len(out) == 0 or len(out) % ncols == 0:
+                return Mat._from_residues(field, len(out) // ncols if ncols else 0, ncols, out)
         flat: list = []
         nrows = 0
         for m in mats:
@@ -284,6 +325,21 @@ class Mat:
         if r == 0 or c == 0:
             return Mat.zeros(self.field, 0, c), ()
         R, rank = self._m.rref()
+        buf = self._residues()  # None unless one-piece copies work for this matrix
+        if buf is not None:
+            buf = read_residues(R)
+        if buf is not None:
+            pivots = []
+            j = 0
+            for i in range(rank):
+                base = i * c
+                while buf[base + j] == 0:
+                    j += 1
+                pivots.append(j)
+                j += 1
+            if rank == r:
+                return Mat(self.field, R), tuple(pivots)
+            return Mat._from_residues(self.field, rank, c, buf[: rank * c]), tuple(pivots)
         pivots = []
         j = 0
         for i in range(rank):  # read entries one by one: rows end at their pivot quickly

@@ -25,6 +25,7 @@ Examples
 
 from __future__ import annotations
 
+from array import array
 from collections.abc import Iterable, Mapping, Sequence
 from typing import Any
 
@@ -33,11 +34,15 @@ import flint
 from hwcat.errors import InternalInconsistency
 from hwcat.exact.fields import Field, PrimeField
 from hwcat.exact.matrices import Mat
+from hwcat.exact.nmod_bulk import bulk_available, nmod_mat_from_residues
+
+_BULK_MIN = 4096
 
 __all__ = [
     "Poly",
     "fitting_polynomials",
     "matrix_from_ints",
+    "matrix_from_residues",
     "sparse_matrix",
     "select_columns",
     "select_rows",
@@ -194,13 +199,32 @@ def fitting_polynomials(factors: Sequence[tuple[Poly, int]]) -> list[Poly]:
 # -- matrix helpers that need flint ------------------------------------------------
 
 
+def matrix_from_residues(field: PrimeField, nrows: int, ncols: int, buf: Any) -> Mat:
+    """A dense matrix over GF(p) from a writable buffer of int64 residues in ``[0, p)``
+    (row-major: an ``array("q")`` or a numpy int64 array), copied in one piece."""
+    p = field.p
+    if nrows and ncols and nrows * ncols >= _BULK_MIN:
+        M = nmod_mat_from_residues(nrows, ncols, buf, p)
+        if M is not None:
+            return Mat(field, M)
+    vals = buf.tolist() if hasattr(buf, "tolist") else list(buf)
+    return Mat(field, flint.nmod_mat(nrows, ncols, vals, p)) if nrows and ncols else Mat.zeros(
+        field, nrows, ncols
+    )
+
+
 def matrix_from_ints(field: Field, nrows: int, ncols: int, values: Sequence[Any]) -> Mat:
     """A dense matrix from a flat row-major list: Python ints over GF(p) (reduced here),
     field elements over QQ.  Skips the per-entry conversion of ``Mat.from_flat``."""
     if nrows == 0 or ncols == 0:
         return Mat.zeros(field, nrows, ncols)
     if isinstance(field, PrimeField):
-        return Mat(field, flint.nmod_mat(nrows, ncols, values, field.p))
+        p = field.p
+        if nrows * ncols >= _BULK_MIN and p < 2**63 and bulk_available():
+            # flint's list constructor converts entry by entry (about a microsecond each);
+            # residues packed into an int64 array are copied in one piece
+            return matrix_from_residues(field, nrows, ncols, array("q", [v % p for v in values]))
+        return Mat(field, flint.nmod_mat(nrows, ncols, values, p))
     if getattr(field, "degree", 1) > 1:  # an extension field
         return Mat.from_flat(field, nrows, ncols, values)
     return Mat(field, flint.fmpq_mat(nrows, ncols, values))

@@ -28,14 +28,24 @@ from __future__ import annotations
 import gc
 import itertools
 import math
-from collections.abc import Iterable
-from dataclasses import dataclass
+from array import array
+from collections.abc import Iterable, Iterator, Mapping
+from dataclasses import dataclass, field
 from math import comb
 from typing import Any
 
 from hwcat.errors import CoefficientError, SpecError, StructureConstantsError
-from hwcat.exact.fields import QQ, Field, parse_field
+from hwcat.exact.fields import QQ, Field, PrimeField, parse_field
 from hwcat.limits import check_products, current_limits, limit_error
+
+try:  # optional: large Temperley-Lieb tables are built with int64 arrays
+    import numpy as _np
+except ImportError:  # pragma: no cover - numpy is an optional extra
+    _np = None
+
+COLUMN_TABLE_MIN = 2000
+"""Temperley-Lieb tables of at least this dimension over GF(p) (p < 2^31) are built
+column by column with numpy when it is installed (no dictionary per product)."""
 
 __all__ = [
     "MultiplicationTable",
@@ -76,8 +86,12 @@ class MultiplicationTable:
     name: str
     field: Field
     basis: tuple[str, ...]
-    products: dict[tuple[int, int], dict[int, Any]]
+    products: Mapping[tuple[int, int], dict[int, Any]]
     unit: dict[int, Any]
+    columns: Any = field(default=None, repr=False, compare=False)
+    """Optional: the same constants by columns, ``columns[j] = (i's, k's, c's)`` (three
+    int64 ``array("q")``, coefficients as residues mod p), for large tables over GF(p);
+    ``products`` is then a view built from them on first use."""
 
     @property
     def dim(self) -> int:
@@ -143,6 +157,34 @@ class MultiplicationTable:
 
 
 # -- argument checks ---------------------------------------------------------
+
+
+class _ColumnProducts(Mapping):
+    """``{(i, j): {k: c}}`` as a read-only view of column arrays (built on first use)."""
+
+    def __init__(self, F: Field, columns: list) -> None:
+        self._F = F
+        self._columns = columns
+        self._dict: dict | None = None
+
+    def _materialise(self) -> dict:
+        if self._dict is None:
+            F = self._F
+            out: dict[tuple[int, int], dict[int, Any]] = {}
+            for j, (is_, ks, cs) in enumerate(self._columns):
+                for i, k, c in zip(is_, ks, cs, strict=True):
+                    out.setdefault((i, j), {})[k] = F(int(c))
+            self._dict = out
+        return self._dict
+
+    def __getitem__(self, key: tuple[int, int]) -> dict[int, Any]:
+        return self._materialise()[key]
+
+    def __iter__(self) -> Iterator[tuple[int, int]]:
+        return iter(self._materialise())
+
+    def __len__(self) -> int:
+        return len(self._materialise())
 
 
 def _as_field(field: Field | str) -> Field:
@@ -341,6 +383,22 @@ def temperley_lieb(n: int, delta: Any, field: Field | str = QQ) -> Multiplicatio
         index[T][B] = i
         rows[B].append((i, T))
         cols[T].append((i, B))
+    name = f"TL_{n}({F.to_str(d)}) over {F.name}"
+    if (
+        _np is not None
+        and dim >= COLUMN_TABLE_MIN
+        and isinstance(F, PrimeField)
+        and F.p < 2**31
+    ):
+        columns = _tl_columns(halves, hid, rows, cols, index, dim, int(d), F.p)
+        return MultiplicationTable(
+            name=name,
+            field=F,
+            basis=basis,
+            products=_ColumnProducts(F, columns),
+            unit={0: F.one},
+            columns=columns,
+        )
     gc_was_enabled = gc.isenabled()
     gc.disable()  # millions of small containers are made below; collection only slows it
     try:
@@ -348,13 +406,78 @@ def temperley_lieb(n: int, delta: Any, field: Field | str = QQ) -> Multiplicatio
     finally:
         if gc_was_enabled:
             gc.enable()
-    return MultiplicationTable(
-        name=f"TL_{n}({F.to_str(d)}) over {F.name}",
-        field=F,
-        basis=basis,
-        products=products,
-        unit={0: F.one},
-    )
+    return MultiplicationTable(name=name, field=F, basis=basis, products=products, unit={0: F.one})
+
+
+def _tl_columns(
+    halves: list, hid: dict, rows: list, cols: list, index: list, dim: int, d: int, p: int
+) -> list[tuple[array, array, array]]:
+    """The products of :func:`_tl_products` by columns, with int64 arrays (``d`` a residue
+    mod ``p``).
+
+    For a bottom half ``B1`` and a top half ``T2`` the products of the diagrams
+    ``(T1, B1)`` and ``(T2, B2)`` form one block: the glued halves give the new
+    top of each row and the new bottom of each column once, the block of
+    result indices is one lookup in the table ``(top, bottom) -> diagram``.
+    """
+    np = _np
+    H = len(halves)
+    idx = np.full((H, H), -1, dtype=np.int64)
+    for T, row in enumerate(index):
+        for B, i in row.items():
+            idx[T, B] = i
+    parts_i, parts_j, parts_k, parts_l = [], [], [], []
+    row_ids = [np.asarray([i for i, _ in rows[B]], dtype=np.int64) for B in range(H)]
+    col_ids = [np.asarray([j for j, _ in cols[T]], dtype=np.int64) for T in range(H)]
+    for B1, hB1 in enumerate(halves):
+        if not rows[B1]:
+            continue
+        for T2, hT2 in enumerate(halves):
+            if not cols[T2]:
+                continue
+            loops, up, down = _middle(hB1, hT2)
+            if d == 0 and loops:
+                continue
+            tops = np.asarray([hid[_join(halves[T1], up)] for _, T1 in rows[B1]], dtype=np.int64)
+            bottoms = np.asarray(
+                [hid[_join(halves[B2], down)] for _, B2 in cols[T2]], dtype=np.int64
+            )
+            ri, cj = row_ids[B1], col_ids[T2]
+            parts_i.append(np.repeat(ri, len(cj)))
+            parts_j.append(np.tile(cj, len(ri)))
+            parts_k.append(idx[tops[:, None], bottoms[None, :]].ravel())
+            parts_l.append(np.full(len(ri) * len(cj), loops, dtype=np.int8))
+    J = np.concatenate(parts_j)
+    del parts_j
+    order = np.argsort(J, kind="stable")
+    bounds = np.concatenate(([0], np.cumsum(np.bincount(J, minlength=dim)))).tolist()
+    del J
+    I = np.concatenate(parts_i)[order]
+    del parts_i
+    K = np.concatenate(parts_k)[order]
+    del parts_k
+    loops_all = np.concatenate(parts_l)[order]
+    del parts_l, order
+    C = np.zeros(len(loops_all), dtype=np.int64)
+    for L in np.unique(loops_all).tolist():  # the coefficient delta^loops, mod p
+        C[loops_all == L] = pow(d, L, p)
+    del loops_all
+    keep = C != 0  # delta^loops vanishes mod p only for delta = 0 (skipped above)
+    if not keep.all():  # pragma: no cover
+        raise StructureConstantsError("temperley_lieb: a zero structure constant was kept")
+    if int(K.min()) < 0:  # pragma: no cover - every glued pair of halves is a diagram
+        raise StructureConstantsError("temperley_lieb: a product left the diagram basis")
+    out = []
+    for j in range(dim):
+        lo, hi = bounds[j], bounds[j + 1]
+        out.append(
+            (
+                array("q", I[lo:hi].tobytes()),
+                array("q", K[lo:hi].tobytes()),
+                array("q", C[lo:hi].tobytes()),
+            )
+        )
+    return out
 
 
 def _tl_products(

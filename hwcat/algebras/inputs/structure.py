@@ -45,8 +45,13 @@ from hwcat.errors import (
     StructureConstantsError,
 )
 from hwcat.exact import Field, Mat, PrimeField
-from hwcat.exact.polys import matrix_from_ints, sparse_matrix
+from hwcat.exact.polys import matrix_from_ints, matrix_from_residues, sparse_matrix
 from hwcat.limits import check_products
+
+try:  # optional: vectorised passes over the table (exact int64 arithmetic mod p)
+    import numpy as _np
+except ImportError:  # pragma: no cover - numpy is an optional extra
+    _np = None
 
 __all__ = [
     "StructureAlgebra",
@@ -61,6 +66,14 @@ EXACT_ASSOCIATIVITY_LIMIT = 40
 _TARGET_FAILURE = Fraction(1, 10**6)
 _MAX_TRIALS = 64
 _QQ_SAMPLE = 2**20  # random rational tests draw integer coordinates from [-2^20, 2^20]
+_VECTOR_PRIME_LIMIT = 2**31
+"""Over GF(p) with ``p`` below this bound (and numpy installed) the passes over the table
+that build dense matrices run as int64 array operations: every product of two residues
+is below 2^62 and every accumulated sum of ``dim`` residues stays below 2^63."""
+USE_VECTOR = True
+"""Switch for the vectorised passes (tests compare both paths)."""
+GRAM_VECTOR_MIN = 4096
+"""Gram matrices with fewer entries are built by the plain loop."""
 
 
 @dataclass(frozen=True)
@@ -152,6 +165,7 @@ class StructureAlgebra:
         seed: int = 0,
         natural: Sequence[Mat] | None = None,
         trusted: bool = False,
+        columns: Sequence[tuple[Any, Any, Any]] | None = None,
     ) -> None:
         self.field = field
         self.basis = tuple(str(b) for b in basis)
@@ -167,6 +181,44 @@ class StructureAlgebra:
             raise StructureConstantsError("the basis is empty (the zero algebra has no unit)")
         check_products(n, f"the algebra {name!r}" if name else "the algebra")
         self._index = {b: i for i, b in enumerate(self.basis)}
+        if columns is not None:
+            self._init_columns(columns, trusted, products)
+        else:
+            self._init_products(products, trusted)
+        self.natural = tuple(natural) if natural is not None else None
+        self._cache: dict[Any, Any] = {}
+        if unit is not None:  # a wrong given unit is reported as such, before associativity
+            self._unit = self._establish_unit(unit, seed)
+            self.associativity = self._check_associativity(associativity, trials, seed)
+        else:
+            self.associativity = self._check_associativity(associativity, trials, seed)
+            self._unit = self._establish_unit(unit, seed)
+
+    def _init_columns(self, columns: Sequence[tuple[Any, Any, Any]], trusted: bool, products) -> None:
+        """Storage taken over from column arrays (a built-in family's large table)."""
+        n = self.dim
+        if not (trusted and self._p) or products or len(columns) != n:
+            raise InternalInconsistency("column storage is for trusted tables over GF(p) only")
+        nnz = 0
+        for is_, ks, cs in columns:
+            if len(is_) != len(ks) or len(ks) != len(cs):
+                raise InternalInconsistency("columns of different lengths")
+            if len(is_):
+                if _np is not None:
+                    ia = _np.frombuffer(is_, dtype=_np.int64)
+                    ka = _np.frombuffer(ks, dtype=_np.int64)
+                    lo = min(int(ia.min()), int(ka.min()))
+                    hi = max(int(ia.max()), int(ka.max()))
+                else:
+                    lo, hi = min(min(is_), min(ks)), max(max(is_), max(ks))
+                if lo < 0 or hi >= n:
+                    raise StructureConstantsError("a product names an index outside the basis")
+            nnz += len(is_)
+        self._cols = list(columns)
+        self.nnz = nnz
+
+    def _init_products(self, products, trusted: bool) -> None:
+        n = self.dim
         cols_i: list[list[int]] = [[] for _ in range(n)]
         cols_k: list[list[int]] = [[] for _ in range(n)]
         cols_c: list[list[Any]] = [[] for _ in range(n)]
@@ -197,14 +249,6 @@ class StructureAlgebra:
                 (array("l", cols_i[j]), array("l", cols_k[j]), cols_c[j]) for j in range(n)
             ]
         self.nnz = nnz
-        self.natural = tuple(natural) if natural is not None else None
-        self._cache: dict[Any, Any] = {}
-        if unit is not None:  # a wrong given unit is reported as such, before associativity
-            self._unit = self._establish_unit(unit, seed)
-            self.associativity = self._check_associativity(associativity, trials, seed)
-        else:
-            self.associativity = self._check_associativity(associativity, trials, seed)
-            self._unit = self._establish_unit(unit, seed)
 
     # -- coefficients and vectors ------------------------------------------------
     def _raw(self, c: Any) -> Any:
@@ -302,6 +346,164 @@ class StructureAlgebra:
             return [v % p for v in out]
         return out
 
+    def _vectorised(self) -> bool:
+        return (
+            USE_VECTOR
+            and _np is not None
+            and 0 < self._p < _VECTOR_PRIME_LIMIT
+            and self.dim < _VECTOR_PRIME_LIMIT
+        )
+
+    def _np_cols(self) -> list[tuple[Any, Any, Any]]:
+        """The table's columns as int64 numpy views (no copy; cached)."""
+        if "np_cols" not in self._cache:
+            np = _np
+            self._cache["np_cols"] = [
+                (
+                    np.frombuffer(is_, dtype=np.int64) if len(is_) else np.zeros(0, np.int64),
+                    np.frombuffer(ks, dtype=np.int64) if len(ks) else np.zeros(0, np.int64),
+                    np.frombuffer(cs, dtype=np.int64) if len(cs) else np.zeros(0, np.int64),
+                )
+                for is_, ks, cs in self._cols
+            ]
+        return self._cache["np_cols"]
+
+    def _action_dense_vectorised(
+        self, y: list[Any], index: Sequence[int] | None, m: int, left: bool, transpose: bool = False
+    ) -> Mat:
+        """The dense branch of :meth:`_action` with int64 arrays (same matrix, exactly;
+        its transpose with ``transpose``, for the right action)."""
+        np = _np
+        p = self._p
+        n = self.dim
+        cols = self._np_cols()
+        acc = np.zeros(m * m, dtype=np.int64)
+        if index is None:
+            posarr = None
+        else:
+            posarr = np.full(n, -1, dtype=np.int64)
+            posarr[np.asarray(index, dtype=np.int64)] = np.arange(m, dtype=np.int64)
+        if not left:
+            # column j of the table adds y_j c at (i, k); the pairs (i, k) of one column are
+            # distinct, so a fancy-indexed += adds each exactly once
+            for j, yj in enumerate(y):
+                if not yj:
+                    continue
+                i_a, k_a, c_a = cols[j]
+                if not len(i_a):
+                    continue
+                vals = (c_a * (yj % p)) % p
+                if posarr is None:
+                    acc[k_a * m + i_a if transpose else i_a * m + k_a] += vals
+                    continue
+                a = posarr[i_a]
+                b = posarr[k_a]
+                keep = a >= 0
+                if not keep.all():
+                    a, b, vals = a[keep], b[keep], vals[keep]
+                if len(b) and int(b.min()) < 0:
+                    raise InternalInconsistency("right action leaves the index set")
+                acc[b * m + a if transpose else a * m + b] += vals
+        else:
+            yv = np.asarray([int(v) % p for v in y], dtype=np.int64)
+            rows = range(n) if index is None else index
+            for j in rows:
+                i_a, k_a, c_a = cols[j]
+                if not len(i_a):
+                    continue
+                xi = yv[i_a]
+                nz = xi != 0
+                if not nz.any():
+                    continue
+                vals = (xi[nz] * c_a[nz]) % p
+                kk = k_a[nz]
+                if posarr is None:
+                    rj = j
+                else:
+                    rj = int(posarr[j])
+                    kk = posarr[kk]
+                    if int(kk.min()) < 0:
+                        raise InternalInconsistency("left action leaves the index set")
+                # several i may give the same k: add.at accumulates repeated positions
+                np.add.at(acc, rj * m + kk, vals)
+        acc %= p
+        return matrix_from_residues(self.field, m, m, acc)
+
+    def _form_of_products(
+        self, x: list[Any], col: list[Any], rows: Sequence[int] | None = None
+    ) -> list[Any]:
+        """Raw ``phi`` with ``phi_j = col(x * b_j)`` for ``j`` in ``rows`` (default: all),
+        zero elsewhere: one pass over the table's columns."""
+        phi = [self._zero_raw()] * self.dim
+        js = range(self.dim) if rows is None else rows
+        if self._vectorised():
+            np = _np
+            p = self._p
+            xv = np.asarray([int(v) % p for v in x], dtype=np.int64)
+            cv = np.asarray([int(v) % p for v in col], dtype=np.int64)
+            npc = self._np_cols()
+            for j in js:
+                i_a, k_a, c_a = npc[j]
+                if len(i_a):
+                    t = (xv[i_a] * c_a) % p
+                    phi[j] = int(((t * cv[k_a]) % p).sum() % p)
+            return phi
+        supp = {i for i, v in enumerate(x) if v}
+        for j in js:
+            is_, ks, cs = self._cols[j]
+            acc = self._zero_raw()
+            for i, k, coef in zip(is_, ks, cs, strict=True):
+                if i in supp and col[k]:
+                    acc += x[i] * coef * col[k]
+            phi[j] = acc % self._p if self._p else acc
+        return phi
+
+    def _row_terms_vectorised(self) -> list[tuple[Any, Any, Any]]:
+        """:meth:`_row_terms` by one stable sort of the table's terms by their left factor."""
+        np = _np
+        n = self.dim
+        cols = self._np_cols()
+        lengths = np.asarray([len(c[0]) for c in cols], dtype=np.int64)
+        I = np.concatenate([c[0] for c in cols])
+        order = np.argsort(I, kind="stable")  # within one i, terms stay in the order of j
+        J = np.repeat(np.arange(n, dtype=np.int64), lengths)[order]
+        K = np.concatenate([c[1] for c in cols])[order]
+        C = np.concatenate([c[2] for c in cols])[order]
+        bounds = np.concatenate(([0], np.cumsum(np.bincount(I, minlength=n)))).tolist()
+        del I, order
+        out = []
+        for i in range(n):
+            lo, hi = bounds[i], bounds[i + 1]
+            out.append(
+                (
+                    array("l", J[lo:hi].tobytes()),
+                    array("l", K[lo:hi].tobytes()),
+                    array("q", C[lo:hi].tobytes()),
+                )
+            )
+        return out
+
+    def _gram_vectorised(self, ph: list[Any], rpos: list[int], rows, cols) -> Mat:
+        """The loop of :meth:`gram` with int64 arrays (same matrix, exactly)."""
+        np = _np
+        p = self._p
+        w = len(cols)
+        acc = np.zeros(len(rows) * w, dtype=np.int64)
+        pharr = np.asarray([int(x) % p for x in ph], dtype=np.int64)
+        rp = np.asarray(rpos, dtype=np.int64)
+        npc = self._np_cols()
+        for b, c in enumerate(cols):
+            i_a, k_a, c_a = npc[c]
+            if not len(i_a):
+                continue
+            a = rp[i_a]
+            v = (c_a * pharr[k_a]) % p
+            keep = (a >= 0) & (v != 0)
+            if keep.any():
+                np.add.at(acc, a[keep] * w + b, v[keep])  # one i may occur with several k
+        acc %= p
+        return matrix_from_residues(self.field, len(rows), w, acc)
+
     def _action(self, y: list[Any], index: Sequence[int] | None, left: bool) -> Mat:
         n = self.dim
         F = self.field
@@ -319,6 +521,9 @@ class StructureAlgebra:
         else:
             touched = sum(len(self._cols[j][0]) for j, yj in enumerate(y) if yj)
         dense = touched * 4 > m * m
+        if self._vectorised() and (dense or m * m >= GRAM_VECTOR_MIN):
+            # a zero-filled int64 array and one copy into flint beat entry-wise assembly
+            return self._action_dense_vectorised(y, index, m, left)
         acc: Any = [self._zero_raw()] * (m * m) if dense else {}
         zero = self._zero_raw()
         if not left:
@@ -369,6 +574,14 @@ class StructureAlgebra:
             return matrix_from_ints(F, m, m, acc)
         return sparse_matrix(F, m, m, {(q // m, q % m): v for q, v in acc.items()})
 
+    def _right_action_transposed(self, y: list[Any], index: Sequence[int] | None) -> Mat:
+        """The transpose of ``_action(y, index, left=False)``, built as such when the
+        table passes are vectorised (flint's transpose of a large matrix is slow)."""
+        if self._vectorised():
+            m = self.dim if index is None else len(index)
+            return self._action_dense_vectorised(y, index, m, False, transpose=True)
+        return self._action(y, index, left=False).transpose()
+
     def right_action(self, y: Sequence[Any], index: Sequence[int] | None = None) -> Mat:
         """The matrix of ``v -> v * y`` (row ``i`` holds ``b_i * y``).
 
@@ -384,6 +597,8 @@ class StructureAlgebra:
 
     def _row_terms(self) -> list[tuple[Any, Any, Any]]:
         """For each ``i`` the terms of ``b_i * b_j`` over all ``j``: arrays ``(j, k, c)`` (cached)."""
+        if "rows" not in self._cache and self._vectorised() and self.nnz:
+            self._cache["rows"] = self._row_terms_vectorised()
         if "rows" not in self._cache:
             n = self.dim
             js: list[list[int]] = [[] for _ in range(n)]
@@ -428,6 +643,8 @@ class StructureAlgebra:
             rpos[i] = a
         acc = [self._zero_raw()] * (len(rows) * len(cols))
         w = len(cols)
+        if self._vectorised() and len(rows) * w >= GRAM_VECTOR_MIN:
+            return self._gram_vectorised(ph, rpos, rows, cols)
         for b, c in enumerate(cols):
             is_, ks, cs = self._cols[c]
             for i, k, coef in zip(is_, ks, cs, strict=True):
@@ -699,9 +916,18 @@ class StructureAlgebra:
         p = self._p
         supp = [i for i, c in enumerate(u) if c]
         sset = set(supp)
+        if self._vectorised():
+            uv = _np.asarray([int(x) % p for x in u], dtype=_np.int64)
         for j, (is_, ks, cs) in enumerate(self._cols):
             out: dict[int, Any] = {}
-            for i, k, c in zip(is_, ks, cs, strict=True):
+            if self._vectorised():
+                # only the terms b_i * b_j with i in the support of u, picked by one mask
+                i_a, k_a, c_a = self._np_cols()[j]
+                hit = _np.flatnonzero(uv[i_a]).tolist() if len(i_a) else []
+                terms = ((is_[t], ks[t], cs[t]) for t in hit)
+            else:
+                terms = zip(is_, ks, cs, strict=True)
+            for i, k, c in terms:
                 if i in sset:
                     out[k] = out.get(k, zero) + u[i] * c
             out = {k: (v % p if p else v) for k, v in out.items()}
@@ -874,6 +1100,19 @@ def from_table(
     unit = [F.zero] * table.dim
     for k, c in table.unit.items():
         unit[k] = c
+    columns = getattr(table, "columns", None)
+    if columns is not None:
+        return StructureAlgebra(
+            F,
+            table.basis,
+            {},
+            unit,
+            name=table.name,
+            associativity=associativity,
+            trusted=True,
+            columns=columns,
+            **kwargs,
+        )
     return StructureAlgebra(
         F,
         table.basis,

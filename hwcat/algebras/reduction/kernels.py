@@ -84,6 +84,26 @@ def coords_solver(B: Mat) -> tuple[tuple[int, ...], Mat]:
     return piv, select_columns(B, piv).inverse()
 
 
+def chain_step(mats: Sequence[Mat], transposed: Sequence[Mat] | None = None):
+    """``v -> v @ mats[0] @ mats[1] ...`` for single rows ``v``, as column products.
+
+    flint multiplies a single row by a square matrix several times slower than
+    the square matrix by a single column; the Krylov sequences of the splitting
+    search are long chains of such products, so the transposes are taken once
+    and ``v M N = (N^T (M^T v^T))^T``.  ``transposed``: the transposes, if known.
+    """
+    # (v M N)^T = N^T (M^T v^T): M^T acts first
+    Ts = list(transposed) if transposed is not None else [M.transpose() for M in mats]
+
+    def step(v: Mat) -> Mat:
+        x = v.transpose()
+        for T in Ts:
+            x = T @ x
+        return x.transpose()
+
+    return step
+
+
 def krylov(v0: Mat, Z: Mat | None, step=None, limit: int | None = None) -> tuple[Mat, list[Any]]:
     """Vectors ``v0 Z^a`` up to the first dependency; returns ``(K, c)`` with
     ``v0 Z^d = c @ K`` and ``K`` the ``d`` independent vectors."""

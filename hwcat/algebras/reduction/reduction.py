@@ -84,6 +84,7 @@ from hwcat.algebras.inputs.structure import StructureAlgebra
 from hwcat.algebras.reduction.kernels import (
     apply_transfer,
     as_row,
+    chain_step,
     coords_solver,
     embed,
     krylov,
@@ -142,7 +143,7 @@ class _Class:
     e: list[Any]
     index: list[int] | None  # basis indices spanning A f (None: all)
     rows: list[int] | None  # basis indices spanning f A (None: all)
-    R: Mat  # right multiplication by e on span(index)
+    R: Mat | None  # right multiplication by e on span(index) (None: rebuilt when needed)
     L: Mat  # rows e*b_l (l in J) on span(rows)
     J: list[int]  # basis indices with e*b_l a basis of eA
     corner: list[int]  # basis indices with e*b_l*e a basis of eAe
@@ -157,6 +158,7 @@ class _Class:
     corner_mult: Any = None
     rowterms: dict[int, list[tuple[int, int, Any]]] = field(default_factory=dict)
     urows: list[list[Any]] | None = None
+    uarray: Any = None  # urows as an int64 array (vectorised ranks)
 
 
 def _right_ideal_basis(A: StructureAlgebra, e: list[Any], rows) -> tuple[list[int], Mat]:
@@ -217,15 +219,7 @@ def _new_class(A: StructureAlgebra, e: list[Any], R: Mat, index, rows) -> _Class
     # phi(b_j) = chi(e b_j e): col is x -> chi(x e) on span(index), then one pass over b_j
     chicol = Mat.from_flat(F, len(chi), 1, chi)
     col = embed(A, (select_columns(R, piv) @ (T @ chicol)).entries(), index)
-    phi = [A._zero_raw()] * A.dim
-    supp = {i for i, x in enumerate(e) if x}
-    for j in range(A.dim) if rows is None else rows:  # e b_j = 0 outside f A
-        is_, ks, cs = A._cols[j]
-        acc = A._zero_raw()
-        for i, k, coef in zip(is_, ks, cs, strict=True):
-            if i in supp and col[k]:
-                acc += e[i] * coef * col[k]
-        phi[j] = acc % A._p if A._p else acc
+    phi = A._form_of_products(e, col, rows)  # e b_j = 0 outside f A
     # G[a][c] = phi(b_a b_c) = chi(e b_a b_c e) vanishes unless b_c e != 0, i.e. c in index
     cols = None if index is None else list(index)
     G = A.gram(A.vec(phi), rows=J, cols=cols)
@@ -317,6 +311,7 @@ class _Search:
         self.trace_exact = p == 0 or p > self.A.dim
         self.tau = self.A.raw(self.A.trace_functional())
         self.pool: list[tuple[list[Any], Mat]] = []
+        self.pool_T: dict[int, Mat] = {}  # transposed matrices of the pool (small algebras)
 
     def dense(self, k: int) -> tuple[list[Any], Mat]:
         """The ``k``-th dense random element and its right multiplication matrix.
@@ -334,9 +329,26 @@ class _Search:
                 w = [_random_element(A.field, self.rng) for _ in range(A.dim)]
             else:
                 w = [A.field(self.rng.randint(-3, 3)) for _ in range(A.dim)]
-            self.pool.append((w, A._action(w, None, left=False)))
+            keep = A.dim <= KEEP_MATRICES_LIMIT
+            self.pool.append((w, A._action(w, None, left=False) if keep else None))
             self.tick("dense_elements", t0)
-        return self.pool[k]
+        w, Rw = self.pool[k]
+        if Rw is None:
+            t0 = time.perf_counter()
+            Rw = A._action(w, None, left=False)
+            self.tick("dense_elements", t0)
+        return w, Rw
+
+    def dense_vector(self, k: int) -> list[Any]:
+        """The ``k``-th dense random element (the same as :meth:`dense`, without its matrix)."""
+        A = self.A
+        while len(self.pool) <= k:
+            if A._p:
+                w = [self.rng.randrange(A._p) for _ in range(A.dim)]
+            else:
+                w = [A.field(self.rng.randint(-3, 3)) for _ in range(A.dim)]
+            self.pool.append((w, None))
+        return self.pool[k][0]
 
     def covered(self) -> int:
         return sum(c.n * c.dim_P for c in self.classes)
@@ -410,8 +422,30 @@ class _Search:
     def split_attempt(self, node: _Node) -> list[Any] | tuple[Poly, int]:
         """Try one random element ``z = f y f``; children vectors, or the single factor."""
         A = self.A
-        F = A.field
         node.attempts += 1
+        m = A.dim if node.index is None else len(node.index)
+        if m >= 256 and A._vectorised():
+            # Krylov chains by column products with the transposes, built as such
+            t0 = time.perf_counter()
+            if node.index is None and A.dim > 64:
+                k = node.depth + node.attempts - 1
+                w = self.dense_vector(k)
+                Ty = self.pool_T.get(k)
+                if Ty is None:
+                    Ty = A._right_action_transposed(w, None)
+                    if A.dim <= KEEP_MATRICES_LIMIT:
+                        self.pool_T[k] = Ty
+            else:
+                Ty = A._right_action_transposed(self.random_sparse(node), node.index)
+            mats = [Ty]
+            if not node.root:
+                mats.append(A._right_action_transposed(node.f, node.index))
+            self.tick("dense_elements", t0)
+            t0 = time.perf_counter()
+            v0 = as_row(A, restrict(node.f, node.index))
+            K, c = krylov(v0, None, step=chain_step([], mats), limit=v0.ncols)
+            self.tick("krylov", t0)
+            return self._children(node, K, c)
         if node.index is None and A._p and A.dim > 64:
             _, Ry = self.dense(node.depth + node.attempts - 1)
         else:
@@ -419,11 +453,20 @@ class _Search:
         R = None if node.root else self.ensure_R(node)
         t0 = time.perf_counter()
         v0 = as_row(A, restrict(node.f, node.index))
-        if R is None:
+        if v0.ncols >= 256:
+            step = chain_step([Ry] if R is None else [Ry, R])
+            K, c = krylov(v0, None, step=step, limit=v0.ncols)
+        elif R is None:
             K, c = krylov(v0, Ry, limit=v0.ncols)
         else:
             K, c = krylov(v0, None, step=lambda v: (v @ Ry) @ R, limit=v0.ncols)
         self.tick("krylov", t0)
+        return self._children(node, K, c)
+
+    def _children(self, node: _Node, K: Mat, c: list[Any]) -> list[Any] | tuple[Poly, int]:
+        """From the Krylov sequence of ``z``: children vectors, or the single factor."""
+        A = self.A
+        F = A.field
         mu = minpoly(F, K.nrows, c)
         facs = mu.factor()
         if len(facs) == 1:
@@ -497,6 +540,9 @@ class _Search:
                     self.tick("certify", t0)
                 if sum(self.known_ranks(node.f)):
                     raise InternalInconsistency("a primitive idempotent of a known class was kept")
+                if cl.index is None and self.A.dim > KEEP_MATRICES_LIMIT:
+                    cl.R = None  # rebuilt by _class_R when the basic algebra is assembled
+                node.R = None
                 self.classes.append(cl)
                 return []
 
@@ -516,6 +562,8 @@ def _rank_in_simple(A: StructureAlgebra, c: _Class, f: list[Any]) -> int:
     """``dim L f`` for the simple ``L`` of class ``c``: rank of ``(b_s f) U`` over the section."""
     F = A.field
     p = A._p
+    if A._vectorised() and A.dim * (p - 1) ** 2 < 2**63:
+        return _rank_in_simple_vectorised(A, c, f)
     if c.urows is None:
         c.urows = raw_rows(A, c.U)
     width = c.n
@@ -536,6 +584,33 @@ def _rank_in_simple(A: StructureAlgebra, c: _Class, f: list[Any]) -> int:
                         acc[a] += v * u[a]
         rows.append([x % p for x in acc] if p else acc)
     return matrix_from_ints(F, len(rows), width, [x for r in rows for x in r]).rank()
+
+
+def _rank_in_simple_vectorised(A: StructureAlgebra, c: _Class, f: list[Any]) -> int:
+    """:func:`_rank_in_simple` with int64 arrays: ``(b_s f) U`` for the section rows at once
+    (every product of residues and every sum of ``dim A`` of them stays below 2^63)."""
+    import numpy as np
+
+    p = A._p
+    if c.urows is None:
+        c.urows = raw_rows(A, c.U)
+    Ua = c.uarray
+    if Ua is None:
+        Ua = c.uarray = np.asarray(c.urows, dtype=np.int64).reshape(A.dim, c.n)
+    fv = np.asarray([int(x) % p for x in f], dtype=np.int64)
+    out = np.zeros((len(c.sec), A.dim), dtype=np.int64)
+    for r, s in enumerate(c.sec):
+        js, ks, cs = c.rowterms[s]
+        if not len(js):
+            continue
+        ja = np.frombuffer(js, dtype=np.int64)
+        vals = (fv[ja] * np.frombuffer(cs, dtype=np.int64)) % p
+        nz = vals != 0
+        if nz.any():
+            np.add.at(out[r], np.frombuffer(ks, dtype=np.int64)[nz], vals[nz])
+    out %= p
+    M = (out @ Ua) % p
+    return matrix_from_ints(A.field, len(c.sec), c.n, M.ravel().tolist()).rank()
 
 
 def _roots(A: StructureAlgebra) -> list[_Node]:
@@ -690,6 +765,17 @@ class Reduction:
         }
 
 
+KEEP_MATRICES_LIMIT = 2500
+"""Above this dimension the dense ``dim A x dim A`` matrices of the search (random
+elements, simples) are not kept but rebuilt from the table when needed again: one
+vectorised pass over the table costs far less than the memory they would hold."""
+
+
+def _class_R(A: StructureAlgebra, c: _Class) -> Mat:
+    """Right multiplication by the class's idempotent (kept, or rebuilt from the table)."""
+    return c.R if c.R is not None else A._action(c.e, c.index, left=False)
+
+
 def _assemble(A: StructureAlgebra, classes: list[_Class], name: str) -> BasicAlgebra:
     F = A.field
     m = len(classes)
@@ -697,9 +783,17 @@ def _assemble(A: StructureAlgebra, classes: list[_Class], name: str) -> BasicAlg
     gen: dict[tuple[int, int], list[int]] = {}
     basis: dict[tuple[int, int], Mat] = {}
     solver: dict[tuple[int, int], tuple[tuple[int, ...], Mat]] = {}
-    for s, cs in enumerate(classes):
-        for t, ct in enumerate(classes):
-            X = apply_transfer(cs.L, transfer(A, cs.rows, ct.index)) @ ct.R
+    colsR: dict[tuple[int, int], Mat] = {}
+    for t, ct in enumerate(classes):
+        # one right multiplication matrix alive at a time, transposed: flint multiplies a
+        # square matrix by a thin one faster than a thin one by a square one
+        if A._vectorised():
+            RtT = A._right_action_transposed(ct.e, ct.index)
+        else:
+            RtT = _class_R(A, ct).transpose()
+        for s, cs in enumerate(classes):
+            Ls = apply_transfer(cs.L, transfer(A, cs.rows, ct.index))
+            X = (RtT @ Ls.transpose()).transpose()  # = Ls @ R_t
             pos = select_independent_rows(X) if X.nrows else []
             gen[(s, t)] = [cs.J[k] for k in pos]
             B = X.take_rows(pos) if pos else Mat.zeros(F, 0, X.ncols)
@@ -707,15 +801,13 @@ def _assemble(A: StructureAlgebra, classes: list[_Class], name: str) -> BasicAlg
                 raise InternalInconsistency("corner basis chosen twice differently")
             basis[(s, t)] = B
             solver[(s, t)] = coords_solver(B) if pos else ((), Mat.zeros(F, 0, 0))
+            if pos:
+                piv, T = solver[(s, t)]
+                colsR[(s, t)] = RtT.take_rows(list(piv)).transpose() @ T  # columns piv of R_t
+        del RtT
     dims = {k: v.nrows for k, v in basis.items()}
     # multiplication: x (in e_s A e_u) times y = e_u b_l e_t is ((x b_l) restricted) e_t
     mult: dict[tuple[int, int, int], list[Mat]] = {}
-    colsR: dict[tuple[int, int], Mat] = {}
-    for s in range(m):
-        for t in range(m):
-            if dims[(s, t)]:
-                piv, T = solver[(s, t)]
-                colsR[(s, t)] = select_columns(classes[t].R, piv) @ T
     for u in range(m):
         for t in range(m):
             for l in gen[(u, t)]:
