@@ -23,6 +23,7 @@ __all__ = [
     "OrderError",
     "StructureConstantsError",
     "NotSplitError",
+    "ModuleFileError",
     "InternalInconsistency",
 ]
 
@@ -73,6 +74,11 @@ class StructureConstantsError(SpecError):
 
 class NotSplitError(HwcatError, ValueError):
     """A simple component of the semisimple quotient does not split over the given field."""
+
+
+class ModuleFileError(SpecError):
+    """A module file, a module name or an element expression is malformed, or the
+    matrices do not define a module (a relation or product fails)."""
 
 
 class InternalInconsistency(HwcatError, AssertionError):

@@ -19,7 +19,7 @@ from hwcat.errors import HwcatError, InternalInconsistency
 
 __all__ = ["main", "build_parser", "COMMAND_MODULES"]
 
-COMMAND_MODULES = ("core",)
+COMMAND_MODULES = ("core", "module")
 """Modules of :mod:`hwcat.cli` whose ``register`` adds commands, in help order."""
 
 

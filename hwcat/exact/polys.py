@@ -42,6 +42,9 @@ __all__ = [
     "select_columns",
     "select_rows",
     "lifted_power_trace",
+    "charpoly",
+    "minpoly",
+    "evaluate",
 ]
 
 
@@ -267,3 +270,45 @@ def lifted_power_trace(M: Mat, i: int) -> int:
             base = base * base
     ent = R.entries()
     return sum(int(ent[k * n + k]) for k in range(n)) % mod
+
+
+# -- characteristic and minimal polynomials of matrices ----------------------------------
+
+
+def charpoly(M: Mat) -> Poly:
+    """The characteristic polynomial ``det(x - M)`` of a square matrix.
+
+    >>> from hwcat.exact import QQ
+    >>> str(charpoly(Mat.from_rows(QQ, [[1, 1], [0, 1]])))
+    'x^2 + (-2)*x + 1'
+    """
+    if M.nrows != M.ncols:
+        raise InternalInconsistency("charpoly of a non-square matrix")
+    if M.nrows == 0:
+        return Poly.constant(M.field, 1)
+    return Poly(M.field, M._m.charpoly())
+
+
+def minpoly(M: Mat) -> Poly:
+    """The minimal polynomial (monic) of a square matrix.
+
+    >>> from hwcat.exact import GF
+    >>> str(minpoly(Mat.identity(GF(5), 3)))
+    'x + 4'
+    """
+    if M.nrows != M.ncols:
+        raise InternalInconsistency("minpoly of a non-square matrix")
+    if M.nrows == 0:
+        return Poly.constant(M.field, 1)
+    return Poly(M.field, M._m.minpoly()).monic()
+
+
+def evaluate(f: Poly, M: Mat) -> Mat:
+    """``f(M)`` for a square matrix ``M`` (Horner's rule)."""
+    F = M.field
+    n = M.nrows
+    out = Mat.zeros(F, n, n)
+    ident = Mat.identity(F, n)
+    for c in reversed(f.coeffs()):
+        out = out @ M + ident.scale(c)
+    return out

@@ -736,9 +736,22 @@ def _assemble(A: StructureAlgebra, classes: list[_Class], name: str) -> BasicAlg
         reps.append((dvec, tuple(maps)))
         piv, T = solver[(s, s)]
         starts.append(select_columns(_mat(A, _restrict(classes[s].e, classes[s].index)), piv) @ T)
-    return BasicAlgebra.from_cyclic_representations(
+    B = BasicAlgebra.from_cyclic_representations(
         F, Q, reps, starts=starts, name=name, morita=[c.n for c in classes]
     )
+    # each arrow u -> t as an element of A: sum_k coef_k * (e_u b_(l_k) e_t)
+    B._cache[ARROW_TERMS] = tuple(
+        (a.source, a.target, tuple(
+            (gen[(a.source, a.target)][k], c) for k, c in enumerate(co.entries()) if c != 0
+        ))
+        for a, co in zip(arrows, arrow_coords, strict=True)
+    )
+    return B
+
+
+ARROW_TERMS = ("reduction", "arrow_terms")
+"""Cache key of a reduced hub: each arrow ``(u, t, ((l, coef), ...))`` meaning
+``sum coef * e_u b_l e_t`` in the input algebra (``e`` the primitive idempotents)."""
 
 
 _REDUCTIONS: weakref.WeakKeyDictionary = weakref.WeakKeyDictionary()
