@@ -45,6 +45,8 @@ __all__ = [
     "charpoly",
     "minpoly",
     "evaluate",
+    "fast_rref",
+    "fast_left_kernel",
 ]
 
 
@@ -312,3 +314,35 @@ def evaluate(f: Poly, M: Mat) -> Mat:
     for c in reversed(f.coeffs()):
         out = out @ M + ident.scale(c)
     return out
+
+
+def fast_rref(M: Mat) -> tuple[Mat, tuple[int, ...]]:
+    """:meth:`Mat.rref` without converting every entry: pivots are found by element
+    access along the echelon staircase, and rows are cut by one product."""
+    r, c = M.shape
+    if r == 0 or c == 0:
+        return Mat.zeros(M.field, 0, c), ()
+    R, rank = M._m.rref()
+    pivots = []
+    j = 0
+    for i in range(rank):
+        while R[i, j] == 0:
+            j += 1
+        pivots.append(j)
+        j += 1
+    out = Mat(M.field, R)
+    if rank < r:
+        out = select_rows(out, list(range(rank))) if rank else Mat.zeros(M.field, 0, c)
+    return out, tuple(pivots)
+
+
+def fast_left_kernel(M: Mat) -> Mat:
+    """Rows spanning ``{x : x @ M = 0}`` (flint's nullspace over GF(p))."""
+    F = M.field
+    r, c = M.shape
+    if not isinstance(F, PrimeField) or r == 0 or c == 0:
+        return M.left_kernel()
+    X, nullity = M._m.transpose().nullspace()
+    if nullity == 0:
+        return Mat.zeros(F, 0, r)
+    return select_rows(Mat(F, X.transpose()), list(range(nullity)))

@@ -365,9 +365,12 @@ def named_module(text: str, B: BasicAlgebra, order=None) -> ActionModule:
 def spin_chain_module(n: int, delta: Any, field: Any) -> ActionModule:
     """The Temperley-Lieb spin chain of length ``n`` for loop weight ``delta = q + 1/q``
     (``q`` chosen in the field), as the natural module of its generators."""
-    from hwcat.algebras.families.spin_chain import loop_weight_root, spin_chain_generators
+    from hwcat.algebras.families.spin_chain import loop_weight_root, spin_chain_entries
+    from hwcat.exact.polys import sparse_matrix
 
     F = parse_field(field) if isinstance(field, str) else field
     q = loop_weight_root(delta, F)
-    gens = spin_chain_generators(n, q, F)
-    return ActionModule(F, 1 << n, gens, name=f"spin chain n={n}, q={F.to_str(q)}")
+    ents = spin_chain_entries(n, q, F)
+    N = 1 << n
+    gens = {g: sparse_matrix(F, N, N, e) for g, e in ents.items()}
+    return ActionModule(F, N, gens, name=f"spin chain n={n}, q={F.to_str(q)}", sparse=ents)

@@ -53,6 +53,9 @@ class ActionModule:
     representation : Module, optional
         The same module as a quiver representation of a basic algebra, with
         ``k^dim`` the vertex spaces concatenated in vertex order.
+    sparse : mapping, optional
+        The nonzero entries ``{(i, j): value}`` of some generators, when known
+        (spares a pass over every entry of large matrices).
     """
 
     def __init__(
@@ -65,6 +68,7 @@ class ActionModule:
         name: str = "",
         basis_action: Callable[[int], Mat] | None = None,
         representation: Module | None = None,
+        sparse: Mapping[str, Mapping[tuple[int, int], Any]] | None = None,
     ) -> None:
         self.field = field
         self.dim = int(dim)
@@ -73,6 +77,7 @@ class ActionModule:
         self.name = name
         self.basis_action = basis_action
         self.representation = representation
+        self.sparse = dict(sparse) if sparse else {}
         self._memo: dict[Any, Any] = {}
         for g, G in list(self.generators.items()) + list(self.letters.items()):
             if G.shape != (self.dim, self.dim):

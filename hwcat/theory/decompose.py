@@ -59,9 +59,12 @@ from hwcat.exact.polys import (
     Poly,
     charpoly,
     evaluate,
+    fast_left_kernel,
+    fast_rref,
     fitting_polynomials,
     minpoly,
     select_columns,
+    select_rows,
     sparse_matrix,
 )
 from hwcat.modules.action import ActionModule
@@ -81,6 +84,7 @@ __all__ = [
 
 DEFAULT_SEED = 0
 _TRIES = 12
+_MAX_BLOCKS = 6
 
 
 # -- coordinate blocks ---------------------------------------------------------------------
@@ -92,6 +96,9 @@ def _nonzeros(M: ActionModule) -> dict[str, list[tuple[int, int, Any]]]:
         n = M.dim
         out = {}
         for g, G in M.generators.items():
+            if g in M.sparse:
+                out[g] = [(i, j, x) for (i, j), x in M.sparse[g].items() if x != 0]
+                continue
             e = G.entries()
             out[g] = [(*divmod(k, n), x) for k, x in enumerate(e) if x != 0]
         M._memo[key] = out
@@ -168,11 +175,32 @@ def _random_recipe(M: ActionModule, rng: random.Random) -> _Recipe:
     return _Recipe(tuple(terms))
 
 
-def _reduce(E: Mat, piv: tuple[int, ...], X: Mat) -> Mat:
-    """Rows of ``X`` minus their projection on the reduced echelon rows ``E``."""
-    if E.nrows == 0:
+class _Echelon:
+    """A growing subspace as blocks of reduced rows (each block zero at every other
+    block's pivots), so that adding rows never restacks the whole basis."""
+
+    def __init__(self, F: Field, d: int) -> None:
+        self.F, self.d = F, d
+        self.blocks: list[tuple[Mat, list[int]]] = []
+        self.rank = 0
+
+    def reduce(self, X: Mat) -> Mat:
+        for Eb, p in self.blocks:
+            X = X - select_columns(X, p) @ Eb
         return X
-    return X - select_columns(X, list(piv)) @ E
+
+    def add(self, N: Mat) -> None:
+        """Add rows already reduced against the blocks."""
+        R, piv = fast_rref(N)
+        if not piv:
+            return
+        p = list(piv)
+        self.blocks = [(Eb - select_columns(Eb, p) @ R, q) for Eb, q in self.blocks]
+        self.blocks.append((R, p))
+        self.rank += len(p)
+        if len(self.blocks) > _MAX_BLOCKS:  # restack once in a while
+            rows = Mat.vstack(self.F, [Eb for Eb, _ in self.blocks], self.d)
+            self.blocks = [(rows, [c for _, q in self.blocks for c in q])]
 
 
 @dataclass
@@ -198,9 +226,9 @@ def _spin(M: ActionModule, seed: int) -> _Spin:
     Z = recipe.matrix(M)
     chi = charpoly(Z)
     factors = sorted(chi.factor(), key=lambda ge: (ge[0].degree * ge[1], ge[0].degree))
-    E = Mat.zeros(F, 0, d)
-    piv: tuple[int, ...] = ()
-    rows: list[Mat] = []
+    E = _Echelon(F, d)
+    blocks: list[Mat] = []
+    nrows = 0
     steps: list[tuple[int, int, str]] = []
     seeds: list[tuple[Mat, Poly]] = []
     rows_of_seed: list[list[int]] = []
@@ -209,43 +237,44 @@ def _spin(M: ActionModule, seed: int) -> _Spin:
     # together span the module by Fitting's lemma)
     passes = [g for g, _ in factors] + [g**a for g, a in factors if a > 1]
     for g in passes:
-        if E.nrows == d:
+        if E.rank == d:
             break
-        K = evaluate(g, Z).left_kernel()
-        while E.nrows < d:
-            R = _reduce(E, piv, K)
-            nz = R.nonzero_rows()
+        K = fast_left_kernel(evaluate(g, Z))
+        while E.rank < d:
+            R = E.reduce(K)
+            nz = _independent(R)
             if not nz:
                 break
-            v = K.row(nz[0])
+            v = select_rows(K, nz[:1])
             j = len(seeds)
             seeds.append((v, g))
-            rows_of_seed.append([])
-            # spin v level by level
-            level = [len(rows)]
-            rows.append(v)
+            rows_of_seed.append([nrows])
             steps.append((j, -1, ""))
-            rows_of_seed[j].append(level[0])
-            E, piv = Mat.vstack(F, [E, v], d).rref()
-            while level:
-                cands, origin = [], []
-                for r in level:
-                    for gname in names:
-                        cands.append(rows[r] @ M.generators[gname])
-                        origin.append((r, gname))
-                C = _reduce(E, piv, Mat.vstack(F, cands, d))
-                keep = _independent(C)
-                level = []
-                if keep:
+            blocks.append(v)
+            E.add(E.reduce(v))
+            level, level_rows = v, [nrows]
+            nrows += 1
+            while level_rows:
+                new_blocks, new_rows = [], []
+                for gname in names:
+                    P = level @ M.generators[gname]
+                    keep = _independent(E.reduce(P))
+                    if not keep:
+                        continue
+                    X = select_rows(P, keep)
+                    E.add(E.reduce(X))
+                    new_blocks.append(X)
                     for k in keep:
-                        level.append(len(rows))
-                        rows.append(cands[k])
-                        steps.append((j, origin[k][0], origin[k][1]))
-                        rows_of_seed[j].append(len(rows) - 1)
-                    E, piv = Mat.vstack(F, [E, C.take_rows(keep)], d).rref()
-    if E.nrows != d:
-        raise InternalInconsistency(f"seeds spanned {E.nrows} of {d} dimensions")
-    B = Mat.vstack(F, rows, d) if rows else Mat.zeros(F, 0, d)
+                        steps.append((j, level_rows[k], gname))
+                        rows_of_seed[j].append(nrows)
+                        new_rows.append(nrows)
+                        nrows += 1
+                blocks.extend(new_blocks)
+                level_rows = new_rows
+                level = Mat.vstack(F, new_blocks, d) if new_blocks else level
+    if E.rank != d:
+        raise InternalInconsistency(f"seeds spanned {E.rank} of {d} dimensions")
+    B = Mat.vstack(F, blocks, d) if blocks else Mat.zeros(F, 0, d)
     inv = B.inverse()
     sp = _Spin(recipe, seeds, B, steps, rows_of_seed, inv)
     for gname, G in M.generators.items():
@@ -258,7 +287,7 @@ def _independent(C: Mat) -> list[int]:
     """Indices of a maximal independent set of rows of ``C`` (greedy, in order)."""
     if C.nrows == 0:
         return []
-    _, piv = C.transpose().rref()
+    _, piv = fast_rref(C.transpose())
     return list(piv)
 
 
@@ -289,7 +318,7 @@ def hom_basis(X: ActionModule, Y: ActionModule, *, seed: int = DEFAULT_SEED) -> 
     cands: list[tuple[int, Mat]] = []  # (seed j, T: rows_of_seed[j] images for one candidate)
     for j, (_, g) in enumerate(sp.seeds):
         if g not in cache:
-            cache[g] = evaluate(g, ZY).left_kernel()
+            cache[g] = fast_left_kernel(evaluate(g, ZY))
         K = cache[g]
         if K.nrows == 0:
             continue
@@ -303,18 +332,23 @@ def hom_basis(X: ActionModule, Y: ActionModule, *, seed: int = DEFAULT_SEED) -> 
         stacked = Mat.vstack(F, images, dY)  # (len(rows) * kappa) x dY, row k*kappa + w
         kappa = K.nrows
         for w in range(kappa):
-            T = stacked.take_rows([k * kappa + w for k in range(len(rows))])
+            T = select_rows(stacked, [k * kappa + w for k in range(len(rows))])
             cands.append((j, T))
     if not cands:
         return []
     # residues S G_Y - C_G S for each candidate and generator
     residues: list[list[Mat]] = []
+    emb: dict[int, Mat] = {}
+    cols: dict[tuple[int, str], Mat] = {}
     for j, T in cands:
         rows = sp.rows_of_seed[j]
+        if j not in emb:
+            emb[j] = sparse_matrix(F, dX, len(rows), {(r, k): 1 for k, r in enumerate(rows)})
         res = []
         for gname, GY in Y.generators.items():
-            C = select_columns(sp.action[gname], rows)  # dX x |rows|
-            res.append(C @ T - _embed_rows(F, dX, rows, T @ GY))
+            if (j, gname) not in cols:
+                cols[(j, gname)] = sp.action[gname] @ emb[j]  # dX x |rows|
+            res.append(cols[(j, gname)] @ T - emb[j] @ (T @ GY))
         residues.append(res)
     sol = _common_kernel(F, residues, seed)
     out = []
@@ -322,7 +356,7 @@ def hom_basis(X: ActionModule, Y: ActionModule, *, seed: int = DEFAULT_SEED) -> 
         S = Mat.zeros(F, dX, dY)
         for coef, (j, T) in zip(c, cands, strict=True):
             if coef != 0:
-                S = S + _embed_rows(F, dX, sp.rows_of_seed[j], T).scale(coef)
+                S = S + (emb[j] @ T).scale(coef)
         out.append(sp.inverse @ S)
     return out
 
@@ -354,7 +388,7 @@ def _common_kernel(F: Field, residues: list[list[Mat]], seed: int) -> list[list[
                 row.extend((D @ R).entries())
             flat.append(row)
         Zm = Mat.from_flat(F, kappa, len(flat[0]), [x for r in flat for x in r])
-        sol = Zm.left_kernel().raw_rows()
+        sol = fast_left_kernel(Zm).raw_rows()
         if t >= cols:
             return sol
         ok = True
@@ -372,14 +406,6 @@ def _common_kernel(F: Field, residues: list[list[Mat]], seed: int) -> list[list[
         if ok:
             return sol
         t = min(cols, 4 * t)
-
-
-def _embed_rows(F: Field, n: int, rows: Sequence[int], T: Mat) -> Mat:
-    """An ``n x cols`` matrix with the rows of ``T`` at positions ``rows``, zero elsewhere."""
-    from hwcat.exact.polys import sparse_matrix
-
-    P = sparse_matrix(F, n, len(rows), {(r, k): 1 for k, r in enumerate(rows)})
-    return P @ T
 
 
 def endomorphism_basis(M: ActionModule, *, seed: int = DEFAULT_SEED) -> list[Mat]:
@@ -478,8 +504,18 @@ def _split_or_local(M: ActionModule, seed: int) -> list[Mat] | None:
     F = M.field
     bound = min(F.characteristic - 1, 97) if F.characteristic else 97
     residue = None
+    # dense random elements first; then basis elements and sparse combinations, which
+    # split a matrix-algebra component over QQ (where a dense element rarely has a
+    # rational eigenvalue)
+    trials: list[list[Any]] = [[F(rng.randint(0, bound)) for _ in range(e)] for _ in range(3)]
+    for i in range(e):
+        trials.append([F.one if k == i else F.zero for k in range(e)])
     for _ in range(_TRIES):
-        coords = [F(rng.randint(0, bound)) for _ in range(e)]
+        c = [F.zero] * e
+        for k in rng.sample(range(e), min(e, rng.randint(2, 3))):
+            c[k] = F(rng.choice([1, -1, 2]))
+        trials.append(c)
+    for coords in trials:
         Z = E.matrix(coords)
         R = E.right_mult(Z)
         mu = minpoly(R)
@@ -498,7 +534,7 @@ def _split_or_local(M: ActionModule, seed: int) -> list[Mat] | None:
             return None
     raise NotSplitError(
         f"the endomorphism ring of a summand of dimension {M.dim} was neither split nor "
-        f"certified local in {_TRIES} random trials (End/rad End of dimension {residue} "
+        f"certified local in {len(trials)} trials (End/rad End of dimension {residue} "
         "is not a field generated by one element)"
     )
 

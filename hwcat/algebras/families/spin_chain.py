@@ -30,11 +30,19 @@ from hwcat.errors import SpecError
 from hwcat.exact import Field, Mat
 from hwcat.exact.polys import Poly, sparse_matrix
 
-__all__ = ["spin_chain_generators", "loop_weight_root"]
+__all__ = ["spin_chain_generators", "spin_chain_entries", "loop_weight_root"]
 
 
 def spin_chain_generators(n: int, q: Any, field: Field) -> dict[str, Mat]:
-    """``{"e1": ..., "e(n-1)": ...}``: sparse ``2^n x 2^n`` matrices (see the module notes)."""
+    """``{"e1": ..., "e(n-1)": ...}``: ``2^n x 2^n`` matrices (see the module notes)."""
+    N = 1 << n
+    return {
+        g: sparse_matrix(field, N, N, ents) for g, ents in spin_chain_entries(n, q, field).items()
+    }
+
+
+def spin_chain_entries(n: int, q: Any, field: Field) -> dict[str, dict[tuple[int, int], Any]]:
+    """The nonzero entries ``{(row, column): value}`` of each generator."""
     if isinstance(n, bool) or not isinstance(n, int) or n < 2:
         raise SpecError(f"spin chain: n = {n!r} must be an integer >= 2")
     F = field
@@ -60,7 +68,7 @@ def spin_chain_generators(n: int, q: Any, field: Field) -> dict[str, Mat]:
                 other = k ^ hi ^ lo
                 ents[(k, k)] = qi
                 ents[(k, other)] = -F.one
-        out[f"e{i}"] = sparse_matrix(F, N, N, ents)
+        out[f"e{i}"] = ents
     return out
 
 
