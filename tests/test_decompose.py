@@ -291,7 +291,12 @@ def _random_module(F, n: int, k: int, seed: int) -> ActionModule:
     parts = []
     for _ in range(3):
         d = rng.randint(1, max(1, n // 3))
-        parts.append([Mat.from_rows(F, [[rng.choice([0, 0, 1, 2]) for _ in range(d)] for _ in range(d)]) for _ in range(k)])
+        parts.append(
+            [
+                Mat.from_rows(F, [[rng.choice([0, 0, 1, 2]) for _ in range(d)] for _ in range(d)])
+                for _ in range(k)
+            ]
+        )
     gens = {f"x{i}": Mat.block_diag(F, [p[i] for p in parts]) for i in range(k)}
     dim = gens["x0"].nrows
     return ActionModule(F, dim, random_conjugate(F, gens, seed))

@@ -102,6 +102,15 @@ def algebra_centre(B: BasicAlgebra, *, seed: int = 0) -> Centre:
     key = ("centre", seed)
     if key not in B._cache:
         r = reduction_of(B)
-        A = r.algebra if r is not None else from_basic_algebra(B)
+        if r is not None and r.algebra.dim <= USER_TERMS_LIMIT:
+            A = r.algebra
+        else:  # Z is a Morita invariant: the basic algebra gives the same dimension
+            A = from_basic_algebra(B)
         B._cache[key] = centre(A, seed=seed)
     return B._cache[key]
+
+
+USER_TERMS_LIMIT = 400
+"""Largest dimension of a reduced input algebra whose centre is computed in its own
+basis (dense ``dim x dim`` multiplication matrices); beyond it the basis is written in
+the paths of the basic algebra."""

@@ -61,6 +61,8 @@ class StructureReport:
     loewy_length: int
     blocks: tuple[tuple[str, ...], ...]
     morita: tuple[int, ...]
+    centre_dimension: int | None = None
+    centre_basis: tuple[str, ...] = ()
 
     def to_dict(self) -> dict[str, Any]:
         return {
@@ -76,6 +78,8 @@ class StructureReport:
             "loewy_length": self.loewy_length,
             "blocks": [list(b) for b in self.blocks],
             "simple_dimensions": list(self.morita),
+            "centre_dimension": self.centre_dimension,
+            "centre_basis": list(self.centre_basis),
         }
 
 
@@ -85,10 +89,13 @@ def describe(A: BasicAlgebra) -> StructureReport:
     >>> from hwcat.io.spec import load_spec_text
     >>> A = load_spec_text('field = "QQ"\\n[quiver]\\nvertices = ["1", "2"]\\narrows = ["a: 1 -> 2"]')
     >>> r = describe(A)
-    >>> r.dimension, r.cartan, r.loewy_length
-    (3, ((1, 0), (1, 1)), 2)
+    >>> r.dimension, r.cartan, r.loewy_length, r.centre_dimension
+    (3, ((1, 0), (1, 1)), 2, 1)
     """
+    from hwcat.theory.centre import algebra_centre
+
     Ps = tuple(summarise_module(projective(A, s)) for s in range(A.n))
+    Z = algebra_centre(A)
     Is = tuple(summarise_module(injective(A, s)) for s in range(A.n))
     return StructureReport(
         name=A.name,
@@ -102,4 +109,6 @@ def describe(A: BasicAlgebra) -> StructureReport:
         loewy_length=max((p.loewy_length for p in Ps), default=0),
         blocks=tuple(tuple(A.vertices[v] for v in c) for c in A.components()),
         morita=A.morita,
+        centre_dimension=Z.dimension,
+        centre_basis=Z.texts,
     )
