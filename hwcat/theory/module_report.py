@@ -32,7 +32,7 @@ from hwcat.theory.centre import Centre, algebra_centre, centre
 from hwcat.theory.decompose import DEFAULT_SEED, JordanBlock, decompose, jordan_type
 from hwcat.theory.orders import PartialOrder
 
-__all__ = ["SummandReport", "ModuleReport", "analyse_module", "as_representation"]
+__all__ = ["SummandReport", "ModuleReport", "analyse_module", "as_representation", "restrict"]
 
 
 # -- moving a module to the basic algebra -----------------------------------------------------------
@@ -315,7 +315,7 @@ def analyse_module(
     for i, S in enumerate(D.summands):
         jt = {}
         for text, X in mats.items():
-            Y = _restrict(S.basis, X)
+            Y = restrict(S.basis, X)
             restricted.setdefault(text, []).append(Y)
             jt[text] = tuple(jordan_type(Y))
         cf = rl = sl = None
@@ -365,7 +365,7 @@ def analyse_module(
                 bad = tuple(
                     S_.index
                     for S_, S in zip(summ, D.summands, strict=True)
-                    if _non_semisimple(_restrict(S.basis, Z))
+                    if _non_semisimple(restrict(S.basis, Z))
                 )
                 if bad:
                     nss.append((text, bad))
@@ -393,7 +393,7 @@ def analyse_module(
     )
 
 
-def _restrict(basis: Mat, X: Mat) -> Mat:
+def restrict(basis: Mat, X: Mat) -> Mat:
     """``X`` on the invariant subspace spanned by the rows of ``basis`` (any basis)."""
     Y = basis @ X
     W = echelon(basis)
