@@ -338,3 +338,21 @@ def test_inconsistent_summands_are_internal_errors(monkeypatch):
     monkeypatch.setattr(dec, "_split_or_local", lambda M, seed: [Mat.identity(F, 2).scale(2)])
     with pytest.raises(InternalInconsistency):
         dec._indecomposables(M, 0)
+
+
+def test_modules_from_sympy_and_flint_matrices():
+    import flint
+    import sympy
+
+    from hwcat.errors import FieldError, ModuleFileError
+
+    M = ActionModule.from_matrices("GF(3)", {"g": sympy.Matrix([[1, 1], [0, 1]])})
+    N = ActionModule.from_matrices("GF(3)", {"g": flint.fmpz_mat(2, 2, [1, 1, 0, 1])})
+    T = tensor_product(M, N)
+    assert sizes(jordan_type(T.generator("g"))) == [1, 3]  # J2 (x) J2, p = 3 (from memory)
+    with pytest.raises(ModuleFileError):
+        ActionModule.from_matrices("QQ", {"g": [[0.5]]})
+    with pytest.raises(FieldError):
+        ActionModule(GF(5), 1, {"g": Mat.identity(GF(7), 1)})
+    with pytest.raises(ModuleFileError):
+        ActionModule(GF(5), 2, {"g": Mat.identity(GF(5), 1)})

@@ -4,11 +4,16 @@ from __future__ import annotations
 
 import argparse
 import json
+import sys
 from pathlib import Path
 
 from hwcat.errors import HwcatError, ModuleFileError, OrderError, SpecError
 
 __all__ = ["register"]
+
+SIMPLES_LIMIT = 64
+"""Largest spin chain (dimension) for which the algebra it generates is built to find
+the simples; beyond it only the generators are used."""
 
 
 def _params(items) -> dict[str, str]:
@@ -56,6 +61,14 @@ def _cmd_module(args: argparse.Namespace) -> int:
     if args.family:
         M = _family_module(args)
         kind = "family"
+        if identify and M.dim > SIMPLES_LIMIT:
+            identify = False
+            print(
+                f"hwcat: note: a chain of dimension {M.dim} > {SIMPLES_LIMIT}: simples, layers and "
+                "identification skipped (they need the algebra the chain generates); "
+                "decomposition, End and Jordan types follow",
+                file=sys.stderr,
+            )
         if identify:
             from hwcat.algebras.inputs.structure_input import matrix_algebra
             from hwcat.algebras.reduction.reduction import reduce_algebra

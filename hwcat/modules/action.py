@@ -27,7 +27,7 @@ from collections.abc import Callable, Mapping, Sequence
 from typing import Any
 
 from hwcat.algebras.inputs.structure_input import matrix_expression
-from hwcat.errors import InternalInconsistency, StructureConstantsError
+from hwcat.errors import FieldError, ModuleFileError, StructureConstantsError
 from hwcat.exact import Field, Mat, echelon
 from hwcat.modules.module import Module
 
@@ -80,14 +80,41 @@ class ActionModule:
         self.sparse = dict(sparse) if sparse else {}
         self._memo: dict[Any, Any] = {}
         for g, G in list(self.generators.items()) + list(self.letters.items()):
-            if G.shape != (self.dim, self.dim):
-                raise InternalInconsistency(
-                    f"{g}: a {G.shape} matrix on a module of dimension {dim}"
-                )
             if G.field is not field:
-                raise InternalInconsistency(
-                    f"{g}: a matrix over {G.field}, the module is over {field}"
+                raise FieldError(f"{g}: a matrix over {G.field}, the module is over {field}")
+            if G.shape != (self.dim, self.dim):
+                raise ModuleFileError(
+                    f"{g}: a {G.nrows} x {G.ncols} matrix on a module of dimension {dim}"
                 )
+
+    @classmethod
+    def from_matrices(
+        cls, field: Field | str, generators: Mapping[str, Any], *, name: str = ""
+    ) -> ActionModule:
+        """A module from matrices given as lists of rows, sympy or python-flint matrices
+        (anything with ``tolist()``) or :class:`~hwcat.exact.Mat`; entries must be exact.
+
+        >>> M = ActionModule.from_matrices("GF(5)", {"g": [[1, 1], [0, 1]]})
+        >>> M.dim, M.field
+        (2, GF(5))
+        """
+        from hwcat.exact import parse_field
+
+        F = parse_field(field) if isinstance(field, str) else field
+        mats: dict[str, Mat] = {}
+        for g, X in generators.items():
+            if isinstance(X, Mat):
+                mats[g] = X
+                continue
+            rows = X.tolist() if hasattr(X, "tolist") else X
+            try:
+                mats[g] = Mat.from_rows(F, [[F.parse(str(x)) for x in r] for r in rows])
+            except (TypeError, ValueError) as exc:
+                raise ModuleFileError(f"generator {g!r}: {exc}") from None
+        if not mats:
+            raise ModuleFileError("no generating matrices given")
+        n = next(iter(mats.values())).nrows
+        return cls(F, n, mats, name=name)
 
     def __repr__(self) -> str:
         label = f"{self.name} " if self.name else ""

@@ -67,7 +67,7 @@ from hwcat.exact.polys import (
     select_rows,
     sparse_matrix,
 )
-from hwcat.modules.action import ActionModule
+from hwcat.modules.action import ActionModule, kronecker
 
 __all__ = [
     "JordanBlock",
@@ -417,28 +417,20 @@ def endomorphism_basis(M: ActionModule, *, seed: int = DEFAULT_SEED) -> list[Mat
 
 
 def endomorphism_dimension_naive(M: ActionModule) -> int:
-    """``dim End_A(M)`` by solving ``X G = G X`` in all ``dim^2`` unknowns (a check)."""
+    """``dim End_A(M)`` by solving ``X G = G X`` in all ``dim^2`` unknowns (a check).
+
+    With ``vec`` row-major, ``vec(X G) = vec(X) (I (x) G)`` and
+    ``vec(G X) = vec(X) (G^T (x) I)``; the endomorphisms are the left kernel of the
+    side-by-side matrices ``I (x) G - G^T (x) I``, one dense system.
+    """
     F, n = M.field, M.dim
     if n == 0:
         return 0
-    blocks = []
-    for G in M.generator_list():
-        # vec(X G - G X) as a function of vec(X): rows indexed by unknowns (i, j)
-        rows = []
-        Ge = G.raw_rows()
-        for i in range(n):
-            for j in range(n):
-                r = [F.zero] * (n * n)
-                for c in range(n):  # (X G)[i, c] gets X[i, j] G[j, c]
-                    if Ge[j][c] != 0:
-                        r[i * n + c] += Ge[j][c]
-                for a in range(n):  # (G X)[a, j] gets G[a, i] X[i, j]
-                    if Ge[a][i] != 0:
-                        r[a * n + j] -= Ge[a][i]
-                rows.append(r)
-        blocks.append(Mat.from_rows(F, rows, n * n))
-    S = Mat.hstack(F, blocks)
-    return n * n - S.rank()
+    ident = Mat.identity(F, n)
+    blocks = [kronecker(ident, G) - kronecker(G.transpose(), ident) for G in M.generator_list()]
+    if not blocks:
+        return n * n
+    return n * n - Mat.hstack(F, blocks).rank()
 
 
 # -- End as an algebra, Fitting splits -------------------------------------------------------------
