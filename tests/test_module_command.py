@@ -220,6 +220,18 @@ def test_spin_chain_from_the_family(capsys):
     assert d["endomorphism_dimension"] == 35
     assert sum(s["dimension"] for s in d["summands"]) == 16
     assert any(b["size"] >= 2 for b in d["jordan_types"]["e1 + e2 + e3"])
+    # isomorphic summands have the same composition factors (common practice)
+    by_class: dict[int, list] = {}
+    for s in d["summands"]:
+        by_class.setdefault(s["isomorphism_class"], []).append(s["composition_factors"])
+    assert all(all(cf == cfs[0] for cf in cfs) for cfs in by_class.values())
+    assert any(len(cfs) > 1 for cfs in by_class.values())
+    # the whole module's composition factors add up over the summands
+    total: dict[str, int] = {}
+    for s in d["summands"]:
+        for k, v in s["composition_factors"].items():
+            total[k] = total.get(k, 0) + v
+    assert total == d["composition_factors"]
 
 
 def test_describe_reports_the_centre(tmp_path, capsys):

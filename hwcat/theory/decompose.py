@@ -375,12 +375,11 @@ def _common_kernel(F: Field, residues: list[list[Mat]], seed: int) -> list[list[
     bound = min(F.characteristic - 1, 10**6) if F.characteristic else 1000
     t = min(cols, max(4, kappa // max(1, rows_) + 4))
     while True:
-        Rs = [
-            Mat.from_flat(F, cols, t, [F(rng.randint(-bound, bound)) for _ in range(cols * t)])
-            for _ in range(ng)
-        ]
         if t >= cols:
-            Rs = [Mat.identity(F, cols) for _ in range(ng)]
+            Rs = [Mat.identity(F, cols)] * ng
+        else:  # one random matrix serves every generator (the check below is exact)
+            R = Mat.from_flat(F, cols, t, [F(rng.randint(-bound, bound)) for _ in range(cols * t)])
+            Rs = [R] * ng
         flat = []
         for res in residues:
             row: list[Any] = []
