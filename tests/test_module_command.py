@@ -239,3 +239,12 @@ def test_describe_reports_the_centre(tmp_path, capsys):
     assert main(["describe", spec, "--json"]) == 0
     d = json.loads(capsys.readouterr().out)
     assert d["centre_dimension"] == 3  # commutative: Z = A (common practice)
+
+
+@pytest.mark.parametrize("n, field", [(3, "GF(2)"), (3, "GF(3)"), (4, "GF(2)")])
+def test_family_reports_the_centre(capsys, n, field):
+    # dim Z(kS_n) = number of conjugacy classes = partitions of n (common practice)
+    partitions = {3: 3, 4: 5}[n]
+    assert main(["family", "symmetric-group", f"n={n}", f"field={field}", "--json"]) == 0
+    d = json.loads(capsys.readouterr().out)
+    assert d["centre_dimension"] == partitions == len(d["centre_basis"])
