@@ -740,12 +740,13 @@ def _assemble(A: StructureAlgebra, classes: list[_Class], name: str) -> BasicAlg
         F, Q, reps, starts=starts, name=name, morita=[c.n for c in classes]
     )
     # each arrow u -> t as an element of A: sum_k coef_k * (e_u b_(l_k) e_t)
-    B._cache[ARROW_TERMS] = tuple(
-        (a.source, a.target, tuple(
-            (gen[(a.source, a.target)][k], c) for k, c in enumerate(co.entries()) if c != 0
-        ))
-        for a, co in zip(arrows, arrow_coords, strict=True)
-    )
+    terms = []
+    for a, co in zip(arrows, arrow_coords, strict=True):
+        ls = gen[(a.source, a.target)]
+        terms.append(
+            (a.source, a.target, tuple((ls[k], c) for k, c in enumerate(co.entries()) if c))
+        )
+    B._cache[ARROW_TERMS] = tuple(terms)
     return B
 
 
