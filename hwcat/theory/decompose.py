@@ -67,7 +67,7 @@ from hwcat.exact.polys import (
     select_rows,
     sparse_matrix,
 )
-from hwcat.modules.action import ActionModule, kronecker
+from hwcat.modules.action import ActionModule, _LazyLetters, kronecker
 
 __all__ = [
     "JordanBlock",
@@ -85,6 +85,7 @@ __all__ = [
 DEFAULT_SEED = 0
 _TRIES = 12
 _MAX_BLOCKS = 6
+_SEED_ATTEMPTS = 5
 
 
 # -- coordinate blocks ---------------------------------------------------------------------
@@ -140,7 +141,10 @@ def _block_module(M: ActionModule, idx: list[int]) -> ActionModule:
     for g, nz in _nonzeros(M).items():
         ents = {(pos[i], pos[j]): x for i, j, x in nz if i in pos}
         gens[g] = sparse_matrix(M.field, len(idx), len(idx), ents)
-    return ActionModule(M.field, len(idx), gens, name=M.name)
+    sub = ActionModule(M.field, len(idx), gens, name=M.name)
+    if set(M.letters) != set(gens):  # other letters: restricted only when used
+        sub.letters = _LazyLetters(M, Mat.unit_rows(M.field, M.dim, idx), idx, gens)
+    return sub
 
 
 # -- random elements of the algebra and seeds --------------------------------------------------
@@ -207,8 +211,8 @@ class _Echelon:
 class _Spin:
     """A basis of a module spun from seeds, with the words that produced it."""
 
-    recipe: _Recipe
-    seeds: list[tuple[Mat, Poly]]  # seed vector, factor g with seed * g(z) = 0
+    recipes: list[_Recipe]
+    seeds: list[tuple[Mat, Poly, int]]  # seed vector v, factor g, recipe z with v g(z) = 0
     basis: Mat  # d x d, rows b
     steps: list[tuple[int, int, str]]  # per basis row: (seed j, parent row or -1, generator)
     rows_of_seed: list[list[int]]
@@ -222,21 +226,45 @@ def _spin(M: ActionModule, seed: int) -> _Spin:
         return M._memo[key]
     F, d = M.field, M.dim
     rng = random.Random(seed)
-    recipe = _random_recipe(M, rng)
-    Z = recipe.matrix(M)
-    chi = charpoly(Z)
-    factors = sorted(chi.factor(), key=lambda ge: (ge[0].degree * ge[1], ge[0].degree))
     E = _Echelon(F, d)
     blocks: list[Mat] = []
-    nrows = 0
     steps: list[tuple[int, int, str]] = []
-    seeds: list[tuple[Mat, Poly]] = []
+    seeds: list[tuple[Mat, Poly, int]] = []
     rows_of_seed: list[list[int]] = []
     names = list(M.generators)
-    # plain kernels first (small candidate spaces), then generalised eigenspaces (which
-    # together span the module by Fitting's lemma)
-    passes = [g for g, _ in factors] + [g**a for g, a in factors if a > 1]
-    for g in passes:
+    recipes: list[_Recipe] = []
+    # kernels of small factors of several random elements first (small candidate spaces:
+    # a factor of degree 90 would give 90 candidates), then every kernel and the
+    # generalised eigenspaces of the last element (which span the module by Fitting)
+    for attempt in range(_SEED_ATTEMPTS):
+        if E.rank == d:
+            break
+        recipes.append(_random_recipe(M, rng))
+        Z = recipes[-1].matrix(M)
+        factors = sorted(charpoly(Z).factor(), key=lambda ge: (ge[0].degree * ge[1], ge[0].degree))
+        last = attempt == _SEED_ATTEMPTS - 1
+        passes = [
+            (len(recipes) - 1, g, Z) for g, a in factors if last or g.degree * a <= 2**attempt
+        ]
+        if last:
+            passes += [(len(recipes) - 1, g**a, Z) for g, a in factors if a > 1]
+        _spin_pass(M, E, passes, seeds, rows_of_seed, steps, blocks, names)
+    if E.rank != d:
+        raise InternalInconsistency(f"seeds spanned {E.rank} of {d} dimensions")
+    B = Mat.vstack(F, blocks, d) if blocks else Mat.zeros(F, 0, d)
+    inv = B.inverse()
+    sp = _Spin(recipes, seeds, B, steps, rows_of_seed, inv)
+    for gname, G in M.generators.items():
+        sp.action[gname] = B @ G @ inv
+    M._memo[key] = sp
+    return sp
+
+
+def _spin_pass(M, E, passes, seeds, rows_of_seed, steps, blocks, names) -> None:
+    """Add seeds from the kernels in ``passes`` (``(recipe, g, Z)``) and spin them."""
+    F, d = M.field, M.dim
+    nrows = len(steps)
+    for r_id, g, Z in passes:
         if E.rank == d:
             break
         K = fast_left_kernel(evaluate(g, Z))
@@ -247,7 +275,7 @@ def _spin(M: ActionModule, seed: int) -> _Spin:
                 break
             v = select_rows(K, nz[:1])
             j = len(seeds)
-            seeds.append((v, g))
+            seeds.append((v, g, r_id))
             rows_of_seed.append([nrows])
             steps.append((j, -1, ""))
             blocks.append(v)
@@ -272,15 +300,6 @@ def _spin(M: ActionModule, seed: int) -> _Spin:
                 blocks.extend(new_blocks)
                 level_rows = new_rows
                 level = Mat.vstack(F, new_blocks, d) if new_blocks else level
-    if E.rank != d:
-        raise InternalInconsistency(f"seeds spanned {E.rank} of {d} dimensions")
-    B = Mat.vstack(F, blocks, d) if blocks else Mat.zeros(F, 0, d)
-    inv = B.inverse()
-    sp = _Spin(recipe, seeds, B, steps, rows_of_seed, inv)
-    for gname, G in M.generators.items():
-        sp.action[gname] = B @ G @ inv
-    M._memo[key] = sp
-    return sp
 
 
 def _independent(C: Mat) -> list[int]:
@@ -312,14 +331,16 @@ def hom_basis(X: ActionModule, Y: ActionModule, *, seed: int = DEFAULT_SEED) -> 
         return []
     sp = _spin(X, seed)
     dX, dY = X.dim, Y.dim
-    ZY = sp.recipe.matrix(Y)
-    cache: dict[Poly, Mat] = {}
+    ZY: dict[int, Mat] = {}
+    cache: dict[tuple[int, Poly], Mat] = {}
     # candidate images per seed, spun with the seed's words
     cands: list[tuple[int, Mat]] = []  # (seed j, T: rows_of_seed[j] images for one candidate)
-    for j, (_, g) in enumerate(sp.seeds):
-        if g not in cache:
-            cache[g] = fast_left_kernel(evaluate(g, ZY))
-        K = cache[g]
+    for j, (_, g, r_id) in enumerate(sp.seeds):
+        if r_id not in ZY:
+            ZY[r_id] = sp.recipes[r_id].matrix(Y)
+        if (r_id, g) not in cache:
+            cache[(r_id, g)] = fast_left_kernel(evaluate(g, ZY[r_id]))
+        K = cache[(r_id, g)]
         if K.nrows == 0:
             continue
         rows = sp.rows_of_seed[j]
@@ -444,7 +465,7 @@ class _EndAlgebra:
         self.basis = basis
         self.e = len(basis)
         sp = _spin(M, seed)
-        self.seedmat = Mat.vstack(self.F, [v for v, _ in sp.seeds], M.dim)
+        self.seedmat = Mat.vstack(self.F, [v for v, _, _ in sp.seeds], M.dim)
         self.images = Mat.vstack(
             self.F, [_flat(self.F, self.seedmat @ P) for P in basis], self.seedmat.nrows * M.dim
         )

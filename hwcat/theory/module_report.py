@@ -286,9 +286,6 @@ def analyse_module(
     from hwcat.theory.highest_weight import heredity_chain
 
     F = M.field
-    mats = {}
-    for text in elements:
-        mats[text] = M.element(text)
     D = decompose(M, seed=seed)
     notes: list[str] = []
     R = data = None
@@ -314,8 +311,8 @@ def analyse_module(
     restricted: dict[str, list[Mat]] = {}
     for i, S in enumerate(D.summands):
         jt = {}
-        for text, X in mats.items():
-            Y = restrict(S.basis, X)
+        for text in elements:  # evaluated on the summand itself (its own letters)
+            Y = S.module.element(text)
             restricted.setdefault(text, []).append(Y)
             jt[text] = tuple(jordan_type(Y))
         cf = rl = sl = None
@@ -344,7 +341,7 @@ def analyse_module(
             )
         )
     whole = {}
-    for text in mats:
+    for text in elements:
         blocks = [b for Y in restricted.get(text, []) for b in jordan_type(Y)]
         whole[text] = tuple(sorted(blocks, key=lambda b: (b.factor, -b.size)))
     cent = None
