@@ -356,3 +356,30 @@ def test_modules_from_sympy_and_flint_matrices():
         ActionModule(GF(5), 1, {"g": Mat.identity(GF(7), 1)})
     with pytest.raises(ModuleFileError):
         ActionModule(GF(5), 2, {"g": Mat.identity(GF(5), 1)})
+
+
+# -- property test against the presentation-based Hom of quiver representations ----------------
+
+from hypothesis import HealthCheck, given, settings  # noqa: E402
+from hypothesis import strategies as st  # noqa: E402
+
+from hwcat.modules.action import from_representation  # noqa: E402
+from hwcat.strategies import bound_quiver_algebras, modules  # noqa: E402
+
+
+@settings(max_examples=25, deadline=None, suppress_health_check=[HealthCheck.too_slow])
+@given(st.data())
+def test_end_agrees_with_representation_hom(data):
+    # dim End from the generators' action equals dim Hom(M, M) computed from a
+    # presentation of the representation (hwcat.modules.hom, an independent method),
+    # and the summands add up to M
+    from hwcat.modules import hom_dimension
+
+    A = data.draw(bound_quiver_algebras(max_vertices=3))
+    R = data.draw(modules(A, max_summands=3))
+    if R.dim == 0:
+        return
+    M = from_representation(R)
+    D = decompose(M)
+    assert D.endomorphism_dimension == hom_dimension(R, R)
+    assert sum(s.dimension for s in D.summands) == R.dim

@@ -13,9 +13,12 @@ sum (on a spin chain these are the magnetisation sectors).
 
 *Hom by seeds* (the spinning method of computational representation theory).
 A random element ``z`` of the algebra (a combination of generators and
-products of two generators, seeded) is factored: ``chi_z = prod g^a``.
-Seeds ``v_j`` are taken from the kernels ``ker g(z)`` of the factors with the
-smallest kernels until the submodules they generate fill ``X``; spinning the
+products of two generators, seeded) has characteristic polynomial
+``chi_z = prod g^a``.
+Seeds ``v_j`` are taken from the kernels ``ker g(z)`` of factors of small
+degree and multiplicity, of up to five random elements (then, for the last one,
+every factor and the generalised eigenspaces, which span ``X`` by Fitting's
+lemma), until the submodules they generate fill ``X``; spinning the
 seeds under the generators gives a basis ``b = v_j * w`` of ``X``.  A
 homomorphism ``f : X -> Y`` is fixed by the images ``u_j = v_j f``, and
 ``u_j`` lies in ``ker g_j(z)`` on ``Y`` -- a small space.  Spinning a basis
