@@ -11,6 +11,13 @@ baseline (``End`` as the solution space of ``X G = G X`` in all ``dim^2``
 unknowns, one dense system) runs beside it for a ratio.
 
     python benchmarks/bench_module.py [--quick] [--max-n N]
+
+One run on the shared 2-core machine (load average about 9, so wall clock is
+roughly three times the CPU time): n = 10 (dim 1024) in 7.5 s CPU / 23 s wall
+at q = 2 over GF(10007) and 13 s CPU / 27 s wall at loop weight 0 over GF(5)
+(dim End = 286 both, the sum of the generators with a Jordan block of size 10
+at loop weight 0); n = 12 (dim 4096) in 323 s CPU / 1065 s wall, 1.4 GiB, dim
+End = 455; the naive dense commutant on n = 5 is about 200 times slower.
 """
 
 from __future__ import annotations
