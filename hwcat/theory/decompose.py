@@ -360,23 +360,16 @@ def hom_basis(X: ActionModule, Y: ActionModule, *, seed: int = DEFAULT_SEED) -> 
             cands.append((j, T))
     if not cands:
         return []
-    # residues S G_Y - C_G S for each candidate and generator
-    residues: list[list[Mat]] = []
+    # the homomorphisms are the combinations S = sum c_w S_w (S_w = emb_j T_w, the
+    # candidate map) with C_G S = S G_Y for every generator G
     emb: dict[int, Mat] = {}
-    cols: dict[tuple[int, str], Mat] = {}
-    for j, T in cands:
-        rows = sp.rows_of_seed[j]
+    for j, _ in cands:
         if j not in emb:
+            rows = sp.rows_of_seed[j]
             emb[j] = sparse_matrix(F, dX, len(rows), {(r, k): 1 for k, r in enumerate(rows)})
-        res = []
-        for gname, GY in Y.generators.items():
-            if (j, gname) not in cols:
-                cols[(j, gname)] = sp.action[gname] @ emb[j]  # dX x |rows|
-            res.append(cols[(j, gname)] @ T - emb[j] @ (T @ GY))
-        residues.append(res)
-    sol = _common_kernel(F, residues, seed)
+    gens = [(sp.action[g], GY) for g, GY in Y.generators.items()]
     out = []
-    for c in sol:
+    for c in _common_kernel(F, cands, emb, gens, dX, dY, seed):
         S = Mat.zeros(F, dX, dY)
         for coef, (j, T) in zip(c, cands, strict=True):
             if coef != 0:
@@ -385,50 +378,56 @@ def hom_basis(X: ActionModule, Y: ActionModule, *, seed: int = DEFAULT_SEED) -> 
     return out
 
 
-def _common_kernel(F: Field, residues: list[list[Mat]], seed: int) -> list[list[Any]]:
-    """A basis of ``{c : sum_w c_w D_(w,g) = 0 for every g}`` (exact).
+def _common_kernel(
+    F: Field,
+    cands: list[tuple[int, Mat]],
+    emb: dict[int, Mat],
+    gens: list[tuple[Mat, Mat]],
+    dX: int,
+    dY: int,
+    seed: int,
+) -> list[list[Any]]:
+    """A basis of ``{c : C_G S_c = S_c G_Y for every G}``, ``S_c = sum c_w S_w`` (exact).
 
-    The matrices are first compressed by a random matrix of ``t`` columns; every
-    solution of the compressed system is then checked on the full matrices, and
-    ``t`` grows until all pass (so the answer never depends on the luck of the draw).
+    The residues ``C_G S_w - S_w G_Y`` are only ever formed multiplied by a random
+    ``dY x t`` matrix ``R`` (``C_G (S_w R) - S_w (G_Y R)``: small); every solution
+    of that compressed system is then checked on the full matrices, and ``t`` grows
+    until all pass (so the answer never depends on the luck of the draw).
     """
-    kappa = len(residues)
-    ng = len(residues[0])
-    rows_, cols = residues[0][0].shape
+    kappa = len(cands)
     rng = random.Random(seed + 104729)
     bound = min(F.characteristic - 1, 10**6) if F.characteristic else 1000
-    t = min(cols, max(4, kappa // max(1, rows_) + 4))
+    t = min(dY, max(4, kappa // max(1, dX) + 4))
     while True:
-        if t >= cols:
-            Rs = [Mat.identity(F, cols)] * ng
+        full = t >= dY
+        if full:
+            R = Mat.identity(F, dY)
         else:  # one random matrix serves every generator (the check below is exact)
-            R = Mat.from_flat(F, cols, t, [F(rng.randint(-bound, bound)) for _ in range(cols * t)])
-            Rs = [R] * ng
+            R = Mat.from_flat(F, dY, t, [F(rng.randint(-bound, bound)) for _ in range(dY * t)])
+        GR = [(C, GY @ R) for C, GY in gens]
         flat = []
-        for res in residues:
+        for j, T in cands:
             row: list[Any] = []
-            for D, R in zip(res, Rs, strict=True):
-                row.extend((D @ R).entries())
+            SR = emb[j] @ (T @ R)
+            for C, GYR in GR:
+                row.extend((C @ SR - emb[j] @ (T @ GYR)).entries())
             flat.append(row)
         Zm = Mat.from_flat(F, kappa, len(flat[0]), [x for r in flat for x in r])
         sol = fast_left_kernel(Zm).raw_rows()
-        if t >= cols:
+        if full:
             return sol
         ok = True
         for c in sol:
-            for g in range(ng):
-                acc = Mat.zeros(F, rows_, cols)
-                for coef, res in zip(c, residues, strict=True):
-                    if coef != 0:
-                        acc = acc + res[g].scale(coef)
-                if not (acc == Mat.zeros(F, rows_, cols)):
-                    ok = False
-                    break
-            if not ok:
+            S = Mat.zeros(F, dX, dY)
+            for coef, (j, T) in zip(c, cands, strict=True):
+                if coef != 0:
+                    S = S + (emb[j] @ T).scale(coef)
+            if not all(C @ S == S @ GY for C, GY in gens):
+                ok = False
                 break
         if ok:
             return sol
-        t = min(cols, 4 * t)
+        t = min(dY, 4 * t)
 
 
 def endomorphism_basis(M: ActionModule, *, seed: int = DEFAULT_SEED) -> list[Mat]:
