@@ -26,6 +26,7 @@ __all__ = [
     "NotSplitError",
     "ResourceLimitError",
     "WorkBudgetExceeded",
+    "ModuleFileError",
     "InternalInconsistency",
     "CampaignError",
     "MissingExtra",
@@ -99,6 +100,11 @@ class WorkBudgetExceeded(HwcatError, RuntimeError):
     def __init__(self, message: str, *, degree: int = 0, size: int = 0, limit: int = 0) -> None:
         super().__init__(message)
         self.degree, self.size, self.limit = degree, size, limit
+
+
+class ModuleFileError(SpecError):
+    """A module file, a module name or an element expression is malformed, or the
+    matrices do not define a module (a relation or product fails)."""
 
 
 class InternalInconsistency(HwcatError, AssertionError):

@@ -23,7 +23,7 @@ from hwcat.limits import DEFAULT_LIMITS, resource_limits
 
 __all__ = ["main", "build_parser", "positive_int", "show_progress", "COMMAND_MODULES"]
 
-COMMAND_MODULES = ("core", "report", "certificates", "campaigns")
+COMMAND_MODULES = ("core", "module", "report", "certificates", "campaigns")
 """Modules of :mod:`hwcat.cli` whose ``register`` adds commands, in help order."""
 
 

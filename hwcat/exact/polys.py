@@ -47,6 +47,11 @@ __all__ = [
     "select_columns",
     "select_rows",
     "lifted_power_trace",
+    "charpoly",
+    "minpoly",
+    "evaluate",
+    "fast_rref",
+    "fast_left_kernel",
 ]
 
 
@@ -297,3 +302,77 @@ def lifted_power_trace(M: Mat, i: int) -> int:
             base = base * base
     ent = R.entries()
     return sum(int(ent[k * n + k]) for k in range(n)) % mod
+
+
+# -- characteristic and minimal polynomials of matrices ----------------------------------
+
+
+def charpoly(M: Mat) -> Poly:
+    """The characteristic polynomial ``det(x - M)`` of a square matrix.
+
+    >>> from hwcat.exact import QQ
+    >>> str(charpoly(Mat.from_rows(QQ, [[1, 1], [0, 1]])))
+    'x^2 + (-2)*x + 1'
+    """
+    if M.nrows != M.ncols:
+        raise InternalInconsistency("charpoly of a non-square matrix")
+    if M.nrows == 0:
+        return Poly.constant(M.field, 1)
+    return Poly(M.field, M._m.charpoly())
+
+
+def minpoly(M: Mat) -> Poly:
+    """The minimal polynomial (monic) of a square matrix.
+
+    >>> from hwcat.exact import GF
+    >>> str(minpoly(Mat.identity(GF(5), 3)))
+    'x + 4'
+    """
+    if M.nrows != M.ncols:
+        raise InternalInconsistency("minpoly of a non-square matrix")
+    if M.nrows == 0:
+        return Poly.constant(M.field, 1)
+    return Poly(M.field, M._m.minpoly()).monic()
+
+
+def evaluate(f: Poly, M: Mat) -> Mat:
+    """``f(M)`` for a square matrix ``M`` (Horner's rule)."""
+    F = M.field
+    n = M.nrows
+    out = Mat.zeros(F, n, n)
+    ident = Mat.identity(F, n)
+    for c in reversed(f.coeffs()):
+        out = out @ M + ident.scale(c)
+    return out
+
+
+def fast_rref(M: Mat) -> tuple[Mat, tuple[int, ...]]:
+    """:meth:`Mat.rref` without converting every entry: pivots are found by element
+    access along the echelon staircase, and rows are cut by one product."""
+    r, c = M.shape
+    if r == 0 or c == 0:
+        return Mat.zeros(M.field, 0, c), ()
+    R, rank = M._m.rref()
+    pivots = []
+    j = 0
+    for i in range(rank):
+        while R[i, j] == 0:
+            j += 1
+        pivots.append(j)
+        j += 1
+    out = Mat(M.field, R)
+    if rank < r:
+        out = select_rows(out, list(range(rank))) if rank else Mat.zeros(M.field, 0, c)
+    return out, tuple(pivots)
+
+
+def fast_left_kernel(M: Mat) -> Mat:
+    """Rows spanning ``{x : x @ M = 0}`` (flint's nullspace over GF(p))."""
+    F = M.field
+    r, c = M.shape
+    if not isinstance(F, PrimeField) or r == 0 or c == 0:
+        return M.left_kernel()
+    X, nullity = M._m.transpose().nullspace()
+    if nullity == 0:
+        return Mat.zeros(F, 0, r)
+    return select_rows(Mat(F, X.transpose()), list(range(nullity)))

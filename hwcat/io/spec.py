@@ -287,9 +287,51 @@ def _multiplication_structure(spec: Spec):
     return A, ids, seed
 
 
+def _sparse_matrix_value(src: str, key: str, F, value: dict):
+    """``{size = [r, c], entries = [[i, j, "v"], ...]}`` (indices from 0)."""
+    from hwcat.exact.polys import sparse_matrix
+
+    unknown = sorted(set(value) - {"size", "entries"})
+    if unknown:
+        raise _err(SpecError, src, f"{key}.{unknown[0]}", "unknown key (allowed: entries, size)")
+    size = value.get("size")
+    if (
+        not isinstance(size, list)
+        or len(size) != 2
+        or not all(isinstance(x, int) and not isinstance(x, bool) and x > 0 for x in size)
+    ):
+        raise _err(SpecError, src, f"{key}.size", f"{size!r} is not [rows, columns] (positive)")
+    r, c = size
+    ents = value.get("entries", [])
+    if not isinstance(ents, list):
+        raise _err(SpecError, src, f"{key}.entries", 'must be a list of [row, column, "value"]')
+    out: dict[tuple[int, int], Any] = {}
+    for k, e in enumerate(ents):
+        where = f"{key}.entries[{k}]"
+        if not isinstance(e, list) or len(e) != 3:
+            raise _err(SpecError, src, where, f'{e!r} is not [row, column, "value"]')
+        i, j, x = e
+        for name, v, bound in (("row", i, r), ("column", j, c)):
+            if isinstance(v, bool) or not isinstance(v, int) or not 0 <= v < bound:
+                raise _err(
+                    StructureConstantsError, src, where, f"{name} {v!r} outside 0..{bound - 1}"
+                )
+        if isinstance(x, bool) or not isinstance(x, (int, str)):
+            raise _err(SpecError, src, where, f"{x!r} is not an integer or a string")
+        if (i, j) in out:
+            raise _err(StructureConstantsError, src, where, f"entry ({i}, {j}) is given twice")
+        try:
+            out[(i, j)] = F.parse(x)
+        except HwcatError as exc:
+            raise type(exc)(f"{src}: {where}: {exc}") from None
+    return sparse_matrix(F, r, c, out)
+
+
 def _matrix_value(src: str, key: str, F, value: Any):
     from hwcat.exact import Mat
 
+    if isinstance(value, dict):
+        return _sparse_matrix_value(src, key, F, value)
     if not isinstance(value, list) or not value or not all(isinstance(r, list) for r in value):
         raise _err(SpecError, src, key, "must be a non-empty list of rows (lists of entries)")
     width = len(value[0])

@@ -77,6 +77,8 @@ class StructureReport:
     blocks: tuple[tuple[str, ...], ...]
     morita: tuple[int, ...]
     natural_order: str | None = None
+    centre_dimension: int | None = None
+    centre_basis: tuple[str, ...] = ()
 
     def to_dict(self) -> dict[str, Any]:
         return {
@@ -93,6 +95,8 @@ class StructureReport:
             "blocks": [list(b) for b in self.blocks],
             "simple_dimensions": list(self.morita),
             "natural_order": self.natural_order,
+            "centre_dimension": self.centre_dimension,
+            "centre_basis": list(self.centre_basis),
         }
 
 
@@ -108,12 +112,15 @@ def describe(A: BasicAlgebra) -> StructureReport:
     >>> from hwcat.io.spec import load_spec_text
     >>> A = load_spec_text('field = "QQ"\\n[quiver]\\nvertices = ["1", "2"]\\narrows = ["a: 1 -> 2"]')
     >>> r = describe(A)
-    >>> r.dimension, r.cartan, r.loewy_length
-    (3, ((1, 0), (1, 1)), 2)
+    >>> r.dimension, r.cartan, r.loewy_length, r.centre_dimension
+    (3, ((1, 0), (1, 1)), 2, 1)
     """
+    from hwcat.theory.centre import algebra_centre
+
     with task("projective and injective modules", total=2 * A.n) as step:
         Ps = tuple(_summary(projective(A, s), step) for s in range(A.n))
         Is = tuple(_summary(injective(A, s), step) for s in range(A.n))
+    Z = algebra_centre(A)
     return StructureReport(
         name=A.name,
         field=A.field.name,
@@ -127,4 +134,6 @@ def describe(A: BasicAlgebra) -> StructureReport:
         blocks=tuple(tuple(A.vertices[v] for v in c) for c in A.components()),
         morita=A.morita,
         natural_order=A.natural_order,
+        centre_dimension=Z.dimension,
+        centre_basis=Z.texts,
     )

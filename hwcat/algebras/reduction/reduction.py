@@ -874,9 +874,23 @@ def _assemble(A: StructureAlgebra, classes: list[_Class], name: str) -> BasicAlg
         reps.append((dvec, tuple(maps)))
         piv, T = solver[(s, s)]
         starts.append(select_columns(as_row(A, restrict(classes[s].e, classes[s].index)), piv) @ T)
-    return BasicAlgebra.from_cyclic_representations(
+    B = BasicAlgebra.from_cyclic_representations(
         F, Q, reps, starts=starts, name=name, morita=[c.n for c in classes]
     )
+    # each arrow u -> t as an element of A: sum_k coef_k * (e_u b_(l_k) e_t)
+    terms = []
+    for a, co in zip(arrows, arrow_coords, strict=True):
+        ls = gen[(a.source, a.target)]
+        terms.append(
+            (a.source, a.target, tuple((ls[k], c) for k, c in enumerate(co.entries()) if c))
+        )
+    B._cache[ARROW_TERMS] = tuple(terms)
+    return B
+
+
+ARROW_TERMS = ("reduction", "arrow_terms")
+"""Cache key of a reduced hub: each arrow ``(u, t, ((l, coef), ...))`` meaning
+``sum coef * e_u b_l e_t`` in the input algebra (``e`` the primitive idempotents)."""
 
 
 _REDUCTIONS: weakref.WeakKeyDictionary = weakref.WeakKeyDictionary()

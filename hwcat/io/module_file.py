@@ -1,0 +1,376 @@
+"""Modules the user holds: module files, named modules, natural modules, the spin chain.
+
+A module file (TOML, see ``specs/FORMAT.md``) gives the action of an algebra
+described by a spec:
+
+* ``[quiver]`` specs: ``[dimensions]`` (vertex -> dimension; missing vertices
+  have dimension 0) and ``[matrices]`` (arrow -> ``dim source x dim target``
+  matrix; missing arrows act by zero).  Every relation and
+  ``vanish_from_length`` is checked.
+* ``[matrices]`` specs: ``dimension`` and one square matrix per generator.
+  Every relation of the algebra the spec's matrices generate is checked
+  (``w*g = sum c_k w_k`` for each basis word ``w`` and generator ``g``).
+* ``[multiplication]`` specs: ``dimension`` and one square matrix per basis
+  element; every product and the unit are checked.
+
+Matrices are lists of rows or sparse tables ``{size = [r, c], entries =
+[[i, j, "v"], ...]}`` (indices from 0).  Any problem raises a
+:class:`~hwcat.errors.ModuleFileError` naming the file, the key and the text.
+"""
+
+from __future__ import annotations
+
+import re
+import tomllib
+from pathlib import Path as FilePath
+from typing import Any
+
+from hwcat.algebras.hub.basic import BasicAlgebra
+from hwcat.errors import HwcatError, ModuleFileError, SpecError
+from hwcat.exact import Mat, parse_field
+from hwcat.io.spec import Spec, _matrix_value, build_structure
+from hwcat.modules import Module, injective, projective, regular_module, simple
+from hwcat.modules.action import ActionModule, from_representation
+
+__all__ = [
+    "spec_generators",
+    "natural_module",
+    "read_module_file",
+    "named_module",
+    "spin_chain_module",
+    "attach_algebra",
+    "MODULE_NAMES",
+]
+
+FILE_KEYS = {"format", "name", "field", "dimension", "dimensions", "matrices"}
+
+MODULE_NAMES = (
+    "P(x) or projective(x); I(x) or injective(x); L(x) or simple(x); "
+    "Delta(x) or standard(x); nabla(x) or costandard(x); T(x) or tilting(x); regular"
+)
+
+_NAMED = re.compile(r"^\s*([A-Za-z\u0394\u2207]+)\s*\(\s*(.+?)\s*\)\s*$")
+_KINDS = {
+    "P": "P", "projective": "P",
+    "I": "I", "injective": "I",
+    "L": "L", "simple": "L", "S": "L",
+    "Delta": "Delta", "standard": "Delta", "\u0394": "Delta",
+    "nabla": "nabla", "costandard": "nabla", "\u2207": "nabla",
+    "T": "T", "tilting": "T",
+}  # fmt: skip
+
+
+def _err(source: str, key: str, msg: str) -> ModuleFileError:
+    return ModuleFileError(f"{source}: {key}: {msg}" if key else f"{source}: {msg}")
+
+
+def spec_generators(spec: Spec) -> dict[str, Mat]:
+    """The generating matrices of a ``[matrices]`` spec (without building the algebra)."""
+    gens = spec.table.get("generators")
+    if spec.kind != "matrices" or not isinstance(gens, dict) or not gens:
+        raise SpecError(f"{spec.source}: matrices.generators: missing: a table of named matrices")
+    out = {
+        str(k): _matrix_value(spec.source, f"matrices.generators.{k}", spec.field, v)
+        for k, v in gens.items()
+    }
+    sizes = {m.shape for m in out.values()}
+    if len(sizes) != 1 or any(r != c for r, c in sizes):
+        raise SpecError(
+            f"{spec.source}: matrices.generators: the matrices must be square of one size "
+            f"(found {', '.join(f'{r}x{c}' for r, c in sorted(sizes))})"
+        )
+    return out
+
+
+def natural_module(spec: Spec) -> ActionModule:
+    """The space the generating matrices of a ``[matrices]`` spec act on (row vectors)."""
+    gens = spec_generators(spec)
+    n = next(iter(gens.values())).nrows
+    return ActionModule(spec.field, n, gens, name=f"natural module of {spec.name or spec.source}")
+
+
+def attach_algebra(M: ActionModule, spec_kind: str, B: BasicAlgebra) -> None:
+    """Let ``M`` act by the basis of the algebra behind ``B`` (for identification)."""
+    from hwcat.algebras.reduction.reduction import reduction_of
+
+    if M.representation is not None or M.basis_action is not None:
+        return
+    red = reduction_of(B)
+    if red is None:
+        return
+    A = red.algebra
+    cache: dict[int, Mat] = {}
+
+    def act(i: int) -> Mat:
+        if i not in cache:
+            cache[i] = M.element(A.basis[i])
+        return cache[i]
+
+    if spec_kind in ("matrices", "family"):
+        M.basis_action = act
+
+
+# -- module files ----------------------------------------------------------------------------------
+
+
+def _read_toml(path: str) -> dict[str, Any]:
+    p = FilePath(path)
+    try:
+        text = p.read_text(encoding="utf-8")
+    except OSError as exc:
+        raise ModuleFileError(f"{p}: cannot read: {exc.strerror or exc}") from None
+    except UnicodeDecodeError:
+        raise ModuleFileError(f"{p}: not UTF-8 text") from None
+    try:
+        return tomllib.loads(text)
+    except tomllib.TOMLDecodeError as exc:
+        raise ModuleFileError(f"{p}: not valid TOML: {exc}") from None
+
+
+def _matrix(src: str, key: str, F, value: Any, shape: tuple[int, int]) -> Mat:
+    try:
+        if isinstance(value, list) and (shape[0] == 0 or shape[1] == 0) and not value:
+            return Mat.zeros(F, *shape)
+        M = _matrix_value(src, key, F, value)
+    except HwcatError as exc:
+        raise ModuleFileError(str(exc)) from None
+    if M.shape != shape:
+        raise _err(
+            src, key, f"a {M.nrows} x {M.ncols} matrix where {shape[0]} x {shape[1]} is needed"
+        )
+    return M
+
+
+def read_module_file(path: str, spec: Spec, B: BasicAlgebra | None = None) -> ActionModule:
+    """Read and check a module file for ``spec`` (``B``: its algebra, for quiver specs)."""
+    src = str(path)
+    data = _read_toml(path)
+    unknown = sorted(set(data) - FILE_KEYS)
+    if unknown:
+        raise _err(src, unknown[0], f"unknown key (allowed: {', '.join(sorted(FILE_KEYS))})")
+    F = spec.field
+    if "field" in data:
+        try:
+            G = parse_field(data["field"])
+        except HwcatError as exc:
+            raise _err(src, "field", str(exc)) from None
+        if G is not F:
+            raise _err(src, "field", f"{G} but the spec {spec.source} is over {F}")
+    mats = data.get("matrices")
+    if not isinstance(mats, dict):
+        raise _err(src, "matrices", "missing: a table of named matrices")
+    name = data.get("name", FilePath(path).stem)
+    if spec.kind == "quiver":
+        if B is None:
+            raise ModuleFileError(f"{src}: the quiver algebra is needed")
+        return _quiver_module(src, data, mats, spec, B, str(name))
+    if (
+        "dimension" not in data
+        or isinstance(data["dimension"], bool)
+        or not isinstance(data["dimension"], int)
+        or data["dimension"] < 1
+    ):
+        raise _err(src, "dimension", f"{data.get('dimension')!r}: a positive integer is needed")
+    n = data["dimension"]
+    given = {str(k): _matrix(src, f"matrices.{k}", F, v, (n, n)) for k, v in mats.items()}
+    if spec.kind == "matrices":
+        return _matrices_module(src, given, spec, n, str(name))
+    return _multiplication_module(src, given, spec, n, str(name))
+
+
+def _quiver_module(
+    src: str, data: dict, mats: dict, spec: Spec, B: BasicAlgebra, name: str
+) -> ActionModule:
+    F = spec.field
+    dtab = data.get("dimensions", {})
+    if not isinstance(dtab, dict):
+        raise _err(src, "dimensions", "must be a table vertex = dimension")
+    dims = [0] * B.n
+    for k, v in dtab.items():
+        if str(k) not in B.vertices:
+            raise _err(
+                src, f"dimensions.{k}", f"{k!r} is not a vertex (vertices: {', '.join(B.vertices)})"
+            )
+        if isinstance(v, bool) or not isinstance(v, int) or v < 0:
+            raise _err(src, f"dimensions.{k}", f"{v!r} is not a dimension")
+        dims[B.vertices.index(str(k))] = v
+    names = [a.name for a in B.arrows]
+    for k in mats:
+        if str(k) not in names:
+            raise _err(src, f"matrices.{k}", f"{k!r} is not an arrow (arrows: {', '.join(names)})")
+    maps = []
+    for a in B.arrows:
+        shape = (dims[a.source], dims[a.target])
+        if a.name in mats:
+            maps.append(_matrix(src, f"matrices.{a.name}", F, mats[a.name], shape))
+        else:
+            maps.append(Mat.zeros(F, *shape))
+    R = Module(B, dims, maps, name)
+    M = from_representation(R, name)
+    for i, rel in enumerate(spec.table.get("relations", [])):
+        if not M.element(rel) == Mat.zeros(F, M.dim, M.dim):
+            raise _err(
+                src, "matrices", f"the relation {rel!r} (quiver.relations[{i}]) does not hold"
+            )
+    N = spec.table.get("vanish_from_length")
+    if N is not None and M.dim:
+        S = Mat.identity(F, M.dim)
+        arrows = [M.generators[a.name] for a in B.arrows]
+        for _ in range(N):
+            parts = [S @ X for X in arrows]
+            from hwcat.exact import echelon
+
+            S = echelon(Mat.vstack(F, parts, M.dim)) if parts else Mat.zeros(F, 0, M.dim)
+            if S.nrows == 0:
+                break
+        if S.nrows:
+            raise _err(
+                src,
+                "matrices",
+                f"paths of length {N} do not act by zero (quiver.vanish_from_length = {N})",
+            )
+    return M
+
+
+def _matrices_module(
+    src: str, given: dict[str, Mat], spec: Spec, n: int, name: str
+) -> ActionModule:
+    from hwcat.algebras.inputs.structure_input import matrix_coordinates
+
+    gens = spec_generators(spec)
+    for k in given:
+        if k not in gens:
+            raise _err(
+                src,
+                f"matrices.{k}",
+                f"{k!r} is not a generator of the spec (generators: {', '.join(gens)})",
+            )
+    missing = [g for g in gens if g not in given]
+    if missing:
+        raise _err(src, "matrices", f"no matrix for the generator {missing[0]!r}")
+    M = ActionModule(spec.field, n, {g: given[g] for g in gens}, name=name)
+    A, _, _ = build_structure(spec)
+    words = list(A.basis)
+    index = {w: i for i, w in enumerate(words)}
+    W = [M.element(w) for w in words]
+    for i, w in enumerate(words):
+        for g in gens:
+            prod = g if w == "1" else f"{w}*{g}"
+            if prod in index:
+                continue
+            c = matrix_coordinates(A, A.natural[i] @ gens[g])
+            rhs = Mat.zeros(spec.field, n, n)
+            for k, x in enumerate(c):
+                if x != 0:
+                    rhs = rhs + W[k].scale(x)
+            if not (W[i] @ given[g] == rhs):
+                text = A.element_text(list(c)) or "0"
+                raise _err(
+                    src,
+                    "matrices",
+                    f"the relation {prod} = {text} of the spec's algebra does not hold",
+                )
+    return M
+
+
+def _multiplication_module(
+    src: str, given: dict[str, Mat], spec: Spec, n: int, name: str
+) -> ActionModule:
+    A, _, _ = build_structure(spec)
+    for k in given:
+        if k not in A.basis:
+            raise _err(src, f"matrices.{k}", f"{k!r} is not a basis element of the spec")
+    missing = [b for b in A.basis if b not in given]
+    if missing:
+        raise _err(
+            src,
+            "matrices",
+            f"no matrix for the basis element {missing[0]!r} (every basis element needs one)",
+        )
+    mats = [given[b] for b in A.basis]
+    F = spec.field
+    unit = Mat.zeros(F, n, n)
+    for c, X in zip(A.unit, mats, strict=True):
+        if c != 0:
+            unit = unit + X.scale(c)
+    if not unit == Mat.identity(F, n):
+        raise _err(
+            src, "matrices", f"the unit {A.element_text(A.unit)} does not act as the identity"
+        )
+    for i in range(A.dim):
+        for j in range(A.dim):
+            c = A.product(A.basis_vector(i), A.basis_vector(j))
+            rhs = Mat.zeros(F, n, n)
+            for k, x in enumerate(c):
+                if x != 0:
+                    rhs = rhs + mats[k].scale(x)
+            if not (mats[i] @ mats[j] == rhs):
+                raise _err(
+                    src,
+                    "matrices",
+                    f"the product {A.basis[i]}*{A.basis[j]} = {A.element_text(c) or '0'} does not hold",
+                )
+    M = ActionModule(F, n, dict(zip(A.basis, mats, strict=True)), name=name)
+    M.basis_action = lambda i: mats[i]
+    return M
+
+
+# -- named modules ---------------------------------------------------------------------------------
+
+
+def named_module(text: str, B: BasicAlgebra, order=None) -> ActionModule:
+    """``P(x)``, ``I(x)``, ``L(x)``, ``Delta(x)``, ``nabla(x)``, ``T(x)`` (also spelled
+    ``projective(x)``, ``standard(x)``, ``costandard(x)``, ``tilting(x)``, ...) or ``regular``."""
+    from hwcat.theory.highest_weight import costandard_module, standard_module
+
+    t = text.strip()
+    if t == "regular":
+        return from_representation(regular_module(B), "regular")
+    m = _NAMED.match(t)
+    if not m or m.group(1) not in _KINDS:
+        raise ModuleFileError(
+            f"--module {text!r}: not a file and not a module name ({MODULE_NAMES})"
+        )
+    kind, v = _KINDS[m.group(1)], m.group(2)
+    if v not in B.vertices:
+        raise ModuleFileError(
+            f"--module {text!r}: {v!r} is not a vertex (vertices: {', '.join(B.vertices)})"
+        )
+    s = B.vertices.index(v)
+    if kind == "P":
+        R = projective(B, s)
+    elif kind == "I":
+        R = injective(B, s)
+    elif kind == "L":
+        R = simple(B, s)
+    else:
+        if order is None:
+            raise ModuleFileError(
+                f"--module {text!r}: needs an order (--order, the spec's order, or a quasi-hereditary structure)"
+            )
+        if kind == "Delta":
+            R = standard_module(B, s, order)
+        elif kind == "nabla":
+            R = costandard_module(B, s, order)
+        else:
+            from hwcat.theory.tilting import tilting_module
+
+            try:
+                R = tilting_module(B, s, order).module
+            except HwcatError as exc:
+                raise ModuleFileError(f"--module {text!r}: {exc}") from None
+    return from_representation(R, f"{kind}({v})")
+
+
+def spin_chain_module(n: int, delta: Any, field: Any) -> ActionModule:
+    """The Temperley-Lieb spin chain of length ``n`` for loop weight ``delta = q + 1/q``
+    (``q`` chosen in the field), as the natural module of its generators."""
+    from hwcat.algebras.families.spin_chain import loop_weight_root, spin_chain_entries
+    from hwcat.exact.polys import sparse_matrix
+
+    F = parse_field(field) if isinstance(field, str) else field
+    q = loop_weight_root(delta, F)
+    ents = spin_chain_entries(n, q, F)
+    N = 1 << n
+    gens = {g: sparse_matrix(F, N, N, e) for g, e in ents.items()}
+    return ActionModule(F, N, gens, name=f"spin chain n={n}, q={F.to_str(q)}", sparse=ents)

@@ -1,0 +1,400 @@
+"""The report of ``hwcat module``: summands, what each one is, layers, Jordan types, centre.
+
+Decomposition, ``dim End`` and Jordan types come from
+:mod:`hwcat.theory.decompose` (generators only).  Identification needs the
+simples: the module is moved to the basic algebra ``B`` of the spec (the
+vertex spaces ``M e_s`` for the primitive idempotents ``e_s`` and the arrows
+as elements of the input algebra; see :func:`as_representation`), and then
+
+* ``[X : L(s)]`` is the dimension vector, layers are radical and socle layers;
+* ``X = P(s)`` when the top of ``X`` is ``L(s)`` and ``X`` has the dimension
+  vector of ``P(s)`` (``X`` is then a quotient of ``P(s)`` of the same
+  dimension); ``I(s)`` dually with the socle;
+* ``X = Delta(s)`` when the top is ``L(s)`` and the dimension vector is that
+  of ``Delta(s)`` (all factors are then ``<= s``, so ``X`` is a quotient of
+  ``Delta(s)``, the largest such quotient of ``P(s)``); ``nabla(s)`` dually;
+* ``X = T(s)`` when a (checked) isomorphism with ``T(s)`` is found.
+"""
+
+from __future__ import annotations
+
+from collections.abc import Sequence
+from dataclasses import dataclass, field
+from typing import Any
+
+from hwcat.algebras.hub.basic import BasicAlgebra
+from hwcat.errors import HwcatError, InternalInconsistency
+from hwcat.exact import Mat, echelon
+from hwcat.exact.polys import minpoly, select_columns
+from hwcat.modules import Module, injective, projective
+from hwcat.modules.action import ActionModule
+from hwcat.theory.centre import Centre, algebra_centre, centre
+from hwcat.theory.decompose import DEFAULT_SEED, JordanBlock, decompose, jordan_type
+from hwcat.theory.orders import PartialOrder
+
+__all__ = ["SummandReport", "ModuleReport", "analyse_module", "as_representation", "restrict"]
+
+
+# -- moving a module to the basic algebra -----------------------------------------------------------
+
+
+def _vertex_data(M: ActionModule, B: BasicAlgebra) -> list[tuple[Mat, Mat]]:
+    """Per vertex ``s``: ``(W_s, P_s)`` with ``W_s`` a basis of ``M e_s`` (rows) and ``P_s``
+    (``dim M x dim M e_s``) giving the coordinates of ``v e_s``: ``v @ P_s``."""
+    from hwcat.algebras.reduction.reduction import ARROW_TERMS, reduction_of
+
+    F = M.field
+    if M.representation is not None:
+        out, o = [], 0
+        for d in M.representation.dims:
+            W = Mat.unit_rows(F, M.dim, list(range(o, o + d)))
+            out.append((W, W.transpose()))
+            o += d
+        return out
+    red = reduction_of(B)
+    if red is None or M.basis_action is None or ARROW_TERMS not in B._cache:
+        raise InternalInconsistency("no way to move this module to the basic algebra")
+    out = []
+    for e in red.idempotents:
+        E = _act(M, e)
+        if not (E @ E == E):
+            raise InternalInconsistency("a primitive idempotent does not act idempotently")
+        W = echelon(E)
+        piv = list(W.echelon_pivots()) if W.nrows else []
+        out.append((W, select_columns(E, piv) if piv else Mat.zeros(F, M.dim, 0)))
+    return out
+
+
+def _act(M: ActionModule, x: Sequence[Any]) -> Mat:
+    out = Mat.zeros(M.field, M.dim, M.dim)
+    for l, c in enumerate(x):
+        if c != 0:
+            out = out + M.basis_action(l).scale(c)  # type: ignore[misc]
+    return out
+
+
+def as_representation(M: ActionModule, B: BasicAlgebra) -> tuple[Module, list[tuple[Mat, Mat]]]:
+    """``M`` as a quiver representation of ``B``, with the vertex data of :func:`_vertex_data`."""
+    from hwcat.algebras.reduction.reduction import ARROW_TERMS, reduction_of
+
+    data = _vertex_data(M, B)
+    if M.representation is not None:
+        return M.representation, data
+    red = reduction_of(B)
+    A = red.algebra
+    dims = [W.nrows for W, _ in data]
+    if sum(d * m for d, m in zip(dims, B.morita, strict=True)) != M.dim:
+        raise InternalInconsistency("the vertex spaces M e_s do not account for dim M")
+    maps = []
+    for u, t, terms in B._cache[ARROW_TERMS]:
+        eu, et = list(red.idempotents[u]), list(red.idempotents[t])
+        x = [A.field.zero] * A.dim
+        for l, c in terms:
+            y = A.product(A.product(eu, A.basis_vector(l)), et)
+            x = [a + c * b for a, b in zip(x, y, strict=True)]
+        if dims[u] and dims[t]:
+            maps.append(data[u][0] @ _act(M, x) @ data[t][1])
+        else:
+            maps.append(Mat.zeros(M.field, dims[u], dims[t]))
+    return Module(B, dims, maps, M.name), data
+
+
+def _sub_representation(R: Module, data: list[tuple[Mat, Mat]], basis: Mat) -> Module:
+    """The summand with ``basis`` (rows in the module's coordinates) as a subrepresentation."""
+    spaces = []
+    for _, P in data:
+        if P.ncols == 0:
+            spaces.append(Mat.zeros(R.field, 0, 0))
+        else:
+            spaces.append(echelon(basis @ P))
+    return R.submodule(spaces)
+
+
+# -- results -------------------------------------------------------------------------------------------
+
+
+def _blocks_dict(F, blocks: Sequence[JordanBlock]) -> list[dict[str, Any]]:
+    return [b.to_dict(F) for b in blocks]
+
+
+@dataclass(frozen=True)
+class SummandReport:
+    """One indecomposable summand."""
+
+    index: int
+    dimension: int
+    isomorphism_class: int
+    endomorphism_dimension: int
+    composition_factors: dict[str, int] | None
+    radical_layers: tuple[tuple[int, ...], ...] | None
+    socle_layers: tuple[tuple[int, ...], ...] | None
+    identified_as: tuple[tuple[str, str], ...]  # (name, test)
+    jordan_types: dict[str, tuple[JordanBlock, ...]]
+    field_name: str = ""
+    _field: Any = field(default=None, repr=False, compare=False)
+
+    @property
+    def loewy_length(self) -> int | None:
+        return None if self.radical_layers is None else len(self.radical_layers)
+
+    def to_dict(self) -> dict[str, Any]:
+        d: dict[str, Any] = {
+            "index": self.index,
+            "dimension": self.dimension,
+            "isomorphism_class": self.isomorphism_class,
+            "endomorphism_dimension": self.endomorphism_dimension,
+        }
+        if self.composition_factors is not None:
+            d["composition_factors"] = dict(self.composition_factors)
+            d["radical_layers"] = [list(x) for x in self.radical_layers or ()]
+            d["socle_layers"] = [list(x) for x in self.socle_layers or ()]
+            d["loewy_length"] = self.loewy_length
+        d["identified_as"] = [{"name": n, "test": t} for n, t in self.identified_as]
+        d["jordan_types"] = {k: _blocks_dict(self._field, v) for k, v in self.jordan_types.items()}
+        return d
+
+
+@dataclass(frozen=True)
+class ModuleReport:
+    """What ``hwcat module`` prints."""
+
+    name: str
+    field: str
+    dimension: int
+    simples: tuple[str, ...] | None
+    composition_factors: dict[str, int] | None
+    radical_layers: tuple[tuple[int, ...], ...] | None
+    socle_layers: tuple[tuple[int, ...], ...] | None
+    summands: tuple[SummandReport, ...]
+    endomorphism_dimension: int
+    jordan_types: dict[str, tuple[JordanBlock, ...]]
+    order: str | None
+    centre: Centre | None
+    central_non_semisimple: tuple[tuple[str, tuple[int, ...]], ...]
+    notes: tuple[str, ...] = ()
+    _field: Any = field(default=None, repr=False, compare=False)
+
+    @property
+    def loewy_length(self) -> int | None:
+        return None if self.radical_layers is None else len(self.radical_layers)
+
+    def to_dict(self) -> dict[str, Any]:
+        d: dict[str, Any] = {
+            "name": self.name,
+            "field": self.field,
+            "dimension": self.dimension,
+            "endomorphism_dimension": self.endomorphism_dimension,
+            "summands": [s.to_dict() for s in self.summands],
+            "jordan_types": {k: _blocks_dict(self._field, v) for k, v in self.jordan_types.items()},
+        }
+        if self.simples is not None:
+            d["simples"] = list(self.simples)
+            d["composition_factors"] = dict(self.composition_factors or {})
+            d["radical_layers"] = [list(x) for x in self.radical_layers or ()]
+            d["socle_layers"] = [list(x) for x in self.socle_layers or ()]
+            d["loewy_length"] = self.loewy_length
+            d["order"] = self.order
+        if self.centre is not None:
+            d["centre"] = {
+                "dimension": self.centre.dimension,
+                "basis": list(self.centre.texts),
+                "non_semisimple_on_summands": [
+                    {"element": e, "summands": list(ix)} for e, ix in self.central_non_semisimple
+                ],
+            }
+        d["notes"] = list(self.notes)
+        return d
+
+
+# -- identification ------------------------------------------------------------------------------------
+
+
+def _unit(n: int, s: int) -> tuple[int, ...]:
+    return tuple(1 if v == s else 0 for v in range(n))
+
+
+def _identify(X: Module, order: PartialOrder | None, qh: bool) -> list[tuple[str, str]]:
+    from hwcat.theory.highest_weight import costandard_module, standard_module
+    from hwcat.theory.homological_dimension import find_isomorphism
+
+    B = X.algebra
+    names = B.vertices
+    out: list[tuple[str, str]] = []
+    top, soc = X.top(), X.socle()
+    if X.dim == 1:
+        s = X.dims.index(1)
+        out.append((f"L({names[s]})", "dimension vector of a simple"))
+    tops = [s for s in range(B.n) if top == _unit(B.n, s)]
+    socs = [s for s in range(B.n) if soc == _unit(B.n, s)]
+    proj = inj = None
+    for s in tops:
+        if projective(B, s).dims == X.dims:
+            proj = s
+            out.append(
+                (f"P({names[s]})", f"top L({names[s]}) and the dimension vector of P({names[s]})")
+            )
+    for s in socs:
+        if injective(B, s).dims == X.dims:
+            inj = s
+            out.append(
+                (f"I({names[s]})", f"socle L({names[s]}) and the dimension vector of I({names[s]})")
+            )
+    if proj is not None and inj is not None:
+        out.append(("projective-injective", f"both P({names[proj]}) and I({names[inj]})"))
+    if order is not None:
+        for s in tops:
+            if standard_module(B, s, order).dims == X.dims:
+                out.append(
+                    (
+                        f"Delta({names[s]})",
+                        f"top L({names[s]}) and the dimension vector of Delta({names[s]})",
+                    )
+                )
+        for s in socs:
+            if costandard_module(B, s, order).dims == X.dims:
+                out.append(
+                    (
+                        f"nabla({names[s]})",
+                        f"socle L({names[s]}) and the dimension vector of nabla({names[s]})",
+                    )
+                )
+        if qh:
+            from hwcat.theory.tilting import tilting_module
+
+            for s in range(B.n):
+                T = tilting_module(B, s, order).module
+                if T.dims == X.dims and find_isomorphism(X, T) is not None:
+                    out.append((f"T({names[s]})", f"an isomorphism with T({names[s]}) (checked)"))
+    return out
+
+
+def _non_semisimple(Z: Mat) -> bool:
+    return any(e > 1 for _, e in minpoly(Z).factor())
+
+
+def analyse_module(
+    M: ActionModule,
+    B: BasicAlgebra | None = None,
+    *,
+    elements: Sequence[str] = (),
+    order: PartialOrder | None = None,
+    identify: bool = True,
+    seed: int = DEFAULT_SEED,
+) -> ModuleReport:
+    """Decompose ``M``, compute Jordan types of ``elements`` and, with ``B`` and
+    ``identify``, the layers, what each summand is and the centre's action."""
+    from hwcat.theory.highest_weight import heredity_chain
+
+    F = M.field
+    D = decompose(M, seed=seed)
+    notes: list[str] = []
+    R = data = None
+    qh = False
+    order_text = None
+    if identify and B is not None:
+        R, data = as_representation(M, B)
+        if order is None:
+            from hwcat.theory.search import quasi_hereditary_orders
+
+            r = quasi_hereditary_orders(B, list_limit=1)
+            if r.quasi_hereditary:
+                order = r.structure_list[0].essential_order
+                notes.append("order: the essential order of the first quasi-hereditary structure")
+            else:
+                notes.append("the algebra is quasi-hereditary for no order: no Delta, nabla, T")
+        if order is not None:
+            qh = heredity_chain(B, order).holds
+            order_text = order.chain_text()
+            if not qh:
+                notes.append(f"not quasi-hereditary for {order_text}: no T(i)")
+    summ: list[SummandReport] = []
+    restricted: dict[str, list[Mat]] = {}
+    for i, S in enumerate(D.summands):
+        jt = {}
+        for text in elements:  # evaluated on the summand itself (its own letters)
+            Y = S.module.element(text)
+            restricted.setdefault(text, []).append(Y)
+            jt[text] = tuple(jordan_type(Y))
+        cf = rl = sl = None
+        ident: list[tuple[str, str]] = []
+        if R is not None:
+            X = _sub_representation(R, data, S.basis)
+            if S.dimension != sum(d * m for d, m in zip(X.dims, B.morita, strict=True)):
+                raise InternalInconsistency("a summand's vertex spaces do not account for it")
+            cf = {B.vertices[s]: X.dims[s] for s in range(B.n) if X.dims[s]}
+            rl = tuple(X.radical_layers())
+            sl = tuple(X.socle_layers())
+            ident = _identify(X, order, qh)
+        summ.append(
+            SummandReport(
+                i,
+                S.dimension,
+                S.isomorphism_class,
+                S.endomorphism_dimension,
+                cf,
+                rl,
+                sl,
+                tuple(ident),
+                jt,
+                F.name,
+                F,
+            )
+        )
+    whole = {}
+    for text in elements:
+        blocks = [b for Y in restricted.get(text, []) for b in jordan_type(Y)]
+        whole[text] = tuple(sorted(blocks, key=lambda b: (b.factor, -b.size)))
+    cent = None
+    nss: list[tuple[str, tuple[int, ...]]] = []
+    if identify and B is not None:
+        try:
+            if M.representation is not None:
+                from hwcat.algebras.inputs.structure_input import from_basic_algebra
+
+                cent = centre(from_basic_algebra(B))
+            else:
+                cent = algebra_centre(B)
+        except HwcatError as exc:  # pragma: no cover - defensive
+            notes.append(f"centre not computed: {exc}")
+        if cent is not None:
+            for b, text in zip(cent.basis, cent.texts, strict=True):
+                Z = _act(M, b) if M.representation is None else M.element(text)
+                bad = tuple(
+                    S_.index
+                    for S_, S in zip(summ, D.summands, strict=True)
+                    if _non_semisimple(restrict(S.basis, Z))
+                )
+                if bad:
+                    nss.append((text, bad))
+    cf_all = rl_all = sl_all = None
+    if R is not None:
+        cf_all = {B.vertices[s]: R.dims[s] for s in range(B.n) if R.dims[s]}
+        rl_all = tuple(R.radical_layers())
+        sl_all = tuple(R.socle_layers())
+    return ModuleReport(
+        name=M.name,
+        field=F.name,
+        dimension=M.dim,
+        simples=tuple(B.vertices) if R is not None else None,
+        composition_factors=cf_all,
+        radical_layers=rl_all,
+        socle_layers=sl_all,
+        summands=tuple(summ),
+        endomorphism_dimension=D.endomorphism_dimension,
+        jordan_types=whole,
+        order=order_text,
+        centre=cent,
+        central_non_semisimple=tuple(nss),
+        notes=tuple(notes),
+        _field=F,
+    )
+
+
+def restrict(basis: Mat, X: Mat) -> Mat:
+    """``X`` on the invariant subspace spanned by the rows of ``basis`` (any basis)."""
+    Y = basis @ X
+    W = echelon(basis)
+    piv = list(W.echelon_pivots())
+    # coordinates in the basis ``basis``: solve c @ basis = y via the pivot columns
+    T = select_columns(basis, piv).inverse()
+    return select_columns(Y, piv) @ T

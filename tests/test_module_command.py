@@ -1,0 +1,250 @@
+"""The ``hwcat module`` command: module files, named modules, bad input, JSON keys."""
+
+from __future__ import annotations
+
+import json
+from pathlib import Path
+
+import pytest
+
+from hwcat.cli import main
+from hwcat.io.spec import load_spec_text
+from hwcat.modules import projective
+from hwcat.modules.action import from_representation
+from hwcat.theory.decompose import decompose
+
+EXAMPLES = Path(__file__).resolve().parent.parent / "specs" / "examples"
+
+QUIVER = """
+field = "QQ"
+[quiver]
+vertices = ["1", "2", "3"]
+arrows = ["a: 1 -> 2", "b: 2 -> 3"]
+relations = ["a*b"]
+"""
+
+GROUP = """
+field = "GF(3)"
+[multiplication]
+basis = ["e", "g", "h"]
+unit = "e"
+products = ["g*g = h", "g*h = e", "h*g = e", "h*h = g", "e*g = g", "g*e = g", "e*h = h", "h*e = h", "e*e = e"]
+"""
+
+MATRICES = """
+field = "GF(5)"
+[matrices.generators]
+u = [[1, 1, 0], [0, 1, 1], [0, 0, 1]]
+"""
+
+
+def write(tmp_path: Path, name: str, text: str) -> str:
+    p = tmp_path / name
+    p.write_text(text, encoding="utf-8")
+    return str(p)
+
+
+def run_json(capsys, argv) -> dict:
+    assert main(argv + ["--json"]) == 0
+    return json.loads(capsys.readouterr().out)
+
+
+def run_error(capsys, argv) -> str:
+    assert main(argv) == 2
+    err = capsys.readouterr().err.strip()
+    assert "\n" not in err
+    return err
+
+
+def test_demo_has_a_diamond_and_a_jordan_block_of_size_two(capsys):
+    d = run_json(
+        capsys, ["module", str(EXAMPLES / "plaquette.toml"), "--element", "X", "--element", "X + Y"]
+    )
+    assert d["dimension"] == 5 and d["endomorphism_dimension"] == 7
+    dims = sorted(s["dimension"] for s in d["summands"])
+    assert dims == [1, 4] == sorted(s["dimension"] for s in d["summands"])
+    diamond = next(s for s in d["summands"] if s["dimension"] == 4)
+    assert [sum(layer) for layer in diamond["radical_layers"]] == [1, 2, 1]
+    names = {x["name"] for x in diamond["identified_as"]}
+    assert {"P(1)", "I(1)", "projective-injective"} <= names
+    assert {"degree": 1, "size": 2, "eigenvalue": 0} in d["jordan_types"]["X"]
+    assert sorted(b["size"] for b in d["jordan_types"]["X + Y"]) == [1, 1, 3]
+    assert d["centre"]["dimension"] == 4
+    assert any(x["summands"] for x in d["centre"]["non_semisimple_on_summands"])
+
+
+def test_module_file_for_a_quiver_spec(tmp_path, capsys):
+    spec = write(tmp_path, "q.toml", QUIVER)
+    mod = write(
+        tmp_path,
+        "m.toml",
+        "[dimensions]\n1 = 1\n2 = 1\n3 = 1\n[matrices]\na = [[1]]\nb = [[0]]\n",
+    )
+    d = run_json(capsys, ["module", spec, "--module", mod, "--element", "a + e_1"])
+    assert sorted(s["dimension"] for s in d["summands"]) == [1, 2]
+    assert d["composition_factors"] == {"1": 1, "2": 1, "3": 1}
+    assert sum(s["dimension"] for s in d["summands"]) == d["dimension"]
+
+
+def test_violated_relation_is_named(tmp_path, capsys):
+    spec = write(tmp_path, "q.toml", QUIVER)
+    mod = write(
+        tmp_path, "m.toml", "[dimensions]\n1 = 1\n2 = 1\n3 = 1\n[matrices]\na = [[1]]\nb = [[2]]\n"
+    )
+    err = run_error(capsys, ["module", spec, "--module", mod])
+    assert "m.toml" in err and "'a*b'" in err
+
+
+@pytest.mark.parametrize(
+    "text, needle",
+    [
+        ("[dimensions]\n1 = 1\n2 = 1\n[matrices]\nc = [[1]]\n", "matrices.c"),
+        ("[dimensions]\n1 = 2\n2 = 1\n[matrices]\na = [[1]]\n", "1 x 1 matrix where 2 x 1"),
+        ("[dimensions]\n7 = 1\n[matrices]\n", "dimensions.7"),
+        ('field = "GF(5)"\n[dimensions]\n1 = 1\n[matrices]\n', "field"),
+        ("not toml [", "not valid TOML"),
+    ],
+)
+def test_bad_quiver_module_files(tmp_path, capsys, text, needle):
+    spec = write(tmp_path, "q.toml", QUIVER)
+    mod = write(tmp_path, "bad.toml", text)
+    err = run_error(capsys, ["module", spec, "--module", mod])
+    assert "bad.toml" in err and needle in err
+
+
+def test_matrices_module_file_checks_the_algebra_relations(tmp_path, capsys):
+    spec = write(tmp_path, "u.toml", MATRICES)
+    # (u - 1)^3 = 0 holds for a 2 x 2 unipotent block, but (u - 1)^2 = 0 is not required
+    ok = write(tmp_path, "ok.toml", "dimension = 2\n[matrices]\nu = [[1, 1], [0, 1]]\n")
+    d = run_json(capsys, ["module", spec, "--module", ok, "--element", "u - 1"])
+    assert d["jordan_types"]["u - 1"] == [{"degree": 1, "size": 2, "eigenvalue": 0}]
+    bad = write(tmp_path, "bad.toml", "dimension = 2\n[matrices]\nu = [[2, 0], [0, 1]]\n")
+    err = run_error(capsys, ["module", spec, "--module", bad])
+    assert "bad.toml" in err and "relation u*u*u" in err
+    wrong = write(tmp_path, "w.toml", "dimension = 2\n[matrices]\nv = [[1, 0], [0, 1]]\n")
+    assert "matrices.v" in run_error(capsys, ["module", spec, "--module", wrong])
+    size = write(tmp_path, "s.toml", "dimension = 3\n[matrices]\nu = [[1, 0], [0, 1]]\n")
+    assert "2 x 2 matrix where 3 x 3" in run_error(capsys, ["module", spec, "--module", size])
+
+
+def test_multiplication_module_file(tmp_path, capsys):
+    spec = write(tmp_path, "c3.toml", GROUP)
+    # the regular representation of C_3 over GF(3): indecomposable (common practice:
+    # kC_p in characteristic p is local, so its regular module is indecomposable)
+    reg = write(
+        tmp_path,
+        "r.toml",
+        "dimension = 3\n[matrices]\ne = [[1,0,0],[0,1,0],[0,0,1]]\n"
+        "g = [[0,1,0],[0,0,1],[1,0,0]]\nh = [[0,0,1],[1,0,0],[0,1,0]]\n",
+    )
+    d = run_json(capsys, ["module", spec, "--module", reg, "--element", "g - e"])
+    assert [s["dimension"] for s in d["summands"]] == [3]
+    assert d["endomorphism_dimension"] == 3
+    assert d["jordan_types"]["g - e"] == [{"degree": 1, "size": 3, "eigenvalue": 0}]
+    bad = write(
+        tmp_path,
+        "b.toml",
+        "dimension = 1\n[matrices]\ne = [[1]]\ng = [[1]]\nh = [[2]]\n",
+    )
+    err = run_error(capsys, ["module", spec, "--module", bad])
+    assert "b.toml" in err and "product" in err
+
+
+def test_unknown_names_in_elements(capsys):
+    err = run_error(capsys, ["module", str(EXAMPLES / "plaquette.toml"), "--element", "X + Z"])
+    assert "--element 'X + Z'" in err and "'Z'" in err
+
+
+def test_unknown_module_name(tmp_path, capsys):
+    spec = write(tmp_path, "q.toml", QUIVER)
+    assert "'9' is not a vertex" in run_error(capsys, ["module", spec, "--module", "P(9)"])
+    assert "not a module name" in run_error(capsys, ["module", spec, "--module", "Q(1)"])
+
+
+def test_sparse_matrix_errors_name_the_entry(tmp_path, capsys):
+    spec = write(
+        tmp_path,
+        "sp.toml",
+        'field = "QQ"\n[matrices.generators]\nx = { size = [2, 2], entries = [[0, 5, 1]] }\n',
+    )
+    err = run_error(capsys, ["module", spec])
+    assert "matrices.generators.x.entries[0]" in err and "column 5" in err
+
+
+@pytest.mark.parametrize("name", ["P(1)", "projective(2)", "P(3)"])
+def test_projective_by_name_is_indecomposable_with_the_right_top(tmp_path, capsys, name):
+    # P(i) is indecomposable with top L(i) (Assem-Simson-Skowronski, vol. 1; memory)
+    spec = write(tmp_path, "q.toml", QUIVER)
+    d = run_json(capsys, ["module", spec, "--module", name])
+    v = name[name.index("(") + 1 : -1]
+    assert len(d["summands"]) == 1
+    s = d["summands"][0]
+    top = s["radical_layers"][0]
+    assert top == [1 if x == v else 0 for x in d["simples"]]
+    assert any(x["name"] == f"P({v})" for x in s["identified_as"])
+
+
+def test_named_standard_and_tilting_modules(tmp_path, capsys):
+    spec = write(tmp_path, "q.toml", QUIVER)
+    d = run_json(capsys, ["module", spec, "--module", "tilting(1)", "--order", "3 > 2 > 1"])
+    assert any(x["name"] == "T(1)" for x in d["summands"][0]["identified_as"])
+    d = run_json(capsys, ["module", spec, "--module", "standard(2)", "--order", "3 > 2 > 1"])
+    assert any(x["name"] == "Delta(2)" for x in d["summands"][0]["identified_as"])
+
+
+def test_regular_module_sums_to_dimension_and_isomorphic_summands_agree():
+    A = load_spec_text(QUIVER)
+    from hwcat.modules import direct_sum
+
+    M = from_representation(direct_sum(projective(A, 0), projective(A, 1), projective(A, 0)))
+    D = decompose(M)
+    assert sum(s.dimension for s in D.summands) == M.dim
+    assert sorted(s.isomorphism_class for s in D.summands).count(0) == 2
+
+
+def test_spin_chain_from_the_family(capsys):
+    d = run_json(
+        capsys,
+        [
+            "module",
+            "--family",
+            "temperley-lieb",
+            "n=4",
+            "delta=0",
+            "field=GF(5)",
+            "--element",
+            "e1 + e2 + e3",
+        ],
+    )
+    # quantum Schur-Weyl duality (Jimbo 1986; Martin 1991; from memory): 1 + 9 + 25
+    assert d["endomorphism_dimension"] == 35
+    assert sum(s["dimension"] for s in d["summands"]) == 16
+    assert any(b["size"] >= 2 for b in d["jordan_types"]["e1 + e2 + e3"])
+    # isomorphic summands have the same composition factors (common practice)
+    by_class: dict[int, list] = {}
+    for s in d["summands"]:
+        by_class.setdefault(s["isomorphism_class"], []).append(s["composition_factors"])
+    assert all(all(cf == cfs[0] for cf in cfs) for cfs in by_class.values())
+    assert any(len(cfs) > 1 for cfs in by_class.values())
+    # the whole module's composition factors add up over the summands
+    total: dict[str, int] = {}
+    for s in d["summands"]:
+        for k, v in s["composition_factors"].items():
+            total[k] = total.get(k, 0) + v
+    assert total == d["composition_factors"]
+
+
+def test_describe_reports_the_centre(tmp_path, capsys):
+    spec = write(tmp_path, "c3.toml", GROUP)
+    assert main(["describe", spec, "--json"]) == 0
+    d = json.loads(capsys.readouterr().out)
+    assert d["centre_dimension"] == 3  # commutative: Z = A (common practice)
+
+
+@pytest.mark.parametrize("n, field", [(3, "GF(2)"), (3, "GF(3)"), (4, "GF(2)")])
+def test_family_reports_the_centre(capsys, n, field):
+    # dim Z(kS_n) = number of conjugacy classes = partitions of n (common practice)
+    partitions = {3: 3, 4: 5}[n]
+    assert main(["family", "symmetric-group", f"n={n}", f"field={field}", "--json"]) == 0
+    d = json.loads(capsys.readouterr().out)
+    assert d["centre_dimension"] == partitions == len(d["centre_basis"])
