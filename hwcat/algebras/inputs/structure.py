@@ -13,7 +13,8 @@ basis triples for small dimension, otherwise on random triples with the number
 of trials and the failure probability recorded in
 :attr:`StructureAlgebra.associativity`) and a wrong or missing unit.  Building
 from text, named mappings, matrices and quiver algebras is in
-:mod:`hwcat.algebras.inputs.structure_input`.
+:mod:`hwcat.algebras.inputs.structure_input` (which imports this module, never
+the other way round).
 
 Vectors are lists of field elements in the basis order.
 
@@ -41,10 +42,18 @@ from fractions import Fraction
 from typing import Any
 
 from hwcat.errors import (
+    CoefficientError,
     InternalInconsistency,
     StructureConstantsError,
 )
-from hwcat.exact import Field, Mat, PrimeField
+from hwcat.exact import (
+    Field,
+    Mat,
+    PrimeField,
+    coefficient_prefix,
+    split_factors,
+    split_signed_terms,
+)
 from hwcat.exact.polys import matrix_from_ints, matrix_from_residues, sparse_matrix
 from hwcat.limits import check_products
 
@@ -58,6 +67,8 @@ __all__ = [
     "AssociativityCheck",
     "from_table",
     "EXACT_ASSOCIATIVITY_LIMIT",
+    "parse_combination",
+    "signed_terms",
 ]
 
 EXACT_ASSOCIATIVITY_LIMIT = 40
@@ -289,8 +300,6 @@ class StructureAlgebra:
 
     def element(self, text: str) -> list[Any]:
         """Parse ``"2*x - 1/3*y"`` (basis names; products of names are multiplied out)."""
-        from hwcat.algebras.inputs.structure_input import parse_combination
-
         return parse_combination(text, self)
 
     def element_text(self, v: Sequence[Any]) -> str:
@@ -1123,3 +1132,68 @@ def from_table(
         trusted=True,
         **kwargs,
     )
+
+
+# -- text: combinations of basis names ------------------------------------------------
+
+
+def signed_terms(text: str) -> list[tuple[int, str]]:
+    """The signed terms of ``"2*x - y + 1/3*z"``: ``[(1, "2*x"), (-1, "y"), (1, "1/3*z")]``."""
+    terms, dangling = split_signed_terms(text)
+    if dangling:
+        raise StructureConstantsError(f"{text!r} ends with a sign")
+    return terms
+
+
+def parse_combination(
+    text: str,
+    A: StructureAlgebra | None = None,
+    *,
+    field: Field | None = None,
+    basis: Sequence[str] | None = None,
+) -> list[Any]:
+    """Parse ``"2*x - 1/3*y*z + 1"``-style text into coordinates.
+
+    A term is an optional coefficient and a product of basis names (multiplied
+    in ``A``, which is then required when a term has two or more names).
+    ``"0"`` is the zero vector.  With ``A = None`` pass ``field`` and ``basis``
+    (products of names are then not allowed).
+    """
+    if A is not None:
+        field, basis = A.field, A.basis
+    assert field is not None and basis is not None
+    index = {b: i for i, b in enumerate(basis)}
+    n = len(basis)
+    if not isinstance(text, str):
+        raise StructureConstantsError(f'{text!r} is not a string such as "2*x - y"')
+    if text.strip() == "0":
+        return [field.zero] * n
+    out = [field.zero] * n
+    terms = signed_terms(text)
+    if not terms:
+        raise StructureConstantsError(f"{text!r} is empty")
+    for sign, term in terms:
+        factors = split_factors(term)
+        if any(f == "" for f in factors):
+            raise StructureConstantsError(f"{text!r}: term {term!r} is malformed")
+        try:
+            coef, factors = coefficient_prefix(field, factors, index)
+        except CoefficientError as exc:
+            raise CoefficientError(f"{text!r}: {exc}") from None
+        if not factors:
+            raise StructureConstantsError(
+                f"{text!r}: term {term!r} is a bare number; write it times a basis element "
+                "(for example 2*e with e the unit)"
+            )
+        for f in factors:
+            if f not in index:
+                raise StructureConstantsError(f"{text!r}: {f!r} is not a basis element")
+        vec = [field.zero] * n
+        vec[index[factors[0]]] = field.one
+        for f in factors[1:]:
+            if A is None:
+                raise StructureConstantsError(f"{text!r}: products are not allowed here")
+            vec = A.product(vec, A.basis_vector(index[f]))
+        c = coef if sign > 0 else -coef
+        out = [a + c * b for a, b in zip(out, vec, strict=True)]
+    return out

@@ -25,7 +25,7 @@ from collections.abc import Mapping, Sequence
 from typing import Any
 
 from hwcat.algebras.hub.basic import BasicAlgebra
-from hwcat.algebras.inputs.structure import StructureAlgebra
+from hwcat.algebras.inputs.structure import StructureAlgebra, parse_combination, signed_terms
 from hwcat.errors import (
     CoefficientError,
     HwcatError,
@@ -38,7 +38,6 @@ from hwcat.exact import (
     coefficient_prefix,
     select_independent_rows,
     split_factors,
-    split_signed_terms,
 )
 from hwcat.exact.polys import select_columns
 from hwcat.limits import check_dimension, check_products
@@ -57,67 +56,6 @@ __all__ = [
 
 # -- text: combinations and product rules ------------------------------------------
 
-
-
-def _split_signed(text: str) -> list[tuple[int, str]]:
-    terms, dangling = split_signed_terms(text)
-    if dangling:
-        raise StructureConstantsError(f"{text!r} ends with a sign")
-    return terms
-
-
-def parse_combination(
-    text: str,
-    A: StructureAlgebra | None = None,
-    *,
-    field: Field | None = None,
-    basis: Sequence[str] | None = None,
-) -> list[Any]:
-    """Parse ``"2*x - 1/3*y*z + 1"``-style text into coordinates.
-
-    A term is an optional coefficient and a product of basis names (multiplied
-    in ``A``, which is then required when a term has two or more names).
-    ``"0"`` is the zero vector.  With ``A = None`` pass ``field`` and ``basis``
-    (products of names are then not allowed).
-    """
-    if A is not None:
-        field, basis = A.field, A.basis
-    assert field is not None and basis is not None
-    index = {b: i for i, b in enumerate(basis)}
-    n = len(basis)
-    if not isinstance(text, str):
-        raise StructureConstantsError(f'{text!r} is not a string such as "2*x - y"')
-    if text.strip() == "0":
-        return [field.zero] * n
-    out = [field.zero] * n
-    terms = _split_signed(text)
-    if not terms:
-        raise StructureConstantsError(f"{text!r} is empty")
-    for sign, term in terms:
-        factors = split_factors(term)
-        if any(f == "" for f in factors):
-            raise StructureConstantsError(f"{text!r}: term {term!r} is malformed")
-        try:
-            coef, factors = coefficient_prefix(field, factors, index)
-        except CoefficientError as exc:
-            raise CoefficientError(f"{text!r}: {exc}") from None
-        if not factors:
-            raise StructureConstantsError(
-                f"{text!r}: term {term!r} is a bare number; write it times a basis element "
-                "(for example 2*e with e the unit)"
-            )
-        for f in factors:
-            if f not in index:
-                raise StructureConstantsError(f"{text!r}: {f!r} is not a basis element")
-        vec = [field.zero] * n
-        vec[index[factors[0]]] = field.one
-        for f in factors[1:]:
-            if A is None:
-                raise StructureConstantsError(f"{text!r}: products are not allowed here")
-            vec = A.product(vec, A.basis_vector(index[f]))
-        c = coef if sign > 0 else -coef
-        out = [a + c * b for a, b in zip(out, vec, strict=True)]
-    return out
 
 
 def add_unit_products(
@@ -372,7 +310,7 @@ def matrix_expression(text: str, field: Field, generators: Mapping[str, Mat]) ->
         raise StructureConstantsError(f'{text!r} is not a string such as "E*K - 1"')
     N = next(iter(generators.values())).nrows
     out = Mat.zeros(field, N, N)
-    terms = _split_signed(text)
+    terms = signed_terms(text)
     if not terms:
         raise StructureConstantsError(f"{text!r} is empty")
     for sign, term in terms:

@@ -31,10 +31,10 @@ from __future__ import annotations
 from dataclasses import dataclass
 from typing import Any
 
-from hwcat.algebras.families.quivers import spec_to_toml
 from hwcat.algebras.hub.basic import BasicAlgebra
 from hwcat.algebras.hub.quiver import Path, Quiver
 from hwcat.algebras.inputs.bound import bound_quiver_algebra
+from hwcat.algebras.inputs.spec_text import spec_to_toml
 from hwcat.errors import HwcatError, InternalInconsistency
 from hwcat.exact import Field, Mat, echelon, select_independent_rows
 
