@@ -60,8 +60,16 @@ def _commutator_matrix(A: StructureAlgebra, y: list[Any]) -> Mat:
     return A.right_action(y) - A.left_action(y)
 
 
-def centre(A: StructureAlgebra, *, seed: int = 0) -> Centre:
-    """The centre of a structure-constant algebra (see the module notes)."""
+def centre(
+    A: StructureAlgebra, *, seed: int = 0, generators: list[int] | None = None
+) -> Centre:
+    """The centre of a structure-constant algebra (see the module notes).
+
+    ``generators``: indices of basis elements that generate ``A`` as an algebra
+    (for a path basis: the trivial paths and the arrows); the exact step then
+    imposes ``x b = b x`` only for them, which suffices since an element that
+    commutes with generators commutes with everything (common practice).
+    """
     F = A.field
     n = A.dim
     K = Mat.identity(F, n)
@@ -79,7 +87,7 @@ def centre(A: StructureAlgebra, *, seed: int = 0) -> Centre:
     if K.nrows:
         cand = [A.vec(A.raw(r)) for r in K.raw_rows()]
         blocks = []
-        for j in range(n):
+        for j in range(n) if generators is None else generators:
             b = A.basis_vector(j)
             rows = []
             for x in cand:
@@ -99,15 +107,17 @@ def algebra_centre(B: BasicAlgebra, *, seed: int = 0) -> Centre:
     from hwcat.algebras.inputs.structure_input import from_basic_algebra
     from hwcat.algebras.reduction.reduction import reduction_of
 
-    key = ("centre", seed)
-    if key not in B._cache:
+    def compute() -> Centre:
         r = reduction_of(B)
         if r is not None and r.algebra.dim <= USER_TERMS_LIMIT:
-            A = r.algebra
-        else:  # Z is a Morita invariant: the basic algebra gives the same dimension
-            A = from_basic_algebra(B)
-        B._cache[key] = centre(A, seed=seed)
-    return B._cache[key]
+            return centre(r.algebra, seed=seed)
+        # Z is a Morita invariant: the basic algebra gives the same dimension
+        A = from_basic_algebra(B)
+        # the trivial paths and the arrows generate the path basis
+        gens = [j for j, name in enumerate(A.basis) if "*" not in name]
+        return centre(A, seed=seed, generators=gens)
+
+    return B.cached(("centre", seed), compute)
 
 
 USER_TERMS_LIMIT = 400
