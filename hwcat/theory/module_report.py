@@ -52,7 +52,7 @@ def _vertex_data(M: ActionModule, B: BasicAlgebra) -> list[tuple[Mat, Mat]]:
             o += d
         return out
     red = reduction_of(B)
-    if red is None or M.basis_action is None or ARROW_TERMS not in B._cache:
+    if red is None or M.basis_action is None or not B.is_cached(ARROW_TERMS):
         raise InternalInconsistency("no way to move this module to the basic algebra")
     out = []
     for e in red.idempotents:
@@ -86,7 +86,7 @@ def as_representation(M: ActionModule, B: BasicAlgebra) -> tuple[Module, list[tu
     if sum(d * m for d, m in zip(dims, B.morita, strict=True)) != M.dim:
         raise InternalInconsistency("the vertex spaces M e_s do not account for dim M")
     maps = []
-    for u, t, terms in B._cache[ARROW_TERMS]:
+    for u, t, terms in B.cached(ARROW_TERMS, list):
         eu, et = list(red.idempotents[u]), list(red.idempotents[t])
         x = [A.field.zero] * A.dim
         for l, c in terms:
