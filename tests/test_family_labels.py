@@ -117,3 +117,21 @@ def test_restricted_quantum_group_labels_follow_the_projective_structure(ell, q,
             layers = hwcat.projective(A, f"{sign}_{s}").radical_layers()
             named = [{A.vertices[v]: k for v, k in enumerate(layer) if k} for layer in layers]
             assert named == [{f"{sign}_{s}": 1}, {f"{other}_{p - s}": 2}, {f"{sign}_{s}": 1}]
+
+
+def test_named_modules_of_a_labelled_family(tmp_path, capsys):
+    # TL_4(1) over QQ: the simple L(2) (dimension 3) is alone in its block, so P(2) is a
+    # one-dimensional representation of the basic algebra; P(0) has layers 0 | 4 and is
+    # Delta(0) for the natural order (derived from the cell structure above)
+    import json
+
+    from hwcat.cli import main
+
+    spec = tmp_path / "tl.toml"
+    spec.write_text('field = "QQ"\n[family]\nname = "temperley-lieb"\nn = 4\ndelta = "1"\n')
+    assert main(["module", str(spec), "--module", "P(2)", "--json"]) == 0
+    data = json.loads(capsys.readouterr().out)
+    assert [s["dimension"] for s in data["summands"]] == [1]
+    assert main(["module", str(spec), "--module", "P(0)"]) == 0
+    out = capsys.readouterr().out
+    assert "radical layers: 0 | 4" in out and "is Delta(0)" in out

@@ -293,6 +293,11 @@ def analyse_module(
     order_text = None
     if identify and B is not None:
         R, data = as_representation(M, B)
+        if order is None and B.natural_order:
+            from hwcat.theory.check import as_order
+
+            order = as_order(B, B.natural_order)
+            notes.append("order: the family's natural order")
         if order is None:
             from hwcat.theory.search import quasi_hereditary_orders
 
@@ -319,7 +324,10 @@ def analyse_module(
         ident: list[tuple[str, str]] = []
         if R is not None:
             X = _sub_representation(R, data, S.basis)
-            if S.dimension != sum(d * m for d, m in zip(X.dims, B.morita, strict=True)):
+            # a representation of the basic algebra counts each vertex once; a module of
+            # the original algebra counts M e_s with the multiplicity dim L(s)
+            weights = (1,) * B.n if M.representation is not None else B.morita
+            if S.dimension != sum(d * m for d, m in zip(X.dims, weights, strict=True)):
                 raise InternalInconsistency("a summand's vertex spaces do not account for it")
             cf = {B.vertices[s]: X.dims[s] for s in range(B.n) if X.dims[s]}
             rl = tuple(X.radical_layers())

@@ -718,6 +718,8 @@ class Reduction:
         import dataclasses
 
         B = self.basic.with_vertex_names(names, natural_order=natural_order)
+        if self.basic.is_cached(ARROW_TERMS):  # the arrows do not change with the names
+            B.cached(ARROW_TERMS, lambda: self.basic.cached(ARROW_TERMS, tuple))
         red = dataclasses.replace(self, basic=B)
         _REDUCTIONS[B] = red
         return red
@@ -884,7 +886,7 @@ def _assemble(A: StructureAlgebra, classes: list[_Class], name: str) -> BasicAlg
         terms.append(
             (a.source, a.target, tuple((ls[k], c) for k, c in enumerate(co.entries()) if c))
         )
-    B._cache[ARROW_TERMS] = tuple(terms)
+    B.cached(ARROW_TERMS, lambda: tuple(terms))
     return B
 
 
