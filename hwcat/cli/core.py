@@ -5,17 +5,16 @@ from __future__ import annotations
 
 import argparse
 import sys
-from collections.abc import Sequence
 
 from hwcat.cli import positive_int
 from hwcat.cli.common import (
     add_algebra_source,
     load_algebra,
     order_argument,
+    parse_assignments,
     with_order_context,
     write_text,
 )
-from hwcat.errors import SpecError
 
 # the mathematics (and python-flint) is imported inside the commands, so that
 # the parser and ``--help`` start quickly
@@ -44,16 +43,6 @@ def _cmd_describe(args: argparse.Namespace) -> int:
 def _budget(args: argparse.Namespace) -> dict:
     """The work budget of the homological part, from the command line."""
     return {"bound": args.homological_bound, "max_syzygy_dimension": args.max_syzygy_dimension}
-
-
-def _positive(text: str) -> int:
-    try:
-        value = int(text)
-    except ValueError:
-        raise argparse.ArgumentTypeError(f"{text!r} is not an integer") from None
-    if value < 1:
-        raise argparse.ArgumentTypeError(f"{text!r}: expected an integer >= 1")
-    return value
 
 
 def _cmd_check(args: argparse.Namespace) -> int:
@@ -112,16 +101,6 @@ def _cmd_presentation(args: argparse.Namespace) -> int:
     return 0
 
 
-def _parse_assignments(items: Sequence[str]) -> dict[str, str]:
-    out = {}
-    for it in items:
-        if "=" not in it:
-            raise SpecError(f"family parameter {it!r}: expected key=value, e.g. n=4")
-        k, v = it.split("=", 1)
-        out[k.strip()] = v.strip()
-    return out
-
-
 def _cmd_family(args: argparse.Namespace) -> int:
     from hwcat.algebras.families.registry import FAMILIES, family_algebra
     from hwcat.algebras.reduction.presentation import presentation_toml
@@ -132,7 +111,7 @@ def _cmd_family(args: argparse.Namespace) -> int:
         for f in FAMILIES.values():
             print(f"{f.usage()}\n    {f.summary}\n    source: {f.source}")
         return 0
-    params = _parse_assignments(args.params)
+    params = parse_assignments(args.params)
     A = family_algebra(args.name, seed=args.seed, **params)
     if args.write_quiver:
         text = presentation_toml(A, name=A.name or args.name)
@@ -211,7 +190,7 @@ def register(sub: argparse._SubParsersAction) -> None:
     )
     c.add_argument(
         "--max-syzygy-dimension",
-        type=_positive,
+        type=positive_int,
         default=None,
         metavar="N",
         help="work budget: build no syzygy or projective term larger than N "
@@ -219,7 +198,7 @@ def register(sub: argparse._SubParsersAction) -> None:
     )
     c.add_argument(
         "--homological-bound",
-        type=_positive,
+        type=positive_int,
         default=None,
         metavar="K",
         help="work budget: resolve at most K + 1 steps for projective dimensions "

@@ -7,6 +7,7 @@ import json
 import sys
 from pathlib import Path
 
+from hwcat.cli.common import parse_assignments
 from hwcat.errors import HwcatError, ModuleFileError, OrderError, SpecError
 
 __all__ = ["register"]
@@ -14,16 +15,6 @@ __all__ = ["register"]
 SIMPLES_LIMIT = 64
 """Largest spin chain (dimension) for which the algebra it generates is built to find
 the simples; beyond it only the generators are used."""
-
-
-def _params(items) -> dict[str, str]:
-    out = {}
-    for it in items:
-        if "=" not in it:
-            raise SpecError(f"family parameter {it!r}: expected key=value, e.g. n=4")
-        k, v = it.split("=", 1)
-        out[k.strip()] = v.strip()
-    return out
 
 
 def _family_module(args):
@@ -37,7 +28,7 @@ def _family_module(args):
         raise ModuleFileError(
             f"--module {args.module!r}: the temperley-lieb family offers spin-chain"
         )
-    p = _params(args.target)
+    p = parse_assignments(args.target)
     unknown = sorted(set(p) - {"n", "delta", "field"})
     if unknown:
         raise SpecError(f"family parameter {unknown[0]!r}: temperley-lieb takes n, delta, field")
