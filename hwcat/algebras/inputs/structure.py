@@ -69,6 +69,7 @@ __all__ = [
     "EXACT_ASSOCIATIVITY_LIMIT",
     "parse_combination",
     "signed_terms",
+    "coefficient_terms",
 ]
 
 EXACT_ASSOCIATIVITY_LIMIT = 40
@@ -344,16 +345,7 @@ class StructureAlgebra:
 
     def _times_basis_raw(self, x: list[Any], j: int) -> list[Any]:
         """``x * b_j`` for a raw vector ``x``."""
-        out = [self._zero_raw()] * self.dim
-        is_, ks, cs = self._cols[j]
-        for i, k, c in zip(is_, ks, cs, strict=True):
-            xi = x[i]
-            if xi:
-                out[k] += xi * c
-        if self._p:
-            p = self._p
-            return [v % p for v in out]
-        return out
+        return self._accumulate(x, self._cols[j])
 
     def _vectorised(self) -> bool:
         return (
@@ -988,12 +980,16 @@ class StructureAlgebra:
 
     def _basis_times_raw(self, j: int, x: list[Any]) -> list[Any]:
         """``b_j * x`` for a raw vector ``x``."""
+        return self._accumulate(x, self._row_terms()[j])
+
+    def _accumulate(self, x: list[Any], terms) -> list[Any]:
+        """``sum x[i] * c * b_k`` over the terms ``(i, k, c)`` of one basis element."""
         out = [self._zero_raw()] * self.dim
-        ms, ks, cs = self._row_terms()[j]
-        for m, k, c in zip(ms, ks, cs, strict=True):
-            xm = x[m]
-            if xm:
-                out[k] += xm * c
+        is_, ks, cs = terms
+        for i, k, c in zip(is_, ks, cs, strict=True):
+            xi = x[i]
+            if xi:
+                out[k] += xi * c
         if self._p:
             p = self._p
             return [v % p for v in out]
@@ -1169,17 +1165,7 @@ def parse_combination(
     if text.strip() == "0":
         return [field.zero] * n
     out = [field.zero] * n
-    terms = signed_terms(text)
-    if not terms:
-        raise StructureConstantsError(f"{text!r} is empty")
-    for sign, term in terms:
-        factors = split_factors(term)
-        if any(f == "" for f in factors):
-            raise StructureConstantsError(f"{text!r}: term {term!r} is malformed")
-        try:
-            coef, factors = coefficient_prefix(field, factors, index)
-        except CoefficientError as exc:
-            raise CoefficientError(f"{text!r}: {exc}") from None
+    for coef, factors, term in coefficient_terms(text, field, index):
         if not factors:
             raise StructureConstantsError(
                 f"{text!r}: term {term!r} is a bare number; write it times a basis element "
@@ -1194,6 +1180,27 @@ def parse_combination(
             if A is None:
                 raise StructureConstantsError(f"{text!r}: products are not allowed here")
             vec = A.product(vec, A.basis_vector(index[f]))
-        c = coef if sign > 0 else -coef
-        out = [a + c * b for a, b in zip(out, vec, strict=True)]
+        out = [a + coef * b for a, b in zip(out, vec, strict=True)]
+    return out
+
+
+def coefficient_terms(text: str, field: Field, names) -> list[tuple[Any, list[str], str]]:
+    """The terms of ``"2*x*y - 1/3*z"`` as ``(signed coefficient, factor names, term)``.
+
+    ``names`` (a mapping or set) tells a name from a coefficient.  Empty text, a
+    dangling sign, an empty factor or a coefficient outside the field is a user error.
+    """
+    terms = signed_terms(text)
+    if not terms:
+        raise StructureConstantsError(f"{text!r} is empty")
+    out = []
+    for sign, term in terms:
+        factors = split_factors(term)
+        if any(f == "" for f in factors):
+            raise StructureConstantsError(f"{text!r}: term {term!r} is malformed")
+        try:
+            coef, factors = coefficient_prefix(field, factors, names)
+        except CoefficientError as exc:
+            raise CoefficientError(f"{text!r}: {exc}") from None
+        out.append((coef if sign > 0 else -coef, factors, term))
     return out

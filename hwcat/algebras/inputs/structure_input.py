@@ -25,9 +25,12 @@ from collections.abc import Mapping, Sequence
 from typing import Any
 
 from hwcat.algebras.hub.basic import BasicAlgebra
-from hwcat.algebras.inputs.structure import StructureAlgebra, parse_combination, signed_terms
+from hwcat.algebras.inputs.structure import (
+    StructureAlgebra,
+    coefficient_terms,
+    parse_combination,
+)
 from hwcat.errors import (
-    CoefficientError,
     HwcatError,
     InternalInconsistency,
     StructureConstantsError,
@@ -35,9 +38,7 @@ from hwcat.errors import (
 from hwcat.exact import (
     Field,
     Mat,
-    coefficient_prefix,
     select_independent_rows,
-    split_factors,
 )
 from hwcat.exact.polys import select_columns
 from hwcat.limits import check_dimension, check_products
@@ -310,17 +311,7 @@ def matrix_expression(text: str, field: Field, generators: Mapping[str, Mat]) ->
         raise StructureConstantsError(f'{text!r} is not a string such as "E*K - 1"')
     N = next(iter(generators.values())).nrows
     out = Mat.zeros(field, N, N)
-    terms = signed_terms(text)
-    if not terms:
-        raise StructureConstantsError(f"{text!r} is empty")
-    for sign, term in terms:
-        factors = split_factors(term)
-        if any(f == "" for f in factors):
-            raise StructureConstantsError(f"{text!r}: term {term!r} is malformed")
-        try:
-            coef, factors = coefficient_prefix(field, factors, generators)
-        except CoefficientError as exc:
-            raise CoefficientError(f"{text!r}: {exc}") from None
+    for coef, factors, _ in coefficient_terms(text, field, generators):
         M = Mat.identity(field, N)
         for f in factors:
             if f == "1":
@@ -328,5 +319,5 @@ def matrix_expression(text: str, field: Field, generators: Mapping[str, Mat]) ->
             if f not in generators:
                 raise StructureConstantsError(f"{text!r}: {f!r} is not a generator")
             M = M @ generators[f]
-        out = out + M.scale(coef if sign > 0 else -coef)
+        out = out + M.scale(coef)
     return out
