@@ -58,7 +58,7 @@ def render_module_report(r: ModuleReport) -> str:
         lines.append(f"  Jordan type of {e} on M: {_blocks(blocks)}")
     if "centre" in d:
         c = d["centre"]
-        lines.append(f"  centre Z(A): dimension {c['dimension']}")
+        lines.append(f"  centre Z(A): dimension {c['dimension']}; basis in {c['terms']}")
         for b in c["basis"]:
             lines.append(f"    {b}")
         for x in c["non_semisimple_on_summands"]:

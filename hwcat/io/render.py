@@ -123,7 +123,10 @@ def render_structure(r) -> str:
     lines.append("Indecomposable injectives I(i) = D(A e_i):")
     lines.extend(_module_lines(v, r.injectives))
     if getattr(r, "centre_dimension", None) is not None:
-        lines.append(f"Centre Z(A): dimension {r.centre_dimension}")
+        terms = getattr(r, "centre_terms", "")
+        lines.append(
+            f"Centre Z(A): dimension {r.centre_dimension}" + (f"; basis in {terms}" if terms else "")
+        )
         lines.extend(f"  {b}" for b in r.centre_basis)
     return "\n".join(lines)
 

@@ -24,10 +24,18 @@ Examples
 from __future__ import annotations
 
 from collections.abc import Callable, Mapping, Sequence
-from typing import Any
+from typing import TYPE_CHECKING, Any
 
 from hwcat.algebras.inputs.structure_input import matrix_expression
-from hwcat.errors import FieldError, ModuleFileError, StructureConstantsError
+
+if TYPE_CHECKING:
+    from hwcat.algebras.families.coproducts import Coproduct
+from hwcat.errors import (
+    FieldError,
+    InternalInconsistency,
+    ModuleFileError,
+    StructureConstantsError,
+)
 from hwcat.exact import Field, Mat, echelon
 from hwcat.modules.module import Module
 
@@ -56,6 +64,10 @@ class ActionModule:
     sparse : mapping, optional
         The nonzero entries ``{(i, j): value}`` of some generators, when known
         (spares a pass over every entry of large matrices).
+    combination_action : callable, optional
+        ``[x, ...] -> [Mat, ...]``: the action of combinations of basis elements
+        at once (e.g. :meth:`~hwcat.modules.basis_action.BasisAction.act`); by
+        default the sum of ``basis_action``.
     """
 
     def __init__(
@@ -69,6 +81,7 @@ class ActionModule:
         basis_action: Callable[[int], Mat] | None = None,
         representation: Module | None = None,
         sparse: Mapping[str, Mapping[tuple[int, int], Any]] | None = None,
+        combination_action: Callable[[Sequence[Sequence[Any]]], list[Mat]] | None = None,
     ) -> None:
         self.field = field
         self.dim = int(dim)
@@ -78,6 +91,7 @@ class ActionModule:
         self.basis_action = basis_action
         self.representation = representation
         self.sparse = dict(sparse) if sparse else {}
+        self.combination_action = combination_action
         self._memo: dict[Any, Any] = {}
         for g, G in list(self.generators.items()) + list(self.letters.items()):
             if G.field is not field:
@@ -141,6 +155,22 @@ class ActionModule:
         else:
             letters = self.letters
         return matrix_expression(text, self.field, letters)
+
+    def act(self, xs: Sequence[Sequence[Any]]) -> list[Mat]:
+        """The matrices of combinations ``xs`` of the basis of the acting algebra (needs
+        ``combination_action`` or ``basis_action``)."""
+        if self.combination_action is not None:
+            return self.combination_action(xs)
+        if self.basis_action is None:
+            raise InternalInconsistency(f"{self.name or 'a module'}: no action of the algebra's basis")
+        out = []
+        for x in xs:
+            X = Mat.zeros(self.field, self.dim, self.dim)
+            for i, c in enumerate(x):
+                if c != 0:
+                    X = X + self.basis_action(i).scale(c)
+            out.append(X)
+        return out
 
     def restrict_matrix(self, basis: Mat, pivots: Sequence[int], X: Mat) -> Mat:
         """``X`` restricted to the invariant subspace with reduced echelon ``basis``."""
@@ -233,21 +263,92 @@ def kronecker(A: Mat, B: Mat) -> Mat:
     return Mat.from_flat(F, ra * rb, ca * cb, flat)
 
 
-def tensor_product(M: ActionModule, N: ActionModule, *, coproduct: str = "group") -> ActionModule:
-    """``M (x) N`` for a group algebra: each generator ``g`` acts by ``g (x) g``.
+def tensor_product(
+    M: ActionModule, N: ActionModule, *, coproduct: str | Coproduct = "group"
+) -> ActionModule:
+    """``M (x) N`` through a coproduct given on generators.
 
-    The generators of both modules must be the same group elements (the same
-    names).  Only the group-like coproduct ``g -> g (x) g`` is offered.
+    ``coproduct`` is ``"group"`` (each generator ``g`` acts by ``g (x) g``; the
+    generators of both modules must be the same group elements), ``"quantum-sl2"``
+    (the small quantum group on ``E, F, K``, see
+    :mod:`hwcat.algebras.families.coproducts`) or a
+    :class:`~hwcat.algebras.families.coproducts.Coproduct`.  A generator ``x``
+    with ``Delta(x) = sum c * u (x) v`` acts by ``sum c * kron(u on M, v on N)``;
+    the words ``u``, ``v`` are evaluated with each module's letters (``x^-1``: the
+    inverse matrix).
+
+    >>> from hwcat.exact import GF
+    >>> q = GF(5)(2)                       # order 4: the restricted form, p = 2
+    >>> X = ActionModule.from_matrices("GF(5)", {"E": [[0, 1], [0, 0]],
+    ...     "F": [[0, 0], [1, 0]], "K": [[2, 0], [0, 3]]})
+    >>> T = tensor_product(X, X, coproduct="quantum-sl2")
+    >>> T.dim, sorted(T.generators)
+    (4, ['E', 'F', 'K'])
     """
-    if coproduct != "group":
-        raise StructureConstantsError(
-            f"coproduct {coproduct!r}: only 'group' (g -> g (x) g) is known"
-        )
+    from hwcat.algebras.families.coproducts import (
+        Coproduct,
+        group_coproduct,
+        quantum_sl2_coproduct,
+    )
+
     if M.field is not N.field:
         raise StructureConstantsError(f"tensor product of modules over {M.field} and {N.field}")
-    if set(M.generators) != set(N.generators):
-        raise StructureConstantsError(
-            f"tensor product: generators {sorted(M.generators)} and {sorted(N.generators)} differ"
-        )
-    gens = {g: kronecker(M.generators[g], N.generators[g]) for g in M.generators}
-    return ActionModule(M.field, M.dim * N.dim, gens, name=f"{M.name or 'M'} (x) {N.name or 'N'}")
+    if isinstance(coproduct, str):
+        if coproduct == "group":
+            coproduct = group_coproduct()
+        elif coproduct == "quantum-sl2":
+            coproduct = quantum_sl2_coproduct()
+        else:
+            raise StructureConstantsError(
+                f"coproduct {coproduct!r}: 'group' (g -> g (x) g) or 'quantum-sl2' are known"
+            )
+    if not isinstance(coproduct, Coproduct):
+        raise StructureConstantsError(f"coproduct {coproduct!r}: not a Coproduct")
+    if coproduct.kind == "group":
+        if set(M.generators) != set(N.generators):
+            raise StructureConstantsError(
+                f"tensor product: generators {sorted(M.generators)} and "
+                f"{sorted(N.generators)} differ"
+            )
+        names = list(M.generators)
+    else:
+        names = list(coproduct.terms)
+        for X in (M, N):
+            missing = [x for x in names if x not in X.letters]
+            if missing:
+                raise StructureConstantsError(
+                    f"tensor product: {X.name or 'a module'} has no action of {missing[0]!r} "
+                    f"(needed: {', '.join(names)})"
+                )
+    F = M.field
+    gens: dict[str, Mat] = {}
+    for x in names:
+        acc = None
+        for c, u, v in coproduct.generator_terms(x):
+            term = kronecker(_word(M, u), _word(N, v))
+            if F(c) != F.one:
+                term = term.scale(F(c))
+            acc = term if acc is None else acc + term
+        gens[x] = acc  # type: ignore[assignment]
+    return ActionModule(F, M.dim * N.dim, gens, name=f"{M.name or 'M'} (x) {N.name or 'N'}")
+
+
+def _word(X: ActionModule, word: str) -> Mat:
+    """The matrix of a word ``"u*v*w^-1"`` in the letters of ``X`` (``"1"`` the identity;
+    a factor ``x^-1`` is the inverse matrix of ``x``)."""
+    out = Mat.identity(X.field, X.dim)
+    for f in word.split("*"):
+        f = f.strip()
+        if f == "1":
+            continue
+        inverse = f.endswith("^-1")
+        name = f[:-3] if inverse else f
+        if name not in X.letters:
+            raise StructureConstantsError(f"tensor product: {name!r} does not act on the module")
+        G = X.letters[name]
+        if inverse:
+            if G.rank() < X.dim:
+                raise StructureConstantsError(f"tensor product: {name!r} does not act invertibly")
+            G = G.inverse()
+        out = out @ G
+    return out

@@ -34,25 +34,31 @@ from hwcat.algebras.hub.basic import BasicAlgebra
 from hwcat.algebras.inputs.structure import StructureAlgebra
 from hwcat.exact import Mat, echelon
 
-__all__ = ["Centre", "centre", "algebra_centre"]
+__all__ = ["Centre", "centre", "algebra_centre", "PATH_TERMS", "USER_TERMS_LIMIT"]
 
 _RANDOM_ROUNDS = 3
 
 
 @dataclass(frozen=True)
 class Centre:
-    """A basis of ``Z(A)``: coordinates in the basis of ``algebra`` and their texts."""
+    """A basis of ``Z(A)``: coordinates in the basis of ``algebra``, their texts, and
+    what the texts are written in (``terms``)."""
 
     algebra: StructureAlgebra = field(repr=False)
     basis: tuple[tuple[Any, ...], ...] = field(repr=False)
     texts: tuple[str, ...]
+    terms: str = "basis names"
 
     @property
     def dimension(self) -> int:
         return len(self.basis)
 
     def to_dict(self) -> dict[str, Any]:
-        return {"centre_dimension": self.dimension, "centre_basis": list(self.texts)}
+        return {
+            "centre_dimension": self.dimension,
+            "centre_basis": list(self.texts),
+            "centre_terms": self.terms,
+        }
 
 
 def _commutator_matrix(A: StructureAlgebra, y: list[Any]) -> Mat:
@@ -110,15 +116,26 @@ def algebra_centre(B: BasicAlgebra, *, seed: int = 0) -> Centre:
     def compute() -> Centre:
         r = reduction_of(B)
         if r is not None and r.algebra.dim <= USER_TERMS_LIMIT:
-            return centre(r.algebra, seed=seed)
+            Z = centre(r.algebra, seed=seed)
+            return Centre(Z.algebra, Z.basis, Z.texts, OWN_TERMS)
         # Z is a Morita invariant: the basic algebra gives the same dimension
         A = from_basic_algebra(B)
         # the trivial paths and the arrows generate the path basis
         gens = [j for j, name in enumerate(A.basis) if "*" not in name]
-        return centre(A, seed=seed, generators=gens)
+        Z = centre(A, seed=seed, generators=gens)
+        if r is None:
+            return Centre(Z.algebra, Z.basis, Z.texts, PATH_TERMS)
+        large = (
+            f"{PATH_TERMS}, not in the input algebra's own terms: it has dimension "
+            f"{r.algebra.dim} > {USER_TERMS_LIMIT} (Z(A) and Z(eAe) are isomorphic)"
+        )
+        return Centre(Z.algebra, Z.basis, Z.texts, large)
 
     return B.cached(("centre", seed), compute)
 
+
+PATH_TERMS = "paths of the basic algebra"
+OWN_TERMS = "the input algebra's own terms (basis names or words in the generators)"
 
 USER_TERMS_LIMIT = 400
 """Largest dimension of a reduced input algebra whose centre is computed in its own

@@ -28,74 +28,73 @@ from hwcat.exact import Mat, echelon
 from hwcat.exact.polys import minpoly, select_columns
 from hwcat.modules import Module, injective, projective
 from hwcat.modules.action import ActionModule
-from hwcat.theory.centre import Centre, algebra_centre, centre
+from hwcat.theory.centre import PATH_TERMS, Centre, algebra_centre, centre
 from hwcat.theory.decompose import DEFAULT_SEED, JordanBlock, decompose, jordan_type
 from hwcat.theory.orders import PartialOrder
 
-__all__ = ["SummandReport", "ModuleReport", "analyse_module", "as_representation", "restrict"]
+__all__ = ["Layers", "SummandReport", "ModuleReport", "analyse_module", "as_representation", "restrict"]
 
 
 # -- moving a module to the basic algebra -----------------------------------------------------------
 
 
-def _vertex_data(M: ActionModule, B: BasicAlgebra) -> list[tuple[Mat, Mat]]:
-    """Per vertex ``s``: ``(W_s, P_s)`` with ``W_s`` a basis of ``M e_s`` (rows) and ``P_s``
-    (``dim M x dim M e_s``) giving the coordinates of ``v e_s``: ``v @ P_s``."""
+def _arrow_elements(B: BasicAlgebra) -> list[tuple[int, int, list[Any]]]:
+    """Per arrow ``u -> t`` of ``B``: the element ``e_u x e_t`` of the input algebra."""
     from hwcat.algebras.reduction.reduction import ARROW_TERMS, reduction_of
 
-    F = M.field
-    if M.representation is not None:
-        out, o = [], 0
-        for d in M.representation.dims:
-            W = Mat.unit_rows(F, M.dim, list(range(o, o + d)))
-            out.append((W, W.transpose()))
-            o += d
-        return out
-    red = reduction_of(B)
-    if red is None or M.basis_action is None or not B.is_cached(ARROW_TERMS):
-        raise InternalInconsistency("no way to move this module to the basic algebra")
-    out = []
-    for e in red.idempotents:
-        E = _act(M, e)
-        if not (E @ E == E):
-            raise InternalInconsistency("a primitive idempotent does not act idempotently")
-        W = echelon(E)
-        piv = list(W.echelon_pivots()) if W.nrows else []
-        out.append((W, select_columns(E, piv) if piv else Mat.zeros(F, M.dim, 0)))
-    return out
-
-
-def _act(M: ActionModule, x: Sequence[Any]) -> Mat:
-    out = Mat.zeros(M.field, M.dim, M.dim)
-    for l, c in enumerate(x):
-        if c != 0:
-            out = out + M.basis_action(l).scale(c)  # type: ignore[misc]
-    return out
-
-
-def as_representation(M: ActionModule, B: BasicAlgebra) -> tuple[Module, list[tuple[Mat, Mat]]]:
-    """``M`` as a quiver representation of ``B``, with the vertex data of :func:`_vertex_data`."""
-    from hwcat.algebras.reduction.reduction import ARROW_TERMS, reduction_of
-
-    data = _vertex_data(M, B)
-    if M.representation is not None:
-        return M.representation, data
     red = reduction_of(B)
     A = red.algebra
-    dims = [W.nrows for W, _ in data]
-    if sum(d * m for d, m in zip(dims, B.morita, strict=True)) != M.dim:
-        raise InternalInconsistency("the vertex spaces M e_s do not account for dim M")
-    maps = []
+    out = []
     for u, t, terms in B.cached(ARROW_TERMS, list):
         eu, et = list(red.idempotents[u]), list(red.idempotents[t])
         x = [A.field.zero] * A.dim
         for l, c in terms:
             y = A.product(A.product(eu, A.basis_vector(l)), et)
             x = [a + c * b for a, b in zip(x, y, strict=True)]
+        out.append((u, t, x))
+    return out
+
+
+def as_representation(M: ActionModule, B: BasicAlgebra) -> tuple[Module, list[tuple[Mat, Mat]]]:
+    """``M`` as a quiver representation of ``B``, with per vertex ``s`` the pair
+    ``(W_s, P_s)``: ``W_s`` a basis of ``M e_s`` (rows) and ``P_s`` (``dim M x dim M e_s``)
+    giving the coordinates of ``v e_s`` as ``v @ P_s``.
+
+    The primitive idempotents and the arrows (elements of the input algebra) act
+    on ``M`` through ``M.act``, all in one call."""
+    from hwcat.algebras.reduction.reduction import ARROW_TERMS, reduction_of
+
+    F = M.field
+    if M.representation is not None:
+        data, o = [], 0
+        for d in M.representation.dims:
+            W = Mat.unit_rows(F, M.dim, list(range(o, o + d)))
+            data.append((W, W.transpose()))
+            o += d
+        return M.representation, data
+    red = reduction_of(B)
+    if red is None or (M.basis_action is None and M.combination_action is None):
+        raise InternalInconsistency("no way to move this module to the basic algebra")
+    if not B.is_cached(ARROW_TERMS):
+        raise InternalInconsistency("the reduction kept no arrow terms")
+    arrows = _arrow_elements(B)
+    acts = M.act([list(e) for e in red.idempotents] + [x for _, _, x in arrows])
+    data = []
+    for E in acts[: B.n]:
+        if not (E @ E == E):
+            raise InternalInconsistency("a primitive idempotent does not act idempotently")
+        W = echelon(E)
+        piv = list(W.echelon_pivots()) if W.nrows else []
+        data.append((W, select_columns(E, piv) if piv else Mat.zeros(F, M.dim, 0)))
+    dims = [W.nrows for W, _ in data]
+    if sum(d * m for d, m in zip(dims, B.morita, strict=True)) != M.dim:
+        raise InternalInconsistency("the vertex spaces M e_s do not account for dim M")
+    maps = []
+    for (u, t, _), X in zip(arrows, acts[B.n :], strict=True):
         if dims[u] and dims[t]:
-            maps.append(data[u][0] @ _act(M, x) @ data[t][1])
+            maps.append(data[u][0] @ X @ data[t][1])
         else:
-            maps.append(Mat.zeros(M.field, dims[u], dims[t]))
+            maps.append(Mat.zeros(F, dims[u], dims[t]))
     return Module(B, dims, maps, M.name), data
 
 
@@ -118,24 +117,48 @@ def _blocks_dict(F, blocks: Sequence[JordanBlock]) -> list[dict[str, Any]]:
 
 
 @dataclass(frozen=True)
+class Layers:
+    """Composition factors and radical/socle layers of a representation of ``B``
+    (the part of the report shared by the whole module and each summand)."""
+
+    composition_factors: dict[str, int]
+    radical_layers: tuple[tuple[int, ...], ...]
+    socle_layers: tuple[tuple[int, ...], ...]
+
+    @classmethod
+    def of(cls, X: Module) -> Layers:
+        B = X.algebra
+        return cls(
+            {B.vertices[s]: X.dims[s] for s in range(B.n) if X.dims[s]},
+            tuple(X.radical_layers()),
+            tuple(X.socle_layers()),
+        )
+
+    @property
+    def loewy_length(self) -> int:
+        return len(self.radical_layers)
+
+    def to_dict(self) -> dict[str, Any]:
+        return {
+            "composition_factors": dict(self.composition_factors),
+            "radical_layers": [list(x) for x in self.radical_layers],
+            "socle_layers": [list(x) for x in self.socle_layers],
+            "loewy_length": self.loewy_length,
+        }
+
+
+@dataclass(frozen=True)
 class SummandReport:
-    """One indecomposable summand."""
+    """One indecomposable summand (``layers`` is ``None`` without the simples)."""
 
     index: int
     dimension: int
     isomorphism_class: int
     endomorphism_dimension: int
-    composition_factors: dict[str, int] | None
-    radical_layers: tuple[tuple[int, ...], ...] | None
-    socle_layers: tuple[tuple[int, ...], ...] | None
+    layers: Layers | None
     identified_as: tuple[tuple[str, str], ...]  # (name, test)
     jordan_types: dict[str, tuple[JordanBlock, ...]]
-    field_name: str = ""
     _field: Any = field(default=None, repr=False, compare=False)
-
-    @property
-    def loewy_length(self) -> int | None:
-        return None if self.radical_layers is None else len(self.radical_layers)
 
     def to_dict(self) -> dict[str, Any]:
         d: dict[str, Any] = {
@@ -144,11 +167,8 @@ class SummandReport:
             "isomorphism_class": self.isomorphism_class,
             "endomorphism_dimension": self.endomorphism_dimension,
         }
-        if self.composition_factors is not None:
-            d["composition_factors"] = dict(self.composition_factors)
-            d["radical_layers"] = [list(x) for x in self.radical_layers or ()]
-            d["socle_layers"] = [list(x) for x in self.socle_layers or ()]
-            d["loewy_length"] = self.loewy_length
+        if self.layers is not None:
+            d.update(self.layers.to_dict())
         d["identified_as"] = [{"name": n, "test": t} for n, t in self.identified_as]
         d["jordan_types"] = {k: _blocks_dict(self._field, v) for k, v in self.jordan_types.items()}
         return d
@@ -156,15 +176,14 @@ class SummandReport:
 
 @dataclass(frozen=True)
 class ModuleReport:
-    """What ``hwcat module`` prints."""
+    """What ``hwcat module`` prints (``simples`` and ``layers`` are ``None`` without the
+    simples)."""
 
     name: str
     field: str
     dimension: int
     simples: tuple[str, ...] | None
-    composition_factors: dict[str, int] | None
-    radical_layers: tuple[tuple[int, ...], ...] | None
-    socle_layers: tuple[tuple[int, ...], ...] | None
+    layers: Layers | None
     summands: tuple[SummandReport, ...]
     endomorphism_dimension: int
     jordan_types: dict[str, tuple[JordanBlock, ...]]
@@ -173,10 +192,6 @@ class ModuleReport:
     central_non_semisimple: tuple[tuple[str, tuple[int, ...]], ...]
     notes: tuple[str, ...] = ()
     _field: Any = field(default=None, repr=False, compare=False)
-
-    @property
-    def loewy_length(self) -> int | None:
-        return None if self.radical_layers is None else len(self.radical_layers)
 
     def to_dict(self) -> dict[str, Any]:
         d: dict[str, Any] = {
@@ -187,17 +202,15 @@ class ModuleReport:
             "summands": [s.to_dict() for s in self.summands],
             "jordan_types": {k: _blocks_dict(self._field, v) for k, v in self.jordan_types.items()},
         }
-        if self.simples is not None:
+        if self.simples is not None and self.layers is not None:
             d["simples"] = list(self.simples)
-            d["composition_factors"] = dict(self.composition_factors or {})
-            d["radical_layers"] = [list(x) for x in self.radical_layers or ()]
-            d["socle_layers"] = [list(x) for x in self.socle_layers or ()]
-            d["loewy_length"] = self.loewy_length
+            d.update(self.layers.to_dict())
             d["order"] = self.order
         if self.centre is not None:
             d["centre"] = {
                 "dimension": self.centre.dimension,
                 "basis": list(self.centre.texts),
+                "terms": self.centre.terms,
                 "non_semisimple_on_summands": [
                     {"element": e, "summands": list(ix)} for e, ix in self.central_non_semisimple
                 ],
@@ -313,6 +326,7 @@ def analyse_module(
             if not qh:
                 notes.append(f"not quasi-hereditary for {order_text}: no T(i)")
     summ: list[SummandReport] = []
+    pieces: list[Module | None] = []
     restricted: dict[str, list[Mat]] = {}
     for i, S in enumerate(D.summands):
         jt = {}
@@ -320,7 +334,7 @@ def analyse_module(
             Y = S.module.element(text)
             restricted.setdefault(text, []).append(Y)
             jt[text] = tuple(jordan_type(Y))
-        cf = rl = sl = None
+        X = layers = None
         ident: list[tuple[str, str]] = []
         if R is not None:
             X = _sub_representation(R, data, S.basis)
@@ -329,22 +343,18 @@ def analyse_module(
             weights = (1,) * B.n if M.representation is not None else B.morita
             if S.dimension != sum(d * m for d, m in zip(X.dims, weights, strict=True)):
                 raise InternalInconsistency("a summand's vertex spaces do not account for it")
-            cf = {B.vertices[s]: X.dims[s] for s in range(B.n) if X.dims[s]}
-            rl = tuple(X.radical_layers())
-            sl = tuple(X.socle_layers())
+            layers = Layers.of(X)
             ident = _identify(X, order, qh)
+        pieces.append(X)
         summ.append(
             SummandReport(
                 i,
                 S.dimension,
                 S.isomorphism_class,
                 S.endomorphism_dimension,
-                cf,
-                rl,
-                sl,
+                layers,
                 tuple(ident),
                 jt,
-                F.name,
                 F,
             )
         )
@@ -354,39 +364,14 @@ def analyse_module(
         whole[text] = tuple(sorted(blocks, key=lambda b: (b.factor, -b.size)))
     cent = None
     nss: list[tuple[str, tuple[int, ...]]] = []
-    if identify and B is not None:
-        try:
-            if M.representation is not None:
-                from hwcat.algebras.inputs.structure_input import from_basic_algebra
-
-                cent = centre(from_basic_algebra(B))
-            else:
-                cent = algebra_centre(B)
-        except HwcatError as exc:  # pragma: no cover - defensive
-            notes.append(f"centre not computed: {exc}")
-        if cent is not None:
-            for b, text in zip(cent.basis, cent.texts, strict=True):
-                Z = _act(M, b) if M.representation is None else M.element(text)
-                bad = tuple(
-                    S_.index
-                    for S_, S in zip(summ, D.summands, strict=True)
-                    if _non_semisimple(restrict(S.basis, Z))
-                )
-                if bad:
-                    nss.append((text, bad))
-    cf_all = rl_all = sl_all = None
     if R is not None:
-        cf_all = {B.vertices[s]: R.dims[s] for s in range(B.n) if R.dims[s]}
-        rl_all = tuple(R.radical_layers())
-        sl_all = tuple(R.socle_layers())
+        cent, nss = _central_action(M, B, D, pieces, notes)
     return ModuleReport(
         name=M.name,
         field=F.name,
         dimension=M.dim,
         simples=tuple(B.vertices) if R is not None else None,
-        composition_factors=cf_all,
-        radical_layers=rl_all,
-        socle_layers=sl_all,
+        layers=Layers.of(R) if R is not None else None,
         summands=tuple(summ),
         endomorphism_dimension=D.endomorphism_dimension,
         jordan_types=whole,
@@ -396,6 +381,48 @@ def analyse_module(
         notes=tuple(notes),
         _field=F,
     )
+
+
+def _central_action(M: ActionModule, B: BasicAlgebra, D, pieces, notes: list[str]):
+    """The centre and, per central basis element, the summands it acts on non-semisimply.
+
+    A centre in the input algebra's basis acts on ``M`` itself; a centre written in
+    the paths of ``B`` (quiver algebras, and reduced algebras above
+    :data:`~hwcat.theory.centre.USER_TERMS_LIMIT` dimensions) acts on each summand
+    moved to ``B``: under the Morita equivalence ``X -> X e`` a central ``z`` acts on
+    ``X e`` by ``e z e``, and ``X e`` generates ``X``, so ``z`` is semisimple on ``X``
+    iff on ``X e`` (derived)."""
+    from hwcat.algebras.reduction.reduction import reduction_of
+    from hwcat.modules.action import from_representation
+
+    try:
+        if M.representation is not None:
+            from hwcat.algebras.inputs.structure_input import from_basic_algebra
+
+            cent = centre(from_basic_algebra(B))
+            cent = Centre(cent.algebra, cent.basis, cent.texts, PATH_TERMS)
+        else:
+            cent = algebra_centre(B)
+    except HwcatError as exc:  # pragma: no cover - defensive
+        notes.append(f"centre not computed: {exc}")
+        return None, []
+    red = reduction_of(B)
+    own_basis = M.representation is None and red is not None and cent.algebra is red.algebra
+    if own_basis:
+        actions = M.act([list(b) for b in cent.basis])
+    nss = []
+    for k, text in enumerate(cent.texts):
+        bad = []
+        for i, (S, X) in enumerate(zip(D.summands, pieces, strict=True)):
+            if own_basis:
+                Z = restrict(S.basis, actions[k])
+            else:
+                Z = from_representation(X).element(text) if X.dim else None
+            if Z is not None and _non_semisimple(Z):
+                bad.append(i)
+        if bad:
+            nss.append((text, tuple(bad)))
+    return cent, nss
 
 
 def restrict(basis: Mat, X: Mat) -> Mat:

@@ -79,6 +79,7 @@ class StructureReport:
     natural_order: str | None = None
     centre_dimension: int | None = None
     centre_basis: tuple[str, ...] = ()
+    centre_terms: str = ""
 
     def to_dict(self) -> dict[str, Any]:
         return {
@@ -97,6 +98,7 @@ class StructureReport:
             "natural_order": self.natural_order,
             "centre_dimension": self.centre_dimension,
             "centre_basis": list(self.centre_basis),
+            "centre_terms": self.centre_terms,
         }
 
 
@@ -136,4 +138,5 @@ def describe(A: BasicAlgebra) -> StructureReport:
         natural_order=A.natural_order,
         centre_dimension=Z.dimension,
         centre_basis=Z.texts,
+        centre_terms=Z.terms,
     )

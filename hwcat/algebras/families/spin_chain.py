@@ -30,7 +30,12 @@ from hwcat.errors import SpecError
 from hwcat.exact import Field, Mat
 from hwcat.exact.polys import Poly, sparse_matrix
 
-__all__ = ["spin_chain_generators", "spin_chain_entries", "loop_weight_root"]
+__all__ = [
+    "spin_chain_generators",
+    "spin_chain_entries",
+    "loop_weight_root",
+    "generator_diagrams",
+]
 
 
 def spin_chain_generators(n: int, q: Any, field: Field) -> dict[str, Mat]:
@@ -69,6 +74,25 @@ def spin_chain_entries(n: int, q: Any, field: Field) -> dict[str, dict[tuple[int
                 ents[(k, k)] = qi
                 ents[(k, other)] = -F.one
         out[f"e{i}"] = ents
+    return out
+
+
+def generator_diagrams(n: int) -> dict[str, str]:
+    """The names, in the diagram basis of the ``temperley-lieb`` family, of the
+    generators ``e_i`` (pairs ``(i,i+1)`` and ``(i',(i+1)')``, vertical strands elsewhere).
+
+    >>> generator_diagrams(3)["e2"]
+    "(1,1')(2,3)(2',3')"
+    """
+
+    def label(p: int) -> str:
+        return str(p + 1) if p < n else f"{p - n + 1}'"
+
+    out = {}
+    for i in range(1, n):
+        pairs = [(x, n + x) for x in range(n) if x not in (i - 1, i)]
+        pairs += [(i - 1, i), (n + i - 1, n + i)]
+        out[f"e{i}"] = "".join(f"({label(x)},{label(y)})" for x, y in sorted(pairs))
     return out
 
 

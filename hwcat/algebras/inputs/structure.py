@@ -343,6 +343,14 @@ class StructureAlgebra:
             return [v % p for v in out]
         return out
 
+    def column_terms(self, j: int) -> list[tuple[int, int, Any]]:
+        """The nonzero structure constants ``b_i * b_j = ... + c b_k ...`` as ``(i, k, c)``
+        (field elements): right multiplication by ``b_j``."""
+        is_, ks, cs = self._cols[j]
+        F = self.field
+        conv = (lambda c: F(int(c))) if self._p else F
+        return [(i, k, conv(c)) for i, k, c in zip(is_, ks, cs, strict=True)]
+
     def _times_basis_raw(self, x: list[Any], j: int) -> list[Any]:
         """``x * b_j`` for a raw vector ``x``."""
         return self._accumulate(x, self._cols[j])
