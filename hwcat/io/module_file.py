@@ -39,6 +39,8 @@ __all__ = [
     "named_module",
     "spin_chain_module",
     "attach_algebra",
+    "algebra_module",
+    "structure_of",
     "MODULE_NAMES",
 ]
 
@@ -90,24 +92,46 @@ def natural_module(spec: Spec) -> ActionModule:
 
 
 def attach_algebra(M: ActionModule, spec_kind: str, B: BasicAlgebra) -> None:
-    """Let ``M`` act by the basis of the algebra behind ``B`` (for identification)."""
+    """Let ``M`` act by the basis of the algebra behind ``B`` (for identification).
+
+    ``[matrices]`` specs: each basis word is evaluated.  Tables (``[multiplication]``
+    specs and families): the action of the generators that are basis elements is
+    extended to the whole basis by multiplying and checked
+    (:class:`~hwcat.modules.basis_action.BasisAction`); a failure here means ``M``
+    is not a module of that algebra (e.g. a tensor product through a coproduct
+    that does not fit it)."""
     from hwcat.algebras.reduction.reduction import reduction_of
+    from hwcat.modules.basis_action import BasisAction
 
     if M.representation is not None or M.basis_action is not None:
+        return
+    if M.combination_action is not None:
         return
     red = reduction_of(B)
     if red is None:
         return
     A = red.algebra
-    cache: dict[int, Mat] = {}
+    if spec_kind == "matrices":
+        cache: dict[int, Mat] = {}
 
-    def act(i: int) -> Mat:
-        if i not in cache:
-            cache[i] = M.element(A.basis[i])
-        return cache[i]
+        def act(i: int) -> Mat:
+            if i not in cache:
+                cache[i] = M.element(A.basis[i])
+            return cache[i]
 
-    if spec_kind in ("matrices", "family"):
         M.basis_action = act
+        return
+    gens = {g: X for g, X in M.generators.items() if g in A.basis}
+    if not gens:
+        return
+    ext = BasisAction(A, M.dim, gens)
+    bad = ext.failure()
+    if bad is not None:
+        raise ModuleFileError(
+            f"{M.name or 'the module'} is not a module of {A.name or 'the algebra'}: {bad}"
+        )
+    M.basis_action = ext.matrix
+    M.combination_action = ext.act
 
 
 # -- module files ----------------------------------------------------------------------------------
@@ -160,10 +184,11 @@ def read_module_file(path: str, spec: Spec, B: BasicAlgebra | None = None) -> Ac
     if not isinstance(mats, dict):
         raise _err(src, "matrices", "missing: a table of named matrices")
     name = data.get("name", FilePath(path).stem)
-    if spec.kind == "quiver":
+    qspec = _quiver_spec(spec)
+    if qspec is not None:
         if B is None:
             raise ModuleFileError(f"{src}: the quiver algebra is needed")
-        return _quiver_module(src, data, mats, spec, B, str(name))
+        return _quiver_module(src, data, mats, qspec, B, str(name))
     if (
         "dimension" not in data
         or isinstance(data["dimension"], bool)
@@ -175,7 +200,40 @@ def read_module_file(path: str, spec: Spec, B: BasicAlgebra | None = None) -> Ac
     given = {str(k): _matrix(src, f"matrices.{k}", F, v, (n, n)) for k, v in mats.items()}
     if spec.kind == "matrices":
         return _matrices_module(src, given, spec, n, str(name))
-    return _multiplication_module(src, given, spec, n, str(name))
+    return _multiplication_module(src, given, structure_of(spec, B), n, str(name))
+
+
+def _quiver_spec(spec: Spec) -> Spec | None:
+    """``spec`` itself for a ``[quiver]`` spec, the family's quiver spec for a quiver
+    family, else ``None``."""
+    if spec.kind == "quiver":
+        return spec
+    if spec.kind != "family":
+        return None
+    from hwcat.algebras.families.registry import FAMILIES, family_spec
+
+    tab = {k: v for k, v in spec.table.items() if k not in ("name", "seed")}
+    fam = FAMILIES.get(str(spec.table.get("name")))
+    if fam is None or fam.kind != "quiver":
+        return None
+    if "field" in fam.parameters:
+        tab["field"] = spec.field.name
+    q = family_spec(fam.name, **tab)["quiver"]
+    return Spec(spec.source, spec.name, spec.field, spec.order, "quiver", dict(q))
+
+
+def structure_of(spec: Spec, B: BasicAlgebra | None = None):
+    """The structure-constant algebra of a ``[multiplication]`` spec or a table family
+    (for a family: the one ``B`` was reduced from)."""
+    if spec.kind == "family":
+        from hwcat.algebras.reduction.reduction import reduction_of
+
+        red = reduction_of(B) if B is not None else None
+        if red is None:
+            raise ModuleFileError(f"{spec.source}: the family's algebra is needed")
+        return red.algebra
+    A, _, _ = build_structure(spec)
+    return A
 
 
 def _quiver_module(
@@ -273,45 +331,79 @@ def _matrices_module(
     return M
 
 
-def _multiplication_module(
-    src: str, given: dict[str, Mat], spec: Spec, n: int, name: str
-) -> ActionModule:
-    A, _, _ = build_structure(spec)
+def _multiplication_module(src: str, given: dict[str, Mat], A, n: int, name: str) -> ActionModule:
+    """A module of a structure-constant algebra from the matrices of some basis
+    elements that generate it (or of all of them); checked exactly (see
+    :mod:`hwcat.modules.basis_action`)."""
+    from hwcat.modules.basis_action import BasisAction
+
     for k in given:
         if k not in A.basis:
-            raise _err(src, f"matrices.{k}", f"{k!r} is not a basis element of the spec")
-    missing = [b for b in A.basis if b not in given]
-    if missing:
-        raise _err(
-            src,
-            "matrices",
-            f"no matrix for the basis element {missing[0]!r} (every basis element needs one)",
+            raise _err(src, f"matrices.{k}", f"{k!r} is not a basis element of the algebra")
+    try:
+        act = BasisAction(A, n, given)
+    except ModuleFileError as exc:
+        raise _err(src, "matrices", str(exc)) from None
+    bad = act.failure()
+    if bad is not None:
+        raise _err(src, "matrices", bad)
+    M = ActionModule(A.field, n, dict(given), name=name, combination_action=act.act)
+    M.letters = _BasisLetters(A.basis, act)  # after the checks of the constructor
+    M.basis_action = act.matrix
+    return M
+
+
+class _BasisLetters(dict):
+    """Every basis name as a letter, its matrix looked up when used."""
+
+    def __init__(self, names, act) -> None:
+        super().__init__((b, None) for b in names)
+        self._act = act
+        self._index = {b: i for i, b in enumerate(names)}
+
+    def __getitem__(self, key: str) -> Mat:
+        return self._act.matrix(self._index[key])
+
+    def items(self):  # type: ignore[override]
+        return [(k, self[k]) for k in self.keys()]
+
+    def values(self):  # type: ignore[override]
+        return [self[k] for k in self.keys()]
+
+
+def algebra_module(text: str, red) -> ActionModule:
+    """``regular`` or ``P(x)`` (``= e_x A``) as modules of the input algebra of a
+    reduction ``red`` (not of its basic algebra): the factors a tensor product needs."""
+    from hwcat.modules.basis_action import BasisAction
+
+    A = red.algebra
+    t = text.strip()
+    m = _NAMED.match(t)
+    if t == "regular":
+        basis, label = Mat.identity(A.field, A.dim), "regular"
+    elif m and _KINDS.get(m.group(1)) == "P":
+        v = m.group(2)
+        if v not in red.basic.vertices:
+            raise ModuleFileError(
+                f"{text!r}: {v!r} is not a vertex (vertices: {', '.join(red.basic.vertices)})"
+            )
+        e = list(red.idempotents[red.basic.vertices.index(v)])
+        from hwcat.exact import echelon
+
+        basis, label = echelon(A.left_action(e)), f"P({v})"
+    else:
+        raise ModuleFileError(
+            f"{text!r}: a tensor factor must be a module of the algebra itself: "
+            "a module file, regular or P(x)"
         )
-    mats = [given[b] for b in A.basis]
-    F = spec.field
-    unit = Mat.zeros(F, n, n)
-    for c, X in zip(A.unit, mats, strict=True):
-        if c != 0:
-            unit = unit + X.scale(c)
-    if not unit == Mat.identity(F, n):
-        raise _err(
-            src, "matrices", f"the unit {A.element_text(A.unit)} does not act as the identity"
-        )
-    for i in range(A.dim):
-        for j in range(A.dim):
-            c = A.product(A.basis_vector(i), A.basis_vector(j))
-            rhs = Mat.zeros(F, n, n)
-            for k, x in enumerate(c):
-                if x != 0:
-                    rhs = rhs + mats[k].scale(x)
-            if not (mats[i] @ mats[j] == rhs):
-                raise _err(
-                    src,
-                    "matrices",
-                    f"the product {A.basis[i]}*{A.basis[j]} = {A.element_text(c) or '0'} does not hold",
-                )
-    M = ActionModule(F, n, dict(zip(A.basis, mats, strict=True)), name=name)
-    M.basis_action = lambda i: mats[i]
+    whole = ActionModule(
+        A.field, A.dim, {b: A.right_action(A.basis_vector(i)) for i, b in enumerate(A.basis)}
+    )
+    M = whole.submodule(basis, name=label) if basis.nrows < A.dim else whole
+    M.name = label
+    act = BasisAction(A, M.dim, M.generators)
+    M.basis_action = act.matrix
+    M.combination_action = act.act
     return M
 
 

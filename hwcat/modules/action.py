@@ -162,7 +162,9 @@ class ActionModule:
         if self.combination_action is not None:
             return self.combination_action(xs)
         if self.basis_action is None:
-            raise InternalInconsistency(f"{self.name or 'a module'}: no action of the algebra's basis")
+            raise InternalInconsistency(
+                f"{self.name or 'a module'}: no action of the algebra's basis"
+            )
         out = []
         for x in xs:
             X = Mat.zeros(self.field, self.dim, self.dim)
@@ -269,7 +271,8 @@ def tensor_product(
     """``M (x) N`` through a coproduct given on generators.
 
     ``coproduct`` is ``"group"`` (each generator ``g`` acts by ``g (x) g``; the
-    generators of both modules must be the same group elements), ``"quantum-sl2"``
+    generators of one module must be group elements acting on the other too),
+    ``"quantum-sl2"``
     (the small quantum group on ``E, F, K``, see
     :mod:`hwcat.algebras.families.coproducts`) or a
     :class:`~hwcat.algebras.families.coproducts.Coproduct`.  A generator ``x``
@@ -305,12 +308,14 @@ def tensor_product(
     if not isinstance(coproduct, Coproduct):
         raise StructureConstantsError(f"coproduct {coproduct!r}: not a Coproduct")
     if coproduct.kind == "group":
-        if set(M.generators) != set(N.generators):
+        # the shorter list of generators, each acting on both modules
+        small, other = (M, N) if len(M.generators) <= len(N.generators) else (N, M)
+        names = list(small.generators)
+        if any(g not in other.letters for g in names):
             raise StructureConstantsError(
                 f"tensor product: generators {sorted(M.generators)} and "
                 f"{sorted(N.generators)} differ"
             )
-        names = list(M.generators)
     else:
         names = list(coproduct.terms)
         for X in (M, N):

@@ -171,7 +171,9 @@ class BasisAction:
         unknown = sorted({k for v, _ in pending for k in v})
         if not unknown:
             return False
-        V = Mat.from_rows(F, [[v.get(k, F.zero) for k in unknown] for v, _ in pending], len(unknown))
+        V = Mat.from_rows(
+            F, [[v.get(k, F.zero) for k in unknown] for v, _ in pending], len(unknown)
+        )
         _, piv = V.transpose().rref()  # independent rows of V: pivot columns of V^T
         rows = list(piv)
         if not rows:

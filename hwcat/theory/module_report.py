@@ -32,7 +32,14 @@ from hwcat.theory.centre import PATH_TERMS, Centre, algebra_centre, centre
 from hwcat.theory.decompose import DEFAULT_SEED, JordanBlock, decompose, jordan_type
 from hwcat.theory.orders import PartialOrder
 
-__all__ = ["Layers", "SummandReport", "ModuleReport", "analyse_module", "as_representation", "restrict"]
+__all__ = [
+    "Layers",
+    "SummandReport",
+    "ModuleReport",
+    "analyse_module",
+    "as_representation",
+    "restrict",
+]
 
 
 # -- moving a module to the basic algebra -----------------------------------------------------------
