@@ -248,3 +248,92 @@ def test_family_reports_the_centre(capsys, n, field):
     assert main(["family", "symmetric-group", f"n={n}", f"field={field}", "--json"]) == 0
     d = json.loads(capsys.readouterr().out)
     assert d["centre_dimension"] == partitions == len(d["centre_basis"])
+
+
+# -- generating sets, families with the common argument shape, tensor products -----------------
+
+X2 = """name = "X2"
+dimension = 2
+[matrices]
+E = [[0, 1], [0, 0]]
+F = [[0, 0], [1, 0]]
+K = [[2, 0], [0, 3]]
+"""
+
+UQ4 = ["--family", "small-quantum-sl2", "ell=4", "q=2", "field=GF(5)"]
+
+
+def test_generating_set_module_file_for_a_group(tmp_path, capsys):
+    spec = write(tmp_path, "c3.toml", GROUP)
+    # g alone generates C_3: the regular representation from g only (common practice)
+    reg = write(tmp_path, "g.toml", "dimension = 3\n[matrices]\ng = [[0,1,0],[0,0,1],[1,0,0]]\n")
+    d = run_json(capsys, ["module", spec, "--module", reg, "--element", "h - e"])
+    assert [s["dimension"] for s in d["summands"]] == [3]
+    assert d["jordan_types"]["h - e"] == [{"degree": 1, "size": 3, "eigenvalue": 0}]
+    # g must have order 3: a matrix of order 2 breaks the product g*h = e
+    bad = write(tmp_path, "b.toml", "dimension = 2\n[matrices]\ng = [[0,1],[1,0]]\n")
+    err = run_error(capsys, ["module", spec, "--module", bad])
+    assert "b.toml" in err and "matrices" in err and "does not hold" in err
+
+
+def test_generating_set_for_the_small_quantum_group(tmp_path, capsys):
+    f = write(tmp_path, "x2.toml", X2)
+    d = run_json(capsys, ["module", *UQ4, "--module", f, "--element", "F*E"])
+    # the two-dimensional simple of the restricted form at p = 2 is projective (FGST 2006,
+    # from memory): one summand, identified as a projective
+    assert [s["dimension"] for s in d["summands"]] == [2]
+    assert any(i["name"].startswith("P(") for i in d["summands"][0]["identified_as"])
+    # K = diag(2, 2) violates K E = q^2 E K (q = 2): named with the file and the key
+    bad = write(tmp_path, "bad.toml", X2.replace("[[2, 0], [0, 3]]", "[[2, 0], [0, 2]]"))
+    err = run_error(capsys, ["module", *UQ4, "--module", bad])
+    assert "bad.toml" in err and "matrices" in err and "does not hold" in err
+    # E, F alone do not generate (no K): said so, with the file
+    nok = write(tmp_path, "nok.toml", X2.split("K =")[0])
+    err = run_error(capsys, ["module", *UQ4, "--module", nok])
+    assert "nok.toml" in err and "do not generate" in err
+
+
+def test_tensor_product_on_the_command_line(tmp_path, capsys):
+    f = write(tmp_path, "x2.toml", X2)
+    d = run_json(capsys, ["module", *UQ4, "--module", f, "--tensor", f])
+    # X(2) (x) X(2) = P(1) of dimension 2p = 4 at p = 2 (FGST 2006, from memory)
+    assert d["dimension"] == 4
+    assert [s["dimension"] for s in d["summands"]] == [4]
+    assert any(i["name"].startswith("P(") for i in d["summands"][0]["identified_as"])
+    # projective (x) anything is projective (from memory): P(x) (x) X(2) for every vertex
+    for v in d["simples"]:
+        t = run_json(capsys, ["module", *UQ4, "--module", f"P({v})", "--tensor", f])
+        assert all(
+            any(i["name"].startswith("P(") for i in s["identified_as"]) for s in t["summands"]
+        )
+    # no coproduct for a quiver spec; an unknown factor name
+    spec = write(tmp_path, "q.toml", QUIVER)
+    assert "--tensor" in run_error(capsys, ["module", spec, "--module", "P(1)", "--tensor", "P(1)"])
+    assert "tensor factor" in run_error(capsys, ["module", *UQ4, "--module", f, "--tensor", "I(1)"])
+
+
+def test_group_tensor_on_the_command_line(tmp_path, capsys):
+    # the permutation module of S_3 on 3 points, given by the transpositions (1,2) and
+    # (2,3) only; End of a permutation module has the dimension of the number of orbits
+    # of G on X x X (common practice), and X (x) X through g -> g (x) g is the
+    # permutation module on X x X
+    import itertools
+
+    s3 = ["--family", "symmetric-group", "n=3", "field=GF(5)"]
+    text = (
+        "dimension = 3\n[matrices]\n"
+        '"(1,2)" = [[0, 1, 0], [1, 0, 0], [0, 0, 1]]\n'
+        '"(2,3)" = [[1, 0, 0], [0, 0, 1], [0, 1, 0]]\n'
+    )
+    f = write(tmp_path, "perm.toml", text)
+    one = run_json(capsys, ["module", *s3, "--module", f])
+    assert one["endomorphism_dimension"] == 2
+    two = run_json(capsys, ["module", *s3, "--module", f, "--tensor", f])
+    assert two["dimension"] == 9
+    perms = list(itertools.permutations(range(3)))
+    pts = list(itertools.product(range(3), repeat=2))
+    orbits = {
+        min(((p[a], p[b]), (p[c], p[d])) for p in perms)
+        for (a, b), (c, d) in itertools.product(pts, repeat=2)
+    }
+    assert two["endomorphism_dimension"] == len(orbits)

@@ -7,76 +7,127 @@ import json
 import sys
 from pathlib import Path
 
-from hwcat.cli.common import parse_assignments
+from hwcat.cli.common import add_algebra_source
 from hwcat.errors import HwcatError, ModuleFileError, OrderError, SpecError
 
 __all__ = ["register"]
 
-SIMPLES_LIMIT = 64
-"""Largest spin chain (dimension) for which the algebra it generates is built to find
-the simples; beyond it only the generators are used."""
+
+def _spin_chain(spec, args, identify: bool):
+    """The Temperley-Lieb spin chain of ``--family temperley-lieb n=N delta=D field=F``, and
+    the family's algebra when its summands are to be identified (see
+    :func:`hwcat.io.module_file.spin_chain_identifiable`)."""
+    from hwcat.algebras.families.registry import parse_parameters
+    from hwcat.io.module_file import attach_spin_chain, spin_chain_identifiable, spin_chain_module
+    from hwcat.io.spec import build_algebra
+
+    params = {k: v for k, v in spec.table.items() if k not in ("name", "seed")}
+    p = parse_parameters("temperley-lieb", params)
+    if p["n"] is None:
+        raise SpecError("--family temperley-lieb: parameter n is required")
+    M = spin_chain_module(p["n"], p["delta"], spec.field)
+    B = None
+    if identify:
+        ok, why = spin_chain_identifiable(p["n"])
+        if ok:
+            B = build_algebra(spec)
+            attach_spin_chain(M, p["n"], B)
+        else:
+            print(f"hwcat: note: {why}", file=sys.stderr)
+    return M, B
 
 
-def _family_module(args):
-    from hwcat.io.module_file import spin_chain_module
+def _coproduct(spec, args):
+    from hwcat.algebras.families.coproducts import (
+        family_coproduct,
+        group_coproduct,
+        quantum_sl2_coproduct,
+    )
 
-    if args.family != "temperley-lieb":
+    if args.coproduct == "group":
+        c = group_coproduct()
+    elif args.coproduct == "quantum-sl2":
+        c = quantum_sl2_coproduct()
+    elif spec.kind == "family":
+        c = family_coproduct(str(spec.table.get("name")), spec.table)
+    else:
+        c = None
+    if c is None:
         raise SpecError(
-            f"--family {args.family!r}: only temperley-lieb has a built-in module (spin-chain)"
+            f"--tensor: {spec.source} has no known coproduct (families symmetric-group, "
+            "cyclic-group, small-quantum-sl2; or --coproduct group|quantum-sl2 for a "
+            "[multiplication] spec)"
         )
-    if args.module not in (None, "spin-chain", "spin_chain"):
-        raise ModuleFileError(
-            f"--module {args.module!r}: the temperley-lieb family offers spin-chain"
+    if spec.kind not in ("family", "multiplication"):
+        raise SpecError(
+            f"--tensor: tensor products are for multiplication tables and table families, "
+            f"not [{spec.kind}] specs"
         )
-    p = parse_assignments(args.target)
-    unknown = sorted(set(p) - {"n", "delta", "field"})
-    if unknown:
-        raise SpecError(f"family parameter {unknown[0]!r}: temperley-lieb takes n, delta, field")
+    return c
+
+
+def _tensor_factor(text: str, spec, B):
+    """A module of the input algebra: a module file, ``regular`` or ``P(x)``."""
+    from hwcat.algebras.reduction.reduction import reduction_of
+    from hwcat.io.module_file import algebra_module, read_module_file
+
+    if Path(text).exists():
+        return read_module_file(text, spec, B)
+    red = reduction_of(B)
+    if red is None:
+        raise SpecError(f"--tensor: {spec.source} is not a multiplication table")
     try:
-        n = int(p.get("n", ""))
-    except ValueError:
-        raise SpecError(f"family parameter n={p.get('n')!r}: an integer is needed") from None
-    return spin_chain_module(n, p.get("delta", "0"), p.get("field", "QQ"))
+        return algebra_module(text, red)
+    except ModuleFileError as exc:
+        raise ModuleFileError(f"--tensor/--module: {exc}") from None
 
 
 def _cmd_module(args: argparse.Namespace) -> int:
     from hwcat.io.module_file import attach_algebra, named_module, natural_module, read_module_file
     from hwcat.io.module_render import render_module_report
-    from hwcat.io.spec import build_algebra, read_spec
+    from hwcat.io.spec import build_algebra, family_source, read_spec
+    from hwcat.modules.action import tensor_product
     from hwcat.theory.module_report import analyse_module
     from hwcat.theory.orders import parse_order
 
+    if (args.spec is None) == (args.family is None):
+        raise SpecError("hwcat module: give exactly one of a spec file or --family NAME KEY=VALUE ...")
+    spec = read_spec(args.spec) if args.spec is not None else family_source(args.family)
+    family = str(spec.table.get("name")) if spec.kind == "family" else None
     identify = not args.no_simples
-    B = None
     order = None
-    if args.family:
-        M = _family_module(args)
-        kind = "family"
-        if identify and M.dim > SIMPLES_LIMIT:
-            identify = False
-            print(
-                f"hwcat: note: a chain of dimension {M.dim} > {SIMPLES_LIMIT}: simples, layers and "
-                "identification skipped (they need the algebra the chain generates); "
-                "decomposition, End and Jordan types follow",
-                file=sys.stderr,
-            )
-        if identify:
-            from hwcat.algebras.inputs.structure_input import matrix_algebra
-            from hwcat.algebras.reduction.reduction import reduce_algebra
-
-            A = matrix_algebra(M.field, M.generators, name=M.name)
-            B = reduce_algebra(A).basic
-            attach_algebra(M, "matrices", B)
+    chain = family == "temperley-lieb" and args.module in (None, "spin-chain", "spin_chain")
+    if args.tensor and chain:
+        raise SpecError("--tensor: the Temperley-Lieb family has no coproduct")
+    if chain:
+        M, B = _spin_chain(spec, args, identify)
+        identify = identify and B is not None
     else:
-        if len(args.target) != 1:
-            raise SpecError("hwcat module: give one spec file (or --family NAME key=value ...)")
-        spec = read_spec(args.target[0])
-        kind = spec.kind
-        needs_B = (
-            identify or spec.kind == "quiver" or (args.module and not Path(args.module).exists())
-        )
-        if needs_B:
-            B = build_algebra(spec)
+        if args.module in ("spin-chain", "spin_chain"):
+            raise ModuleFileError(
+                f"--module {args.module!r}: only --family temperley-lieb offers the spin chain"
+            )
+        named = args.module is not None and not Path(args.module).exists()
+        needs_B = identify or spec.kind in ("quiver", "family") or named or bool(args.tensor)
+        B = build_algebra(spec) if needs_B else None
+        if args.tensor:
+            coproduct = _coproduct(spec, args)
+            if args.module is None:
+                raise ModuleFileError("--tensor: give the first factor with --module")
+            M = _tensor_factor(args.module, spec, B)
+            for t in args.tensor:
+                M = tensor_product(M, _tensor_factor(t, spec, B), coproduct=coproduct)
+        elif args.module is None:
+            if spec.kind != "matrices":
+                raise ModuleFileError(
+                    f"{spec.source}: only a [matrices] spec has a natural module "
+                    "(and --family temperley-lieb its spin chain); give --module FILE or a name"
+                )
+            M = natural_module(spec)
+        elif not named:
+            M = read_module_file(args.module, spec, B)
+        else:
+            M = None
         text = args.order or spec.order
         if text and B is not None:
             try:
@@ -84,23 +135,19 @@ def _cmd_module(args: argparse.Namespace) -> int:
             except OrderError as exc:
                 where = "--order" if args.order else f"{spec.source}: order"
                 raise OrderError(f"{where}: {exc}") from None
-        if args.module is None:
-            if spec.kind != "matrices":
-                raise ModuleFileError(
-                    f"{spec.source}: only a [matrices] spec has a natural module; give --module FILE or a name"
-                )
-            M = natural_module(spec)
-        elif Path(args.module).exists():
-            M = read_module_file(args.module, spec, B)
-        else:
-            if order is None and B is not None:
+        if M is None:
+            if order is None and B is not None and not B.natural_order:
                 from hwcat.theory.search import quasi_hereditary_orders
 
                 r = quasi_hereditary_orders(B, list_limit=1)
                 order = r.structure_list[0].essential_order if r.quasi_hereditary else None
+            elif order is None and B is not None:
+                from hwcat.theory.check import as_order
+
+                order = as_order(B, B.natural_order)
             M = named_module(args.module, B, order)
         if B is not None:
-            attach_algebra(M, kind, B)
+            attach_algebra(M, "family" if spec.kind == "family" else spec.kind, B)
     for e in args.element:
         try:
             M.element(e)
@@ -122,19 +169,27 @@ def register(sub: argparse._SubParsersAction) -> None:
         "module",
         help="decompose a module into indecomposables: what each summand is, Jordan types, centre",
     )
-    m.add_argument(
-        "target",
-        nargs="*",
-        help="the algebra spec file (or, with --family, the family's parameters key=value)",
-    )
+    add_algebra_source(m)
     m.add_argument(
         "--module",
         help="a module file (TOML, see specs/FORMAT.md) or a name: P(x), I(x), L(x), "
         "standard(x) or Delta(x), costandard(x) or nabla(x), tilting(x) or T(x), regular; "
-        "with --family temperley-lieb: spin-chain (default: the natural module of a [matrices] spec)",
+        "with --family temperley-lieb: spin-chain (default: the natural module of a "
+        "[matrices] spec, the spin chain of --family temperley-lieb)",
     )
     m.add_argument(
-        "--family", help="a built-in family instead of a spec (temperley-lieb: its spin chain)"
+        "--tensor",
+        action="append",
+        default=[],
+        metavar="FILE_OR_NAME",
+        help="tensor the module (--module: a module file, regular or P(x)) with this one "
+        "through the algebra's coproduct (group algebras: g -> g (x) g; small-quantum-sl2: "
+        "E -> E(x)K + 1(x)E, F -> F(x)1 + K^-1(x)F, K -> K(x)K); repeatable",
+    )
+    m.add_argument(
+        "--coproduct",
+        choices=("group", "quantum-sl2"),
+        help="the coproduct for --tensor on a [multiplication] spec (families know theirs)",
     )
     m.add_argument(
         "--element",

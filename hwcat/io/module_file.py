@@ -38,6 +38,8 @@ __all__ = [
     "read_module_file",
     "named_module",
     "spin_chain_module",
+    "spin_chain_identifiable",
+    "attach_spin_chain",
     "attach_algebra",
     "algebra_module",
     "structure_of",
@@ -466,3 +468,52 @@ def spin_chain_module(n: int, delta: Any, field: Any) -> ActionModule:
     N = 1 << n
     gens = {g: sparse_matrix(F, N, N, e) for g, e in ents.items()}
     return ActionModule(F, N, gens, name=f"spin chain n={n}, q={F.to_str(q)}", sparse=ents)
+
+
+CHAIN_IDENTIFY_LIMIT = 1430
+"""Largest ``dim TL_n = Catalan(n)`` (``n = 8``) for which ``hwcat module`` identifies the
+spin chain's summands by the simples of the family's algebra: the reduction of
+``TL_8`` and one pass over its 1430 diagrams (a product of two ``256 x 256``
+matrices each) take about half a minute; ``TL_9`` (4862 diagrams on a chain of
+dimension 512) would take several minutes."""
+
+_STORE_ENTRIES = 4_000_000
+"""Keep every diagram's matrix when ``dim TL_n * (2^n)^2`` is at most this."""
+
+
+def spin_chain_identifiable(n: int) -> tuple[bool, str]:
+    """Whether the summands of the chain of length ``n`` are identified (and why not)."""
+    import math
+
+    c = math.comb(2 * n, n) // (n + 1)
+    if c <= CHAIN_IDENTIFY_LIMIT:
+        return True, ""
+    return False, (
+        f"a chain of length {n}: TL_{n} has dimension {c} > {CHAIN_IDENTIFY_LIMIT}; simples, "
+        "layers, identification and the centre are skipped (they need the family's "
+        "reduction and every diagram's action); decomposition, End and Jordan types follow"
+    )
+
+
+def attach_spin_chain(M: ActionModule, n: int, B: BasicAlgebra) -> None:
+    """Let the diagram basis of the ``temperley-lieb`` family (the algebra ``B`` was
+    reduced from) act on the spin chain ``M``: each diagram is a product of generators
+    ``e_i`` read off the table (a tree of single products, see
+    :class:`~hwcat.modules.basis_action.BasisAction`)."""
+    from hwcat.algebras.families.spin_chain import generator_diagrams
+    from hwcat.algebras.reduction.reduction import reduction_of
+    from hwcat.modules.basis_action import BasisAction
+
+    red = reduction_of(B)
+    if red is None:
+        raise ModuleFileError("the Temperley-Lieb family's reduction is not at hand")
+    A = red.algebra
+    elements = {
+        g: A.basis_vector(A.basis.index(name)) for g, name in generator_diagrams(n).items()
+    }
+    stored = A.dim * M.dim * M.dim <= _STORE_ENTRIES
+    act = BasisAction(A, M.dim, M.generators, elements=elements, stored=stored)
+    M.combination_action = act.act
+    if stored:
+        M.basis_action = act.matrix
+
