@@ -196,3 +196,25 @@ def test_generating_set_extends_to_the_basis():
         assert act.matrix(i) == A.right_action(A.basis_vector(i))
     with pytest.raises(ModuleFileError, match="do not generate"):
         BasisAction(A, A.dim, {"K": R.generators["K"]})
+
+
+def test_centre_in_paths_acts_on_the_same_summands(monkeypatch):
+    # above USER_TERMS_LIMIT the centre is written in paths of the basic algebra and acts
+    # on the summands moved there; the summands on which some central element acts
+    # non-semisimply do not depend on the basis of Z (commuting semisimple operators have
+    # a semisimple sum over a perfect field: common practice)
+    import hwcat.theory.centre as centre_module
+
+    def run():
+        red = reduced(4, 2, "GF(5)")
+        X = two_dimensional("GF(5)", 2)
+        r = identified(tensor_product(X, X, coproduct="quantum-sl2"), red)
+        return r.centre, {i for _, ix in r.central_non_semisimple for i in ix}
+
+    own, hit_own = run()
+    monkeypatch.setattr(centre_module, "USER_TERMS_LIMIT", 10)
+    paths, hit_paths = run()
+    assert own.dimension == paths.dimension == 5  # 3p - 1 at p = 2 (FGST 2006, memory)
+    assert own.terms.startswith("the input algebra's own terms")
+    assert "16 > 10" in paths.terms and paths.terms.startswith("paths of the basic algebra")
+    assert hit_own == hit_paths == {0}

@@ -337,3 +337,31 @@ def test_group_tensor_on_the_command_line(tmp_path, capsys):
         for (a, b), (c, d) in itertools.product(pts, repeat=2)
     }
     assert two["endomorphism_dimension"] == len(orbits)
+
+
+def test_spin_chain_summands_are_named_by_the_family_simples(capsys):
+    # generic loop weight (q = 2 over GF(10007), delta = 5/2): the chain is semisimple
+    # over TL_6 and the simple with t through strands, of dimension
+    # C(6, (6-t)/2) - C(6, (6-t)/2 - 1), occurs t + 1 times (quantum Schur-Weyl duality,
+    # Jimbo 1986, Martin 1991; from memory); the labels are the family's
+    from math import comb
+
+    d = run_json(
+        capsys, ["module", "--family", "temperley-lieb", "n=6", "delta=5/2", "field=GF(10007)"]
+    )
+    assert sorted(d["simples"]) == ["0", "2", "4", "6"]
+    for t in (0, 2, 4, 6):
+        k = (6 - t) // 2
+        dim = comb(6, k) - (comb(6, k - 1) if k else 0)
+        mine = [s for s in d["summands"] if s["composition_factors"] == {str(t): 1}]
+        assert len(mine) == t + 1 and all(s["dimension"] == dim for s in mine)
+        assert all(any(i["name"] == f"L({t})" for i in s["identified_as"]) for s in mine)
+    assert d["centre"]["terms"].startswith("the input algebra's own terms")
+
+
+def test_spin_chain_identification_limit():
+    from hwcat.io.module_file import spin_chain_identifiable
+
+    assert spin_chain_identifiable(8)[0]  # TL_8: 1430 diagrams
+    ok, why = spin_chain_identifiable(9)
+    assert not ok and "4862" in why
