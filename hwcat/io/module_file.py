@@ -103,7 +103,6 @@ def attach_algebra(M: ActionModule, spec_kind: str, B: BasicAlgebra) -> None:
     is not a module of that algebra (e.g. a tensor product through a coproduct
     that does not fit it)."""
     from hwcat.algebras.reduction.reduction import reduction_of
-    from hwcat.modules.basis_action import BasisAction
 
     if M.representation is not None or M.basis_action is not None:
         return
@@ -123,17 +122,10 @@ def attach_algebra(M: ActionModule, spec_kind: str, B: BasicAlgebra) -> None:
 
         M.basis_action = act
         return
-    gens = {g: X for g, X in M.generators.items() if g in A.basis}
-    if not gens:
-        return
-    ext = BasisAction(A, M.dim, gens)
-    bad = ext.failure()
-    if bad is not None:
-        raise ModuleFileError(
-            f"{M.name or 'the module'} is not a module of {A.name or 'the algebra'}: {bad}"
-        )
-    M.basis_action = ext.matrix
-    M.combination_action = ext.act
+    # tables: the generators' action extended to the whole basis, checked
+    from hwcat.theory.module_report import extend_to_basis
+
+    extend_to_basis(M, B)
 
 
 # -- module files ----------------------------------------------------------------------------------

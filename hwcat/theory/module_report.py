@@ -23,7 +23,7 @@ from dataclasses import dataclass, field
 from typing import Any
 
 from hwcat.algebras.hub.basic import BasicAlgebra
-from hwcat.errors import HwcatError, InternalInconsistency
+from hwcat.errors import HwcatError, InternalInconsistency, ModuleFileError
 from hwcat.exact import Mat, echelon
 from hwcat.exact.polys import minpoly, select_columns
 from hwcat.modules import Module, injective, projective
@@ -43,6 +43,34 @@ __all__ = [
 
 
 # -- moving a module to the basic algebra -----------------------------------------------------------
+
+
+def extend_to_basis(M: ActionModule, B: BasicAlgebra) -> None:
+    """Give ``M`` the action of the whole basis of the algebra ``B`` was reduced from, when
+    its generators are basis elements of that algebra (a table: a module file's
+    generating set, a tensor product of modules of a Hopf family), checked exactly."""
+    from hwcat.algebras.reduction.reduction import reduction_of
+    from hwcat.modules.basis_action import BasisAction
+
+    if M.representation is not None or M.basis_action is not None:
+        return
+    if M.combination_action is not None:
+        return
+    red = reduction_of(B)
+    if red is None:
+        return
+    A = red.algebra
+    gens = {g: X for g, X in M.generators.items() if g in A.basis}
+    if not gens or len(gens) < len(M.generators):
+        return
+    ext = BasisAction(A, M.dim, gens)
+    bad = ext.failure()
+    if bad is not None:
+        raise ModuleFileError(
+            f"{M.name or 'the module'} is not a module of {A.name or 'the algebra'}: {bad}"
+        )
+    M.basis_action = ext.matrix
+    M.combination_action = ext.act
 
 
 def _arrow_elements(B: BasicAlgebra) -> list[tuple[int, int, list[Any]]]:
@@ -306,6 +334,8 @@ def analyse_module(
     from hwcat.theory.highest_weight import heredity_chain
 
     F = M.field
+    if identify and B is not None:
+        extend_to_basis(M, B)
     D = decompose(M, seed=seed)
     notes: list[str] = []
     R = data = None
