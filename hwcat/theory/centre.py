@@ -92,16 +92,8 @@ def centre(
     # exact: impose x b = b x for every basis element b on the remaining candidates
     if K.nrows:
         cand = [A.vec(A.raw(r)) for r in K.raw_rows()]
-        blocks = []
-        for j in range(n) if generators is None else generators:
-            b = A.basis_vector(j)
-            rows = []
-            for x in cand:
-                xb = A.product(x, b)
-                bx = A.product(b, x)
-                rows.append([u - v for u, v in zip(xb, bx, strict=True)])
-            blocks.append(Mat.from_rows(F, rows, n))
-        L = Mat.hstack(F, blocks).left_kernel()
+        js = list(range(n)) if generators is None else list(generators)
+        L = A.commutators_with_basis(cand, js).left_kernel()
         K = echelon(L @ K) if L.nrows else Mat.zeros(F, 0, n)
     basis = tuple(tuple(A.vec(A.raw(r))) for r in K.raw_rows())
     return Centre(A, basis, tuple(A.element_text(list(b)) for b in basis))

@@ -351,6 +351,20 @@ class StructureAlgebra:
         conv = (lambda c: F(int(c))) if self._p else F
         return [(i, k, conv(c)) for i, k, c in zip(is_, ks, cs, strict=True)]
 
+    def commutators_with_basis(self, xs: Sequence[Sequence[Any]], js: Sequence[int]) -> Mat:
+        """The ``len(xs) x (len(js) * dim)`` matrix whose row ``r`` lists ``x_r b_j - b_j x_r``
+        for ``j`` in ``js`` (one pass over the columns and rows of the table per ``j``)."""
+        raws = [self.raw(x) for x in xs]
+        flat: list[Any] = []
+        p = self._p
+        for x in raws:
+            for j in js:
+                xb = self._times_basis_raw(x, j)
+                bx = self._basis_times_raw(j, x)
+                flat.extend([(u - v) % p for u, v in zip(xb, bx)] if p else
+                            [u - v for u, v in zip(xb, bx)])
+        return Mat.from_flat(self.field, len(raws), len(js) * self.dim, flat)
+
     def _times_basis_raw(self, x: list[Any], j: int) -> list[Any]:
         """``x * b_j`` for a raw vector ``x``."""
         return self._accumulate(x, self._cols[j])
