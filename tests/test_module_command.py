@@ -365,3 +365,20 @@ def test_spin_chain_identification_limit():
     assert spin_chain_identifiable(8)[0]  # TL_8: 1430 diagrams
     ok, why = spin_chain_identifiable(9)
     assert not ok and "4862" in why
+
+
+def test_family_modules_by_name_and_file(tmp_path, capsys):
+    # a quiver family: P(2) of the zigzag algebra of type A_3 is projective-injective with
+    # radical layers 2 | 1 + 3 | 2 (zigzag algebras are symmetric, Loewy length 3 for
+    # n >= 2: from memory, as in the family's summary)
+    d = run_json(capsys, ["module", "--family", "zigzag-a", "n=3", "--module", "P(2)"])
+    s = d["summands"]
+    assert len(s) == 1 and any(i["name"] == "projective-injective" for i in s[0]["identified_as"])
+    assert s[0]["loewy_length"] == 3
+    # a module file for a quiver family: the simple at vertex 1 given by its dimensions
+    f = write(tmp_path, "s1.toml", "[dimensions]\n1 = 1\n[matrices]\n")
+    d = run_json(capsys, ["module", "--family", "zigzag-a", "n=3", "--module", f])
+    assert [i["name"] for i in d["summands"][0]["identified_as"]][0] == "L(1)"
+    # unknown parameters and a missing family name are one-line errors
+    assert "unknown" in run_error(capsys, ["module", "--family", "zigzag-a", "n=3", "m=2", "--module", "P(1)"])
+    assert "exactly one" in run_error(capsys, ["module"])
