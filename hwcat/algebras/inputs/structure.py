@@ -361,8 +361,10 @@ class StructureAlgebra:
             for j in js:
                 xb = self._times_basis_raw(x, j)
                 bx = self._basis_times_raw(j, x)
-                flat.extend([(u - v) % p for u, v in zip(xb, bx)] if p else
-                            [u - v for u, v in zip(xb, bx)])
+                if p:
+                    flat.extend((u - v) % p for u, v in zip(xb, bx, strict=True))
+                else:
+                    flat.extend(u - v for u, v in zip(xb, bx, strict=True))
         return Mat.from_flat(self.field, len(raws), len(js) * self.dim, flat)
 
     def _times_basis_raw(self, x: list[Any], j: int) -> list[Any]:
