@@ -218,3 +218,54 @@ def test_centre_in_paths_acts_on_the_same_summands(monkeypatch):
     assert own.terms.startswith("the input algebra's own terms")
     assert "16 > 10" in paths.terms and paths.terms.startswith("paths of the basic algebra")
     assert hit_own == hit_paths == {0}
+
+
+def test_generating_set_extension_solves_when_single_products_do_not_suffice():
+    # kS_3 over GF(5) in a random basis b'_i = sum_j P_ij sigma_j: products of basis
+    # elements are combinations with several unknown terms, so the extension must solve
+    # a linear system; the answer must be right multiplication in that basis (common
+    # practice: the regular representation)
+    import random
+
+    from hwcat.algebras.families.tables import symmetric_group_algebra
+    from hwcat.algebras.inputs.structure import StructureAlgebra
+
+    G = from_table(symmetric_group_algebra(3, "GF(5)"))
+    F = G.field
+    rng = random.Random(3)
+    while True:
+        P = Mat.from_rows(F, [[rng.randrange(5) for _ in range(6)] for _ in range(6)])
+        if P.rank() == 6:
+            break
+    Pi = P.inverse()
+    rows = P.raw_rows()
+    new = [list(r) for r in rows]
+    products = {}
+    for i in range(6):
+        for j in range(6):
+            xy = G.product(new[i], new[j])
+            c = (Mat.from_rows(F, [xy]) @ Pi).entries()
+            products[(i, j)] = {k: x for k, x in enumerate(c) if x != 0}
+    names = [f"b{i}" for i in range(6)]
+    A = StructureAlgebra(F, names, products, associativity="exact")
+    R = {b: A.right_action(A.basis_vector(i)) for i, b in enumerate(names)}
+
+    def generated(js):  # the dimension of the subalgebra generated, by plain products
+        from hwcat.exact import echelon
+
+        vecs = [A.unit] + [A.basis_vector(j) for j in js]
+        for _ in range(6):
+            vecs = [list(r) for r in echelon(Mat.from_rows(F, vecs)).raw_rows()]
+            vecs += [A.product(x, A.basis_vector(j)) for x in vecs for j in js]
+        return echelon(Mat.from_rows(F, vecs)).nrows
+
+    assert generated([1, 2]) == 5  # these two do not generate (derived)
+    with pytest.raises(ModuleFileError, match="do not generate"):
+        BasisAction(A, 6, {"b1": R["b1"], "b2": R["b2"]})
+    assert generated([0, 1]) == 6
+    act = BasisAction(A, 6, {"b0": R["b0"], "b1": R["b1"]})
+    assert act.failure() is None
+    assert all(act.matrix(i) == R[b] for i, b in enumerate(names))
+    # a wrong matrix for b1 (another element's) is caught
+    bad = BasisAction(A, 6, {"b0": R["b0"], "b1": R["b4"]})
+    assert bad.failure() is not None

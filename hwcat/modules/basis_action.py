@@ -4,10 +4,13 @@ A module of a structure-constant algebra ``A`` is often given by the matrices
 of a few elements that generate ``A`` (``E, F, K`` for the small quantum group,
 two transpositions for ``S_n``, the ``e_i`` for Temperley-Lieb).
 :class:`BasisAction` extends such an action to every basis element by
-multiplying: whenever ``b_i * g = c b_j + (known terms)`` for a basis element
-``b_i`` whose matrix is known and a generator ``g``, the matrix of ``b_j``
-follows (right modules: ``rho(b_i g) = rho(b_i) rho(g)``); what single products
-leave open is solved from the remaining products as one linear system.
+multiplying (right modules: ``rho(x g) = rho(x) rho(g)``): the span of the
+unit and the generators is closed under right multiplication by the
+generators, each new element carried with its matrix and kept in reduced
+echelon form; when the span is all of ``A`` every row is one basis element
+with its matrix.  With a basis of group elements, PBW monomials or diagrams
+almost every product is a multiple of one basis element and the echelon
+form costs nothing.
 
 :meth:`BasisAction.failure` checks that the result is a module, exactly: the
 unit acts as the identity, every given generator keeps its matrix, and
@@ -35,6 +38,7 @@ Examples
 
 from __future__ import annotations
 
+from collections import deque
 from collections.abc import Mapping, Sequence
 from typing import Any
 
@@ -106,51 +110,11 @@ class BasisAction:
         return next(iter(v.items())) if len(v) == 1 else None
 
     def _build(self) -> None:
-        A, F, n = self.algebra, self.field, self.dim
-        identity = Mat.identity(F, n)
-        pending: list[tuple[dict[int, Any], Mat | None]] = []
-        queue: list[int] = []
-
-        def learn(j: int, X: Mat | None, parent: int | None, g: str | None, c: Any) -> None:
-            self._tree[j] = (parent, g, c)
-            if self.stored:
-                self._known[j] = X  # type: ignore[assignment]
-            queue.append(j)
-
-        unit = {k: F(c) for k, c in enumerate(A.unit) if c != 0}
-        roots = [(unit, identity, None)] + [
-            (self.elements[g], self.generators[g], g) for g in self.generators
-        ]
-        for v, X, g in roots:
-            s = self._single(v)
-            if s is not None and s[0] not in self._tree:
-                learn(s[0], X.scale(F.one / s[1]), None, g, s[1])
-            elif self.stored:
-                pending.append((dict(v), X))
-        while True:
-            while queue:
-                i = queue.pop()
-                Xi = self._known.get(i)
-                for g, G in self.generators.items():
-                    v = self._right[g].get(i)
-                    if not v:
-                        continue
-                    if not self.stored:
-                        s = self._single(v)
-                        if s is not None and s[0] not in self._tree:
-                            learn(s[0], None, i, g, s[1])
-                        continue
-                    v, X = self._reduce(dict(v), Xi @ G)  # type: ignore[operator]
-                    s = self._single(v)
-                    if s is not None:
-                        learn(s[0], X.scale(F.one / s[1]), i, g, s[1])
-                    elif v:
-                        pending.append((v, X))
-            if len(self._tree) == A.dim or not pending:
-                break
-            if not self._solve(pending, learn):
-                break
-            pending = [(v, X) for v, X in (self._reduce(v, X) for v, X in pending) if v]
+        if self.stored:
+            self._build_stored()
+        else:
+            self._build_tree()
+        A = self.algebra
         if len(self._tree) < A.dim:
             missing = next(b for k, b in enumerate(A.basis) if k not in self._tree)
             raise ModuleFileError(
@@ -158,52 +122,73 @@ class BasisAction:
                 f"(no action of {missing!r} follows from them)"
             )
 
-    def _reduce(self, v: dict[int, Any], X: Mat) -> tuple[dict[int, Any], Mat]:
-        """Subtract the known terms of ``v`` (with their matrices) from ``(v, X)``."""
-        for k in [k for k in v if k in self._known]:
-            X = X - self._known[k].scale(v.pop(k))
-        return v, X
-
-    def _solve(self, pending, learn) -> bool:
-        """Solve for unknown basis elements from combinations of them with known matrices."""
+    def _build_tree(self) -> None:
+        """Single products only: ``b_i g = c b_j`` puts ``b_j`` below ``b_i`` in the tree."""
         F = self.field
-        pending = [(v, X) for v, X in (self._reduce(dict(v), X) for v, X in pending) if v]
-        unknown = sorted({k for v, _ in pending for k in v})
-        if not unknown:
-            return False
-        V = Mat.from_rows(
-            F, [[v.get(k, F.zero) for k in unknown] for v, _ in pending], len(unknown)
-        )
-        _, piv = V.transpose().rref()  # independent rows of V: pivot columns of V^T
-        rows = list(piv)
-        if not rows:
-            return False
-        S = V.take_rows(rows)  # r x u of rank r
-        # choose r unknown columns where S is invertible
-        _, cpiv = S.rref()
-        cols = list(cpiv)
-        T = S.take_cols(cols).inverse()  # T @ S[:, cols] = I
-        # the combination T @ (rows of S) has the unit vector at column cols[a] plus other
-        # unknowns; learn only those rows that became single unknowns
-        learned = False
-        for a in range(len(cols)):
-            coeffs = T.row(a).entries()
-            v: dict[int, Any] = {}
-            X = Mat.zeros(F, self.dim, self.dim)
-            for b, r in enumerate(rows):
-                c = coeffs[b]
-                if c == 0:
-                    continue
-                pv, PX = pending[r]
-                for k, x in pv.items():
-                    v[k] = v.get(k, F.zero) + c * x
-                X = X + PX.scale(c)
-            v = {k: x for k, x in v.items() if x != 0}
+        queue: list[int] = []
+        unit = {k: F(c) for k, c in enumerate(self.algebra.unit) if c != 0}
+        roots: list[tuple[dict[int, Any], str | None]] = [(unit, None)]
+        roots += [(self.elements[g], g) for g in self.generators]
+        for v, g in roots:
             s = self._single(v)
             if s is not None and s[0] not in self._tree:
-                learn(s[0], X.scale(F.one / s[1]), None, None, s[1])
-                learned = True
-        return learned
+                self._tree[s[0]] = (None, g, s[1])
+                queue.append(s[0])
+        while queue:
+            i = queue.pop()
+            for g in self.generators:
+                s = self._single(self._right[g].get(i, {}))
+                if s is not None and s[0] not in self._tree:
+                    self._tree[s[0]] = (i, g, s[1])
+                    queue.append(s[0])
+
+    def _build_stored(self) -> None:
+        """The span of the unit and the generators, closed under right multiplication by
+        the generators, kept in reduced echelon form with each row's matrix; a row
+        with a single term ``c b_j`` gives the matrix of ``b_j``."""
+        A, F, n = self.algebra, self.field, self.dim
+        rows: dict[int, tuple[dict[int, Any], Mat]] = {}  # pivot -> (vector, matrix)
+        unit = {k: F(c) for k, c in enumerate(A.unit) if c != 0}
+        queue: deque[tuple[dict[int, Any], Mat]] = deque([(unit, Mat.identity(F, n))])
+        queue.extend((dict(self.elements[g]), self.generators[g]) for g in self.generators)
+        while queue:
+            v, X = queue.popleft()
+            for k in [k for k in v if k in rows]:  # reduced echelon form: one pass
+                c = v.get(k)
+                if c is None or c == 0:
+                    continue
+                rv, rX = rows[k]
+                for t, x in rv.items():
+                    y = v.get(t, F.zero) - c * x
+                    if y == 0:
+                        v.pop(t, None)
+                    else:
+                        v[t] = y
+                X = X - rX.scale(c)
+            if not v:
+                continue  # in the span already: its consistency is checked by failure()
+            p = min(v)
+            inv = F.one / v[p]
+            v = {t: x * inv for t, x in v.items()}
+            X = X.scale(inv) if inv != F.one else X
+            for q, (rv, rX) in list(rows.items()):  # clear p from the other rows
+                c = rv.get(p)
+                if c:
+                    w = {t: rv.get(t, F.zero) - c * v.get(t, F.zero) for t in set(rv) | set(v)}
+                    rows[q] = ({t: x for t, x in w.items() if x != 0}, rX - X.scale(c))
+            rows[p] = (v, X)
+            for g, G in self.generators.items():  # close under right multiplication
+                w: dict[int, Any] = {}
+                for i, x in v.items():
+                    for k, c in self._right[g].get(i, {}).items():
+                        w[k] = w.get(k, F.zero) + x * c
+                w = {k: x for k, x in w.items() if x != 0}
+                if w:
+                    queue.append((w, X @ G))
+        for p, (v, X) in rows.items():
+            if len(v) == 1:  # with every index a pivot, every row is single
+                self._known[p] = X
+                self._tree[p] = (None, None, F.one)
 
     # -- use ----------------------------------------------------------------------------------
 
