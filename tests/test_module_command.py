@@ -382,3 +382,18 @@ def test_family_modules_by_name_and_file(tmp_path, capsys):
     # unknown parameters and a missing family name are one-line errors
     assert "unknown" in run_error(capsys, ["module", "--family", "zigzag-a", "n=3", "m=2", "--module", "P(1)"])
     assert "exactly one" in run_error(capsys, ["module"])
+
+
+def test_coproduct_option_for_a_multiplication_spec(tmp_path, capsys):
+    spec = write(tmp_path, "c3.toml", GROUP)
+    g = write(tmp_path, "g.toml", "dimension = 3\n[matrices]\ng = [[0,1,0],[0,0,1],[1,0,0]]\n")
+    # the regular module of C_3 tensored with itself is free of rank 3 (common practice:
+    # P (x) M is projective; over GF(3) the regular module is indecomposable)
+    d = run_json(capsys, ["module", spec, "--module", g, "--tensor", g, "--coproduct", "group"])
+    assert d["dimension"] == 9 and [s["dimension"] for s in d["summands"]] == [3, 3, 3]
+    # a spec without a known coproduct, and --coproduct on a [matrices] spec
+    assert "no known coproduct" in run_error(capsys, ["module", spec, "--module", g, "--tensor", g])
+    m = write(tmp_path, "u.toml", MATRICES)
+    one = write(tmp_path, "one.toml", "dimension = 1\n[matrices]\nu = [[1]]\n")
+    err = run_error(capsys, ["module", m, "--module", one, "--tensor", one, "--coproduct", "group"])
+    assert "[matrices]" in err

@@ -13,7 +13,7 @@ from hwcat.errors import HwcatError, ModuleFileError, OrderError, SpecError
 __all__ = ["register"]
 
 
-def _spin_chain(spec, args, identify: bool):
+def _spin_chain(spec, identify: bool):
     """The Temperley-Lieb spin chain of ``--family temperley-lieb n=N delta=D field=F``, and
     the family's algebra when its summands are to be identified (see
     :func:`hwcat.io.module_file.spin_chain_identifiable`)."""
@@ -37,7 +37,7 @@ def _spin_chain(spec, args, identify: bool):
     return M, B
 
 
-def _coproduct(spec, args):
+def _coproduct(spec, args: argparse.Namespace):
     from hwcat.algebras.families.coproducts import (
         family_coproduct,
         group_coproduct,
@@ -100,7 +100,7 @@ def _cmd_module(args: argparse.Namespace) -> int:
     if args.tensor and chain:
         raise SpecError("--tensor: the Temperley-Lieb family has no coproduct")
     if chain:
-        M, B = _spin_chain(spec, args, identify)
+        M, B = _spin_chain(spec, identify)
         identify = identify and B is not None
     else:
         if args.module in ("spin-chain", "spin_chain"):
