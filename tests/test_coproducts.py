@@ -269,3 +269,25 @@ def test_generating_set_extension_solves_when_single_products_do_not_suffice():
     # a wrong matrix for b1 (another element's) is caught
     bad = BasisAction(A, 6, {"b0": R["b0"], "b1": R["b4"]})
     assert bad.failure() is not None
+
+
+@pytest.mark.parametrize("n, delta, field", [(4, "0", "GF(5)"), (5, "5/2", "GF(10007)")])
+def test_spin_chain_is_a_module_of_the_family_table(n, delta, field):
+    # every diagram of TL_n acts on the chain (through the e_i) so that all products of the
+    # family's diagram table hold exactly (the chain is a TL_n(delta)-module: Jimbo 1986,
+    # Martin 1991, from memory); the tree walk gives the same matrices as storing them
+    import random
+
+    from hwcat.algebras.families.registry import family_structure
+    from hwcat.algebras.families.spin_chain import generator_diagrams
+    from hwcat.io.module_file import spin_chain_module
+
+    A = family_structure("temperley-lieb", n=n, delta=delta, field=field)
+    M = spin_chain_module(n, delta, field)
+    elements = {g: A.basis_vector(A.basis.index(d)) for g, d in generator_diagrams(n).items()}
+    stored = BasisAction(A, M.dim, M.generators, elements=elements)
+    assert stored.failure() is None
+    tree = BasisAction(A, M.dim, M.generators, elements=elements, stored=False)
+    rng = random.Random(1)
+    xs = [[A.field(rng.randrange(7)) for _ in range(A.dim)] for _ in range(3)]
+    assert tree.act(xs) == stored.act(xs)
