@@ -1,4 +1,5 @@
-"""Tensor products through coproducts: group algebras and the small quantum group."""
+"""Tensor products through coproducts (group algebras, the small quantum group) and module
+actions extended from a generating set to the whole basis."""
 
 from __future__ import annotations
 
