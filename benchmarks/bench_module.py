@@ -17,10 +17,12 @@ then the whole report runs with every summand identified (timed separately;
 it includes the centre of u_q and the family's reduction is built before the
 clock starts).  The summands of P (x) X2 and P (x) P must all be projective.
 A dense commutant on the modules of dimension <= 40 gives the naive ratio.
-One run (``--tensor-only``, shared 2-core machine): P (x) P at ell = 6 (dim 36)
-decomposed in 0.17 s CPU against 3.1 s for the dense commutant (18x); at
-ell = 10 over GF(11) (u_q of dimension 250) P (x) P (dim 100) decomposes in
-1.7 s and the whole report with identification and the centre takes 3.6 s.
+One run (``--max-n 10``, shared 2-core machine): P (x) P at ell = 6 (dim 36)
+decomposed in 0.23 s CPU against 2.85 s for the dense commutant (12x); at
+ell = 10 over GF(11) (u_q of dimension 250) P (x) P (dim 100, twelve projective
+summands) decomposes in 1.2 s and the whole report with identification and the
+centre takes 2.6 s CPU.  The same run: the chain n = 10 in 7.1 s CPU / 16 s wall
+(q = 2 over GF(10007)) and 7.8 s CPU / 24 s wall (loop weight 0 over GF(5)).
 
     python benchmarks/bench_module.py [--quick] [--max-n N] [--tensor-only]
 
