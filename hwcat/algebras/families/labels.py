@@ -277,19 +277,32 @@ def _cyclic_group(red: Reduction, params: Mapping[str, Any]) -> tuple[list[str],
         f for f, _ in Poly.from_coeffs(F, [-F.one] + [F.zero] * (m_prime - 1) + [F.one]).factor()
     ]
     roots = [-f.coeffs()[0] for f in facs if f.degree == 1]
-    g = A.basis_vector(A.basis.index("g")) if m > 1 else A.unit
+    dims = red.simple_dimensions
+    if len(roots) != len(facs) or len(dims) != len(roots) or set(dims) != {1}:
+        raise InternalInconsistency(
+            f"C_{m} over {F.name}: simples of dimensions {dims}, {len(roots)} roots of unity"
+        )
+    power = [A.basis.index("1" if k == 0 else "g" if k == 1 else f"g^{k}") for k in range(m)]
+
+    def killed(i: int, cs: Sequence[Any]) -> bool:
+        # prod (g - c) over cs acts as zero on the one-dimensional L(i) iff g acts by some c
+        f = Poly.from_coeffs(F, [F.one])
+        for c in cs:
+            f = f * Poly.from_coeffs(F, [-c, F.one])
+        x = [F.zero] * A.dim
+        for k, coef in enumerate(f.coeffs()):
+            x[power[k % m]] += coef  # g^m = 1
+        return red.simple_action_rank(i, x) == 0
+
     labels = []
-    for i, dim in enumerate(red.simple_dimensions):
-        hits = [
-            c
-            for c in roots
-            if red.simple_action_rank(i, [a - c * u for a, u in zip(g, A.unit, strict=True)]) == 0
-        ]
-        if len(hits) != 1 or dim != 1:
-            raise InternalInconsistency(
-                f"the simple {i + 1} of C_{m} (dimension {dim}) has eigenvalues {hits}"
-            )
-        labels.append(eigenvalue_label(hits[0]))
+    for i in range(len(dims)):
+        cs = list(roots)  # bisection: log2(m) ranks per simple
+        while len(cs) > 1:
+            half = cs[: len(cs) // 2]
+            cs = half if killed(i, half) else cs[len(cs) // 2 :]
+        if not killed(i, cs):
+            raise InternalInconsistency(f"the generator of C_{m} acts on no simple by a root")
+        labels.append(eigenvalue_label(cs[0]))
     return labels, None
 
 
