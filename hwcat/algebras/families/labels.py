@@ -32,6 +32,29 @@ nothing assumed — and renamed:
   ``F^(s-1) (K - e q^(s-1))`` acts as zero.  The algebra is self-injective
   and not quasi-hereditary, so there is no natural order.
 
+* **symmetric group** ``k S_n`` in characteristic ``p``: by ``p``-regular
+  partitions ``lam`` (every partition for ``p = 0``), James's ``D^lam``, the
+  head of the Specht module ``S^lam`` (from memory), written
+  ``D<lam_1>_<lam_2>_...`` (``D3_2_1``; ``D0`` for ``n = 0``).  The heads are
+  built exactly over the prime field (:mod:`.specht`); each simple of the
+  reduction is matched to the head with the same dimension and the same ranks
+  of ``f(g)``, for ``g`` a representative of a ``p``-regular class and ``f``
+  an irreducible factor of ``x^ord(g) - 1``.  These ranks are the
+  characteristic polynomials of the ``p``-regular elements, so they determine
+  the Brauer character, which separates the simples (from memory); only the
+  invariants needed to tell the heads apart are computed, and if even all of
+  them cannot, or a simple matches no head or two, the labeller raises.  No
+  natural order: a group algebra is self-injective, quasi-hereditary only when
+  semisimple (and then for every order).
+* **cyclic group** ``k C_m``: the reduction accepts only fields over which
+  every simple is one-dimensional, so the generator ``g`` acts on a simple by
+  a root ``c`` of ``x^m' - 1`` (``m'`` the part of ``m`` prime to the
+  characteristic); the simple is ``chi<c>`` with ``c`` written as an
+  identifier (``chi1``, ``chi4``, ``chim1`` for ``-1``, ``chizp1`` for
+  ``z + 1``, see :func:`eigenvalue_label`).  Found by bisection: ``prod (g -
+  c)`` over half of the remaining roots acts as zero on the simple or not.
+  No natural order.
+
 Families without a labelling keep the numbering by dimension.
 
 References

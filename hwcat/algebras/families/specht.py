@@ -33,11 +33,6 @@ Examples
 3
 >>> [partition_label(lam) for lam in partitions(4) if is_regular(lam, 2)]
 ['D4', 'D3_1']
-
-References
-----------
-G. D. James, *The Representation Theory of the Symmetric Groups*, Lecture
-Notes in Math. 682 (1978) (from memory).
 """
 
 from __future__ import annotations
