@@ -242,3 +242,21 @@ def test_cyclic_group_labels_over_an_extension_field():
     # GF(4) = GF(2)[z]/(z^2 + z + 1): the cube roots of unity are 1, z, z + 1 (common practice)
     A = hwcat.load(family="cyclic-group", m=3, field="GF(4)")
     assert set(A.vertices) == {"chi1", "chiz", "chizp1"}
+
+
+def test_orders_name_the_partitions_on_the_command_line(capsys):
+    import json
+
+    from hwcat.cli import main
+
+    # p > n: semisimple, every order is quasi-hereditary (Maschke's theorem, common practice)
+    args = ["check", "--family", "symmetric-group", "n=3", "field=GF(5)", "--no-homological"]
+    assert main([*args, "--order", "D1_1_1 > D2_1 > D3", "--json"]) == 0
+    d = json.loads(capsys.readouterr().out)
+    assert d["quasi_hereditary"] and set(d["simples"]) == {"D3", "D2_1", "D1_1_1"}
+    # p <= n: self-injective and not semisimple, no order works (exit code 1)
+    assert (
+        main(["check", "--family", "symmetric-group", "n=3", "field=GF(3)", "--no-homological"])
+        == 1
+    )
+    assert "NO order makes the algebra quasi-hereditary" in capsys.readouterr().out
