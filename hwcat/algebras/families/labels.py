@@ -184,6 +184,9 @@ def _prime_factors(p: int, m: int) -> list[tuple[int, ...]]:
 
 
 def _symmetric_group(red: Reduction, params: Mapping[str, Any]) -> tuple[list[str], str | None]:
+    """Simples of ``k S_n`` named by the heads ``D^lam`` of the Specht modules: matched by
+    dimension, then by the ranks of ``f(g)`` (``g`` a ``p``-regular class representative,
+    ``f`` an irreducible factor of ``x^ord(g) - 1``) that the heads need to be told apart."""
     A = red.algebra
     n = int(params["n"])
     p = A.field.characteristic
