@@ -46,6 +46,12 @@ def _p_regular(lam, p) -> bool:
         (5, "GF(2)", {"D5": 1, "D4_1": 4, "D3_2": 4}),
         (5, "GF(3)", {"D5": 1, "D4_1": 4, "D3_2": 1, "D3_1_1": 6, "D2_2_1": 4}),
         (5, "GF(5)", {"D5": 1, "D4_1": 3, "D3_2": 5, "D3_1_1": 3, "D2_2_1": 5, "D2_1_1_1": 1}),
+        # three pairs of simples of equal dimension, told apart by class ranks
+        (
+            6,
+            "GF(3)",
+            {"D6": 1, "D5_1": 4, "D4_2": 9, "D4_1_1": 6, "D3_3": 1, "D3_2_1": 4, "D2_2_1_1": 9},
+        ),
     ],
 )
 def test_symmetric_group_simples_are_p_regular_partitions(n, field, expected):
@@ -260,3 +266,18 @@ def test_orders_name_the_partitions_on_the_command_line(capsys):
         == 1
     )
     assert "NO order makes the algebra quasi-hereditary" in capsys.readouterr().out
+
+
+def test_heads_that_cannot_be_told_apart_raise(monkeypatch):
+    # S_5 over GF(2) has two simples of dimension 4 (D4_1, D3_2); if the heads built for
+    # them were the same module, no invariant could tell them apart: the labeller must
+    # raise rather than guess (derived)
+    from hwcat.algebras.families import registry, specht
+    from hwcat.errors import InternalInconsistency
+
+    real = specht.specht_module
+    monkeypatch.setattr(
+        specht, "specht_module", lambda lam, p: real((4, 1) if lam == (3, 2) else lam, p)
+    )
+    with pytest.raises(InternalInconsistency, match="do not tell apart"):
+        registry.family_reduction("symmetric-group", n=5, field="GF(2)")
