@@ -98,8 +98,9 @@ def test_semisimple_symmetric_group_has_every_partition(n, field):
 
 @pytest.mark.parametrize(("n", "field"), [(3, "GF(2)"), (4, "GF(3)"), (5, "GF(2)")])
 def test_non_semisimple_symmetric_group_is_not_quasi_hereditary(n, field):
-    # a non-semisimple self-injective algebra is quasi-hereditary for no order (its
-    # projectives would need finite global dimension; common practice)
+    # a non-semisimple self-injective algebra is quasi-hereditary for no order: a
+    # quasi-hereditary algebra has finite global dimension, a non-semisimple
+    # self-injective algebra infinite (common practice)
     A = hwcat.load(family="symmetric-group", n=n, field=field)
     assert not hwcat.check(A, homological=False).quasi_hereditary
 
