@@ -106,15 +106,20 @@ FAMILIES: dict[str, Family] = {
             "symmetric-group",
             "table",
             {"n": (int, None), "field": (str, "GF(2)")},
-            "the group algebra of S_n in the basis of permutations",
-            "standard (Maschke's theorem; group algebras are self-injective)",
+            "the group algebra of S_n in the basis of permutations; simples labelled "
+            "D<lambda_1>_<lambda_2>_... by p-regular partitions (D^lambda, the head of the "
+            "Specht module S^lambda; every partition when p = 0 or p > n)",
+            "standard (Maschke's theorem; group algebras are self-injective); labels: "
+            "James's D^lambda, from memory",
             _table_family(lambda n, field: family_tables.symmetric_group_algebra(n, field)),
         ),
         Family(
             "cyclic-group",
             "table",
             {"m": (int, None), "field": (str, "GF(2)")},
-            "the group algebra of the cyclic group of order m, basis 1, g, ..., g^(m-1)",
+            "the group algebra of the cyclic group of order m, basis 1, g, ..., g^(m-1); "
+            "simples labelled chi<c> by the root of unity c by which g acts (the field must "
+            "contain them)",
             "standard",
             _table_family(lambda m, field: family_tables.cyclic_group_algebra(m, field)),
         ),
