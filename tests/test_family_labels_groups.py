@@ -195,7 +195,7 @@ def test_each_label_is_the_head_of_its_specht_module(n, field, p):
             continue
         report = analyse_module(_specht_action(lam, n, F), A)
         assert len(report.summands) == 1
-        top = report.summands[0].radical_layers[0]
+        top = report.summands[0].layers.radical_layers[0]
         assert {A.vertices[v]: k for v, k in enumerate(top) if k} == {partition_label(lam): 1}
         assert report.summands[0].dimension == math.factorial(n) // math.prod(
             lam[i] - c + sum(1 for x in lam if x > c) - i - 1
