@@ -241,7 +241,7 @@ def test_cyclic_group_simples_are_eigenvalues(m, field, roots):
             F, 1, {"g": mats[min(1, m - 1)]}, basis_action=lambda i, mats=mats: mats[i]
         )
         report = analyse_module(M, A)
-        factors = report.summands[0].composition_factors
+        factors = report.summands[0].layers.composition_factors
         assert factors == {f"chi{c}" if c >= 0 else f"chim{-c}": 1}
 
 
