@@ -290,3 +290,12 @@ def test_counts_in_messages_agree_in_number(tmp_path: Path, capsys) -> None:
     assert main(["check", str(path)]) == 0
     out = capsys.readouterr().out
     assert "1 quasi-hereditary total order in 1 structure;" in out, out
+
+
+def test_family_option_errors_name_the_family_once(capsys) -> None:
+    # `--family NAME ...` is its own source: the line names it once, then the parameter
+    rc = main(["describe", "--family", "temperley-lieb", "n=3", "delta=x"])
+    err = capsys.readouterr().err.strip()
+    assert rc == 2
+    assert err.count("temperley-lieb") == 1, err
+    assert "delta = 'x'" in err

@@ -444,6 +444,8 @@ def _family_algebra(spec: Spec) -> BasicAlgebra:
     try:
         A = family_algebra(fam, seed=seed, **tab)
     except HwcatError as exc:
+        if str(exc).startswith(f"{src}:"):  # --family: the source is the family itself
+            raise
         raise type(exc)(f"{src}: family: {exc}") from None
     if spec.name:
         A.name = spec.name
