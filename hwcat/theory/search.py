@@ -353,36 +353,39 @@ def count_quasi_hereditary_extensions(A: BasicAlgebra, order: PartialOrder) -> i
         return _explore(A, trace_cache(A), order, structures=False).orders
 
 
-def _fill(tc: TraceCache, n: int, path: tuple[int, ...], sd, cd, below) -> None:
+def _fill(tc: TraceCache, n: int, path: tuple[int, ...], sd, cd, below, memo: dict) -> None:
     """Standard and costandard dimension vectors along ``path`` (one block's order, highest first).
 
     With ``B = A / A e_S A`` for the set ``S`` above ``u``: ``Delta(u) = P_B(u)``
     and ``nabla(u)`` is the injective hull ``I_B(u)`` of the simple over ``B``
     (the largest submodule of ``I(u)`` killed by ``A e_S A``), so
     ``[nabla(u) : L(t)] = dim e_t B e_u``.  ``below[u]`` collects the ``mu != u``
-    with ``[Delta(u) : L(mu)]`` or ``[nabla(u) : L(mu)]`` nonzero.
+    with ``[Delta(u) : L(mu)]`` or ``[nabla(u) : L(mu)]`` nonzero.  The answer
+    for ``u`` depends only on ``(S, u)``; ``memo`` keeps it for the other
+    orders listed (they share prefixes).
     """
     S = 0
-    block = bits(mask(path))  # other blocks of the algebra see nothing of this one
+    rest = mask(path)  # other blocks of the algebra see nothing of this one
     for u in path:
-        rows = [(t, tc.row(S, t)) for t in block if not S >> t & 1]
-        ru = tc.row(S, u)
-        sd[u] = ru[0]
-        c = [0] * n
-        b = ru[1]
-        for t, r in rows:
-            x = r[0][u]
-            if x:
-                c[t] = x
-                b |= 1 << t
-        cd[u] = tuple(c)
-        below[u] = b & ~(1 << u)
+        got = memo.get((S, u))
+        if got is None:
+            ru = tc.row(S, u)
+            c = [0] * n
+            b = ru[1]
+            for t in bits(rest):
+                x = tc.entry(S, t)[1][u]
+                if x:
+                    c[t] = x
+                    b |= 1 << t
+            got = memo[(S, u)] = (ru[0], tuple(c), b & ~(1 << u))
+        sd[u], cd[u], below[u] = got
         S |= 1 << u
+        rest &= ~(1 << u)
 
 
 def _structure(A: BasicAlgebra, tc: TraceCache, path: tuple[int, ...]) -> Structure:
     """The structure of a quasi-hereditary total order ``path`` (highest first), from cached traces."""
-    return _combine(A, tc, [path])
+    return _combine(A, tc, [path], {})
 
 
 def quasi_hereditary_orders(
@@ -459,9 +462,10 @@ def _orders(A: BasicAlgebra, list_limit: int | None) -> OrdersResult:
         for _, lat in per_block:
             nstruct *= lat.structures
         cap = nstruct if list_limit is None else min(list_limit, nstruct)
+        memo: dict = {}
         if cap:
             for combo in _product_capped([iter_structure_orders(lat) for _, lat in per_block], cap):
-                structs.append(_combine(A, tc, combo))
+                structs.append(_combine(A, tc, combo, memo))
         listed_all = len(structs) >= nstruct
     best: list[int] = []
     for _, lat in per_block:
@@ -505,19 +509,27 @@ def _product_capped(blocks, cap: int):
     return out[:cap]
 
 
-def _combine(A: BasicAlgebra, tc: TraceCache, paths: list[tuple[int, ...]]) -> Structure:
+def _combine(
+    A: BasicAlgebra, tc: TraceCache, paths: list[tuple[int, ...]], memo: dict
+) -> Structure:
     """Glue the structures of the blocks (each given by its smallest order) into one of ``A``."""
     n = A.n
     sd: list[tuple[int, ...]] = [()] * n
     cd: list[tuple[int, ...]] = [()] * n
     below = [0] * n
     for path in paths:
-        _fill(tc, n, path, sd, cd, below)
+        _fill(tc, n, path, sd, cd, below, memo)
     # vertices of different blocks are independent: the smallest order of the
     # structure takes, at each step, the smallest next vertex of the blocks' smallest orders
-    rep = tuple(heapq.merge(*paths))
-    pairs = [(mu, L) for L in range(n) for mu in bits(below[L])]
-    ess = PartialOrder.from_relations(A.vertices, pairs)
+    rep = tuple(heapq.merge(*paths)) if len(paths) > 1 else paths[0]
+    up = [0] * n  # mu < L for mu in below[L]; rep lists every vertex after those above it
+    for L in range(n):
+        m = below[L]
+        while m:
+            low = m & -m
+            up[low.bit_length() - 1] |= 1 << L
+            m ^= low
+    ess = PartialOrder.from_upper_masks(A.vertices, up, rep)
     return Structure(A.vertices, tuple(sd), tuple(cd), ess, rep)
 
 

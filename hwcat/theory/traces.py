@@ -125,19 +125,20 @@ class TraceCache:
 
     def _path_moves(self, s: int) -> list[list[int]] | None:
         """Right multiplication by each arrow on the basis paths of ``P(s)``, if monomial."""
-        per = []
+        A = self.A
         dims = self._pdims[s]
-        for a, m in zip(self.A.arrows, self.A.action[s], strict=True):
-            r, c = dims[a.source], dims[a.target]
-            moves = [-1] * r
-            if r and c:
-                for k, x in enumerate(m.entries()):
-                    if x:
-                        i = k // c
-                        if moves[i] >= 0:
-                            return None
-                        moves[i] = k - i * c
-            per.append(moves)
+        arrows = A.arrows
+        per = [[-1] * dims[a.source] for a in arrows]  # the zero actions (not stored) first
+        for i in A.action_support(s):
+            a = arrows[i]
+            c = dims[a.target]
+            moves = per[i]
+            for k, x in enumerate(A.action_matrix(s, i).entries()):
+                if x:
+                    r = k // c
+                    if moves[r] >= 0:
+                        return None
+                    moves[r] = k - r * c
         return per
 
     def _entry(self, s: int, K) -> tuple:
@@ -158,10 +159,10 @@ class TraceCache:
         key = (u, s)
         if key not in self._vt:
             A = self.A
-            dims, maps = A.projective_rep(s)
             if self.path_mode[s]:
                 self._vt[key] = self._path_closure(s, u)
             else:
+                dims, maps = A.projective_rep(s)
                 self._vt[key] = closure(
                     A.field, dims, maps, A.arrows, {u: Mat.identity(A.field, dims[u])}
                 )
