@@ -82,6 +82,7 @@ import heapq
 from collections.abc import Iterator
 from contextlib import contextmanager
 from dataclasses import dataclass, field
+from functools import cached_property
 from math import factorial
 from typing import Any
 
@@ -106,13 +107,24 @@ DEFAULT_LIST_LIMIT = 20
 
 @dataclass(frozen=True)
 class Structure:
-    """One quasi-hereditary structure: its standard modules and essential order."""
+    """One quasi-hereditary structure: its standard modules and essential order.
+
+    ``relations[mu]`` is the bitmask of the ``L`` with ``[Delta(L) : L(mu)]``
+    or ``[nabla(L) : L(mu)]`` nonzero (``mu != L``); the essential order is
+    the partial order they generate, built when first asked for (listing
+    many structures need not close every order).
+    """
 
     vertices: tuple[str, ...]
     standard_dimension_vectors: tuple[tuple[int, ...], ...]
     costandard_dimension_vectors: tuple[tuple[int, ...], ...]
-    essential_order: PartialOrder
+    relations: tuple[int, ...]
     representative: tuple[int, ...]  # its smallest quasi-hereditary total order, highest first
+
+    @cached_property
+    def essential_order(self) -> PartialOrder:
+        # the representative lists every vertex after all the vertices above it
+        return PartialOrder.from_upper_masks(self.vertices, self.relations, self.representative)
 
     def to_dict(self) -> dict[str, Any]:
         v = self.vertices
@@ -522,15 +534,14 @@ def _combine(
     # vertices of different blocks are independent: the smallest order of the
     # structure takes, at each step, the smallest next vertex of the blocks' smallest orders
     rep = tuple(heapq.merge(*paths)) if len(paths) > 1 else paths[0]
-    up = [0] * n  # mu < L for mu in below[L]; rep lists every vertex after those above it
+    up = [0] * n  # mu < L for mu in below[L]
     for L in range(n):
         m = below[L]
         while m:
             low = m & -m
             up[low.bit_length() - 1] |= 1 << L
             m ^= low
-    ess = PartialOrder.from_upper_masks(A.vertices, up, rep)
-    return Structure(A.vertices, tuple(sd), tuple(cd), ess, rep)
+    return Structure(A.vertices, tuple(sd), tuple(cd), tuple(up), rep)
 
 
 def _reaches_full(A: BasicAlgebra, tc: TraceCache, block: int) -> bool:
