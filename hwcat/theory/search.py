@@ -87,6 +87,7 @@ from math import factorial
 from typing import Any
 
 from hwcat.algebras.hub.basic import BasicAlgebra
+from hwcat.progress import task
 from hwcat.theory.highest_weight import trace_cache
 from hwcat.theory.orders import PartialOrder
 from hwcat.theory.traces import TraceCache, bits, mask
@@ -258,6 +259,14 @@ def _explore(
         above = [mask(b for (a, b) in upper.less if a == v) for v in range(n)]
     level: dict[int, int] = {0: 1}
     flags: dict[int, dict[int, int]] = {0: {0: 1}}
+    with task("order search: vertex sets by size", total=full.bit_count() + 1) as step:
+        _explore_levels(lat, tc, level, flags, full, above, upper is not None, structures, step)
+    return lat
+
+
+def _explore_levels(lat, tc, level, flags, full, above, ordered, structures, step) -> None:
+    """The breadth-first programme of :func:`_explore`, one level (set size) per ``step()``."""
+    n = lat.n
     for _ in range(n + 1):
         nxt: dict[int, int] = {}
         nflags: dict[int, dict[int, int]] = {}
@@ -265,7 +274,7 @@ def _explore(
             lat.deepest = S
             R = full & ~S
             cand = R
-            if upper is not None:
+            if ordered:
                 cand = mask(u for u in bits(R) if not above[u] & R)
             valid, lk = tc.survey(S, cand, full)
             lat.steps[S] = valid
@@ -307,9 +316,9 @@ def _explore(
         if full in level:
             lat.orders = level[full]
         level, flags = nxt, nflags
+        step()
         if not level:
             break
-    return lat
 
 
 def iter_structure_orders(lat: _Lattice) -> Iterator[tuple[int, ...]]:
@@ -476,8 +485,12 @@ def _orders(A: BasicAlgebra, list_limit: int | None) -> OrdersResult:
         cap = nstruct if list_limit is None else min(list_limit, nstruct)
         memo: dict = {}
         if cap:
-            for combo in _product_capped([iter_structure_orders(lat) for _, lat in per_block], cap):
-                structs.append(_combine(A, tc, combo, memo))
+            with task("order search: listing structures", total=cap) as step:
+                for combo in _product_capped(
+                    [iter_structure_orders(lat) for _, lat in per_block], cap
+                ):
+                    structs.append(_combine(A, tc, combo, memo))
+                    step()
         listed_all = len(structs) >= nstruct
     best: list[int] = []
     for _, lat in per_block:
@@ -550,21 +563,23 @@ def _reaches_full(A: BasicAlgebra, tc: TraceCache, block: int) -> bool:
     vs = bits(block)
     dead: set[int] = set()
     stack = [(0, iter(vs))]
-    while stack:
-        S, it = stack[-1]
-        if S == full:
-            return True
-        for u in it:
-            if S >> u & 1:
-                continue
-            T = S | (1 << u)
-            if T in dead or not tc.step_ok(S, u):
-                continue
-            stack.append((T, iter(vs)))
-            break
-        else:
-            dead.add(S)
-            stack.pop()
+    with task("order search: dead ends") as step:
+        while stack:
+            S, it = stack[-1]
+            if S == full:
+                return True
+            for u in it:
+                if S >> u & 1:
+                    continue
+                T = S | (1 << u)
+                if T in dead or not tc.step_ok(S, u):
+                    continue
+                stack.append((T, iter(vs)))
+                break
+            else:
+                dead.add(S)
+                stack.pop()
+                step()
     return False
 
 
