@@ -95,7 +95,7 @@ def test_campaign_commands_follow_the_same_rule(monkeypatch):
     from hwcat.cli.campaigns import _show_progress
 
     p = build_parser()
-    fuzz = ["fuzz", "claims.py:f"]
+    fuzz = ["fuzz", "claims.py:f", "--out", "d"]
     monkeypatch.setattr("sys.stderr", _Terminal())
     assert _show_progress(p.parse_args(fuzz))
     assert not _show_progress(p.parse_args([*fuzz, "--json"]))
