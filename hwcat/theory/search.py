@@ -188,6 +188,7 @@ class _Lattice:
         default_factory=dict
     )  # S -> per vertex: not independent
     parent: dict[int, int] = field(default_factory=dict)  # T -> a vertex u with T - u reachable
+    dead: dict[int, int] = field(default_factory=dict)  # S -> isolated(S), once computed
     orders: int = 0
     structures: int = 0
     deepest: int = 0  # a reachable set of largest size
@@ -210,9 +211,12 @@ class _Lattice:
 
     def isolated(self, S: int) -> int:
         """Vertices outside ``S`` independent in ``B_S`` of every other one outside ``S``."""
-        R = self.full & ~S
-        lk = self.linked[S]
-        return mask(v for v in bits(R) if not lk[v])
+        out = self.dead.get(S)
+        if out is None:
+            R = self.full & ~S
+            lk = self.linked[S]
+            out = self.dead[S] = mask(v for v in bits(R) if not lk[v])
+        return out
 
     def next_flags(self, S: int, F: int, u: int) -> int:
         """Flags after taking ``u`` at ``(S, F)`` (see the module docstring)."""
@@ -293,20 +297,27 @@ def _explore_levels(lat, tc, level, flags, full, above, ordered, structures, ste
             if S == full:
                 lat.structures = sum(states.values())
                 continue
-            dead = lat.isolated(S)
-            # v linked to u alone: isolated once u is taken (independence survives quotients)
-            only = [0] * n
+            if not states:
+                continue
+            # dead: isolated vertices (see _Lattice.isolated); only[1 << u]: the v linked
+            # to u alone, isolated once u is taken (independence survives quotients)
+            dead = 0
+            only: dict[int, int] = {}
             for v in bits(R):
                 x = lk[v]
-                if x and not x & (x - 1):
-                    only[x.bit_length() - 1] |= 1 << v
+                if not x:
+                    dead |= 1 << v
+                elif not x & (x - 1):
+                    only[x] = only.get(x, 0) | 1 << v
+            lat.dead[S] = dead
             for F, m in states.items():
                 if F & dead:
                     continue
                 for u in bits(valid & ~F):
-                    T = S | (1 << u)
-                    F2 = (F | ((1 << u) - 1)) & ~lk[u] & R & ~(1 << u)
-                    if F2 & only[u]:
+                    U = 1 << u
+                    T = S | U
+                    F2 = (F | (U - 1)) & ~lk[u] & R & ~U
+                    if only and F2 & only.get(U, 0):
                         continue
                     d = nflags.get(T)
                     if d is None:

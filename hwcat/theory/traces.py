@@ -92,7 +92,7 @@ class TraceCache:
         self.A = A
         n = A.n
         F = A.field
-        self._pdims = [A.projective_dims(s) for s in range(n)]
+        self._pdims = [tuple(map(len, A.words[s])) for s in range(n)]  # A.projective_dims(s)
         #: support of P(s): the vertices t with e_s A e_t != 0
         self.support = [mask(t for t in range(n) if self._pdims[s][t]) for s in range(n)]
         # the step test for u at S reads only the traces in P(u) and in the P(s) with
@@ -107,12 +107,15 @@ class TraceCache:
         #: per vertex u: the vertices whose membership in S can change the step test for u
         self.region = region
         self._steps: dict[tuple[int, int], bool] = {}
+        self._recurs: dict[int, list[bool]] = {}
+        self.n = n
         self._vt: dict[tuple[int, int], Any] = {}
         self._e: dict[tuple[int, int], tuple] = {}
         self._outs: list[list[int]] = [[] for _ in range(n)]  # arrows leaving each vertex
         for i, a in enumerate(A.arrows):
             self._outs[a.source].append(i)
-        #: per s: per arrow, basis index -> image index (-1: zero); None when P(s) is not in path mode
+        #: per s: per arrow acting on P(s), basis index -> image index (-1: zero); None when
+        #: P(s) is not in path mode
         self._moves = [self._path_moves(s) for s in range(n)]
         #: per s: whether the traces in P(s) are kept as sets of basis paths
         self.path_mode = [m is not None for m in self._moves]
@@ -123,16 +126,16 @@ class TraceCache:
                 zero = tuple(Mat.zeros(F, 0, d) for d in self._pdims[s])
             self._e[(0, s)] = self._entry(s, zero)
 
-    def _path_moves(self, s: int) -> list[list[int]] | None:
+    def _path_moves(self, s: int) -> dict[int, list[int]] | None:
         """Right multiplication by each arrow on the basis paths of ``P(s)``, if monomial."""
         A = self.A
         dims = self._pdims[s]
         arrows = A.arrows
-        per = [[-1] * dims[a.source] for a in arrows]  # the zero actions (not stored) first
+        per: dict[int, list[int]] = {}  # only the arrows acting on P(s) by a nonzero map
         for i in A.action_support(s):
             a = arrows[i]
             c = dims[a.target]
-            moves = per[i]
+            moves = per[i] = [-1] * dims[a.source]
             for k, x in enumerate(A.action_matrix(s, i).entries()):
                 if x:
                     r = k // c
@@ -180,7 +183,10 @@ class TraceCache:
         while todo:
             v, j = todo.pop()
             for i in outs[v]:
-                k = moves[i][j]
+                mv = moves.get(i)
+                if mv is None:
+                    continue
+                k = mv[j]
                 if k < 0:
                     continue
                 t = A.arrows[i].target
@@ -276,29 +282,34 @@ class TraceCache:
         ``within`` (a union of blocks of ``A``; default: all vertices) limits the
         vertices looked at.
         """
-        n = self.A.n
+        n = self.n
         sup = self.support
         E = self._e
-        R = (((1 << n) - 1) if within is None else within) & ~S
+        W = ((1 << n) - 1) if within is None else within
+        R = W & ~S
         ent: list[Any] = [None] * n
         col = [0] * n
         lk = [0] * n
+        bits_of = _BITS.get
         for s in bits(R):
             e = E.get((S & sup[s], s))
             if e is None:
                 e = self.entry(S, s)
             ent[s] = e
             out = e[2] & ~(1 << s)
-            lk[s] |= out
-            for t in bits(out):
-                col[t] |= 1 << s
+            if out:
+                lk[s] |= out
+                bo = bits_of(out)
+                for t in bo if bo is not None else bits(out):
+                    col[t] |= 1 << s
         valid = 0
         memo = self._steps
-        region = self.region
-        W = ((1 << n) - 1) if within is None else within
+        recur = self._recurs.get(W)
+        if recur is None:  # per vertex: whether the step test can recur within W
+            recur = self._recurs[W] = [r & W != W for r in self.region]
         for u in bits(candidates):
             # kept only when the test can recur: sets are visited once each
-            key = (S & region[u], u) if region[u] & W != W else None
+            key = (S & self.region[u], u) if recur[u] else None
             known = memo.get(key) if key is not None else None
             if known is not None:
                 if known:
