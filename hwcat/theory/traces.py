@@ -40,6 +40,7 @@ from hwcat.exact.matrices import echelon
 __all__ = ["TraceCache", "bits", "mask"]
 
 
+_UNDECIDED = object()  # a projective whose mode is not yet decided
 _BITS: dict[int, tuple[int, ...]] = {}
 _BITS_LIMIT = 1 << 20
 _BYTE = [tuple(i for i in range(8) if b >> i & 1) for b in range(256)]
@@ -85,13 +86,15 @@ class TraceCache:
     Each cache entry is ``(K, q, nonzero, total)``: the echelon bases ``K[t]``
     of the trace at every vertex ``t``, the dimension vector ``q`` of
     ``P(s)`` modulo the trace, the bitmask of the vertices where ``q`` is
-    nonzero, and ``sum(q)``.
+    nonzero, and ``sum(q)``.  The zero trace has ``K = None`` until it is
+    extended: the mode of ``P(s)`` (basis paths or echelon bases) is decided
+    the first time a trace in ``P(s)`` is built, so a search that stops early
+    never reads the actions of arrows it does not need.
     """
 
     def __init__(self, A: BasicAlgebra) -> None:
         self.A = A
         n = A.n
-        F = A.field
         self._pdims = [tuple(map(len, A.words[s])) for s in range(n)]  # A.projective_dims(s)
         #: support of P(s): the vertices t with e_s A e_t != 0
         self.support = [mask(t for t in range(n) if self._pdims[s][t]) for s in range(n)]
@@ -115,16 +118,29 @@ class TraceCache:
         for i, a in enumerate(A.arrows):
             self._outs[a.source].append(i)
         #: per s: per arrow acting on P(s), basis index -> image index (-1: zero); None when
-        #: P(s) is not in path mode
-        self._moves = [self._path_moves(s) for s in range(n)]
-        #: per s: whether the traces in P(s) are kept as sets of basis paths
-        self.path_mode = [m is not None for m in self._moves]
-        for s in range(n):
-            if self.path_mode[s]:
-                zero: tuple = (0,) * n
-            else:
-                zero = tuple(Mat.zeros(F, 0, d) for d in self._pdims[s])
-            self._e[(0, s)] = self._entry(s, zero)
+        #: P(s) is not in path mode; decided when P(s) is first needed
+        self._moves: list[Any] = [_UNDECIDED] * n
+        for s in range(n):  # the zero trace: no basis yet (see _zero), the whole of P(s) left
+            d = self._pdims[s]
+            self._e[(0, s)] = (None, d, self.support[s], sum(d))
+
+    @property
+    def path_mode(self) -> list[bool]:
+        """Per vertex ``s``: whether the traces in ``P(s)`` are kept as sets of basis paths."""
+        return [self._path(s) for s in range(self.n)]
+
+    def _path(self, s: int) -> bool:
+        m = self._moves[s]
+        if m is _UNDECIDED:
+            m = self._moves[s] = self._path_moves(s)
+        return m is not None
+
+    def _zero(self, s: int) -> tuple:
+        """The bases of the zero trace in ``P(s)``, in the form of its mode."""
+        if self._path(s):
+            return (0,) * self.n
+        F = self.A.field
+        return tuple(Mat.zeros(F, 0, d) for d in self._pdims[s])
 
     def _path_moves(self, s: int) -> dict[int, list[int]] | None:
         """Right multiplication by each arrow on the basis paths of ``P(s)``, if monomial."""
@@ -148,7 +164,7 @@ class TraceCache:
         dims = self._pdims[s]
         q = [0] * len(dims)
         nz = 0
-        path = self.path_mode[s]
+        path = self._path(s)
         for t in bits(self.support[s]):
             x = dims[t] - (K[t].bit_count() if path else K[t].nrows)
             if x:
@@ -162,7 +178,7 @@ class TraceCache:
         key = (u, s)
         if key not in self._vt:
             A = self.A
-            if self.path_mode[s]:
+            if self._path(s):
                 self._vt[key] = self._path_closure(s, u)
             else:
                 dims, maps = A.projective_rep(s)
@@ -212,12 +228,15 @@ class TraceCache:
         if e is not None:
             return e
         base = self.entry(X, s)
-        K0 = base[0]
+        K0 = base[0] if base[0] is not None else self._zero(s)
         if not base[1][u]:
             e = base  # e_s B e_u = 0: nothing new
-        elif self.path_mode[s]:
+        elif self._path(s):
             V = self.vertex_trace(u, s)
-            e = self._entry(s, tuple(k | v for k, v in zip(K0, V, strict=True)))
+            K = list(K0)
+            for t in bits(self.support[s]):  # traces vanish outside the support
+                K[t] |= V[t]
+            e = self._entry(s, tuple(K))
         else:
             F = self.A.field
             dims = self._pdims[s]
@@ -238,7 +257,9 @@ class TraceCache:
     def kernel(self, T: int, s: int) -> list[Mat]:
         """Echelon bases of ``e_s A e_T A`` inside ``P(s)``."""
         K = self.entry(T, s)[0]
-        if not self.path_mode[s]:
+        if K is None:
+            K = self._zero(s)
+        if not self._path(s):
             return list(K)
         F = self.A.field
         return [Mat.unit_rows(F, d, bits(k)) for d, k in zip(self._pdims[s], K, strict=True)]
