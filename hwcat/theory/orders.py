@@ -159,7 +159,28 @@ class PartialOrder:
         return nx.transitive_reduction(self.graph())
 
     def covers(self) -> list[tuple[int, int]]:
-        return sorted(self.hasse.edges())
+        """Cover relations ``(a, b)``: ``a < b`` with nothing between, sorted.
+
+        By bitmasks (``a < b`` is a cover unless some ``c`` above ``a`` lies
+        below ``b``); the same pairs as the edges of :attr:`hasse`.
+        """
+        return self._covers
+
+    @cached_property
+    def _covers(self) -> list[tuple[int, int]]:
+        n = self.n
+        above = [0] * n
+        for a, b in self.less:
+            above[a] |= 1 << b
+        below_b = [0] * n  # below_b[b]: the a with a < b
+        for a, b in self.less:
+            below_b[b] |= 1 << a
+        out = []
+        for a, b in self.less:
+            if not above[a] & below_b[b]:
+                out.append((a, b))
+        out.sort()
+        return out
 
     def covers_named(self) -> list[list[str]]:
         """Cover relations as ``[[smaller, larger], ...]``."""
