@@ -333,34 +333,50 @@ def _explore_levels(lat, tc, level, flags, full, above, ordered, structures, ste
 
 
 def iter_structure_orders(lat: _Lattice) -> Iterator[tuple[int, ...]]:
-    """The smallest quasi-hereditary total order of every structure, in increasing order."""
+    """The smallest quasi-hereditary total order of every structure, in increasing order.
+
+    Depth first over the states ``(S, F)`` of the counting programme, with an
+    explicit stack; a state from which no order was found is remembered as dead.
+    """
     full = lat.full
     if full not in lat.steps:
         return
+    if not full:
+        yield ()
+        return
+    steps = lat.steps
     dead: set[tuple[int, int]] = set()
     path: list[int] = []
-
-    def walk(S: int, F: int) -> Iterator[tuple[int, ...]]:
-        if S == full:
-            yield tuple(path)
-            return
-        if F & lat.isolated(S):
-            return
-        for u in bits(lat.steps[S] & ~F):
+    # frames: [S, F, candidates left, whether some order was found below]
+    stack: list[list] = [[0, 0, iter(bits(steps[0])), False]]
+    while stack:
+        top = stack[-1]
+        S, F, it = top[0], top[1], top[2]
+        for u in it:
             T = S | (1 << u)
             F2 = lat.next_flags(S, F, u)
             if (T, F2) in dead:
                 continue
-            path.append(u)
-            found = False
-            for out in walk(T, F2):
-                found = True
-                yield out
-            path.pop()
-            if not found:
+            if T == full:
+                top[3] = True
+                path.append(u)
+                yield tuple(path)
+                path.pop()
+                continue
+            if F2 & lat.isolated(T):
                 dead.add((T, F2))
-
-    yield from walk(0, 0)
+                continue
+            path.append(u)
+            stack.append([T, F2, iter(bits(steps[T] & ~F2)), False])
+            break
+        else:
+            stack.pop()
+            if stack:
+                path.pop()
+                if top[3]:
+                    stack[-1][3] = True
+                else:
+                    dead.add((S, F))
 
 
 def count_structures(A: BasicAlgebra) -> int:
