@@ -385,7 +385,12 @@ class Mat:
             if nullity < c:
                 X = _selection(self.field, nullity, c) * X
             return Mat(self.field, X)
-        R, piv = self.rref()
+        if r * c < _BULK_MIN:  # the zero rows of flint's echelon form need not be dropped
+            Rm, rank = m.rref()
+            piv = _pivots(Rm, rank, c)
+        else:
+            R, piv = self.rref()
+            Rm = R._m
         if len(piv) == c:
             return Mat.zeros(self.field, 0, c)
         ps = set(piv)
@@ -393,7 +398,6 @@ class Mat:
         basis = self.field._raw_matrix(len(free), c, [])
         for k, f in enumerate(free):
             basis[k, f] = 1  # flint converts the integer (cheaper than a field element)
-        Rm = R._m
         for i, p in enumerate(piv):
             for k, f in enumerate(free):
                 if f > p:  # entries left of a pivot are zero
@@ -463,6 +467,21 @@ def _selection(field: Field, k: int, n: int) -> Any:
 _RANGES = [tuple(range(k)) for k in range(_SELECT_MAX + 1)]
 
 
+def _pivots(R: Any, rank: int, c: int) -> tuple[int, ...]:
+    """The pivot columns of a flint reduced echelon form ``R`` of rank ``rank``."""
+    if rank <= _SELECT_MAX and (rank == c or (rank and R[rank - 1, rank - 1] != 0)):
+        # row i's pivot is at least i, so a nonzero at (rank-1, rank-1) pins them all
+        return _RANGES[rank]
+    piv = []
+    j = 0
+    for i in range(rank):
+        while R[i, j] == 0:
+            j += 1
+        piv.append(j)
+        j += 1
+    return tuple(piv)
+
+
 def _small_echelon(field: Field, R: Any, rank: int, r: int, c: int) -> tuple[Mat, tuple[int, ...]]:
     """``(nonzero rows, pivots)`` of flint's reduced echelon form ``R`` of rank ``rank``.
 
@@ -471,21 +490,14 @@ def _small_echelon(field: Field, R: Any, rank: int, r: int, c: int) -> tuple[Mat
     the pivots are the first ``rank`` columns (full column rank, or a nonzero
     entry at ``(rank - 1, rank - 1)``) one read suffices.
     """
-    if rank <= _SELECT_MAX and (rank == c or (rank and R[rank - 1, rank - 1] != 0)):
-        # row i's pivot is at least i, so a nonzero at (rank-1, rank-1) pins them all
-        pivots = _RANGES[rank]
-    else:
-        piv = []
-        j = 0
-        for i in range(rank):
-            while R[i, j] == 0:
-                j += 1
-            piv.append(j)
-            j += 1
-        pivots = tuple(piv)
-    if rank < r:
-        R = _selection(field, rank, r) * R if rank else field._raw_matrix(0, c, [])
-    return Mat(field, R), pivots
+    pivots = _pivots(R, rank, c)
+    if rank == r:
+        return Mat(field, R), pivots
+    if not rank:
+        return Mat.zeros(field, 0, c), pivots
+    if r * c < _BULK_MIN:  # a product costs rank * r * c: only for small matrices
+        return Mat(field, _selection(field, rank, r) * R), pivots
+    return Mat(field, R).take_rows(range(rank)), pivots
 
 
 # -- subspaces (row spaces) ------------------------------------------------------
