@@ -109,11 +109,12 @@ class TraceCache:
             region.append(r)
         #: per vertex u: the vertices whose membership in S can change the step test for u
         self.region = region
-        self._steps: dict[tuple[int, int], bool] = {}
+        self._steps: list[dict[int, bool]] = [{} for _ in range(n)]  # per u: S & region[u] -> answer
         self._recurs: dict[int, list[bool]] = {}
         self.n = n
         self._vt: dict[tuple[int, int], Any] = {}
-        self._e: dict[tuple[int, int], tuple] = {}
+        #: per s: trace of X (a subset of the support of P(s)) -> cache entry
+        self._e: list[dict[int, tuple]] = [{} for _ in range(n)]
         self._outs: list[list[int]] = [[] for _ in range(n)]  # arrows leaving each vertex
         for i, a in enumerate(A.arrows):
             self._outs[a.source].append(i)
@@ -122,7 +123,7 @@ class TraceCache:
         self._moves: list[Any] = [_UNDECIDED] * n
         for s in range(n):  # the zero trace: no basis yet (see _zero), the whole of P(s) left
             d = self._pdims[s]
-            self._e[(0, s)] = (None, d, self.support[s], sum(d))
+            self._e[s][0] = (None, d, self.support[s], sum(d))
 
     @property
     def path_mode(self) -> list[bool]:
@@ -214,7 +215,7 @@ class TraceCache:
     def entry(self, T: int, s: int) -> tuple:
         """The cache entry of the trace of ``T`` in ``P(s)`` (see the class docstring)."""
         X = T & self.support[s]
-        e = self._e.get((X, s))
+        e = self._e[s].get(X)
         if e is not None:
             return e
         # peel the highest element: any order gives the same trace
@@ -224,7 +225,7 @@ class TraceCache:
     def _add(self, X: int, u: int, s: int) -> tuple:
         """Entry of ``X + {u}`` from the entry of ``X`` (``X`` inside the support, ``u`` in it)."""
         T = X | (1 << u)
-        e = self._e.get((T, s))
+        e = self._e[s].get(T)
         if e is not None:
             return e
         base = self.entry(X, s)
@@ -251,7 +252,7 @@ class TraceCache:
                 else:
                     K[t] = echelon(Mat.vstack(F, [K0[t], v], dims[t]))
             e = self._entry(s, tuple(K))
-        self._e[(T, s)] = e
+        self._e[s][T] = e
         return e
 
     def kernel(self, T: int, s: int) -> list[Mat]:
@@ -313,7 +314,7 @@ class TraceCache:
         lk = [0] * n
         bits_of = _BITS.get
         for s in bits(R):
-            e = E.get((S & sup[s], s))
+            e = E[s].get(S & sup[s])
             if e is None:
                 e = self.entry(S, s)
             ent[s] = e
@@ -325,21 +326,24 @@ class TraceCache:
                     col[t] |= 1 << s
         valid = 0
         memo = self._steps
+        region = self.region
         recur = self._recurs.get(W)
         if recur is None:  # per vertex: whether the step test can recur within W
-            recur = self._recurs[W] = [r & W != W for r in self.region]
+            recur = self._recurs[W] = [r & W != W for r in region]
         for u in bits(candidates):
             # kept only when the test can recur: sets are visited once each
-            key = (S & self.region[u], u) if recur[u] else None
-            known = memo.get(key) if key is not None else None
-            if known is not None:
-                if known:
-                    valid |= 1 << u
-                continue
+            mu = memo[u] if recur[u] else None
+            if mu is not None:
+                key = S & region[u]
+                known = mu.get(key)
+                if known is not None:
+                    if known:
+                        valid |= 1 << u
+                    continue
             eu = ent[u]
             if eu[1][u] != 1:
-                if key is not None:
-                    memo[key] = False
+                if mu is not None:
+                    mu[key] = False
                 continue
             eB = eu[3]
             U = 1 << u
@@ -350,7 +354,7 @@ class TraceCache:
                 es = ent[s]
                 a = es[1][u]
                 X = S & sup[s]
-                after = E.get((X | U, s))
+                after = E[s].get(X | U)
                 if after is None:
                     # e_s B e_u (x) e_u B e_t embeds in e_s B e_t: a count may already fail
                     qs = es[1]
@@ -361,8 +365,8 @@ class TraceCache:
                 if es[3] - after[3] != a * eB:
                     ok = False
                     break
-            if key is not None:
-                memo[key] = ok
+            if mu is not None:
+                mu[key] = ok
             if ok:
                 valid |= U
         for u in bits(R):
@@ -388,7 +392,7 @@ class TraceCache:
             if not a:
                 continue
             X = S & sup[s]
-            after = self._e.get((X | U, s))
+            after = self._e[s].get(X | U)
             if after is None:
                 after = self._add(X, u, s)
             if rs[2] - after[3] != a * eB:
