@@ -284,6 +284,50 @@ def test_left_kernel(A: Mat) -> None:
     assert ref.same_rowspace(k, ref.nullspace(transpose_rows(rows, c), r), r)
 
 
+@st.composite
+def medium_matrices(draw) -> Mat:
+    """Up to 14 x 14, often of low rank: the small-matrix fast paths (pivot shortcut,
+    rows kept by a cached selection product, flint's nullspace over GF(p))."""
+    F = draw(fields)
+    r, c = draw(st.integers(1, 14)), draw(st.integers(1, 14))
+    return mk(F, draw(raw_rows(F, r, c)), c)
+
+
+def canonical_kernel(F: Field, rows: Rows, ncols: int) -> Rows:
+    """The kernel basis read off sympy's reduced echelon form: one row per free column f,
+    1 at f, -R[i, f] at the pivot of row i (the form documented in ``Mat.right_kernel``)."""
+    R, piv = Ref(F).rref(rows, ncols)
+    p = F.characteristic
+    out = []
+    for f in (j for j in range(ncols) if j not in piv):
+        row: list = [0] * ncols
+        row[f] = 1
+        for i, q in enumerate(piv):
+            x = -R[i][f]
+            row[q] = x if p == 0 else x % p
+        out.append([Fraction(x) for x in row] if p == 0 else row)
+    return out
+
+
+@MEDIUM
+@given(medium_matrices())
+def test_small_paths_match_sympy(A: Mat) -> None:
+    """Reference: sympy DDM.rref, and sympy.Matrix.nullspace over QQ (same normal form)."""
+    F, c = A.field, A.ncols
+    rows = rows_of(A)
+    want_rows, want_piv = Ref(F).rref(rows, c)
+    for _ in range(2):  # twice: cached selection matrices must come back unchanged
+        R, piv = A.rref()
+        assert (rows_of(R), piv) == (want_rows, want_piv)
+        assert A.rank() == len(want_piv)
+        K = A.right_kernel()
+        assert K.shape == (c - len(want_piv), c)
+        assert rows_of(K) == canonical_kernel(F, rows, c)
+    if F is QQ:
+        basis = to_sympy(F, rows, c).nullspace()
+        assert rows_of(K) == [from_sympy(F, v.T)[0] for v in basis]
+
+
 def test_kernel_worked_example() -> None:
     # derived: [[1, 2], [2, 4]] has left kernel spanned by (-2, 1), right kernel by (-2, 1)
     A = mk(QQ, [[1, 2], [2, 4]], 2)

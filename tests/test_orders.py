@@ -96,6 +96,7 @@ def test_hasse_diagram(P):
         if not any((a, c) in P.less and (c, b) in P.less for c in range(P.n))
     )
     assert P.covers() == covers
+    assert P.covers() == sorted(P.hasse.edges())  # networkx's transitive reduction
     # the closure of the covers is the order again
     assert PartialOrder.from_relations(P.vertices, covers).less == P.less
     assert nx.is_directed_acyclic_graph(G)
@@ -124,3 +125,15 @@ def test_first_extension_matches_networkx(data):
     order = PartialOrder.from_relations([str(v) for v in range(n)], pairs)
     G = order.graph().reverse()
     assert order.first_extension() == tuple(nx.lexicographical_topological_sort(G))
+
+
+@settings(max_examples=60, deadline=None)
+@given(random_orders())
+def test_closure_along_a_given_linear_extension(P):
+    # from_upper_masks with a linear extension (highest first) skips the topological sort;
+    # the closure must be the same order (derived check against Kahn's algorithm)
+    up = [0] * P.n
+    for a, b in P.covers():
+        up[a] |= 1 << b
+    assert PartialOrder.from_upper_masks(P.vertices, up) == P
+    assert PartialOrder.from_upper_masks(P.vertices, up, P.first_extension()) == P

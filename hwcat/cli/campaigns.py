@@ -15,6 +15,13 @@ from hwcat.errors import CampaignError
 __all__ = ["register"]
 
 
+def _show_progress(args: argparse.Namespace) -> bool:
+    """Bars on a terminal only, never with ``--json`` (as for every command)."""
+    from hwcat.cli import show_progress
+
+    return show_progress(sys.stderr, args)
+
+
 def _cmd_fuzz(args: argparse.Namespace) -> int:
     from hwcat.campaigns.cluster import require_dask
 
@@ -33,7 +40,7 @@ def _cmd_fuzz(args: argparse.Namespace) -> int:
         timeout=None if args.timeout == 0 else args.timeout,
         out=args.out,
         shrink=not args.no_shrink,
-        progress=sys.stderr.isatty(),
+        progress=_show_progress(args),
     )
     if args.json:
         print(json.dumps(report.to_dict(), indent=2))
@@ -66,7 +73,7 @@ def _cmd_survey(args: argparse.Namespace) -> int:
         workers=args.workers,
         scheduler=args.scheduler,
         timeout=None if args.timeout == 0 else args.timeout,
-        progress=sys.stderr.isatty(),
+        progress=_show_progress(args),
     )
     write_csv(table, args.output)
     if args.json:

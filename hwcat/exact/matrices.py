@@ -321,10 +321,13 @@ class Mat:
     # -- linear algebra ----------------------------------------------------------
     def rref(self) -> tuple[Mat, tuple[int, ...]]:
         """Reduced row echelon form: ``(R, pivots)`` with R holding only the nonzero rows."""
-        r, c = self.shape
+        m = self._m
+        r, c = m.nrows(), m.ncols()
         if r == 0 or c == 0:
             return Mat.zeros(self.field, 0, c), ()
-        R, rank = self._m.rref()
+        R, rank = m.rref()
+        if r * c < _BULK_MIN:
+            return _small_echelon(self.field, R, rank, r, c)
         buf = self._residues()  # None unless one-piece copies work for this matrix
         if buf is not None:
             buf = read_residues(R)
@@ -340,17 +343,7 @@ class Mat:
             if rank == r:
                 return Mat(self.field, R), tuple(pivots)
             return Mat._from_residues(self.field, rank, c, buf[: rank * c]), tuple(pivots)
-        pivots = []
-        j = 0
-        for i in range(rank):  # read entries one by one: rows end at their pivot quickly
-            while R[i, j] == 0:
-                j += 1
-            pivots.append(j)
-            j += 1
-        out = Mat(self.field, R)  # a new flint matrix: no copy needed
-        if rank < r:
-            out = out.take_rows(range(rank))
-        return out, tuple(pivots)
+        return _small_echelon(self.field, R, rank, r, c)
 
     def echelon_pivots(self) -> tuple[int, ...]:
         """Pivot columns of a matrix already in reduced echelon form (no elimination)."""
@@ -368,28 +361,49 @@ class Mat:
         return tuple(piv)
 
     def rank(self) -> int:
-        if self.nrows == 0 or self.ncols == 0:
-            return 0
-        return self._m.rank()
+        return self._m.rank()  # flint answers 0 for empty matrices
 
     def right_kernel(self) -> Mat:
-        """Rows forming a basis of ``{x : A x^T = 0}`` (exactly nullity rows)."""
-        r, c = self.shape
-        R, piv = self.rref()
-        free = [j for j in range(c) if j not in set(piv)]
-        if not free:
+        """Rows forming a basis of ``{x : A x^T = 0}`` (exactly nullity rows).
+
+        The basis is the one read off the reduced echelon form: one row per
+        free (non-pivot) column ``f``, with 1 at ``f``, ``-R[i, f]`` at the
+        pivot column of row ``i`` and 0 elsewhere, rows in increasing ``f``.
+        """
+        m = self._m
+        r, c = m.nrows(), m.ncols()
+        if c == 0:
+            return Mat.zeros(self.field, 0, 0)
+        if r == 0:
+            return Mat.identity(self.field, c)
+        if isinstance(self.field, PrimeField) and r * c < _BULK_MIN:
+            # flint's nullspace is this basis, as the first ``nullity`` columns
+            X, nullity = m.nullspace()
+            if not nullity:
+                return Mat.zeros(self.field, 0, c)
+            X = X.transpose()
+            if nullity < c:
+                X = _selection(self.field, nullity, c) * X
+            return Mat(self.field, X)
+        if r * c < _BULK_MIN:  # the zero rows of flint's echelon form need not be dropped
+            Rm, rank = m.rref()
+            piv = _pivots(Rm, rank, c)
+        else:
+            R, piv = self.rref()
+            Rm = R._m
+        if len(piv) == c:
             return Mat.zeros(self.field, 0, c)
-        # x_free = unit, x_pivot_i = -R[i, free]
+        ps = set(piv)
+        free = [j for j in range(c) if j not in ps]
         basis = self.field._raw_matrix(len(free), c, [])
-        one = self.field.one
         for k, f in enumerate(free):
-            basis[k, f] = one
-        Re = R._m.entries()
+            basis[k, f] = 1  # flint converts the integer (cheaper than a field element)
         for i, p in enumerate(piv):
             for k, f in enumerate(free):
-                x = Re[i * c + f]
-                if x != 0:
-                    basis[k, p] = -x
+                if f > p:  # entries left of a pivot are zero
+                    x = Rm[i, f]
+                    if x != 0:
+                        basis[k, p] = -x
         return Mat(self.field, basis)
 
     def left_kernel(self) -> Mat:
@@ -424,6 +438,66 @@ class Mat:
         if self.nrows == 0:
             return self
         return Mat(self.field, self._m.inv())
+
+
+# -- small echelon forms ---------------------------------------------------------------
+
+_SELECT: dict[tuple, Any] = {}  # (field, k, n) -> the first k rows of the n x n identity (flint)
+_SELECT_MAX = 64
+
+
+def _selection(field: Field, k: int, n: int) -> Any:
+    """The first ``k`` rows of the ``n x n`` identity as a flint matrix (cached; never mutated).
+
+    Multiplying by it keeps the first ``k`` rows of a matrix inside flint: on
+    matrices of a few hundred entries a product is several times cheaper than
+    reading the rows out and building a new matrix from Python objects.
+    """
+    key = (field, k, n)
+    S = _SELECT.get(key)
+    if S is None:
+        S = field._raw_matrix(k, n, [])
+        for i in range(k):
+            S[i, i] = 1
+        if n <= _SELECT_MAX:
+            _SELECT[key] = S
+    return S
+
+
+_RANGES = [tuple(range(k)) for k in range(_SELECT_MAX + 1)]
+
+
+def _pivots(R: Any, rank: int, c: int) -> tuple[int, ...]:
+    """The pivot columns of a flint reduced echelon form ``R`` of rank ``rank``."""
+    if rank <= _SELECT_MAX and (rank == c or (rank and R[rank - 1, rank - 1] != 0)):
+        # row i's pivot is at least i, so a nonzero at (rank-1, rank-1) pins them all
+        return _RANGES[rank]
+    piv = []
+    j = 0
+    for i in range(rank):
+        while R[i, j] == 0:
+            j += 1
+        piv.append(j)
+        j += 1
+    return tuple(piv)
+
+
+def _small_echelon(field: Field, R: Any, rank: int, r: int, c: int) -> tuple[Mat, tuple[int, ...]]:
+    """``(nonzero rows, pivots)`` of flint's reduced echelon form ``R`` of rank ``rank``.
+
+    The pivot of row ``i`` is its first nonzero entry; a row's entries left of
+    its pivot are zero, so the scan reads at most ``rank + c`` entries.  When
+    the pivots are the first ``rank`` columns (full column rank, or a nonzero
+    entry at ``(rank - 1, rank - 1)``) one read suffices.
+    """
+    pivots = _pivots(R, rank, c)
+    if rank == r:
+        return Mat(field, R), pivots
+    if not rank:
+        return Mat.zeros(field, 0, c), pivots
+    if r * c < _BULK_MIN:  # a product costs rank * r * c: only for small matrices
+        return Mat(field, _selection(field, rank, r) * R), pivots
+    return Mat(field, R).take_rows(range(rank)), pivots
 
 
 # -- subspaces (row spaces) ------------------------------------------------------

@@ -82,10 +82,12 @@ import heapq
 from collections.abc import Iterator
 from contextlib import contextmanager
 from dataclasses import dataclass, field
+from functools import cached_property
 from math import factorial
 from typing import Any
 
 from hwcat.algebras.hub.basic import BasicAlgebra
+from hwcat.progress import task
 from hwcat.theory.highest_weight import trace_cache
 from hwcat.theory.orders import PartialOrder
 from hwcat.theory.traces import TraceCache, bits, mask
@@ -106,13 +108,24 @@ DEFAULT_LIST_LIMIT = 20
 
 @dataclass(frozen=True)
 class Structure:
-    """One quasi-hereditary structure: its standard modules and essential order."""
+    """One quasi-hereditary structure: its standard modules and essential order.
+
+    ``relations[mu]`` is the bitmask of the ``L`` with ``[Delta(L) : L(mu)]``
+    or ``[nabla(L) : L(mu)]`` nonzero (``mu != L``); the essential order is
+    the partial order they generate, built when first asked for (listing
+    many structures need not close every order).
+    """
 
     vertices: tuple[str, ...]
     standard_dimension_vectors: tuple[tuple[int, ...], ...]
     costandard_dimension_vectors: tuple[tuple[int, ...], ...]
-    essential_order: PartialOrder
+    relations: tuple[int, ...]
     representative: tuple[int, ...]  # its smallest quasi-hereditary total order, highest first
+
+    @cached_property
+    def essential_order(self) -> PartialOrder:
+        # the representative lists every vertex after all the vertices above it
+        return PartialOrder.from_upper_masks(self.vertices, self.relations, self.representative)
 
     def to_dict(self) -> dict[str, Any]:
         v = self.vertices
@@ -175,6 +188,7 @@ class _Lattice:
         default_factory=dict
     )  # S -> per vertex: not independent
     parent: dict[int, int] = field(default_factory=dict)  # T -> a vertex u with T - u reachable
+    dead: dict[int, int] = field(default_factory=dict)  # S -> isolated(S), once computed
     orders: int = 0
     structures: int = 0
     deepest: int = 0  # a reachable set of largest size
@@ -197,9 +211,12 @@ class _Lattice:
 
     def isolated(self, S: int) -> int:
         """Vertices outside ``S`` independent in ``B_S`` of every other one outside ``S``."""
-        R = self.full & ~S
-        lk = self.linked[S]
-        return mask(v for v in bits(R) if not lk[v])
+        out = self.dead.get(S)
+        if out is None:
+            R = self.full & ~S
+            lk = self.linked[S]
+            out = self.dead[S] = mask(v for v in bits(R) if not lk[v])
+        return out
 
     def next_flags(self, S: int, F: int, u: int) -> int:
         """Flags after taking ``u`` at ``(S, F)`` (see the module docstring)."""
@@ -246,6 +263,14 @@ def _explore(
         above = [mask(b for (a, b) in upper.less if a == v) for v in range(n)]
     level: dict[int, int] = {0: 1}
     flags: dict[int, dict[int, int]] = {0: {0: 1}}
+    with task("order search: vertex sets by size", total=full.bit_count() + 1) as step:
+        _explore_levels(lat, tc, level, flags, full, above, upper is not None, structures, step)
+    return lat
+
+
+def _explore_levels(lat, tc, level, flags, full, above, ordered, structures, step) -> None:
+    """The breadth-first programme of :func:`_explore`, one level (set size) per ``step()``."""
+    n = lat.n
     for _ in range(n + 1):
         nxt: dict[int, int] = {}
         nflags: dict[int, dict[int, int]] = {}
@@ -253,7 +278,7 @@ def _explore(
             lat.deepest = S
             R = full & ~S
             cand = R
-            if upper is not None:
+            if ordered:
                 cand = mask(u for u in bits(R) if not above[u] & R)
             valid, lk = tc.survey(S, cand, full)
             lat.steps[S] = valid
@@ -272,20 +297,27 @@ def _explore(
             if S == full:
                 lat.structures = sum(states.values())
                 continue
-            dead = lat.isolated(S)
-            # v linked to u alone: isolated once u is taken (independence survives quotients)
-            only = [0] * n
+            if not states:
+                continue
+            # dead: isolated vertices (see _Lattice.isolated); only[1 << u]: the v linked
+            # to u alone, isolated once u is taken (independence survives quotients)
+            dead = 0
+            only: dict[int, int] = {}
             for v in bits(R):
                 x = lk[v]
-                if x and not x & (x - 1):
-                    only[x.bit_length() - 1] |= 1 << v
+                if not x:
+                    dead |= 1 << v
+                elif not x & (x - 1):
+                    only[x] = only.get(x, 0) | 1 << v
+            lat.dead[S] = dead
             for F, m in states.items():
                 if F & dead:
                     continue
                 for u in bits(valid & ~F):
-                    T = S | (1 << u)
-                    F2 = (F | ((1 << u) - 1)) & ~lk[u] & R & ~(1 << u)
-                    if F2 & only[u]:
+                    U = 1 << u
+                    T = S | U
+                    F2 = (F | (U - 1)) & ~lk[u] & R & ~U
+                    if only and F2 & only.get(U, 0):
                         continue
                     d = nflags.get(T)
                     if d is None:
@@ -295,40 +327,56 @@ def _explore(
         if full in level:
             lat.orders = level[full]
         level, flags = nxt, nflags
+        step()
         if not level:
             break
-    return lat
 
 
 def iter_structure_orders(lat: _Lattice) -> Iterator[tuple[int, ...]]:
-    """The smallest quasi-hereditary total order of every structure, in increasing order."""
+    """The smallest quasi-hereditary total order of every structure, in increasing order.
+
+    Depth first over the states ``(S, F)`` of the counting programme, with an
+    explicit stack; a state from which no order was found is remembered as dead.
+    """
     full = lat.full
     if full not in lat.steps:
         return
+    if not full:
+        yield ()
+        return
+    steps = lat.steps
     dead: set[tuple[int, int]] = set()
     path: list[int] = []
-
-    def walk(S: int, F: int) -> Iterator[tuple[int, ...]]:
-        if S == full:
-            yield tuple(path)
-            return
-        if F & lat.isolated(S):
-            return
-        for u in bits(lat.steps[S] & ~F):
+    # frames: [S, F, candidates left, whether some order was found below]
+    stack: list[list] = [[0, 0, iter(bits(steps[0])), False]]
+    while stack:
+        top = stack[-1]
+        S, F, it = top[0], top[1], top[2]
+        for u in it:
             T = S | (1 << u)
             F2 = lat.next_flags(S, F, u)
             if (T, F2) in dead:
                 continue
-            path.append(u)
-            found = False
-            for out in walk(T, F2):
-                found = True
-                yield out
-            path.pop()
-            if not found:
+            if T == full:
+                top[3] = True
+                path.append(u)
+                yield tuple(path)
+                path.pop()
+                continue
+            if F2 & lat.isolated(T):
                 dead.add((T, F2))
-
-    yield from walk(0, 0)
+                continue
+            path.append(u)
+            stack.append([T, F2, iter(bits(steps[T] & ~F2)), False])
+            break
+        else:
+            stack.pop()
+            if stack:
+                path.pop()
+                if top[3]:
+                    stack[-1][3] = True
+                else:
+                    dead.add((S, F))
 
 
 def count_structures(A: BasicAlgebra) -> int:
@@ -353,36 +401,39 @@ def count_quasi_hereditary_extensions(A: BasicAlgebra, order: PartialOrder) -> i
         return _explore(A, trace_cache(A), order, structures=False).orders
 
 
-def _fill(tc: TraceCache, n: int, path: tuple[int, ...], sd, cd, below) -> None:
+def _fill(tc: TraceCache, n: int, path: tuple[int, ...], sd, cd, below, memo: dict) -> None:
     """Standard and costandard dimension vectors along ``path`` (one block's order, highest first).
 
     With ``B = A / A e_S A`` for the set ``S`` above ``u``: ``Delta(u) = P_B(u)``
     and ``nabla(u)`` is the injective hull ``I_B(u)`` of the simple over ``B``
     (the largest submodule of ``I(u)`` killed by ``A e_S A``), so
     ``[nabla(u) : L(t)] = dim e_t B e_u``.  ``below[u]`` collects the ``mu != u``
-    with ``[Delta(u) : L(mu)]`` or ``[nabla(u) : L(mu)]`` nonzero.
+    with ``[Delta(u) : L(mu)]`` or ``[nabla(u) : L(mu)]`` nonzero.  The answer
+    for ``u`` depends only on ``(S, u)``; ``memo`` keeps it for the other
+    orders listed (they share prefixes).
     """
     S = 0
-    block = bits(mask(path))  # other blocks of the algebra see nothing of this one
+    rest = mask(path)  # other blocks of the algebra see nothing of this one
     for u in path:
-        rows = [(t, tc.row(S, t)) for t in block if not S >> t & 1]
-        ru = tc.row(S, u)
-        sd[u] = ru[0]
-        c = [0] * n
-        b = ru[1]
-        for t, r in rows:
-            x = r[0][u]
-            if x:
-                c[t] = x
-                b |= 1 << t
-        cd[u] = tuple(c)
-        below[u] = b & ~(1 << u)
+        got = memo.get((S, u))
+        if got is None:
+            ru = tc.row(S, u)
+            c = [0] * n
+            b = ru[1]
+            for t in bits(rest):
+                x = tc.entry(S, t)[1][u]
+                if x:
+                    c[t] = x
+                    b |= 1 << t
+            got = memo[(S, u)] = (ru[0], tuple(c), b & ~(1 << u))
+        sd[u], cd[u], below[u] = got
         S |= 1 << u
+        rest &= ~(1 << u)
 
 
 def _structure(A: BasicAlgebra, tc: TraceCache, path: tuple[int, ...]) -> Structure:
     """The structure of a quasi-hereditary total order ``path`` (highest first), from cached traces."""
-    return _combine(A, tc, [path])
+    return _combine(A, tc, [path], {})
 
 
 def quasi_hereditary_orders(
@@ -459,9 +510,14 @@ def _orders(A: BasicAlgebra, list_limit: int | None) -> OrdersResult:
         for _, lat in per_block:
             nstruct *= lat.structures
         cap = nstruct if list_limit is None else min(list_limit, nstruct)
+        memo: dict = {}
         if cap:
-            for combo in _product_capped([iter_structure_orders(lat) for _, lat in per_block], cap):
-                structs.append(_combine(A, tc, combo))
+            with task("order search: listing structures", total=cap) as step:
+                for combo in _product_capped(
+                    [iter_structure_orders(lat) for _, lat in per_block], cap
+                ):
+                    structs.append(_combine(A, tc, combo, memo))
+                    step()
         listed_all = len(structs) >= nstruct
     best: list[int] = []
     for _, lat in per_block:
@@ -505,20 +561,27 @@ def _product_capped(blocks, cap: int):
     return out[:cap]
 
 
-def _combine(A: BasicAlgebra, tc: TraceCache, paths: list[tuple[int, ...]]) -> Structure:
+def _combine(
+    A: BasicAlgebra, tc: TraceCache, paths: list[tuple[int, ...]], memo: dict
+) -> Structure:
     """Glue the structures of the blocks (each given by its smallest order) into one of ``A``."""
     n = A.n
     sd: list[tuple[int, ...]] = [()] * n
     cd: list[tuple[int, ...]] = [()] * n
     below = [0] * n
     for path in paths:
-        _fill(tc, n, path, sd, cd, below)
+        _fill(tc, n, path, sd, cd, below, memo)
     # vertices of different blocks are independent: the smallest order of the
     # structure takes, at each step, the smallest next vertex of the blocks' smallest orders
-    rep = tuple(heapq.merge(*paths))
-    pairs = [(mu, L) for L in range(n) for mu in bits(below[L])]
-    ess = PartialOrder.from_relations(A.vertices, pairs)
-    return Structure(A.vertices, tuple(sd), tuple(cd), ess, rep)
+    rep = tuple(heapq.merge(*paths)) if len(paths) > 1 else paths[0]
+    up = [0] * n  # mu < L for mu in below[L]
+    for L in range(n):
+        m = below[L]
+        while m:
+            low = m & -m
+            up[low.bit_length() - 1] |= 1 << L
+            m ^= low
+    return Structure(A.vertices, tuple(sd), tuple(cd), tuple(up), rep)
 
 
 def _reaches_full(A: BasicAlgebra, tc: TraceCache, block: int) -> bool:
@@ -527,21 +590,23 @@ def _reaches_full(A: BasicAlgebra, tc: TraceCache, block: int) -> bool:
     vs = bits(block)
     dead: set[int] = set()
     stack = [(0, iter(vs))]
-    while stack:
-        S, it = stack[-1]
-        if S == full:
-            return True
-        for u in it:
-            if S >> u & 1:
-                continue
-            T = S | (1 << u)
-            if T in dead or not tc.step_ok(S, u):
-                continue
-            stack.append((T, iter(vs)))
-            break
-        else:
-            dead.add(S)
-            stack.pop()
+    with task("order search: dead ends") as step:
+        while stack:
+            S, it = stack[-1]
+            if S == full:
+                return True
+            for u in it:
+                if S >> u & 1:
+                    continue
+                T = S | (1 << u)
+                if T in dead or not tc.step_ok(S, u):
+                    continue
+                stack.append((T, iter(vs)))
+                break
+            else:
+                dead.add(S)
+                stack.pop()
+                step()
     return False
 
 

@@ -40,6 +40,7 @@ from hwcat.exact.matrices import echelon
 __all__ = ["TraceCache", "bits", "mask"]
 
 
+_UNDECIDED = object()  # a projective whose mode is not yet decided
 _BITS: dict[int, tuple[int, ...]] = {}
 _BITS_LIMIT = 1 << 20
 _BYTE = [tuple(i for i in range(8) if b >> i & 1) for b in range(256)]
@@ -85,14 +86,16 @@ class TraceCache:
     Each cache entry is ``(K, q, nonzero, total)``: the echelon bases ``K[t]``
     of the trace at every vertex ``t``, the dimension vector ``q`` of
     ``P(s)`` modulo the trace, the bitmask of the vertices where ``q`` is
-    nonzero, and ``sum(q)``.
+    nonzero, and ``sum(q)``.  The zero trace has ``K = None`` until it is
+    extended: the mode of ``P(s)`` (basis paths or echelon bases) is decided
+    the first time a trace in ``P(s)`` is built, so a search that stops early
+    never reads the actions of arrows it does not need.
     """
 
     def __init__(self, A: BasicAlgebra) -> None:
         self.A = A
         n = A.n
-        F = A.field
-        self._pdims = [A.projective_dims(s) for s in range(n)]
+        self._pdims = [tuple(map(len, A.words[s])) for s in range(n)]  # A.projective_dims(s)
         #: support of P(s): the vertices t with e_s A e_t != 0
         self.support = [mask(t for t in range(n) if self._pdims[s][t]) for s in range(n)]
         # the step test for u at S reads only the traces in P(u) and in the P(s) with
@@ -106,45 +109,63 @@ class TraceCache:
             region.append(r)
         #: per vertex u: the vertices whose membership in S can change the step test for u
         self.region = region
-        self._steps: dict[tuple[int, int], bool] = {}
+        self._steps: list[dict[int, bool]] = [{} for _ in range(n)]  # per u: S & region[u] -> answer
+        self._recurs: dict[int, list[bool]] = {}
+        self.n = n
         self._vt: dict[tuple[int, int], Any] = {}
-        self._e: dict[tuple[int, int], tuple] = {}
+        #: per s: trace of X (a subset of the support of P(s)) -> cache entry
+        self._e: list[dict[int, tuple]] = [{} for _ in range(n)]
         self._outs: list[list[int]] = [[] for _ in range(n)]  # arrows leaving each vertex
         for i, a in enumerate(A.arrows):
             self._outs[a.source].append(i)
-        #: per s: per arrow, basis index -> image index (-1: zero); None when P(s) is not in path mode
-        self._moves = [self._path_moves(s) for s in range(n)]
-        #: per s: whether the traces in P(s) are kept as sets of basis paths
-        self.path_mode = [m is not None for m in self._moves]
-        for s in range(n):
-            if self.path_mode[s]:
-                zero: tuple = (0,) * n
-            else:
-                zero = tuple(Mat.zeros(F, 0, d) for d in self._pdims[s])
-            self._e[(0, s)] = self._entry(s, zero)
+        #: per s: per arrow acting on P(s), basis index -> image index (-1: zero); None when
+        #: P(s) is not in path mode; decided when P(s) is first needed
+        self._moves: list[Any] = [_UNDECIDED] * n
+        for s in range(n):  # the zero trace: no basis yet (see _zero), the whole of P(s) left
+            d = self._pdims[s]
+            self._e[s][0] = (None, d, self.support[s], sum(d))
 
-    def _path_moves(self, s: int) -> list[list[int]] | None:
+    @property
+    def path_mode(self) -> list[bool]:
+        """Per vertex ``s``: whether the traces in ``P(s)`` are kept as sets of basis paths."""
+        return [self._path(s) for s in range(self.n)]
+
+    def _path(self, s: int) -> bool:
+        m = self._moves[s]
+        if m is _UNDECIDED:
+            m = self._moves[s] = self._path_moves(s)
+        return m is not None
+
+    def _zero(self, s: int) -> tuple:
+        """The bases of the zero trace in ``P(s)``, in the form of its mode."""
+        if self._path(s):
+            return (0,) * self.n
+        F = self.A.field
+        return tuple(Mat.zeros(F, 0, d) for d in self._pdims[s])
+
+    def _path_moves(self, s: int) -> dict[int, list[int]] | None:
         """Right multiplication by each arrow on the basis paths of ``P(s)``, if monomial."""
-        per = []
+        A = self.A
         dims = self._pdims[s]
-        for a, m in zip(self.A.arrows, self.A.action[s], strict=True):
-            r, c = dims[a.source], dims[a.target]
-            moves = [-1] * r
-            if r and c:
-                for k, x in enumerate(m.entries()):
-                    if x:
-                        i = k // c
-                        if moves[i] >= 0:
-                            return None
-                        moves[i] = k - i * c
-            per.append(moves)
+        arrows = A.arrows
+        per: dict[int, list[int]] = {}  # only the arrows acting on P(s) by a nonzero map
+        for i in A.action_support(s):
+            a = arrows[i]
+            c = dims[a.target]
+            moves = per[i] = [-1] * dims[a.source]
+            for k, x in enumerate(A.action_matrix(s, i).entries()):
+                if x:
+                    r = k // c
+                    if moves[r] >= 0:
+                        return None
+                    moves[r] = k - r * c
         return per
 
     def _entry(self, s: int, K) -> tuple:
         dims = self._pdims[s]
         q = [0] * len(dims)
         nz = 0
-        path = self.path_mode[s]
+        path = self._path(s)
         for t in bits(self.support[s]):
             x = dims[t] - (K[t].bit_count() if path else K[t].nrows)
             if x:
@@ -158,10 +179,10 @@ class TraceCache:
         key = (u, s)
         if key not in self._vt:
             A = self.A
-            dims, maps = A.projective_rep(s)
-            if self.path_mode[s]:
+            if self._path(s):
                 self._vt[key] = self._path_closure(s, u)
             else:
+                dims, maps = A.projective_rep(s)
                 self._vt[key] = closure(
                     A.field, dims, maps, A.arrows, {u: Mat.identity(A.field, dims[u])}
                 )
@@ -179,7 +200,10 @@ class TraceCache:
         while todo:
             v, j = todo.pop()
             for i in outs[v]:
-                k = moves[i][j]
+                mv = moves.get(i)
+                if mv is None:
+                    continue
+                k = mv[j]
                 if k < 0:
                     continue
                 t = A.arrows[i].target
@@ -191,7 +215,7 @@ class TraceCache:
     def entry(self, T: int, s: int) -> tuple:
         """The cache entry of the trace of ``T`` in ``P(s)`` (see the class docstring)."""
         X = T & self.support[s]
-        e = self._e.get((X, s))
+        e = self._e[s].get(X)
         if e is not None:
             return e
         # peel the highest element: any order gives the same trace
@@ -201,16 +225,19 @@ class TraceCache:
     def _add(self, X: int, u: int, s: int) -> tuple:
         """Entry of ``X + {u}`` from the entry of ``X`` (``X`` inside the support, ``u`` in it)."""
         T = X | (1 << u)
-        e = self._e.get((T, s))
+        e = self._e[s].get(T)
         if e is not None:
             return e
         base = self.entry(X, s)
-        K0 = base[0]
+        K0 = base[0] if base[0] is not None else self._zero(s)
         if not base[1][u]:
             e = base  # e_s B e_u = 0: nothing new
-        elif self.path_mode[s]:
+        elif self._path(s):
             V = self.vertex_trace(u, s)
-            e = self._entry(s, tuple(k | v for k, v in zip(K0, V, strict=True)))
+            K = list(K0)
+            for t in bits(self.support[s]):  # traces vanish outside the support
+                K[t] |= V[t]
+            e = self._entry(s, tuple(K))
         else:
             F = self.A.field
             dims = self._pdims[s]
@@ -225,13 +252,15 @@ class TraceCache:
                 else:
                     K[t] = echelon(Mat.vstack(F, [K0[t], v], dims[t]))
             e = self._entry(s, tuple(K))
-        self._e[(T, s)] = e
+        self._e[s][T] = e
         return e
 
     def kernel(self, T: int, s: int) -> list[Mat]:
         """Echelon bases of ``e_s A e_T A`` inside ``P(s)``."""
         K = self.entry(T, s)[0]
-        if not self.path_mode[s]:
+        if K is None:
+            K = self._zero(s)
+        if not self._path(s):
             return list(K)
         F = self.A.field
         return [Mat.unit_rows(F, d, bits(k)) for d, k in zip(self._pdims[s], K, strict=True)]
@@ -275,38 +304,46 @@ class TraceCache:
         ``within`` (a union of blocks of ``A``; default: all vertices) limits the
         vertices looked at.
         """
-        n = self.A.n
+        n = self.n
         sup = self.support
         E = self._e
-        R = (((1 << n) - 1) if within is None else within) & ~S
+        W = ((1 << n) - 1) if within is None else within
+        R = W & ~S
         ent: list[Any] = [None] * n
         col = [0] * n
         lk = [0] * n
+        bits_of = _BITS.get
         for s in bits(R):
-            e = E.get((S & sup[s], s))
+            e = E[s].get(S & sup[s])
             if e is None:
                 e = self.entry(S, s)
             ent[s] = e
             out = e[2] & ~(1 << s)
-            lk[s] |= out
-            for t in bits(out):
-                col[t] |= 1 << s
+            if out:
+                lk[s] |= out
+                bo = bits_of(out)
+                for t in bo if bo is not None else bits(out):
+                    col[t] |= 1 << s
         valid = 0
         memo = self._steps
         region = self.region
-        W = ((1 << n) - 1) if within is None else within
+        recur = self._recurs.get(W)
+        if recur is None:  # per vertex: whether the step test can recur within W
+            recur = self._recurs[W] = [r & W != W for r in region]
         for u in bits(candidates):
             # kept only when the test can recur: sets are visited once each
-            key = (S & region[u], u) if region[u] & W != W else None
-            known = memo.get(key) if key is not None else None
-            if known is not None:
-                if known:
-                    valid |= 1 << u
-                continue
+            mu = memo[u] if recur[u] else None
+            if mu is not None:
+                key = S & region[u]
+                known = mu.get(key)
+                if known is not None:
+                    if known:
+                        valid |= 1 << u
+                    continue
             eu = ent[u]
             if eu[1][u] != 1:
-                if key is not None:
-                    memo[key] = False
+                if mu is not None:
+                    mu[key] = False
                 continue
             eB = eu[3]
             U = 1 << u
@@ -317,7 +354,7 @@ class TraceCache:
                 es = ent[s]
                 a = es[1][u]
                 X = S & sup[s]
-                after = E.get((X | U, s))
+                after = E[s].get(X | U)
                 if after is None:
                     # e_s B e_u (x) e_u B e_t embeds in e_s B e_t: a count may already fail
                     qs = es[1]
@@ -328,8 +365,8 @@ class TraceCache:
                 if es[3] - after[3] != a * eB:
                     ok = False
                     break
-            if key is not None:
-                memo[key] = ok
+            if mu is not None:
+                mu[key] = ok
             if ok:
                 valid |= U
         for u in bits(R):
@@ -355,7 +392,7 @@ class TraceCache:
             if not a:
                 continue
             X = S & sup[s]
-            after = self._e.get((X | U, s))
+            after = self._e[s].get(X | U)
             if after is None:
                 after = self._add(X, u, s)
             if rs[2] - after[3] != a * eB:
