@@ -93,8 +93,10 @@ class BasicAlgebra:
         self.field = field
         self.quiver = quiver
         self.words: tuple[tuple[tuple[Path, ...], ...], ...] = tuple(
-            tuple(tuple(words[s][t]) for t in range(n)) for s in range(n)
+            tuple(map(tuple, words[s])) for s in range(n)
         )
+        if any(len(row) != n for row in self.words):
+            raise InternalInconsistency("words/action do not match the vertices")
         self._check_action(action)
         self._action: tuple[dict[int, Mat], ...] = tuple(
             {
@@ -213,11 +215,14 @@ class BasicAlgebra:
         return len(self.words[s][t])
 
     def projective_dims(self, s: int) -> tuple[int, ...]:
-        return tuple(len(w) for w in self.words[s])
+        return tuple(map(len, self.words[s]))
 
     @property
     def dim(self) -> int:
-        return sum(len(w) for row in self.words for w in row)
+        d = self._cache.get("dim")
+        if d is None:
+            d = self._cache["dim"] = sum(sum(map(len, row)) for row in self.words)
+        return d
 
     def cartan(self) -> tuple[tuple[int, ...], ...]:
         """The Cartan matrix ``C[i][j] = [P(j) : L(i)] = dim e_j A e_i`` (rows as tuples)."""
