@@ -35,6 +35,7 @@ from hwcat.algebras.hub.quiver import Arrow, Path, Quiver, format_path
 from hwcat.algebras.hub.rep import ArrowMaps, closure, cyclic_word_basis, quotient
 from hwcat.errors import InternalInconsistency, VertexError
 from hwcat.exact import Field, Mat
+from hwcat.exact.sparse import row_times, sparse_rows, to_mat
 
 __all__ = ["BasicAlgebra"]
 
@@ -299,42 +300,120 @@ class BasicAlgebra:
 
     # -- structure -----------------------------------------------------------------
     def opposite(self) -> BasicAlgebra:
-        """The opposite algebra (same vertices, arrows reversed, cached both ways)."""
+        """The opposite algebra (same vertices, arrows reversed, cached both ways).
+
+        When the basis paths are closed under taking suffixes as well as
+        prefixes (the normal paths of a bound quiver algebra are: every subpath
+        of a normal path is normal), the reversed paths are a prefix-closed basis
+        of the opposite and the left multiplications by the arrows are its
+        action, with no change of basis.  Otherwise a basis of the opposite is
+        chosen by :meth:`from_cyclic_representations`.
+        """
         if "opposite" in self._cache:
             return self._cache["opposite"]
         F, n = self.field, self.n
-        # left multiplication by arrow a on e_{t(a)} A: row vectors a*w for basis w
-        left: list[dict[int, Mat]] = []  # left[a][s] : e_{t(a)} A e_s -> e_{s(a)} A e_s
-        for i, a in enumerate(self.arrows):
-            u = a.source
-            unit = Mat.unit_rows(
-                F, self.block_dim(u, a.target), [self.word_index(u, a.target)[(i,)]]
-            )
-            memo: dict[Path, Mat] = {(): unit}
-            per_s: dict[int, Mat] = {}
-            for s in range(n):
-                ws = self.words[a.target][s]
-                rows = []
-                for w in ws:
-                    rows.append(self.extend_path(u, memo, w))
-                per_s[s] = Mat.vstack(F, rows, self.block_dim(u, s))
-            left.append(per_s)
+        left = self.left_actions()
         opq = Quiver(self.vertices, tuple(Arrow(a.name, a.target, a.source) for a in self.arrows))
-        reps = []
-        for s in range(n):
-            dims = tuple(self.block_dim(t, s) for t in range(n))
-            maps = tuple(left[i][s] for i in range(len(self.arrows)))
-            reps.append((dims, maps))
-        op = BasicAlgebra.from_cyclic_representations(
-            F,
-            opq,
-            reps,
-            name=f"{self.name} (opposite)" if self.name else "opposite",
-            morita=self.morita,
-        )
+        name = f"{self.name} (opposite)" if self.name else "opposite"
+        into = self.column_supports()
+        if self._suffix_closed():
+            words = []
+            action = []
+            for u in range(n):
+                row: list[Any] = [()] * n
+                for v in into[u]:
+                    row[v] = tuple(w[::-1] for w in self.words[v][u])
+                words.append(row)
+                dims = tuple(map(len, row))
+                action.append(
+                    ArrowMaps(F, dims, opq.arrows, {i: m[u] for i, m in enumerate(left) if u in m})
+                )
+            op = BasicAlgebra(F, opq, words, action, name=name, morita=self.morita)
+        else:
+            reps = []
+            for u in range(n):
+                dims = tuple(self.block_dim(t, u) for t in range(n))
+                maps = ArrowMaps(F, dims, opq.arrows, {i: m[u] for i, m in enumerate(left) if u in m})
+                reps.append((dims, maps))
+            op = BasicAlgebra.from_cyclic_representations(F, opq, reps, name=name, morita=self.morita)
         op._cache["opposite"] = self
         self._cache["opposite"] = op
         return op
+
+    def _suffix_closed(self) -> bool:
+        """Whether every basis path ``a*w`` of ``e_s A e_t`` has ``w`` in the basis of ``e_target(a) A e_t``."""
+        arrows = self.arrows
+        for s in range(self.n):
+            for t in self.row_support(s):
+                for w in self.words[s][t]:
+                    if len(w) > 1 and w[1:] not in self.word_index(arrows[w[0]].target, t):
+                        return False
+        return True
+
+    def row_support(self, s: int) -> tuple[int, ...]:
+        """The vertices ``t`` with ``e_s A e_t`` nonzero (the support of ``P(s)``), cached."""
+        key = ("row_support", s)
+        sup = self._cache.get(key)
+        if sup is None:
+            sup = self._cache[key] = tuple(t for t, w in enumerate(self.words[s]) if w)
+        return sup
+
+    def column_supports(self) -> tuple[tuple[int, ...], ...]:
+        """For each vertex ``t`` the vertices ``s`` with ``e_s A e_t`` nonzero, cached."""
+
+        def compute() -> tuple[tuple[int, ...], ...]:
+            cols: list[list[int]] = [[] for _ in range(self.n)]
+            for s in range(self.n):
+                for t in self.row_support(s):
+                    cols[t].append(s)
+            return tuple(map(tuple, cols))
+
+        return self.cached(("column_supports",), compute)
+
+    def sparse_action(self, s: int, a: int) -> list[dict[int, Any]]:
+        """:meth:`action_matrix` as sparse rows ``{column: entry}`` (cached; see :mod:`hwcat.exact.sparse`)."""
+        key = ("sparse_action", s, a)
+        rows = self._cache.get(key)
+        if rows is None:
+            m = self._action[s].get(a)
+            if m is None:
+                rows = [{} for _ in range(self.block_dim(s, self.arrows[a].source))]
+            else:
+                rows = sparse_rows(m)
+            self._cache[key] = rows
+        return rows
+
+    def left_actions(self) -> tuple[dict[int, Mat], ...]:
+        """Left multiplication by each arrow, block by block (cached).
+
+        ``left_actions()[a][u]`` is ``w -> a*w`` from ``e_target(a) A e_u`` to
+        ``e_source(a) A e_u`` (rows: the basis paths ``w``); only the nonzero
+        blocks are kept.  ``a * (w' b) = (a * w') b`` is computed on sparse rows,
+        shortest paths first, so the cost follows the nonzero entries.
+        """
+
+        def compute() -> tuple[dict[int, Mat], ...]:
+            F = self.field
+            out = []
+            for i, a in enumerate(self.arrows):
+                s, t = a.source, a.target
+                unit = {self.word_index(s, t)[(i,)]: F.one}
+                paths = sorted(
+                    (w for u in self.row_support(t) for w in self.words[t][u]), key=len
+                )
+                memo: dict[Path, dict[int, Any]] = {(): unit}
+                for w in paths:
+                    if w:
+                        memo[w] = row_times(memo[w[:-1]], self.sparse_action(s, w[-1]))
+                blocks = {}
+                for u in self.row_support(t):
+                    rows = [memo[w] for w in self.words[t][u]]
+                    if any(rows) and self.block_dim(s, u):
+                        blocks[u] = to_mat(F, rows, self.block_dim(s, u))
+                out.append(blocks)
+            return tuple(out)
+
+        return self.cached(("left_actions",), compute)
 
     def extend_path(self, u: int, memo: dict[Path, Mat], w: Path) -> Mat:
         """``x * w`` for the rows ``x = memo[()]`` of ``e_u A``, along the arrows of ``w``.
