@@ -135,7 +135,7 @@ def sparse_echelon(
         if lead != one:
             inv = one / lead
             r = {j: x * inv for j, x in r.items()}
-        for q, other in piv.items():
+        for other in piv.values():
             x = other.get(p)
             if x is None:
                 continue

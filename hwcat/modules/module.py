@@ -40,6 +40,7 @@ from hwcat.algebras.hub.rep import (
 )
 from hwcat.errors import InternalInconsistency
 from hwcat.exact import Mat, complement, echelon
+from hwcat.exact.sparse import nonzero_count, rows_times, sparse_echelon, sparse_rows, to_mat
 
 __all__ = [
     "Module",
@@ -51,7 +52,38 @@ __all__ = [
     "is_homomorphism",
     "kernel_spaces",
     "image_spaces",
+    "series_method",
 ]
+
+SPARSE_ROWS_PER_ROW = 2
+"""Largest average number of nonzero entries per row of a module's arrow matrices for which
+its radical series is computed on sparse rows.  Path, monomial and commutativity-relation
+algebras act on basis paths by single paths (one entry per row); there the sparse
+route costs the entries, the dense one ``dim^3`` per layer (k[x]/(x^300): about 0.1 s
+against minutes, ``benchmarks/bench_describe_scale.py``)."""
+
+SPARSE_MIN_DIM = 24
+"""Below this dimension the dense route is used (flint's small products are cheaper than
+Python's loops over entries)."""
+
+
+def series_method(M: Module, method: str = "auto") -> str:
+    """``"sparse"`` or ``"dense"``: how the radical series of ``M`` is computed.
+
+    ``method="auto"`` picks ``"sparse"`` when ``M`` has dimension at least
+    :data:`SPARSE_MIN_DIM` and its arrow matrices have at most
+    :data:`SPARSE_ROWS_PER_ROW` nonzero entries per row on average.  Both routes
+    give the same reduced echelon bases.
+    """
+    if method in ("sparse", "dense"):
+        return method
+    if method != "auto":
+        raise InternalInconsistency(f"unknown series method {method!r}")
+    if M.dim < SPARSE_MIN_DIM:
+        return "dense"
+    rows = sum(m.nrows for _, m in M.maps.items())
+    nonzero = sum(nonzero_count(m) for _, m in M.maps.items())
+    return "sparse" if nonzero <= SPARSE_ROWS_PER_ROW * rows else "dense"
 
 
 class Module:
@@ -71,7 +103,7 @@ class Module:
         self, algebra: BasicAlgebra, dims: Sequence[int], maps: Sequence[Mat], name: str = ""
     ) -> None:
         self.algebra = algebra
-        self.dims = tuple(int(d) for d in dims)
+        self.dims = tuple(map(int, dims))
         if len(self.dims) != algebra.n:
             raise InternalInconsistency("module data do not match the algebra")
         # only the maps between nonzero spaces are stored (shapes checked there)
@@ -176,43 +208,140 @@ class Module:
     def socle(self) -> tuple[int, ...]:
         return tuple(s.nrows for s in self.socle_spaces())
 
+    @property
+    def support(self) -> tuple[int, ...]:
+        """The vertices ``v`` with ``M_v`` nonzero."""
+        sup = self._memo.get("support")
+        if sup is None:
+            sup = self._memo["support"] = tuple(v for v, d in enumerate(self.dims) if d)
+        return sup
+
+    def uses_sparse_rows(self) -> bool:
+        """Whether the series are computed on sparse rows (see :func:`series_method`)."""
+        if "sparse" not in self._memo:
+            self._memo["sparse"] = series_method(self) == "sparse"
+        return self._memo["sparse"]
+
+    def radical_series_on_support(self, method: str = "auto") -> list[dict[int, Mat]]:
+        """``rad^k M`` for k = 0, 1, ..., ending at 0, as ``{vertex: echelon basis}``.
+
+        Only the vertices where ``rad^k M`` is nonzero appear, so a module
+        supported on a few vertices of a large quiver costs what its support
+        costs.  The bases are the reduced echelon bases of :meth:`radical_series`.
+        """
+        if method != "auto":  # an explicit route (for tests and benchmarks): not memoised
+            if series_method(self, method) == "sparse":
+                return self._radical_series_sparse()[0]
+            return self._radical_series_dense()
+        if "radical_series_support" in self._memo:
+            return self._memo["radical_series_support"]
+        if self.uses_sparse_rows():
+            series, rows = self._radical_series_sparse()
+            self._memo["radical_series_rows"] = rows
+        else:
+            series = self._radical_series_dense()
+        self._memo["radical_series_support"] = series
+        return series
+
+    def radical_series_rows(self) -> list[dict[int, list[dict[int, Any]]]]:
+        """:meth:`radical_series_on_support` as sparse rows (see :mod:`hwcat.exact.sparse`)."""
+        if "radical_series_rows" not in self._memo:
+            self._memo["radical_series_rows"] = [
+                {v: sparse_rows(B) for v, B in layer.items()}
+                for layer in self.radical_series_on_support()
+            ]
+        return self._memo["radical_series_rows"]
+
+    def _radical_series_dense(self) -> list[dict[int, Mat]]:
+        F = self.field
+        arrows = self.algebra.arrows
+        series = [{v: Mat.identity(F, self.dims[v]) for v in self.support}]
+        while series[-1]:
+            cur = series[-1]
+            imgs: dict[int, list[Mat]] = {}
+            for i, m in self.maps.items():
+                a = arrows[i]
+                B = cur.get(a.source)
+                if B is not None:
+                    imgs.setdefault(a.target, []).append(B @ m)
+            nxt = {}
+            for t in sorted(imgs):
+                E = echelon(Mat.vstack(F, imgs[t], self.dims[t]))
+                if E.nrows:
+                    nxt[t] = E
+            series.append(nxt)
+        return series
+
+    def sparse_maps(self) -> dict[int, list[dict[int, Any]]]:
+        """The stored arrow matrices as sparse rows (cached)."""
+        if "sparse_maps" not in self._memo:
+            self._memo["sparse_maps"] = {i: sparse_rows(m) for i, m in self.maps.items()}
+        return self._memo["sparse_maps"]
+
+    def _radical_series_sparse(
+        self,
+    ) -> tuple[list[dict[int, Mat]], list[dict[int, list[dict[int, Any]]]]]:
+        F = self.field
+        arrows = self.algebra.arrows
+        one = F.one
+        smaps = self.sparse_maps()
+        cur: dict[int, list] = {v: [{j: one} for j in range(self.dims[v])] for v in self.support}
+        series = [{v: Mat.identity(F, self.dims[v]) for v in self.support}]
+        rows_series = [cur]
+        while cur:
+            imgs: dict[int, list] = {}
+            for i, S in smaps.items():
+                a = arrows[i]
+                B = cur.get(a.source)
+                if B is not None:
+                    imgs.setdefault(a.target, []).extend(rows_times(B, S))
+            nxt = {}
+            for t in sorted(imgs):
+                rows, _ = sparse_echelon(F, imgs[t])
+                if rows:
+                    nxt[t] = rows
+            series.append({t: to_mat(F, rows, self.dims[t]) for t, rows in nxt.items()})
+            rows_series.append(nxt)
+            cur = nxt
+        return series, rows_series
+
     def radical_series(self) -> list[list[Mat]]:
         """``rad^k M`` for k = 0, 1, ... (echelon bases in ``M``'s coordinates), ending at 0."""
         if "radical_series" in self._memo:
             return self._memo["radical_series"]
         F = self.field
-        arrows = self.algebra.arrows
-        series = [self.full()]
-        while any(r.nrows for r in series[-1]):
-            cur = series[-1]
-            imgs: list[list[Mat]] = [[] for _ in self.dims]
-            for i, m in self.maps.items():
-                a = arrows[i]
-                if cur[a.source].nrows:
-                    imgs[a.target].append(cur[a.source] @ m)
-            series.append(
-                [
-                    echelon(Mat.vstack(F, imgs[v], d)) if imgs[v] else Mat.zeros(F, 0, d)
-                    for v, d in enumerate(self.dims)
-                ]
-            )
+        series = [
+            [layer.get(v) or Mat.zeros(F, 0, d) for v, d in enumerate(self.dims)]
+            for layer in self.radical_series_on_support()
+        ]
         self._memo["radical_series"] = series
         return series
 
     def radical_layers(self) -> list[tuple[int, ...]]:
         """Dimension vectors of ``rad^k M / rad^(k+1) M``, k = 0, 1, ..."""
-        ser = self.radical_series()
-        return [
-            tuple(a.nrows - b.nrows for a, b in zip(ser[k], ser[k + 1], strict=True))
-            for k in range(len(ser) - 1)
-        ]
+        if "radical_layers" in self._memo:
+            return list(self._memo["radical_layers"])
+        ser = self.radical_series_on_support()
+        n = len(self.dims)
+        out = []
+        for k in range(len(ser) - 1):
+            vec = [0] * n
+            below = ser[k + 1]
+            for v, B in ser[k].items():
+                C = below.get(v)
+                vec[v] = B.nrows - (C.nrows if C is not None else 0)
+            out.append(tuple(vec))
+        self._memo["radical_layers"] = tuple(out)
+        return out
 
     def socle_layers(self) -> list[tuple[int, ...]]:
         """Dimension vectors of ``soc^(k+1) M / soc^k M``, k = 0, 1, ... (bottom first).
 
         These are the radical layers of the dual module ``D M`` (over the opposite algebra).
         """
-        return self.dual().radical_layers()
+        if "socle_layers" not in self._memo:
+            self._memo["socle_layers"] = tuple(self.dual().radical_layers())
+        return list(self._memo["socle_layers"])
 
     def loewy_length(self) -> int:
         return len(self.radical_layers())
@@ -224,7 +353,7 @@ class Module:
         return Module(
             op,
             self.dims,
-            [m.transpose() for m in self.maps],
+            {i: m.transpose() for i, m in self.maps.items()},
             f"D({self.name})" if self.name else "",
         )
 
