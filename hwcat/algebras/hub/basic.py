@@ -29,6 +29,7 @@ from __future__ import annotations
 
 import copy
 from collections.abc import Callable, Iterable, Sequence
+from itertools import compress
 from typing import Any
 
 from hwcat.algebras.hub.quiver import Arrow, Path, Quiver, format_path
@@ -98,6 +99,7 @@ class BasicAlgebra:
         )
         if any(len(row) != n for row in self.words):
             raise InternalInconsistency("words/action do not match the vertices")
+        self._cache: dict[Any, Any] = {}
         self._check_action(action)
         self._action: tuple[dict[int, Mat], ...] = tuple(
             {
@@ -110,7 +112,6 @@ class BasicAlgebra:
         self.name = name
         self.morita = tuple(morita) if morita is not None else (1,) * n
         self.relations = tuple(relations) if relations is not None else None
-        self._cache: dict[Any, Any] = {}
         self.natural_order: str | None = None  # a family's natural highest-weight order, as text
         self._check()
 
@@ -216,7 +217,11 @@ class BasicAlgebra:
         return len(self.words[s][t])
 
     def projective_dims(self, s: int) -> tuple[int, ...]:
-        return tuple(map(len, self.words[s]))
+        key = ("projective_dims", s)
+        dims = self._cache.get(key)
+        if dims is None:
+            dims = self._cache[key] = tuple(map(len, self.words[s]))
+        return dims
 
     @property
     def dim(self) -> int:
@@ -316,6 +321,10 @@ class BasicAlgebra:
         opq = Quiver(self.vertices, tuple(Arrow(a.name, a.target, a.source) for a in self.arrows))
         name = f"{self.name} (opposite)" if self.name else "opposite"
         into = self.column_supports()
+        by_end: list[dict[int, Mat]] = [{} for _ in range(n)]  # by_end[u][a]: left[a][u]
+        for i, blocks in enumerate(left):
+            for u, m in blocks.items():
+                by_end[u][i] = m
         if self._suffix_closed():
             words = []
             action = []
@@ -325,15 +334,13 @@ class BasicAlgebra:
                     row[v] = tuple(w[::-1] for w in self.words[v][u])
                 words.append(row)
                 dims = tuple(map(len, row))
-                action.append(
-                    ArrowMaps(F, dims, opq.arrows, {i: m[u] for i, m in enumerate(left) if u in m})
-                )
+                action.append(ArrowMaps(F, dims, opq.arrows, by_end[u]))
             op = BasicAlgebra(F, opq, words, action, name=name, morita=self.morita)
         else:
             reps = []
             for u in range(n):
                 dims = tuple(self.block_dim(t, u) for t in range(n))
-                maps = ArrowMaps(F, dims, opq.arrows, {i: m[u] for i, m in enumerate(left) if u in m})
+                maps = ArrowMaps(F, dims, opq.arrows, by_end[u])
                 reps.append((dims, maps))
             op = BasicAlgebra.from_cyclic_representations(F, opq, reps, name=name, morita=self.morita)
         op._cache["opposite"] = self
@@ -355,7 +362,7 @@ class BasicAlgebra:
         key = ("row_support", s)
         sup = self._cache.get(key)
         if sup is None:
-            sup = self._cache[key] = tuple(t for t, w in enumerate(self.words[s]) if w)
+            sup = self._cache[key] = tuple(compress(range(self.n), self.words[s]))
         return sup
 
     def column_supports(self) -> tuple[tuple[int, ...], ...]:
