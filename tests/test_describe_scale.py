@@ -138,3 +138,27 @@ def test_to_mat_and_sparse_rows_round_trip():
 
     M = Mat.from_rows(QQ, [[0, 1, 0], [2, 0, 0], [0, 0, 0]])
     assert to_mat(QQ, sparse_rows(M), 3) == M
+
+
+@FAST
+@given(bound_quiver_algebras(max_vertices=4, max_arrows=5))
+def test_shared_sparse_rows_are_the_maps(A):
+    # projectives and injectives take the hub's sparse rows (and the opposite's,
+    # transposed) instead of reading their matrices again: they must be the matrices
+    import hwcat.modules.module as module
+
+    saved = module.SPARSE_MIN_DIM
+    module.SPARSE_MIN_DIM = 0
+    try:
+        A._cache.pop(("module:projective", 0), None)
+        for s in range(A.n):
+            A._cache.pop(("module:projective", s), None)
+            A._cache.pop(("module:injective", s), None)
+            for M in (projective(A, s), injective(A, s)):
+                for X in (M, M.dual()):
+                    rows = X.sparse_maps()
+                    assert rows.keys() == set(X.maps.support)
+                    for i, r in rows.items():
+                        assert to_mat(A.field, r, X.maps[i].ncols) == X.maps[i]
+    finally:
+        module.SPARSE_MIN_DIM = saved

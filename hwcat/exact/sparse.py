@@ -29,6 +29,7 @@ from hwcat.exact.matrices import Mat
 __all__ = [
     "SparseRow",
     "sparse_rows",
+    "sparse_transpose",
     "to_mat",
     "row_times",
     "rows_times",
@@ -51,7 +52,16 @@ def sparse_rows(M: Mat) -> list[SparseRow]:
     out = []
     for i in range(r):
         base = i * c
-        out.append({j: x for j, x in enumerate(e[base : base + c]) if x != 0})
+        out.append({j: x for j, x in enumerate(e[base : base + c]) if x})
+    return out
+
+
+def sparse_transpose(rows: Sequence[SparseRow], ncols: int) -> list[SparseRow]:
+    """The transpose of the ``len(rows) x ncols`` matrix given by sparse rows."""
+    out: list[SparseRow] = [{} for _ in range(ncols)]
+    for i, row in enumerate(rows):
+        for j, x in row.items():
+            out[j][i] = x
     return out
 
 
@@ -59,7 +69,7 @@ def nonzero_count(M: Mat) -> int:
     """The number of nonzero entries of ``M``."""
     if M.nrows == 0 or M.ncols == 0:
         return 0
-    return sum(1 for x in M.entries() if x != 0)
+    return sum(1 for x in M.entries() if x)
 
 
 def to_mat(field: Field, rows: Sequence[SparseRow], ncols: int) -> Mat:

@@ -41,7 +41,14 @@ from hwcat.algebras.hub.rep import (
 )
 from hwcat.errors import InternalInconsistency
 from hwcat.exact import Mat, complement, echelon
-from hwcat.exact.sparse import nonzero_count, rows_times, sparse_echelon, sparse_rows, to_mat
+from hwcat.exact.sparse import (
+    nonzero_count,
+    rows_times,
+    sparse_echelon,
+    sparse_rows,
+    sparse_transpose,
+    to_mat,
+)
 
 __all__ = [
     "Module",
@@ -83,7 +90,11 @@ def series_method(M: Module, method: str = "auto") -> str:
     if M.dim < SPARSE_MIN_DIM:
         return "dense"
     rows = sum(m.nrows for _, m in M.maps.items())
-    nonzero = sum(nonzero_count(m) for _, m in M.maps.items())
+    known = M._memo.get("sparse_maps")
+    if known is not None:
+        nonzero = sum(len(r) for rs in known.values() for r in rs)
+    else:
+        nonzero = sum(nonzero_count(m) for _, m in M.maps.items())
     return "sparse" if nonzero <= SPARSE_ROWS_PER_ROW * rows else "dense"
 
 
@@ -419,12 +430,19 @@ class Module:
     def dual(self) -> Module:
         """``D M = Hom_k(M, k)``, a module over the opposite algebra."""
         op = self.algebra.opposite()
-        return Module(
+        D = Module(
             op,
             self.dims,
             {i: m.transpose() for i, m in self.maps.items()},
             f"D({self.name})" if self.name else "",
         )
+        known = self._memo.get("sparse_maps")
+        if known is not None:
+            arrows = self.algebra.arrows
+            D._memo["sparse_maps"] = {
+                i: sparse_transpose(rows, self.dims[arrows[i].target]) for i, rows in known.items()
+            }
+        return D
 
     # -- presentation data ----------------------------------------------------------------------
     def generators(self) -> list[tuple[int, Mat]]:
@@ -517,7 +535,11 @@ def projective(A: BasicAlgebra, s: str | int) -> Module:
 
     def build() -> Module:
         dims, maps = A.projective_rep(s)
-        return Module(A, dims, maps, f"P({A.vertices[s]})")
+        P = Module(A, dims, maps, f"P({A.vertices[s]})")
+        if P.dim >= SPARSE_MIN_DIM:
+            # the hub keeps its action as sparse rows: share them (read once per algebra)
+            P._memo["sparse_maps"] = {i: A.sparse_action(s, i) for i in P.maps.support}
+        return P
 
     return A.cached(("module:projective", s), build)
 
@@ -528,7 +550,14 @@ def injective(A: BasicAlgebra, s: str | int) -> Module:
 
     def build() -> Module:
         dims, maps = A.injective_rep(s)
-        return Module(A, dims, maps, f"I({A.vertices[s]})")
+        I = Module(A, dims, maps, f"I({A.vertices[s]})")
+        if I.dim >= SPARSE_MIN_DIM:
+            op = A.opposite()
+            I._memo["sparse_maps"] = {
+                i: sparse_transpose(op.sparse_action(s, i), dims[A.arrows[i].source])
+                for i in I.maps.support
+            }
+        return I
 
     return A.cached(("module:injective", s), build)
 

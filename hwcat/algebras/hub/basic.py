@@ -336,6 +336,10 @@ class BasicAlgebra:
                 dims = tuple(map(len, row))
                 action.append(ArrowMaps(F, dims, opq.arrows, by_end[u]))
             op = BasicAlgebra(F, opq, words, action, name=name, morita=self.morita)
+            # the opposite's action is the left multiplication: share its sparse rows
+            for u in range(n):
+                for i in by_end[u]:
+                    op._cache[("sparse_action", u, i)] = self._cache[("left_action_rows", i, u)]
         else:
             reps = []
             for u in range(n):
@@ -417,10 +421,19 @@ class BasicAlgebra:
                     rows = [memo[w] for w in self.words[t][u]]
                     if any(rows) and self.block_dim(s, u):
                         blocks[u] = to_mat(F, rows, self.block_dim(s, u))
+                        self._cache[("left_action_rows", i, u)] = rows
                 out.append(blocks)
             return tuple(out)
 
         return self.cached(("left_actions",), compute)
+
+    def left_action_rows(self, a: int, u: int) -> list[dict[int, Any]]:
+        """``left_actions()[a][u]`` as sparse rows (empty rows when the block is zero)."""
+        self.left_actions()
+        rows = self._cache.get(("left_action_rows", a, u))
+        if rows is None:
+            rows = [{} for _ in range(self.block_dim(self.arrows[a].target, u))]
+        return rows
 
     def extend_path(self, u: int, memo: dict[Path, Mat], w: Path) -> Mat:
         """``x * w`` for the rows ``x = memo[()]`` of ``e_u A``, along the arrows of ``w``.
