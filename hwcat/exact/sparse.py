@@ -119,25 +119,23 @@ def sparse_echelon(
     dense :func:`~hwcat.exact.echelon` (the reduced echelon form of a row space
     is unique).
     """
-    piv: dict[int, SparseRow] = {}
-    for r in start:
-        piv[min(r)] = dict(r)
     one = field.one
+    # forward elimination: rows with distinct pivots, leading entry one; rows of
+    # ``start`` and rows left unchanged are shared, never modified (copy on write)
+    piv: dict[int, SparseRow] = {min(r): r for r in start}
+    fresh: set[int] = set()  # pivots whose row is our own copy
     for r in rows:
         if not r:
             continue
-        r = dict(r)
-        for c in [c for c in r if c in piv]:
-            x = r.get(c)
-            if x is None:
-                continue
-            for j, y in piv[c].items():
-                z = r.get(j)
-                z = -x * y if z is None else z - x * y
-                if z == 0:
-                    r.pop(j, None)
-                else:
-                    r[j] = z
+        own = False
+        while True:
+            hits = [c for c in r if c in piv]
+            if not hits:
+                break
+            c = min(hits)
+            if not own:
+                r, own = dict(r), True
+            _axpy(r, -r[c], piv[c])
         if not r:
             continue
         p = min(r)
@@ -145,17 +143,33 @@ def sparse_echelon(
         if lead != one:
             inv = one / lead
             r = {j: x * inv for j, x in r.items()}
-        for other in piv.values():
-            x = other.get(p)
-            if x is None:
-                continue
-            for j, y in r.items():
-                z = other.get(j)
-                z = -x * y if z is None else z - x * y
-                if z == 0:
-                    other.pop(j, None)
-                else:
-                    other[j] = z
+            own = True
         piv[p] = r
+        if own:
+            fresh.add(p)
+    # back substitution, last pivot first: each row loses the later pivot columns
     order = sorted(piv)
+    for p in reversed(order):
+        r = piv[p]
+        hits = sorted(c for c in r if c != p and c in piv)
+        if not hits:
+            continue
+        if p not in fresh:
+            r = dict(r)
+        for c in hits:
+            x = r.get(c)
+            if x is not None:
+                _axpy(r, -x, piv[c])
+        piv[p] = r
     return [piv[p] for p in order], tuple(order)
+
+
+def _axpy(y: SparseRow, a: Any, x: SparseRow) -> None:
+    """``y += a * x`` in place."""
+    for j, xj in x.items():
+        z = y.get(j)
+        z = a * xj if z is None else z + a * xj
+        if z:
+            y[j] = z
+        else:
+            y.pop(j, None)

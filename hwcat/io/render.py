@@ -4,6 +4,7 @@ from __future__ import annotations
 
 import json
 from collections.abc import Sequence
+from itertools import compress
 from typing import Any
 
 __all__ = [
@@ -24,12 +25,15 @@ def to_json(result: Any) -> str:
 
 def layer_text(vertices: Sequence[str], dims: Sequence[int]) -> str:
     """``(0, 2, 1)`` over vertices ``1, 2, 3`` -> ``"2^2 3"``."""
+    if len(vertices) != len(dims):
+        raise ValueError(f"{len(dims)} dimensions for {len(vertices)} vertices")
     parts = []
-    for v, d in zip(vertices, dims, strict=True):
+    for i in compress(range(len(dims)), dims):  # the nonzero entries only
+        d = dims[i]
         if d == 1:
-            parts.append(v)
+            parts.append(vertices[i])
         elif d > 1:
-            parts.append(f"{v}^{d}")
+            parts.append(f"{vertices[i]}^{d}")
     return " ".join(parts) if parts else "0"
 
 
@@ -43,11 +47,12 @@ def matrix_text(
     col_labels: Sequence[str],
     indent: str = "  ",
 ) -> str:
-    cells = [[str(x) for x in r] for r in rows]
+    cells = [list(map(str, r)) for r in rows]
     w0 = max([len(x) for x in row_labels] + [0])
+    columns = list(zip(*cells, strict=True)) if cells else [() for _ in col_labels]
     widths = [
-        max([len(col_labels[j])] + [len(cells[i][j]) for i in range(len(cells))])
-        for j in range(len(col_labels))
+        max(len(label), max(map(len, col), default=0))
+        for label, col in zip(col_labels, columns, strict=True)
     ]
     lines = [
         indent

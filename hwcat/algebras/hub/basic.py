@@ -232,7 +232,7 @@ class BasicAlgebra:
 
     def cartan(self) -> tuple[tuple[int, ...], ...]:
         """The Cartan matrix ``C[i][j] = [P(j) : L(i)] = dim e_j A e_i`` (rows as tuples)."""
-        return tuple(tuple(self.block_dim(j, i) for j in range(self.n)) for i in range(self.n))
+        return tuple(zip(*(self.projective_dims(j) for j in range(self.n)), strict=True))
 
     def word_index(self, s: int, t: int) -> dict[Path, int]:
         key = ("word_index", s, t)
