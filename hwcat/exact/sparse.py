@@ -149,8 +149,12 @@ def sparse_echelon(
             fresh.add(p)
     # back substitution, last pivot first: each row loses the later pivot columns
     order = sorted(piv)
+    old = {min(r) for r in start}  # reduced among themselves: only new pivots matter
+    new = set(piv) - old
     for p in reversed(order):
         r = piv[p]
+        if p in old and new.isdisjoint(r):
+            continue
         hits = sorted(c for c in r if c != p and c in piv)
         if not hits:
             continue
