@@ -47,25 +47,27 @@ def matrix_text(
     col_labels: Sequence[str],
     indent: str = "  ",
 ) -> str:
-    cells = [list(map(str, r)) for r in rows]
+    # two passes over the rows (widths, then lines) so that no table of cells is held:
+    # a Cartan matrix with a thousand vertices has a million of them
     w0 = max([len(x) for x in row_labels] + [0])
-    columns = list(zip(*cells, strict=True)) if cells else [() for _ in col_labels]
-    widths = [
-        max(len(label), max(map(len, col), default=0))
-        for label, col in zip(col_labels, columns, strict=True)
-    ]
+    widths = [len(c) for c in col_labels]
+    for r in rows:
+        lens = [len(str(x)) for x in r]
+        if len(lens) != len(widths):
+            raise ValueError(f"a row of {len(lens)} entries under {len(widths)} column labels")
+        widths = list(map(max, widths, lens))
     lines = [
         indent
         + " " * w0
         + "  "
         + " ".join(c.rjust(w) for c, w in zip(col_labels, widths, strict=True))
     ]
-    for lab, r in zip(row_labels, cells, strict=True):
+    for lab, r in zip(row_labels, rows, strict=True):
         lines.append(
             indent
             + lab.rjust(w0)
             + "  "
-            + " ".join(c.rjust(w) for c, w in zip(r, widths, strict=True))
+            + " ".join(str(c).rjust(w) for c, w in zip(r, widths, strict=True))
         )
     return "\n".join(lines)
 
