@@ -325,7 +325,7 @@ class BasicAlgebra:
         for i, blocks in enumerate(left):
             for u, m in blocks.items():
                 by_end[u][i] = m
-        if self._suffix_closed():
+        if self.is_suffix_closed():
             words = []
             action = []
             for u in range(n):
@@ -351,7 +351,7 @@ class BasicAlgebra:
         self._cache["opposite"] = op
         return op
 
-    def _suffix_closed(self) -> bool:
+    def is_suffix_closed(self) -> bool:
         """Whether every basis path ``a*w`` of ``e_s A e_t`` has ``w`` in the basis of ``e_target(a) A e_t``."""
         arrows = self.arrows
         for s in range(self.n):
