@@ -269,10 +269,12 @@ def _loewy_diagram_sparse(module: Module) -> LoewyDiagram:
             for u, name, img in cands:
                 v = _reduce(dict(img), below)
                 combo: dict[int, Any] = {}
-                for p in sorted(ech):
-                    x = v.get(p)
-                    if x is None:
-                        continue
+                while True:  # kept rows have entries from their pivot on: smallest first
+                    hits = [q for q in v if q in ech]
+                    if not hits:
+                        break
+                    p = min(hits)
+                    x = v[p]
                     vec, c = ech[p]
                     _axpy(v, -x, vec)
                     _axpy(combo, x, c)
