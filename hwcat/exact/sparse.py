@@ -110,19 +110,25 @@ def rows_times(rows: Iterable[SparseRow], S: Sequence[SparseRow]) -> list[Sparse
 
 
 def sparse_echelon(
-    field: Field, rows: Iterable[SparseRow], start: Sequence[SparseRow] = ()
+    field: Field,
+    rows: Iterable[SparseRow],
+    start: Sequence[SparseRow] = (),
+    start_pivots: Sequence[int] | None = None,
 ) -> tuple[list[SparseRow], tuple[int, ...]]:
     """Reduced row echelon basis of the span of ``start`` and ``rows``.
 
-    ``start`` must already be in reduced echelon form (e.g. an earlier result).
-    Returns the rows sorted by pivot and the pivots; the same rows as the
-    dense :func:`~hwcat.exact.echelon` (the reduced echelon form of a row space
-    is unique).
+    ``start`` must already be in reduced echelon form (e.g. an earlier result),
+    sorted by pivot, with its pivots in ``start_pivots`` when known.  Returns
+    the rows sorted by pivot and the pivots; the same rows as the dense
+    :func:`~hwcat.exact.echelon` (the reduced echelon form of a row space is
+    unique).
     """
     one = field.one
+    if start_pivots is None:
+        start_pivots = [min(r) for r in start]
     # forward elimination: rows with distinct pivots, leading entry one; rows of
     # ``start`` and rows left unchanged are shared, never modified (copy on write)
-    piv: dict[int, SparseRow] = {min(r): r for r in start}
+    piv: dict[int, SparseRow] = dict(zip(start_pivots, start, strict=True))
     fresh: set[int] = set()  # pivots whose row is our own copy
     for r in rows:
         if not r:
@@ -148,9 +154,11 @@ def sparse_echelon(
         if own:
             fresh.add(p)
     # back substitution, last pivot first: each row loses the later pivot columns
-    order = sorted(piv)
-    old = {min(r) for r in start}  # reduced among themselves: only new pivots matter
+    old = set(start_pivots)  # reduced among themselves: only new pivots matter
     new = set(piv) - old
+    if not new:
+        return list(start), tuple(start_pivots)
+    order = sorted(piv)
     for p in reversed(order):
         r = piv[p]
         if p in old and new.isdisjoint(r):

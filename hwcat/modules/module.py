@@ -370,15 +370,15 @@ class Module:
             levels.append(cur)
             cur = self._sparse_images(cur)
         series: list[dict[int, list]] = [{}]
+        pivots: dict[int, tuple[int, ...]] = {}  # pivots of series[-1] by vertex
         for V in reversed(levels):
             below = series[-1]
-            nxt = {}
-            for v in sorted(set(V) | set(below)):
-                if v not in V:
-                    nxt[v] = below[v]
-                else:
-                    nxt[v] = sparse_echelon(self.field, V[v], below.get(v, ()))[0]
-            series.append(nxt)
+            nxt = dict(below)
+            for v, rows in V.items():
+                nxt[v], pivots[v] = sparse_echelon(
+                    self.field, rows, below.get(v, ()), pivots.get(v, ())
+                )
+            series.append(dict(sorted(nxt.items())))
         series.reverse()
         series[0] = full
         return series
