@@ -124,8 +124,18 @@ def sparse_echelon(
     unique).
     """
     one = field.one
+    rows = [r for r in rows if r]
     if start_pivots is None:
         start_pivots = [min(r) for r in start]
+    if all(len(r) == 1 for r in rows):
+        # rows acting by single paths: the span is spanned by unit vectors
+        if all(len(r) == 1 for r in start):
+            cols = set(start_pivots)
+            cols.update(c for r in rows for c in r)
+            if len(cols) == len(start_pivots):
+                return list(start), tuple(start_pivots)
+            order = sorted(cols)
+            return [{c: one} for c in order], tuple(order)
     # forward elimination: rows with distinct pivots, leading entry one; rows of
     # ``start`` and rows left unchanged are shared, never modified (copy on write)
     piv: dict[int, SparseRow] = dict(zip(start_pivots, start, strict=True))
