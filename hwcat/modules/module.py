@@ -355,7 +355,69 @@ class Module:
                 out[t] = rows
         return out
 
+    def acts_by_single_entries(self) -> bool:
+        """Whether every row of every arrow matrix has at most one nonzero entry.
+
+        Then the arrows send unit vectors to multiples of unit vectors, every
+        space of the radical series is spanned by unit vectors, and the series
+        is a matter of sets of coordinates (:meth:`_radical_series_sets`).
+        """
+        if "single_entries" not in self._memo:
+            self._memo["single_entries"] = all(
+                len(r) <= 1 for rows in self.sparse_maps().values() for r in rows
+            )
+        return self._memo["single_entries"]
+
+    def column_maps(self) -> dict[int, list[int]]:
+        """For a module acting by single entries: arrow -> the column of each row (-1: zero row)."""
+        if "column_maps" not in self._memo:
+            self._memo["column_maps"] = {
+                i: [next(iter(r)) if r else -1 for r in rows]
+                for i, rows in self.sparse_maps().items()
+            }
+        return self._memo["column_maps"]
+
+    def _set_images(self, cur: dict[int, set[int]]) -> dict[int, set[int]]:
+        arrows = self.algebra.arrows
+        out: dict[int, set[int]] = {}
+        for i, cols in self.column_maps().items():
+            B = cur.get(arrows[i].source)
+            if B:
+                img = {cols[j] for j in B}
+                img.discard(-1)
+                if img:
+                    out.setdefault(arrows[i].target, set()).update(img)
+        return out
+
+    def _radical_series_sets(self) -> list[dict[int, list[dict[int, Any]]]]:
+        one = self.field.one
+        full = {v: set(range(self.dims[v])) for v in self.support}
+        rad1 = self._set_images(full)
+        cur = {v: full[v] - rad1.get(v, set()) for v in self.support}
+        cur = {v: c for v, c in cur.items() if c}
+        levels = []
+        while cur:
+            levels.append(cur)
+            cur = self._set_images(cur)
+        sets: list[dict[int, set[int]]] = [{}]
+        for V in reversed(levels):
+            nxt = dict(sets[-1])
+            for v, c in V.items():
+                nxt[v] = c | nxt[v] if v in nxt else c
+            sets.append(nxt)
+        sets.reverse()
+        unit = {}
+        out = []
+        for layer in sets:
+            rows = {}
+            for v in sorted(layer):
+                rows[v] = [unit.setdefault((v, c), {c: one}) for c in sorted(layer[v])]
+            out.append(rows)
+        return out
+
     def _radical_series_sparse(self) -> list[dict[int, list[dict[int, Any]]]]:
+        if self.acts_by_single_entries():
+            return self._radical_series_sets()
         one = self.field.one
         full = {v: [{j: one} for j in range(self.dims[v])] for v in self.support}
         rad1 = self._sparse_images(full)
