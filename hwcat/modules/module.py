@@ -78,15 +78,18 @@ Python's loops over entries)."""
 def series_method(M: Module, method: str = "auto") -> str:
     """``"sparse"`` or ``"dense"``: how the radical series of ``M`` is computed.
 
-    ``method="auto"`` picks ``"sparse"`` when ``M`` has dimension at least
-    :data:`SPARSE_MIN_DIM` and its arrow matrices have at most
-    :data:`SPARSE_ROWS_PER_ROW` nonzero entries per row on average.  Both routes
-    give the same reduced echelon bases.
+    ``method="auto"`` picks ``"sparse"`` when the arrows act by single entries
+    (then the series is computed on sets of coordinates, whatever the size), or
+    when ``M`` has dimension at least :data:`SPARSE_MIN_DIM` and its arrow
+    matrices have at most :data:`SPARSE_ROWS_PER_ROW` nonzero entries per row on
+    average.  Both routes give the same reduced echelon bases.
     """
     if method in ("sparse", "dense"):
         return method
     if method != "auto":
         raise InternalInconsistency(f"unknown series method {method!r}")
+    if M.acts_by_single_entries():
+        return "sparse"
     if M.dim < SPARSE_MIN_DIM:
         return "dense"
     rows = sum(m.nrows for _, m in M.maps.items())
