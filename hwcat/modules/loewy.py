@@ -107,8 +107,9 @@ def loewy_diagram(module: Module, *, method: str = "auto") -> LoewyDiagram:
 
     ``method``: ``"dense"`` (matrices), ``"sparse"`` (sparse rows, for
     modules whose arrows act by few entries per row, see
-    :func:`~hwcat.modules.module.series_method`) or ``"auto"`` (the module's
-    own choice).  Both give the same diagram.
+    :func:`~hwcat.modules.module.series_method`), ``"sets"`` (sets of
+    coordinates, for modules whose arrows act by single entries) or
+    ``"auto"`` (the module's own choice).  All give the same diagram.
 
     Examples
     --------
@@ -125,6 +126,12 @@ def loewy_diagram(module: Module, *, method: str = "auto") -> LoewyDiagram:
     """
     if method == "auto":
         method = "sparse" if module.uses_sparse_rows() else "dense"
+        if method == "sparse" and module.acts_by_single_entries():
+            method = "sets"
+    if method == "sets":
+        if not module.acts_by_single_entries():
+            raise InternalInconsistency("the coordinate-set route needs arrows acting by single entries")
+        return _loewy_diagram_sets(module)
     if method == "sparse":
         return _loewy_diagram_sparse(module)
     if method != "dense":
@@ -295,6 +302,90 @@ def _loewy_diagram_sparse(module: Module) -> LoewyDiagram:
                         names = edge_arrows.setdefault(key, [])
                         if name not in names:
                             names.append(name)
+            if len(kept) != want:
+                raise InternalInconsistency(
+                    f"Loewy diagram: layer {k + 1} at {A.vertices[t]} has dimension {want} "
+                    f"but the arrows from layer {k} span {len(kept)}"
+                )
+            nxt[t] = kept
+        reps.append(nxt)
+        add_layer(k + 1)
+    edges = sorted(edge_arrows)
+    resolved = [(u, index[w]) for u, w in edges]
+    order = sorted(range(len(edges)), key=lambda e: resolved[e])
+    free = all(len(r) <= 1 for layer in reps for r in layer.values())
+    return LoewyDiagram(
+        nodes=tuple(nodes),
+        edges=tuple(resolved[e] for e in order),
+        edge_arrows=tuple(tuple(edge_arrows[edges[e]]) for e in order),
+        multiplicity_free=free,
+    )
+
+
+def _loewy_diagram_sets(module: Module) -> LoewyDiagram:
+    """:func:`loewy_diagram` for arrows acting by single entries: the same choices.
+
+    Every basis vector chosen is a multiple of a unit vector and every space of
+    the radical series is spanned by unit vectors, so an image is a multiple of
+    the unit vector of one coordinate ``c`` (or zero); it is zero in the layer
+    when ``c`` lies in ``rad^(k+2) M``, is kept when ``c`` is new, and otherwise
+    is a nonzero multiple of the image kept for ``c``: one edge either way.
+    """
+    A = module.algebra
+    arrows = A.arrows
+    ser = module.radical_series_rows()
+    nlayers = len(ser) - 1
+    if nlayers == 0:
+        return LoewyDiagram((), (), (), True)
+    cmaps = module.column_maps()
+    # reps[k][v]: the coordinate of each basis vector of layer k at v
+    reps: list[dict[int, list[int]]] = [{}]
+    for v in module.support:
+        piv = {min(r) for r in ser[1].get(v, ())}
+        reps[0][v] = [j for j in range(module.dims[v]) if j not in piv]
+    nodes: list[LoewyNode] = []
+    index: dict[tuple[int, int, int], int] = {}
+
+    def add_layer(k: int) -> None:
+        for v in sorted(reps[k]):
+            for i in range(len(reps[k][v])):
+                index[(k, v, i)] = len(nodes)
+                nodes.append(LoewyNode(k, v, A.vertices[v]))
+
+    add_layer(0)
+    edge_arrows: dict[tuple[int, int], list[str]] = {}
+    stored = sorted(cmaps, key=lambda i: (arrows[i].source, i))
+    for k in range(nlayers - 1):
+        nxt: dict[int, list[int]] = {}
+        by_target: dict[int, list[int]] = {}
+        for ai in stored:
+            if reps[k].get(arrows[ai].source):
+                by_target.setdefault(arrows[ai].target, []).append(ai)
+        for t in sorted(ser[k + 1]):
+            below = {min(r) for r in ser[k + 2].get(t, ())}
+            want = len(ser[k + 1][t]) - len(below)
+            if want == 0:
+                nxt[t] = []
+                continue
+            cands: list[tuple[int, str, int]] = []
+            for ai in by_target.get(t, ()):
+                a = arrows[ai]
+                cols = cmaps[ai]
+                for i, j in enumerate(reps[k][a.source]):
+                    cands.append((index[(k, a.source, i)], a.name, cols[j]))
+            cands.sort(key=lambda c: c[0])  # stable: node by node, then arrow
+            kept: list[int] = []
+            where: dict[int, int] = {}  # coordinate -> kept index
+            for u, name, c in cands:
+                if c < 0 or c in below:
+                    continue
+                j = where.get(c)
+                if j is None:
+                    j = where[c] = len(kept)
+                    kept.append(c)
+                names = edge_arrows.setdefault((u, (k + 1, t, j)), [])
+                if name not in names:
+                    names.append(name)
             if len(kept) != want:
                 raise InternalInconsistency(
                     f"Loewy diagram: layer {k + 1} at {A.vertices[t]} has dimension {want} "
