@@ -326,20 +326,41 @@ class BasicAlgebra:
             for u, m in blocks.items():
                 by_end[u][i] = m
         if self.is_suffix_closed():
+            # blocks of the opposite: e_u A^op e_v has the reversed paths of e_v A e_u,
+            # ordered by length, then as words (the order a breadth-first choice
+            # of words would give them)
             words = []
-            action = []
+            perm: dict[tuple[int, int], list[int]] = {}  # (v, u): old index -> new index
             for u in range(n):
                 row: list[Any] = [()] * n
                 for v in into[u]:
-                    row[v] = tuple(w[::-1] for w in self.words[v][u])
+                    rev = [w[::-1] for w in self.words[v][u]]
+                    order = sorted(range(len(rev)), key=lambda k, rev=rev: (len(rev[k]), rev[k]))
+                    row[v] = tuple(rev[k] for k in order)
+                    new = [0] * len(order)
+                    for pos, k in enumerate(order):
+                        new[k] = pos
+                    perm[(v, u)] = new
                 words.append(row)
-                dims = tuple(map(len, row))
-                action.append(ArrowMaps(F, dims, opq.arrows, by_end[u]))
+            action = []
+            shared: dict[tuple[int, int], list[dict[int, Any]]] = {}
+            for u in range(n):
+                dims = tuple(map(len, words[u]))
+                maps = {}
+                for i in by_end[u]:
+                    a = self.arrows[i]  # a: s -> t, left multiplication e_t A e_u -> e_s A e_u
+                    rows_in = self.left_action_rows(i, u)
+                    prow, pcol = perm[(a.target, u)], perm[(a.source, u)]
+                    rows: list[dict[int, Any]] = [{}] * len(rows_in)
+                    for k, r in enumerate(rows_in):
+                        rows[prow[k]] = {pcol[c]: x for c, x in r.items()}
+                    shared[(u, i)] = rows
+                    maps[i] = to_mat(F, rows, dims[a.source])
+                action.append(ArrowMaps(F, dims, opq.arrows, maps))
             op = BasicAlgebra(F, opq, words, action, name=name, morita=self.morita)
             # the opposite's action is the left multiplication: share its sparse rows
-            for u in range(n):
-                for i in by_end[u]:
-                    op._cache[("sparse_action", u, i)] = self._cache[("left_action_rows", i, u)]
+            for (u, i), rows in shared.items():
+                op._cache[("sparse_action", u, i)] = rows
         else:
             reps = []
             for u in range(n):
