@@ -110,11 +110,17 @@ def test_opposite_multiplies_in_reverse(A):
                 duv, dwv = A.block_dim(v, u), A.block_dim(w, v)
                 if not duv or not dwv or not A.block_dim(w, u):
                     continue
-                left = op.multiplication_block(u, v, w)  # row j * duv + i: x_i^op * y_j^op
-                right = A.multiplication_block(w, v, u)  # row i * dwv + j: y_j * x_i
-                for i in range(duv):
-                    for j in range(dwv):
-                        assert left.take_rows([j * duv + i]) == right.take_rows([i * dwv + j])
+                left = op.multiplication_block(u, v, w).raw_rows()  # x^op * y^op
+                right = A.multiplication_block(w, v, u).raw_rows()  # y * x
+                # compare as combinations of paths: op's basis paths are the reversed ones
+                xs_op, ys_op, zs_op = op.words[u][v], op.words[v][w], op.words[u][w]
+                xs, ys, zs = A.words[v][u], A.words[w][v], A.words[w][u]
+                for i, x in enumerate(xs_op):
+                    for j, y in enumerate(ys_op):
+                        got = {zs_op[k][::-1]: c for k, c in enumerate(left[j * duv + i]) if c}
+                        i2, j2 = xs.index(x[::-1]), ys.index(y[::-1])
+                        want = {zs[k]: c for k, c in enumerate(right[i2 * dwv + j2]) if c}
+                        assert got == want
 
 
 @FAST
