@@ -461,10 +461,14 @@ class BasicAlgebra:
 
         ``memo`` maps paths to products already known (prefixes are reused).
         """
-        if w in memo:
-            return memo[w]
-        v = self.extend_path(u, memo, w[:-1]) @ self.action_matrix(u, w[-1])
-        memo[w] = v
+        # iterative (no recursion as deep as the path): the longest known prefix, then on
+        k = len(w)
+        while w[:k] not in memo:
+            k -= 1
+        v = memo[w[:k]]
+        for j in range(k, len(w)):
+            v = v @ self.action_matrix(u, w[j])
+            memo[w[: j + 1]] = v
         return v
 
     @classmethod
