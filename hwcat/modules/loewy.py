@@ -333,16 +333,16 @@ def _loewy_diagram_sets(module: Module) -> LoewyDiagram:
     """
     A = module.algebra
     arrows = A.arrows
-    ser = module.radical_series_rows()
-    nlayers = len(ser) - 1
+    nlayers, level = module.series_levels()
     if nlayers == 0:
         return LoewyDiagram((), (), (), True)
     cmaps = module.column_maps()
+    layers = module.radical_layers()
+    highest = {v: max(lv.values()) for v, lv in level.items() if lv}
     # reps[k][v]: the coordinate of each basis vector of layer k at v
     reps: list[dict[int, list[int]]] = [{}]
     for v in module.support:
-        piv = {min(r) for r in ser[1].get(v, ())}
-        reps[0][v] = [j for j in range(module.dims[v]) if j not in piv]
+        reps[0][v] = [j for j in range(module.dims[v]) if level[v][j] == 0]
     nodes: list[LoewyNode] = []
     index: dict[tuple[int, int, int], int] = {}
 
@@ -361,9 +361,9 @@ def _loewy_diagram_sets(module: Module) -> LoewyDiagram:
         for ai in stored:
             if reps[k].get(arrows[ai].source):
                 by_target.setdefault(arrows[ai].target, []).append(ai)
-        for t in sorted(ser[k + 1]):
-            below = {min(r) for r in ser[k + 2].get(t, ())}
-            want = len(ser[k + 1][t]) - len(below)
+        for t in sorted(v for v, top in highest.items() if top >= k + 1):
+            lt = level[t]
+            want = layers[k + 1][t]
             if want == 0:
                 nxt[t] = []
                 continue
@@ -377,7 +377,7 @@ def _loewy_diagram_sets(module: Module) -> LoewyDiagram:
             kept: list[int] = []
             where: dict[int, int] = {}  # coordinate -> kept index
             for u, name, c in cands:
-                if c < 0 or c in below:
+                if c < 0 or lt[c] >= k + 2:  # zero, or in rad^(k+2) M
                     continue
                 j = where.get(c)
                 if j is None:

@@ -392,29 +392,42 @@ class Module:
                     out.setdefault(arrows[i].target, set()).update(img)
         return out
 
+    def series_levels(self) -> tuple[int, dict[int, dict[int, int]]]:
+        """For a module acting by single entries: the Loewy length and each coordinate's level.
+
+        The level of the unit vector ``e_c`` at ``v`` is the largest ``k`` with
+        ``e_c`` in ``V_k`` (see :meth:`radical_series_on_support`), so
+        ``rad^k M`` at ``v`` is spanned by the ``e_c`` of level at least ``k`` and
+        the k-th radical layer by those of level ``k``: memory in proportion to
+        ``dim M`` (a series of bases would hold ``sum_k dim rad^k M`` vectors).
+        """
+        if "series_levels" not in self._memo:
+            full = {v: set(range(self.dims[v])) for v in self.support}
+            rad1 = self._set_images(full)
+            cur = {v: full[v] - rad1.get(v, set()) for v in self.support}
+            cur = {v: c for v, c in cur.items() if c}
+            level: dict[int, dict[int, int]] = {v: {} for v in self.support}
+            k = 0
+            while cur:
+                for v, cs in cur.items():
+                    lv = level[v]
+                    for c in cs:
+                        lv[c] = k
+                cur = self._set_images(cur)
+                k += 1
+            self._memo["series_levels"] = (k, level)
+        return self._memo["series_levels"]
+
     def _radical_series_sets(self) -> list[dict[int, list[dict[int, Any]]]]:
         one = self.field.one
-        full = {v: set(range(self.dims[v])) for v in self.support}
-        rad1 = self._set_images(full)
-        cur = {v: full[v] - rad1.get(v, set()) for v in self.support}
-        cur = {v: c for v, c in cur.items() if c}
-        levels = []
-        while cur:
-            levels.append(cur)
-            cur = self._set_images(cur)
-        sets: list[dict[int, set[int]]] = [{}]
-        for V in reversed(levels):
-            nxt = dict(sets[-1])
-            for v, c in V.items():
-                nxt[v] = c | nxt[v] if v in nxt else c
-            sets.append(nxt)
-        sets.reverse()
-        unit = {}
+        length, level = self.series_levels()
         out = []
-        for layer in sets:
+        for k in range(length + 1):
             rows = {}
-            for v in sorted(layer):
-                rows[v] = [unit.setdefault((v, c), {c: one}) for c in sorted(layer[v])]
+            for v in sorted(level):
+                cs = sorted(c for c, j in level[v].items() if j >= k)
+                if cs:
+                    rows[v] = [{c: one} for c in cs]
             out.append(rows)
         return out
 
@@ -464,11 +477,20 @@ class Module:
         """Dimension vectors of ``rad^k M / rad^(k+1) M``, k = 0, 1, ..."""
         if "radical_layers" in self._memo:
             return list(self._memo["radical_layers"])
+        n = len(self.dims)
+        if self.uses_sparse_rows() and self.acts_by_single_entries():
+            length, level = self.series_levels()
+            counts = [[0] * n for _ in range(length)]
+            for v, lv in level.items():
+                for k in lv.values():
+                    counts[k][v] += 1
+            out = [tuple(c) for c in counts]
+            self._memo["radical_layers"] = tuple(out)
+            return out
         if self.uses_sparse_rows():
             ser = [{v: len(r) for v, r in layer.items()} for layer in self.radical_series_rows()]
         else:
             ser = [{v: B.nrows for v, B in layer.items()} for layer in self.radical_series_on_support()]
-        n = len(self.dims)
         out = []
         for k in range(len(ser) - 1):
             vec = [0] * n
