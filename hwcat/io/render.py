@@ -9,6 +9,7 @@ from typing import Any
 
 __all__ = [
     "to_json",
+    "write_json",
     "layer_text",
     "matrix_text",
     "render_structure",
@@ -21,6 +22,22 @@ __all__ = [
 def to_json(result: Any) -> str:
     """One JSON object for a result with ``to_dict()``."""
     return json.dumps(result.to_dict(), indent=2, sort_keys=False)
+
+
+def write_json(result: Any, stream: Any) -> None:
+    """:func:`to_json` written to ``stream`` piece by piece, then a newline.
+
+    The same text; the whole of it is never held (the report of linear A_1000
+    has sixteen million numbers in its dimension vectors).
+    """
+    buf: list[str] = []
+    for chunk in json.JSONEncoder(indent=2, sort_keys=False).iterencode(result.to_dict()):
+        buf.append(chunk)
+        if len(buf) >= 1 << 16:
+            stream.write("".join(buf))
+            buf.clear()
+    buf.append("\n")
+    stream.write("".join(buf))
 
 
 def layer_text(vertices: Sequence[str], dims: Sequence[int]) -> str:
