@@ -27,7 +27,7 @@ def _load(args: argparse.Namespace):
 
 
 def _cmd_describe(args: argparse.Namespace) -> int:
-    from hwcat.io.render import render_structure, to_json
+    from hwcat.io.render import render_structure, write_json
     from hwcat.theory.structure import describe
 
     _, A = _load(args)
@@ -36,7 +36,10 @@ def _cmd_describe(args: argparse.Namespace) -> int:
         from hwcat.cli.report import write_structure_svgs
 
         write_structure_svgs(report, args.svg)
-    print(to_json(report) if args.json else render_structure(report))
+    if args.json:
+        write_json(report, sys.stdout)
+    else:
+        print(render_structure(report))
     return 0
 
 

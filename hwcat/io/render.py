@@ -4,10 +4,12 @@ from __future__ import annotations
 
 import json
 from collections.abc import Sequence
+from itertools import compress
 from typing import Any
 
 __all__ = [
     "to_json",
+    "write_json",
     "layer_text",
     "matrix_text",
     "render_structure",
@@ -22,14 +24,33 @@ def to_json(result: Any) -> str:
     return json.dumps(result.to_dict(), indent=2, sort_keys=False)
 
 
+def write_json(result: Any, stream: Any) -> None:
+    """:func:`to_json` written to ``stream`` piece by piece, then a newline.
+
+    The same text; the whole of it is never held (the report of linear A_1000
+    has sixteen million numbers in its dimension vectors).
+    """
+    buf: list[str] = []
+    for chunk in json.JSONEncoder(indent=2, sort_keys=False).iterencode(result.to_dict()):
+        buf.append(chunk)
+        if len(buf) >= 1 << 16:
+            stream.write("".join(buf))
+            buf.clear()
+    buf.append("\n")
+    stream.write("".join(buf))
+
+
 def layer_text(vertices: Sequence[str], dims: Sequence[int]) -> str:
     """``(0, 2, 1)`` over vertices ``1, 2, 3`` -> ``"2^2 3"``."""
+    if len(vertices) != len(dims):
+        raise ValueError(f"{len(dims)} dimensions for {len(vertices)} vertices")
     parts = []
-    for v, d in zip(vertices, dims, strict=True):
+    for i in compress(range(len(dims)), dims):  # the nonzero entries only
+        d = dims[i]
         if d == 1:
-            parts.append(v)
+            parts.append(vertices[i])
         elif d > 1:
-            parts.append(f"{v}^{d}")
+            parts.append(f"{vertices[i]}^{d}")
     return " ".join(parts) if parts else "0"
 
 
@@ -43,24 +64,27 @@ def matrix_text(
     col_labels: Sequence[str],
     indent: str = "  ",
 ) -> str:
-    cells = [[str(x) for x in r] for r in rows]
+    # two passes over the rows (widths, then lines) so that no table of cells is held:
+    # a Cartan matrix with a thousand vertices has a million of them
     w0 = max([len(x) for x in row_labels] + [0])
-    widths = [
-        max([len(col_labels[j])] + [len(cells[i][j]) for i in range(len(cells))])
-        for j in range(len(col_labels))
-    ]
+    widths = [len(c) for c in col_labels]
+    for r in rows:
+        lens = [len(str(x)) for x in r]
+        if len(lens) != len(widths):
+            raise ValueError(f"a row of {len(lens)} entries under {len(widths)} column labels")
+        widths = list(map(max, widths, lens))
     lines = [
         indent
         + " " * w0
         + "  "
         + " ".join(c.rjust(w) for c, w in zip(col_labels, widths, strict=True))
     ]
-    for lab, r in zip(row_labels, cells, strict=True):
+    for lab, r in zip(row_labels, rows, strict=True):
         lines.append(
             indent
             + lab.rjust(w0)
             + "  "
-            + " ".join(c.rjust(w) for c, w in zip(r, widths, strict=True))
+            + " ".join(str(c).rjust(w) for c, w in zip(r, widths, strict=True))
         )
     return "\n".join(lines)
 

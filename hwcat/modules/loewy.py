@@ -36,6 +36,7 @@ from typing import Any
 
 from hwcat.errors import InternalInconsistency
 from hwcat.exact import Mat, complement, select_independent_rows
+from hwcat.exact.sparse import row_times
 from hwcat.modules.module import Module, injective, projective
 
 __all__ = [
@@ -88,7 +89,7 @@ class LoewyDiagram:
         }
 
 
-def loewy_diagram(module: Module) -> LoewyDiagram:
+def loewy_diagram(module: Module, *, method: str = "auto") -> LoewyDiagram:
     """The Loewy diagram of ``module``: nodes per radical layer and vertex, edges by arrows.
 
     Notes
@@ -104,6 +105,12 @@ def loewy_diagram(module: Module) -> LoewyDiagram:
     coordinate, so it adds exactly one edge; the edges of the other images are
     read from their coordinates in that basis.
 
+    ``method``: ``"dense"`` (matrices), ``"sparse"`` (sparse rows, for
+    modules whose arrows act by few entries per row, see
+    :func:`~hwcat.modules.module.series_method`), ``"sets"`` (sets of
+    coordinates, for modules whose arrows act by single entries) or
+    ``"auto"`` (the module's own choice).  All give the same diagram.
+
     Examples
     --------
     The projective at the source of ``1 -> 2`` with two arrows (Kronecker
@@ -117,54 +124,72 @@ def loewy_diagram(module: Module) -> LoewyDiagram:
     >>> d.edges, d.edge_arrows, d.multiplicity_free
     (((0, 1), (0, 2)), (('a',), ('b',)), False)
     """
+    if method == "auto":
+        method = "sparse" if module.uses_sparse_rows() else "dense"
+        if method == "sparse" and module.acts_by_single_entries():
+            method = "sets"
+    if method == "sets":
+        if not module.acts_by_single_entries():
+            raise InternalInconsistency("the coordinate-set route needs arrows acting by single entries")
+        return _loewy_diagram_sets(module)
+    if method == "sparse":
+        return _loewy_diagram_sparse(module)
+    if method != "dense":
+        raise InternalInconsistency(f"unknown Loewy diagram method {method!r}")
     A = module.algebra
     F = module.field
     dims = module.dims
     arrows = A.arrows
-    ser = module.radical_series()
+    ser = module.radical_series_on_support()
     nlayers = len(ser) - 1
     if nlayers == 0:  # the zero module
         return LoewyDiagram((), (), (), True)
-    # reps[k][v]: rows of M_v representing the basis of layer k at v
-    reps: list[list[Mat]] = [[complement(ser[1][v], d) for v, d in enumerate(dims)]]
+    zero = {v: Mat.zeros(F, 0, dims[v]) for v in module.support}
+    # reps[k][v]: rows of M_v representing the basis of layer k at v (support only)
+    reps: list[dict[int, Mat]] = [
+        {v: complement(ser[1].get(v, zero[v]), dims[v]) for v in module.support}
+    ]
     # node index of the i-th basis vector of layer k at vertex v
     nodes: list[LoewyNode] = []
     index: dict[tuple[int, int, int], int] = {}
 
     def add_layer(k: int) -> None:
-        for v in range(A.n):
+        for v in sorted(reps[k]):
             for i in range(reps[k][v].nrows):
                 index[(k, v, i)] = len(nodes)
                 nodes.append(LoewyNode(k, v, A.vertices[v]))
 
     add_layer(0)
     edge_arrows: dict[tuple[int, int], list[str]] = {}
+    stored = module.maps.items()
     for k in range(nlayers - 1):
-        nxt: list[Mat] = []
-        for t, d in enumerate(dims):
-            want = ser[k + 1][t].nrows - ser[k + 2][t].nrows
+        nxt: dict[int, Mat] = {}
+        # the arrows from a vertex with layer-k nodes, by target, in (source, arrow) order
+        by_target: dict[int, list[int]] = {}
+        for ai, _ in sorted(stored, key=lambda x: (arrows[x[0]].source, x[0])):
+            B = reps[k].get(arrows[ai].source)
+            if B is not None and B.nrows:
+                by_target.setdefault(arrows[ai].target, []).append(ai)
+        for t in sorted(ser[k + 1]):
+            d = dims[t]
+            R2 = ser[k + 2].get(t, zero[t])
+            want = ser[k + 1][t].nrows - R2.nrows
+            if want == 0:
+                nxt[t] = zero[t]
+                continue
             cands: list[tuple[int, str]] = []  # (source node, arrow name) per row
             rows: list[Mat] = []
-            for s in range(A.n):
-                B = reps[k][s]
-                if B.nrows == 0:
-                    continue
-                for ai, a in enumerate(arrows):
-                    if a.source != s or a.target != t:
-                        continue
-                    img = B @ module.maps[ai]
-                    for i in range(B.nrows):
-                        cands.append((index[(k, s, i)], a.name))
-                    rows.append(img)
-            if want == 0:
-                nxt.append(Mat.zeros(F, 0, d))
-                continue
+            for ai in by_target.get(t, ()):
+                a = arrows[ai]
+                B = reps[k][a.source]
+                rows.append(B @ module.maps[ai])
+                for i in range(B.nrows):
+                    cands.append((index[(k, a.source, i)], a.name))
             stack = Mat.vstack(F, rows, d)
             # order the candidate rows node by node (then arrow), as documented
             order = sorted(range(len(cands)), key=lambda r: (cands[r][0], r))
             stack = stack.take_rows(order)
             cands = [cands[r] for r in order]
-            R2 = ser[k + 2][t]
             kept = select_independent_rows(stack, R2)
             if len(kept) != want:
                 raise InternalInconsistency(
@@ -172,7 +197,7 @@ def loewy_diagram(module: Module) -> LoewyDiagram:
                     f"but the arrows from layer {k} span {len(kept)}"
                 )
             basis = stack.take_rows(kept)
-            nxt.append(basis)
+            nxt[t] = basis
             coords = Mat.vstack(F, [basis, R2], d).solve_left(stack)
             if coords is None:
                 raise InternalInconsistency("Loewy diagram: an image lies outside the layer")
@@ -183,13 +208,222 @@ def loewy_diagram(module: Module) -> LoewyDiagram:
     edges = sorted(edge_arrows)
     resolved = [(u, index[w]) for u, w in edges]
     order = sorted(range(len(edges)), key=lambda e: resolved[e])
-    free = all(r.nrows <= 1 for layer in reps for r in layer)
+    free = all(r.nrows <= 1 for layer in reps for r in layer.values())
     return LoewyDiagram(
         nodes=tuple(nodes),
         edges=tuple(resolved[e] for e in order),
         edge_arrows=tuple(tuple(edge_arrows[edges[e]]) for e in order),
         multiplicity_free=free,
     )
+
+
+def _loewy_diagram_sparse(module: Module) -> LoewyDiagram:
+    """:func:`loewy_diagram` on sparse rows: the same choices, the same diagram.
+
+    Each candidate image is reduced modulo the echelon basis of
+    ``rad^(k+2) M`` (a canonical representative of its class in the layer)
+    and then against the kept images, with the combination of kept images
+    tracked: a candidate that reduces to zero has those coefficients as its
+    coordinates, one that does not is kept.
+    """
+    A = module.algebra
+    F = module.field
+    arrows = A.arrows
+    ser = module.radical_series_rows()
+    nlayers = len(ser) - 1
+    if nlayers == 0:
+        return LoewyDiagram((), (), (), True)
+    one = F.one
+    smaps = module.sparse_maps()
+    # layer 0: unit vectors off the pivots of rad M (the module's minimal generators)
+    reps: list[dict[int, list[dict[int, Any]]]] = [{}]
+    for v in module.support:
+        piv = {min(r) for r in ser[1].get(v, ())}
+        reps[0][v] = [{j: one} for j in range(module.dims[v]) if j not in piv]
+    nodes: list[LoewyNode] = []
+    index: dict[tuple[int, int, int], int] = {}
+
+    def add_layer(k: int) -> None:
+        for v in sorted(reps[k]):
+            for i in range(len(reps[k][v])):
+                index[(k, v, i)] = len(nodes)
+                nodes.append(LoewyNode(k, v, A.vertices[v]))
+
+    add_layer(0)
+    edge_arrows: dict[tuple[int, int], list[str]] = {}
+    stored = sorted(smaps, key=lambda i: (arrows[i].source, i))
+    for k in range(nlayers - 1):
+        nxt: dict[int, list[dict[int, Any]]] = {}
+        by_target: dict[int, list[int]] = {}
+        for ai in stored:
+            if reps[k].get(arrows[ai].source):
+                by_target.setdefault(arrows[ai].target, []).append(ai)
+        for t in sorted(ser[k + 1]):
+            below = {min(r): r for r in ser[k + 2].get(t, ())}
+            want = len(ser[k + 1][t]) - len(below)
+            if want == 0:
+                nxt[t] = []
+                continue
+            cands: list[tuple[int, str, dict[int, Any]]] = []
+            for ai in by_target.get(t, ()):
+                a = arrows[ai]
+                for i, row in enumerate(reps[k][a.source]):
+                    cands.append((index[(k, a.source, i)], a.name, row_times(row, smaps[ai])))
+            cands.sort(key=lambda c: c[0])  # stable: node by node, then arrow
+            kept: list[dict[int, Any]] = []
+            # echelon rows of the kept classes: pivot -> (vector, combination of kept)
+            ech: dict[int, tuple[dict[int, Any], dict[int, Any]]] = {}
+            for u, name, img in cands:
+                v = _reduce(dict(img), below)
+                combo: dict[int, Any] = {}
+                while True:  # kept rows have entries from their pivot on: smallest first
+                    hits = [q for q in v if q in ech]
+                    if not hits:
+                        break
+                    p = min(hits)
+                    x = v[p]
+                    vec, c = ech[p]
+                    _axpy(v, -x, vec)
+                    _axpy(combo, x, c)
+                if v:
+                    j = len(kept)
+                    kept.append(img)
+                    coords = {j: one}
+                    c = {q: -y for q, y in combo.items()}
+                    c[j] = c.get(j, F.zero) + one
+                    p = min(v)
+                    inv = one / v[p]
+                    ech[p] = ({q: y * inv for q, y in v.items()}, {q: y * inv for q, y in c.items()})
+                else:
+                    coords = combo
+                for j, x in coords.items():
+                    if x != 0:
+                        key = (u, (k + 1, t, j))
+                        names = edge_arrows.setdefault(key, [])
+                        if name not in names:
+                            names.append(name)
+            if len(kept) != want:
+                raise InternalInconsistency(
+                    f"Loewy diagram: layer {k + 1} at {A.vertices[t]} has dimension {want} "
+                    f"but the arrows from layer {k} span {len(kept)}"
+                )
+            nxt[t] = kept
+        reps.append(nxt)
+        add_layer(k + 1)
+    edges = sorted(edge_arrows)
+    resolved = [(u, index[w]) for u, w in edges]
+    order = sorted(range(len(edges)), key=lambda e: resolved[e])
+    free = all(len(r) <= 1 for layer in reps for r in layer.values())
+    return LoewyDiagram(
+        nodes=tuple(nodes),
+        edges=tuple(resolved[e] for e in order),
+        edge_arrows=tuple(tuple(edge_arrows[edges[e]]) for e in order),
+        multiplicity_free=free,
+    )
+
+
+def _loewy_diagram_sets(module: Module) -> LoewyDiagram:
+    """:func:`loewy_diagram` for arrows acting by single entries: the same choices.
+
+    Every basis vector chosen is a multiple of a unit vector and every space of
+    the radical series is spanned by unit vectors, so an image is a multiple of
+    the unit vector of one coordinate ``c`` (or zero); it is zero in the layer
+    when ``c`` lies in ``rad^(k+2) M``, is kept when ``c`` is new, and otherwise
+    is a nonzero multiple of the image kept for ``c``: one edge either way.
+    """
+    A = module.algebra
+    arrows = A.arrows
+    nlayers, level = module.series_levels()
+    if nlayers == 0:
+        return LoewyDiagram((), (), (), True)
+    cmaps = module.column_maps()
+    layers = module.radical_layers()
+    highest = {v: max(lv.values()) for v, lv in level.items() if lv}
+    # reps[k][v]: the coordinate of each basis vector of layer k at v
+    reps: list[dict[int, list[int]]] = [{}]
+    for v in module.support:
+        reps[0][v] = [j for j in range(module.dims[v]) if level[v][j] == 0]
+    nodes: list[LoewyNode] = []
+    index: dict[tuple[int, int, int], int] = {}
+
+    def add_layer(k: int) -> None:
+        for v in sorted(reps[k]):
+            for i in range(len(reps[k][v])):
+                index[(k, v, i)] = len(nodes)
+                nodes.append(LoewyNode(k, v, A.vertices[v]))
+
+    add_layer(0)
+    edge_arrows: dict[tuple[int, int], list[str]] = {}
+    stored = sorted(cmaps, key=lambda i: (arrows[i].source, i))
+    for k in range(nlayers - 1):
+        nxt: dict[int, list[int]] = {}
+        by_target: dict[int, list[int]] = {}
+        for ai in stored:
+            if reps[k].get(arrows[ai].source):
+                by_target.setdefault(arrows[ai].target, []).append(ai)
+        for t in sorted(v for v, top in highest.items() if top >= k + 1):
+            lt = level[t]
+            want = layers[k + 1][t]
+            if want == 0:
+                nxt[t] = []
+                continue
+            cands: list[tuple[int, str, int]] = []
+            for ai in by_target.get(t, ()):
+                a = arrows[ai]
+                cols = cmaps[ai]
+                for i, j in enumerate(reps[k][a.source]):
+                    cands.append((index[(k, a.source, i)], a.name, cols[j]))
+            cands.sort(key=lambda c: c[0])  # stable: node by node, then arrow
+            kept: list[int] = []
+            where: dict[int, int] = {}  # coordinate -> kept index
+            for u, name, c in cands:
+                if c < 0 or lt[c] >= k + 2:  # zero, or in rad^(k+2) M
+                    continue
+                j = where.get(c)
+                if j is None:
+                    j = where[c] = len(kept)
+                    kept.append(c)
+                names = edge_arrows.setdefault((u, (k + 1, t, j)), [])
+                if name not in names:
+                    names.append(name)
+            if len(kept) != want:
+                raise InternalInconsistency(
+                    f"Loewy diagram: layer {k + 1} at {A.vertices[t]} has dimension {want} "
+                    f"but the arrows from layer {k} span {len(kept)}"
+                )
+            nxt[t] = kept
+        reps.append(nxt)
+        add_layer(k + 1)
+    edges = sorted(edge_arrows)
+    resolved = [(u, index[w]) for u, w in edges]
+    order = sorted(range(len(edges)), key=lambda e: resolved[e])
+    free = all(len(r) <= 1 for layer in reps for r in layer.values())
+    return LoewyDiagram(
+        nodes=tuple(nodes),
+        edges=tuple(resolved[e] for e in order),
+        edge_arrows=tuple(tuple(edge_arrows[edges[e]]) for e in order),
+        multiplicity_free=free,
+    )
+
+
+def _axpy(y: dict[int, Any], a: Any, x: dict[int, Any]) -> None:
+    """``y += a * x`` on sparse rows, in place."""
+    for j, xj in x.items():
+        z = y.get(j)
+        z = a * xj if z is None else z + a * xj
+        if z == 0:
+            y.pop(j, None)
+        else:
+            y[j] = z
+
+
+def _reduce(v: dict[int, Any], echelon_rows: dict[int, dict[int, Any]]) -> dict[int, Any]:
+    """``v`` reduced modulo reduced echelon rows given by pivot (in place; returned)."""
+    for p in [p for p in v if p in echelon_rows]:
+        x = v.get(p)
+        if x is not None:
+            _axpy(v, -x, echelon_rows[p])
+    return v
 
 
 def _collect_edges(k: int, t: int, coords: Mat, cands, want: int, edge_arrows) -> None:
@@ -222,7 +456,9 @@ def is_indecomposable_projective_injective(module: Module) -> bool:
     >>> [is_indecomposable_projective_injective(projective(A, s)) for s in range(2)]
     [True, False]
     """
-    top, soc = module.top(), module.socle()
+    if module.is_zero():
+        return False
+    top, soc = module.radical_layers()[0], module.socle_layers()[0]
     if sum(top) != 1 or sum(soc) != 1:
         return False
     A = module.algebra

@@ -33,8 +33,9 @@ from typing import Any
 from hwcat.algebras.hub.basic import BasicAlgebra
 from hwcat.algebras.inputs.structure import StructureAlgebra
 from hwcat.exact import Mat, echelon
+from hwcat.exact.sparse import sparse_rows
 
-__all__ = ["Centre", "centre", "algebra_centre", "PATH_TERMS", "USER_TERMS_LIMIT"]
+__all__ = ["Centre", "centre", "algebra_centre", "hub_centre", "PATH_TERMS", "USER_TERMS_LIMIT"]
 
 _RANDOM_ROUNDS = 3
 
@@ -42,9 +43,14 @@ _RANDOM_ROUNDS = 3
 @dataclass(frozen=True)
 class Centre:
     """A basis of ``Z(A)``: coordinates in the basis of ``algebra``, their texts, and
-    what the texts are written in (``terms``)."""
+    what the texts are written in (``terms``).
 
-    algebra: StructureAlgebra = field(repr=False)
+    For :func:`hub_centre` ``algebra`` is ``None`` and the coordinates are in the
+    basis of paths of the hub, block by block in the order of
+    :func:`~hwcat.algebras.inputs.structure_input.from_basic_algebra`.
+    """
+
+    algebra: StructureAlgebra | None = field(repr=False)
     basis: tuple[tuple[Any, ...], ...] = field(repr=False)
     texts: tuple[str, ...]
     terms: str = "basis names"
@@ -102,7 +108,6 @@ def centre(
 def algebra_centre(B: BasicAlgebra, *, seed: int = 0) -> Centre:
     """``Z`` of the algebra behind a hub: the user's algebra when the hub came from a
     reduction (table, matrices, family), else the quiver algebra in paths."""
-    from hwcat.algebras.inputs.structure_input import from_basic_algebra
     from hwcat.algebras.reduction.reduction import reduction_of
 
     def compute() -> Centre:
@@ -111,10 +116,7 @@ def algebra_centre(B: BasicAlgebra, *, seed: int = 0) -> Centre:
             Z = centre(r.algebra, seed=seed)
             return Centre(Z.algebra, Z.basis, Z.texts, OWN_TERMS)
         # Z is a Morita invariant: the basic algebra gives the same dimension
-        A = from_basic_algebra(B)
-        # the trivial paths and the arrows generate the path basis
-        gens = [j for j, name in enumerate(A.basis) if "*" not in name]
-        Z = centre(A, seed=seed, generators=gens)
+        Z = hub_centre(B)
         if r is None:
             return Centre(Z.algebra, Z.basis, Z.texts, PATH_TERMS)
         large = (
@@ -133,3 +135,119 @@ USER_TERMS_LIMIT = 400
 """Largest dimension of a reduced input algebra whose centre is computed in its own
 basis (dense ``dim x dim`` multiplication matrices); beyond it the basis is written in
 the paths of the basic algebra."""
+
+
+SPARSE_CENTRE_ENTRIES_PER_EQUATION = 4
+"""Largest average number of nonzero entries per equation for which :func:`hub_centre`
+solves on sparse rows; denser systems go to one dense kernel (exact elimination on
+sparse rows fills in on generic relations)."""
+
+
+def hub_centre(B: BasicAlgebra, *, method: str = "auto") -> Centre:
+    """The centre of a basic algebra, block by block in the hub.
+
+    A central element commutes with the idempotents, so it lies in the sum of
+    the blocks ``e_s A e_s``; it commutes with everything when it commutes with
+    the arrows (they and the idempotents generate), and for an arrow
+    ``a: s -> t`` that is ``z_s a = a z_t`` in ``e_s A e_t`` (common practice).
+    The unknowns are the coordinates of the ``z_s``; right multiplication by
+    ``a`` is the hub's action, left multiplication is
+    :meth:`~hwcat.algebras.hub.basic.BasicAlgebra.left_actions`.  No
+    ``dim A x dim A`` matrix is formed.  ``method``: ``"sparse"`` (elimination
+    on sparse rows), ``"dense"`` (one dense kernel) or ``"auto"`` (sparse when
+    the equations have at most :data:`SPARSE_CENTRE_ENTRIES_PER_EQUATION`
+    entries on average).  The basis is the reduced echelon basis in the
+    coordinates of :func:`~hwcat.algebras.inputs.structure_input.from_basic_algebra`,
+    the same as :func:`centre` of that structure-constant algebra.
+
+    >>> from hwcat.io.spec import load_spec_text
+    >>> A = load_spec_text('field = "QQ"\\n[quiver]\\nvertices = ["1"]\\n'
+    ...                    'arrows = ["x: 1 -> 1"]\\nvanish_from_length = 3')
+    >>> hub_centre(A).texts             # commutative: Z = A
+    ('e_1', 'x', 'x*x')
+    """
+    from hwcat.exact.sparse import sparse_echelon, to_mat
+
+    F, n = B.field, B.n
+    # unknowns: the diagonal blocks in vertex order; offsets in the full path basis
+    var0: list[int] = []
+    full0: list[int] = []
+    nvar = 0
+    before = 0
+    for s in range(n):
+        var0.append(nvar)
+        nvar += B.block_dim(s, s)
+        full0.append(before + sum(map(len, B.words[s][:s])))
+        before += sum(map(len, B.words[s]))
+    left = B.left_actions()
+    equations: list[dict[int, Any]] = []
+    for i, a in enumerate(B.arrows):
+        s, t = a.source, a.target
+        eqs: list[dict[int, Any]] = [{} for _ in range(B.block_dim(s, t))]
+        for r, row in enumerate(B.sparse_action(s, i)):  # z_s a, rows: basis of e_s A e_s
+            for c, x in row.items():
+                eqs[c][var0[s] + r] = x
+        L = left[i].get(t)
+        if L is not None:
+            for r, row in enumerate(sparse_rows(L)):
+                for c, x in row.items():
+                    y = eqs[c].get(var0[t] + r)
+                    y = -x if y is None else y - x
+                    if y == 0:
+                        eqs[c].pop(var0[t] + r, None)
+                    else:
+                        eqs[c][var0[t] + r] = y
+        equations.extend(e for e in eqs if e)
+    if method == "auto":
+        entries = sum(len(e) for e in equations)
+        dense = entries > SPARSE_CENTRE_ENTRIES_PER_EQUATION * max(len(equations), 1)
+        method = "dense" if dense else "sparse"
+    if method == "sparse":
+        R, piv = sparse_echelon(F, equations)
+        pivset = set(piv)
+        kernel = []
+        for f in range(nvar):
+            if f in pivset:
+                continue
+            v = {f: F.one}
+            for row, p in zip(R, piv, strict=True):
+                x = row.get(f)
+                if x is not None:
+                    v[p] = -x
+            kernel.append(v)
+        basis_rows, _ = sparse_echelon(F, kernel)
+    elif method == "dense":
+        E = to_mat(F, equations, nvar).transpose()  # unknowns x equations
+        K = E.left_kernel() if E.ncols else Mat.identity(F, nvar)
+        basis_rows = sparse_rows(echelon(K)) if K.nrows else []
+    else:
+        raise ValueError(f"unknown method {method!r}")
+    # back to the full path basis
+    where: list[tuple[int, int, int]] = []  # unknown -> (vertex, word index, full index)
+    for s in range(n):
+        for k in range(B.block_dim(s, s)):
+            where.append((s, k, full0[s] + k))
+    dim = B.dim
+    basis = []
+    texts = []
+    for row in basis_rows:
+        vec = [F.zero] * dim
+        terms = []
+        for j in sorted(row):
+            s, k, full = where[j]
+            c = row[j]
+            vec[full] = c
+            p = B.path_text(B.words[s][s][k], s)
+            cs = str(c)
+            if cs == "1":
+                terms.append(f"+ {p}")
+            elif cs == "-1":
+                terms.append(f"- {p}")
+            elif cs.startswith("-"):
+                terms.append(f"- {cs[1:]}*{p}")
+            else:
+                terms.append(f"+ {cs}*{p}")
+        text = " ".join(terms)
+        texts.append(text[2:] if text.startswith("+ ") else "-" + text[2:])
+        basis.append(tuple(vec))
+    return Centre(None, tuple(basis), tuple(texts))

@@ -28,7 +28,7 @@ from hwcat.exact import Mat, echelon
 from hwcat.exact.polys import minpoly, select_columns
 from hwcat.modules import Module, injective, projective
 from hwcat.modules.action import ActionModule
-from hwcat.theory.centre import PATH_TERMS, Centre, algebra_centre, centre
+from hwcat.theory.centre import PATH_TERMS, Centre, algebra_centre, hub_centre
 from hwcat.theory.decompose import DEFAULT_SEED, JordanBlock, decompose, jordan_type
 from hwcat.theory.orders import PartialOrder
 
@@ -434,9 +434,7 @@ def _central_action(M: ActionModule, B: BasicAlgebra, D, pieces, notes: list[str
 
     try:
         if M.representation is not None:
-            from hwcat.algebras.inputs.structure_input import from_basic_algebra
-
-            cent = centre(from_basic_algebra(B))
+            cent = hub_centre(B)
             cent = Centre(cent.algebra, cent.basis, cent.texts, PATH_TERMS)
         else:
             cent = algebra_centre(B)

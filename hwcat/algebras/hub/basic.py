@@ -29,12 +29,14 @@ from __future__ import annotations
 
 import copy
 from collections.abc import Callable, Iterable, Sequence
+from itertools import compress
 from typing import Any
 
 from hwcat.algebras.hub.quiver import Arrow, Path, Quiver, format_path
 from hwcat.algebras.hub.rep import ArrowMaps, closure, cyclic_word_basis, quotient
 from hwcat.errors import InternalInconsistency, VertexError
 from hwcat.exact import Field, Mat
+from hwcat.exact.sparse import row_times, sparse_rows, to_mat
 
 __all__ = ["BasicAlgebra"]
 
@@ -93,8 +95,11 @@ class BasicAlgebra:
         self.field = field
         self.quiver = quiver
         self.words: tuple[tuple[tuple[Path, ...], ...], ...] = tuple(
-            tuple(tuple(words[s][t]) for t in range(n)) for s in range(n)
+            tuple(map(tuple, words[s])) for s in range(n)
         )
+        if any(len(row) != n for row in self.words):
+            raise InternalInconsistency("words/action do not match the vertices")
+        self._cache: dict[Any, Any] = {}
         self._check_action(action)
         self._action: tuple[dict[int, Mat], ...] = tuple(
             {
@@ -107,7 +112,6 @@ class BasicAlgebra:
         self.name = name
         self.morita = tuple(morita) if morita is not None else (1,) * n
         self.relations = tuple(relations) if relations is not None else None
-        self._cache: dict[Any, Any] = {}
         self.natural_order: str | None = None  # a family's natural highest-weight order, as text
         self._check()
 
@@ -213,15 +217,22 @@ class BasicAlgebra:
         return len(self.words[s][t])
 
     def projective_dims(self, s: int) -> tuple[int, ...]:
-        return tuple(len(w) for w in self.words[s])
+        key = ("projective_dims", s)
+        dims = self._cache.get(key)
+        if dims is None:
+            dims = self._cache[key] = tuple(map(len, self.words[s]))
+        return dims
 
     @property
     def dim(self) -> int:
-        return sum(len(w) for row in self.words for w in row)
+        d = self._cache.get("dim")
+        if d is None:
+            d = self._cache["dim"] = sum(sum(map(len, row)) for row in self.words)
+        return d
 
     def cartan(self) -> tuple[tuple[int, ...], ...]:
         """The Cartan matrix ``C[i][j] = [P(j) : L(i)] = dim e_j A e_i`` (rows as tuples)."""
-        return tuple(tuple(self.block_dim(j, i) for j in range(self.n)) for i in range(self.n))
+        return tuple(zip(*(self.projective_dims(j) for j in range(self.n)), strict=True))
 
     def word_index(self, s: int, t: int) -> dict[Path, int]:
         key = ("word_index", s, t)
@@ -294,52 +305,170 @@ class BasicAlgebra:
 
     # -- structure -----------------------------------------------------------------
     def opposite(self) -> BasicAlgebra:
-        """The opposite algebra (same vertices, arrows reversed, cached both ways)."""
+        """The opposite algebra (same vertices, arrows reversed, cached both ways).
+
+        When the basis paths are closed under taking suffixes as well as
+        prefixes (the normal paths of a bound quiver algebra are: every subpath
+        of a normal path is normal), the reversed paths are a prefix-closed basis
+        of the opposite and the left multiplications by the arrows are its
+        action, with no change of basis.  Otherwise a basis of the opposite is
+        chosen by :meth:`from_cyclic_representations`.
+        """
         if "opposite" in self._cache:
             return self._cache["opposite"]
         F, n = self.field, self.n
-        # left multiplication by arrow a on e_{t(a)} A: row vectors a*w for basis w
-        left: list[dict[int, Mat]] = []  # left[a][s] : e_{t(a)} A e_s -> e_{s(a)} A e_s
-        for i, a in enumerate(self.arrows):
-            u = a.source
-            unit = Mat.unit_rows(
-                F, self.block_dim(u, a.target), [self.word_index(u, a.target)[(i,)]]
-            )
-            memo: dict[Path, Mat] = {(): unit}
-            per_s: dict[int, Mat] = {}
-            for s in range(n):
-                ws = self.words[a.target][s]
-                rows = []
-                for w in ws:
-                    rows.append(self.extend_path(u, memo, w))
-                per_s[s] = Mat.vstack(F, rows, self.block_dim(u, s))
-            left.append(per_s)
+        left = self.left_actions()
         opq = Quiver(self.vertices, tuple(Arrow(a.name, a.target, a.source) for a in self.arrows))
-        reps = []
-        for s in range(n):
-            dims = tuple(self.block_dim(t, s) for t in range(n))
-            maps = tuple(left[i][s] for i in range(len(self.arrows)))
-            reps.append((dims, maps))
-        op = BasicAlgebra.from_cyclic_representations(
-            F,
-            opq,
-            reps,
-            name=f"{self.name} (opposite)" if self.name else "opposite",
-            morita=self.morita,
-        )
+        name = f"{self.name} (opposite)" if self.name else "opposite"
+        into = self.column_supports()
+        by_end: list[dict[int, Mat]] = [{} for _ in range(n)]  # by_end[u][a]: left[a][u]
+        for i, blocks in enumerate(left):
+            for u, m in blocks.items():
+                by_end[u][i] = m
+        if self.is_suffix_closed():
+            # blocks of the opposite: e_u A^op e_v has the reversed paths of e_v A e_u,
+            # ordered by length, then as words (the order a breadth-first choice
+            # of words would give them)
+            words = []
+            perm: dict[tuple[int, int], list[int]] = {}  # (v, u): old index -> new index
+            for u in range(n):
+                row: list[Any] = [()] * n
+                for v in into[u]:
+                    rev = [w[::-1] for w in self.words[v][u]]
+                    order = sorted(range(len(rev)), key=lambda k, rev=rev: (len(rev[k]), rev[k]))
+                    row[v] = tuple(rev[k] for k in order)
+                    new = [0] * len(order)
+                    for pos, k in enumerate(order):
+                        new[k] = pos
+                    perm[(v, u)] = new
+                words.append(row)
+            action = []
+            shared: dict[tuple[int, int], list[dict[int, Any]]] = {}
+            for u in range(n):
+                dims = tuple(map(len, words[u]))
+                maps = {}
+                for i in by_end[u]:
+                    a = self.arrows[i]  # a: s -> t, left multiplication e_t A e_u -> e_s A e_u
+                    rows_in = self.left_action_rows(i, u)
+                    prow, pcol = perm[(a.target, u)], perm[(a.source, u)]
+                    rows: list[dict[int, Any]] = [{}] * len(rows_in)
+                    for k, r in enumerate(rows_in):
+                        rows[prow[k]] = {pcol[c]: x for c, x in r.items()}
+                    shared[(u, i)] = rows
+                    maps[i] = to_mat(F, rows, dims[a.source])
+                action.append(ArrowMaps(F, dims, opq.arrows, maps))
+            op = BasicAlgebra(F, opq, words, action, name=name, morita=self.morita)
+            # the opposite's action is the left multiplication: share its sparse rows
+            for (u, i), rows in shared.items():
+                op._cache[("sparse_action", u, i)] = rows
+        else:
+            reps = []
+            for u in range(n):
+                dims = tuple(self.block_dim(t, u) for t in range(n))
+                maps = ArrowMaps(F, dims, opq.arrows, by_end[u])
+                reps.append((dims, maps))
+            op = BasicAlgebra.from_cyclic_representations(F, opq, reps, name=name, morita=self.morita)
         op._cache["opposite"] = self
         self._cache["opposite"] = op
         return op
+
+    def is_suffix_closed(self) -> bool:
+        """Whether every basis path ``a*w`` of ``e_s A e_t`` has ``w`` in the basis of ``e_target(a) A e_t``."""
+        arrows = self.arrows
+        for s in range(self.n):
+            for t in self.row_support(s):
+                for w in self.words[s][t]:
+                    if len(w) > 1 and w[1:] not in self.word_index(arrows[w[0]].target, t):
+                        return False
+        return True
+
+    def row_support(self, s: int) -> tuple[int, ...]:
+        """The vertices ``t`` with ``e_s A e_t`` nonzero (the support of ``P(s)``), cached."""
+        key = ("row_support", s)
+        sup = self._cache.get(key)
+        if sup is None:
+            sup = self._cache[key] = tuple(compress(range(self.n), self.words[s]))
+        return sup
+
+    def column_supports(self) -> tuple[tuple[int, ...], ...]:
+        """For each vertex ``t`` the vertices ``s`` with ``e_s A e_t`` nonzero, cached."""
+
+        def compute() -> tuple[tuple[int, ...], ...]:
+            cols: list[list[int]] = [[] for _ in range(self.n)]
+            for s in range(self.n):
+                for t in self.row_support(s):
+                    cols[t].append(s)
+            return tuple(map(tuple, cols))
+
+        return self.cached(("column_supports",), compute)
+
+    def sparse_action(self, s: int, a: int) -> list[dict[int, Any]]:
+        """:meth:`action_matrix` as sparse rows ``{column: entry}`` (cached; see :mod:`hwcat.exact.sparse`)."""
+        key = ("sparse_action", s, a)
+        rows = self._cache.get(key)
+        if rows is None:
+            m = self._action[s].get(a)
+            if m is None:
+                rows = [{} for _ in range(self.block_dim(s, self.arrows[a].source))]
+            else:
+                rows = sparse_rows(m)
+            self._cache[key] = rows
+        return rows
+
+    def left_actions(self) -> tuple[dict[int, Mat], ...]:
+        """Left multiplication by each arrow, block by block (cached).
+
+        ``left_actions()[a][u]`` is ``w -> a*w`` from ``e_target(a) A e_u`` to
+        ``e_source(a) A e_u`` (rows: the basis paths ``w``); only the nonzero
+        blocks are kept.  ``a * (w' b) = (a * w') b`` is computed on sparse rows,
+        shortest paths first, so the cost follows the nonzero entries.
+        """
+
+        def compute() -> tuple[dict[int, Mat], ...]:
+            F = self.field
+            out = []
+            for i, a in enumerate(self.arrows):
+                s, t = a.source, a.target
+                unit = {self.word_index(s, t)[(i,)]: F.one}
+                paths = sorted(
+                    (w for u in self.row_support(t) for w in self.words[t][u]), key=len
+                )
+                memo: dict[Path, dict[int, Any]] = {(): unit}
+                for w in paths:
+                    if w:
+                        memo[w] = row_times(memo[w[:-1]], self.sparse_action(s, w[-1]))
+                blocks = {}
+                for u in self.row_support(t):
+                    rows = [memo[w] for w in self.words[t][u]]
+                    if any(rows) and self.block_dim(s, u):
+                        blocks[u] = to_mat(F, rows, self.block_dim(s, u))
+                        self._cache[("left_action_rows", i, u)] = rows
+                out.append(blocks)
+            return tuple(out)
+
+        return self.cached(("left_actions",), compute)
+
+    def left_action_rows(self, a: int, u: int) -> list[dict[int, Any]]:
+        """``left_actions()[a][u]`` as sparse rows (empty rows when the block is zero)."""
+        self.left_actions()
+        rows = self._cache.get(("left_action_rows", a, u))
+        if rows is None:
+            rows = [{} for _ in range(self.block_dim(self.arrows[a].target, u))]
+        return rows
 
     def extend_path(self, u: int, memo: dict[Path, Mat], w: Path) -> Mat:
         """``x * w`` for the rows ``x = memo[()]`` of ``e_u A``, along the arrows of ``w``.
 
         ``memo`` maps paths to products already known (prefixes are reused).
         """
-        if w in memo:
-            return memo[w]
-        v = self.extend_path(u, memo, w[:-1]) @ self.action_matrix(u, w[-1])
-        memo[w] = v
+        # iterative (no recursion as deep as the path): the longest known prefix, then on
+        k = len(w)
+        while w[:k] not in memo:
+            k -= 1
+        v = memo[w[:k]]
+        for j in range(k, len(w)):
+            v = v @ self.action_matrix(u, w[j])
+            memo[w[: j + 1]] = v
         return v
 
     @classmethod

@@ -194,14 +194,18 @@ def path_matrix(
     memo: dict[Path, Mat] | None = None,
 ) -> Mat:
     """The matrix by which ``path`` acts (``dims[start] x dims[end]``); ``()`` is the identity."""
-    if memo is not None and path in memo:
-        return memo[path]
-    if not path:
-        m = Mat.identity(field, dims[start])
-    else:
-        m = path_matrix(field, dims, maps, arrows, path[:-1], start, memo) @ maps[path[-1]]
-    if memo is not None:
-        memo[path] = m
+    if memo is None:
+        memo = {}
+    # iterative (no recursion as deep as the path): the longest known prefix, then on
+    k = len(path)
+    while k > 0 and path[:k] not in memo:
+        k -= 1
+    m = memo.get(path[:k])
+    if m is None:
+        m = memo[()] = Mat.identity(field, dims[start])
+    for j in range(k, len(path)):
+        m = m @ maps[path[j]]
+        memo[path[: j + 1]] = m
     return m
 
 

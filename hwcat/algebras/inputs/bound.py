@@ -54,7 +54,7 @@ from typing import TYPE_CHECKING, Any
 
 from hwcat.algebras.hub.basic import BasicAlgebra
 from hwcat.algebras.hub.quiver import Path, Quiver, format_path
-from hwcat.algebras.hub.rep import closure, quotient
+from hwcat.algebras.hub.rep import ArrowMaps, closure, quotient
 from hwcat.errors import InternalInconsistency, NotFiniteDimensional, RelationError
 from hwcat.exact import Field, Mat, assemble, contains, quotient_map
 from hwcat.limits import check_dimension, check_vertices, current_limits, limit_error
@@ -271,15 +271,24 @@ def _poly_text(m: int, rels: dict[int, int]) -> str:
 
 
 class _Degree:
-    """Basis words and right action in one degree, per start vertex."""
+    """Basis words and right action in one degree, per start vertex.
+
+    Only the nonzero blocks are stored: ``words[s]`` maps an end vertex ``t`` to
+    the basis words of the degree-d part of ``e_s A e_t`` when there are any, so
+    a long quiver with short paths costs what its paths cost, not ``n^2``.
+    """
 
     __slots__ = ("words", "index", "rho")
 
     def __init__(self, n: int) -> None:
-        self.words: list[list[list[Path]]] = [[[] for _ in range(n)] for _ in range(n)]
-        self.index: list[list[dict[Path, int]]] = [[{} for _ in range(n)] for _ in range(n)]
+        self.words: list[dict[int, list[Path]]] = [{} for _ in range(n)]
+        self.index: list[dict[int, dict[Path, int]]] = [{} for _ in range(n)]
         # rho[s][a]: degree-d part of (s, source a) -> degree-(d+1) part of (s, target a)
         self.rho: list[dict[int, Mat]] = [{} for _ in range(n)]
+
+    def block(self, s: int, t: int) -> list[Path]:
+        """The basis words of the degree-d part of ``e_s A e_t`` (empty when zero)."""
+        return self.words[s].get(t, [])
 
 
 def _graded(
@@ -293,8 +302,10 @@ def _graded(
     n = len(Q.vertices)
     arrows = Q.arrows
     into: list[list[int]] = [[] for _ in range(n)]
+    out_of: list[list[int]] = [[] for _ in range(n)]
     for i, a in enumerate(arrows):
         into[a.target].append(i)
+        out_of[a.source].append(i)
     rel_by_end: dict[int, list[tuple[int, int, dict[Path, Any]]]] = {}
     max_rel = 0
     for r in relations:
@@ -326,11 +337,13 @@ def _graded(
         cur = _Degree(n)
         alive = False
         for s in range(n):
-            for t in range(n):
+            # only the end vertices one arrow away from a nonzero block of degree d-1
+            ends = sorted({arrows[i].target for u in prev.words[s] for i in out_of[u]})
+            for t in ends:
                 # columns: (b, a) for arrows a into t, b basis word of degree d-1 at (s, source a)
                 cols: list[tuple[Path, int, int]] = []  # (word, arrow, row in prev block)
                 for i in into[t]:
-                    for k, b in enumerate(prev.words[s][arrows[i].source]):
+                    for k, b in enumerate(prev.block(s, arrows[i].source)):
                         cols.append((b + (i,), i, k))
                 if not cols:
                     continue
@@ -356,8 +369,9 @@ def _graded(
                         w = cols[order[p]][0]
                         if w[1:] in normal:
                             max_tip = max(max_tip, d)
-                cur.words[s][t] = kept_words
-                cur.index[s][t] = {w: k for k, w in enumerate(kept_words)}
+                if kept_words:
+                    cur.words[s][t] = kept_words
+                    cur.index[s][t] = {w: k for k, w in enumerate(kept_words)}
                 normal.update(kept_words)
                 if kept_words:
                     alive = True
@@ -402,7 +416,7 @@ def _surviving_text(Q: Quiver, degrees: list[_Degree]) -> str:
     """A basis path of the last degree built (shortened to 60 characters)."""
     n = len(Q.vertices)
     last = degrees[-1]
-    word = next((w for s in range(n) for t in range(n) for w in last.words[s][t]), ())
+    word = next((w for s in range(n) for ws in last.words[s].values() for w in ws), ())
     text = format_path(Q, word)
     return text if len(text) <= 60 else text[:57] + "..."
 
@@ -410,7 +424,7 @@ def _surviving_text(Q: Quiver, degrees: list[_Degree]) -> str:
 def _budget_text(Q: Quiver, degrees: list[_Degree], total: int) -> str:
     d = len(degrees) - 1
     text = _surviving_text(Q, degrees)
-    dims = [sum(len(w) for row in deg.words for w in row) for deg in degrees]
+    dims = [sum(len(ws) for row in deg.words for ws in row.values()) for deg in degrees]
     if len(dims) > 8:
         shown = ", ".join(map(str, dims[:6])) + ", ..., " + ", ".join(map(str, dims[-2:]))
     else:
@@ -441,7 +455,7 @@ def _relation_images(
         m = d - dr
         if m < 0:
             continue
-        nb = len(degrees[m].words[s][x])
+        nb = len(degrees[m].block(s, x))
         if nb == 0:
             continue
         acc = [[F.zero] * ncols for _ in range(nb)]
@@ -476,7 +490,7 @@ def _surviving_cycle(Q: Quiver, degrees: list[_Degree], D: int) -> Path | None:
         return None
     G = nx.DiGraph()
     for s in range(n):
-        for t in range(n):
+        for t in sorted(degrees[D].words[s]):
             for w in degrees[D].words[s][t]:
                 pre, suf = w[:-1], w[1:]
                 if D == 1:
@@ -499,7 +513,7 @@ def _normal_path_graph(Q: Quiver, degrees: list[_Degree], D: int) -> nx.DiGraph:
     n = len(Q.vertices)
     G = nx.DiGraph()
     for s in range(n):
-        for t in range(n):
+        for t in sorted(degrees[D].words[s]):
             for w in degrees[D].words[s][t]:
                 if D == 1:
                     G.add_edge(("v", s), ("v", t), arrow=w[-1])
@@ -553,28 +567,38 @@ def _assemble(
     relation_texts: Sequence[str] | None,
 ) -> BasicAlgebra:
     n = len(Q.vertices)
-    words: list[list[list[Path]]] = [[[] for _ in range(n)] for _ in range(n)]
-    offset: list[list[list[int]]] = [[[] for _ in range(n)] for _ in range(n)]
-    for s in range(n):
-        for t in range(n):
-            o = 0
-            for deg in degrees:
-                offset[s][t].append(o)
-                words[s][t].extend(deg.words[s][t])
-                o += len(deg.words[s][t])
+    empty: tuple[Path, ...] = ()
+    words: list[list[Any]] = []
+    offset: list[dict[int, list[int]]] = []  # offset[s][t][k]: first row of degree k
     action = []
     for s in range(n):
-        row = []
+        ends = sorted({t for deg in degrees for t in deg.words[s]})
+        row: list[Any] = [empty] * n
+        offs: dict[int, list[int]] = {}
+        for t in ends:
+            ws: list[Path] = []
+            offs[t] = []
+            for deg in degrees:
+                offs[t].append(len(ws))
+                ws.extend(deg.block(s, t))
+            row[t] = tuple(ws)
+        words.append(row)
+        offset.append(offs)
+        dims = [len(w) for w in row]
+        act = {}
         for i, a in enumerate(Q.arrows):
             u, t = a.source, a.target
+            if u not in offs or t not in offs:
+                continue
             blocks = []
             for k, deg in enumerate(degrees[:-1]):
                 m = deg.rho[s].get(i)
                 if m is None or m.nrows == 0 or m.ncols == 0:
                     continue
-                blocks.append((offset[s][u][k], offset[s][t][k + 1], m))
-            row.append(assemble(F, len(words[s][u]), len(words[s][t]), blocks))
-        action.append(row)
+                blocks.append((offs[u][k], offs[t][k + 1], m))
+            if blocks:
+                act[i] = assemble(F, dims[u], dims[t], blocks)
+        action.append(ArrowMaps(F, dims, Q.arrows, act))
     return BasicAlgebra(F, Q, words, action, name=name, relations=relation_texts)
 
 
