@@ -20,7 +20,14 @@ from hwcat.errors import InternalInconsistency
 from hwcat.exact import Mat
 from hwcat.modules.module import Module
 
-__all__ = ["hom", "hom_dimension", "hom_dimension_naive", "homomorphism_from_images"]
+__all__ = [
+    "hom",
+    "hom_images",
+    "hom_dimension",
+    "hom_dimension_naive",
+    "homomorphism_from_images",
+    "homomorphisms_from_images",
+]
 
 
 def _hom_system(M: Module, N: Module) -> tuple[Mat, list[int], list[tuple[int, Mat]]]:
@@ -81,6 +88,18 @@ def _hom_system(M: Module, N: Module) -> tuple[Mat, list[int], list[tuple[int, M
 
 def homomorphism_from_images(M: Module, N: Module, u: Mat) -> tuple[Mat, ...]:
     """The homomorphism ``M -> N`` sending generator ``g`` to the slice of ``u`` for ``g``."""
+    return homomorphisms_from_images(M, N, u)[0]
+
+
+def homomorphisms_from_images(M: Module, N: Module, U: Mat) -> list[tuple[Mat, ...]]:
+    """One homomorphism ``M -> N`` per row of ``U`` (images of the generators, see :func:`hom_images`).
+
+    All rows at once: at each vertex ``v`` the images of the word-basis
+    elements ``g * w`` of every row form one ``dim M_v x (rows * dim N_v)``
+    matrix ``Q`` (row ``k``: the images of element ``k`` side by side), and
+    one product with the inverse of the word-basis matrix gives the matrices
+    at ``v`` of all the homomorphisms.
+    """
     F = M.field
     A = M.algebra
     gens = M.generators()
@@ -89,27 +108,55 @@ def homomorphism_from_images(M: Module, N: Module, u: Mat) -> tuple[Mat, ...]:
     for v, _ in gens:
         offsets.append(total)
         total += N.dims[v]
-    ue = u.entries()
-    out = []
+    h = U.nrows
+    if h == 0:
+        return []
+    if U.ncols != total:
+        raise InternalInconsistency("images of generators of the wrong length")
+    slices: dict[int, Mat] = {}  # the columns of U for generator g (h x dim N_vg)
+    out: list[list[Mat]] = [[] for _ in range(h)]
     for v in range(A.n):
-        if M.dims[v] == 0:
-            out.append(Mat.zeros(F, 0, N.dims[v]))
+        dm, dn = M.dims[v], N.dims[v]
+        if dm == 0 or dn == 0:
+            z = Mat.zeros(F, dm, dn)
+            for f in out:
+                f.append(z)
             continue
-        imgs = []
+        flat: list = []
         for g, w in elems[v]:
-            vg = gens[g][0]
-            ug = Mat.from_flat(F, 1, N.dims[vg], ue[offsets[g] : offsets[g] + N.dims[vg]])
-            imgs.append(ug @ N.path_matrix(w, vg))
-        Phi = Mat.vstack(F, imgs, N.dims[v])
-        out.append(rows[v].inverse() @ Phi)
-    return tuple(out)
+            ug = slices.get(g)
+            if ug is None:
+                vg = gens[g][0]
+                ug = slices[g] = U.take_cols(range(offsets[g], offsets[g] + N.dims[vg]))
+            flat.extend((ug @ N.path_matrix(w, gens[g][0])).entries())
+        Q = Mat.from_flat(F, dm, h * dn, flat)
+        R = (rows[v].inverse() @ Q).entries()
+        width = h * dn
+        for j, f in enumerate(out):
+            lo = j * dn
+            f.append(
+                Mat.from_flat(
+                    F, dm, dn, [x for r in range(dm) for x in R[r * width + lo : r * width + lo + dn]]
+                )
+            )
+    return [tuple(f) for f in out]
+
+
+def hom_images(M: Module, N: Module) -> Mat:
+    """A basis of ``Hom_A(M, N)`` as rows of images of the generators of ``M``.
+
+    Row ``r`` lists, generator by generator (:meth:`Module.generators`), the
+    image of the generator in ``N``; this coordinate vector determines the
+    homomorphism (:func:`homomorphisms_from_images` gives its matrices) and is
+    much shorter than the matrices.
+    """
+    Z, _, _ = _hom_system(M, N)
+    return Z.left_kernel() if Z.ncols else Mat.identity(M.field, Z.nrows)
 
 
 def hom(M: Module, N: Module) -> list[tuple[Mat, ...]]:
     """A basis of ``Hom_A(M, N)``; each homomorphism is a tuple of matrices, one per vertex."""
-    Z, _, _ = _hom_system(M, N)
-    K = Z.left_kernel() if Z.ncols else Mat.identity(M.field, Z.nrows)
-    return [homomorphism_from_images(M, N, K.take_rows([r])) for r in range(K.nrows)]
+    return homomorphisms_from_images(M, N, hom_images(M, N))
 
 
 def hom_dimension(M: Module, N: Module) -> int:

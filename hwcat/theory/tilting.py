@@ -37,8 +37,9 @@ from typing import Any
 from hwcat.algebras.hub.basic import BasicAlgebra
 from hwcat.algebras.hub.quiver import Arrow, Quiver
 from hwcat.errors import HwcatError, InternalInconsistency, OrderError
-from hwcat.exact import Mat, echelon, select_independent_rows
+from hwcat.exact import Mat, assemble, echelon, select_independent_rows
 from hwcat.modules import Module, direct_sum, hom
+from hwcat.modules.hom import hom_images, homomorphisms_from_images
 from hwcat.modules.module import kernel_spaces
 from hwcat.progress import task
 from hwcat.theory.highest_weight import (
@@ -80,28 +81,103 @@ def _unflat(F, row: list, shapes: list[tuple[int, int]]) -> tuple[Mat, ...]:
     return tuple(out)
 
 
-def universal_extension(M: Module, X: Module) -> tuple[Module, int]:
+def _cover_kernel(X: Module) -> tuple[Any, list[Mat], Module]:
+    """The projective cover ``P -> X``, the kernel's bases inside ``P`` and the kernel ``K``.
+
+    Kept with ``X`` (standard modules are kept by the algebra, so each
+    ``Delta(mu)`` is presented once for all the tilting modules).
+    """
+    key = "tilting:cover-kernel"
+    if key not in X._memo:
+        cov = projective_cover(X)
+        Kspaces = kernel_spaces(cov.cover, X, cov.projection)
+        X._memo[key] = (cov, Kspaces, cov.cover.submodule(Kspaces))
+    return X._memo[key]
+
+
+def _restrictions(cov: Any, K: Module, Kspaces: list[Mat], M: Module, offsets: list[int], total: int) -> Mat:
+    """``Hom(P, M)`` restricted to ``K``, in the generator coordinates of ``Hom(K, M)``.
+
+    ``P`` is free on the tops ``e_j`` of its summands (at vertices ``v_j``): a
+    homomorphism is any choice of images ``m_j`` in ``M_{v_j}`` and sends the
+    basis path ``e_j p`` of ``P`` to ``m_j p``.  A generator ``x`` of ``K``
+    (a vector of ``P_t``) therefore goes to ``sum_j sum_p x_(j,p) m_j p``:
+    one block ``sum_p x_(j,p) [p on M]`` per summand ``j`` and generator.
+    Rows: the images ``m_j`` running over unit vectors, summand by summand.
+    """
+    A = M.algebra
+    F = M.field
+    blocks = []
+    row0 = 0
+    for j, vj in enumerate(cov.summands):
+        dj = M.dims[vj]
+        for t_index, (t, x) in enumerate(K.generators()):
+            dt = M.dims[t]
+            if dj == 0 or dt == 0:
+                continue
+            xp = (x @ Kspaces[t]).entries()  # the generator as a vector of P_t
+            off = cov.offsets(t)[j]
+            acc = None
+            for k, p in enumerate(A.words[vj][t]):
+                c = xp[off + k]
+                if c != 0:
+                    term = M.path_matrix(p, vj).scale(c)
+                    acc = term if acc is None else acc + term
+            if acc is not None:
+                blocks.append((row0, offsets[t_index], acc))
+        row0 += dj
+    return assemble(F, row0, total, blocks)
+
+
+def universal_extension(M: Module, X: Module, *, method: str = "images") -> tuple[Module, int]:
     """The universal extension ``0 -> M -> E -> X^d -> 0``; returns ``(E, d)``.
 
     ``d = dim Ext^1(X, M)``; ``M`` is the submodule of ``E`` on the first
     coordinates at each vertex.
+
+    ``Ext^1(X, M)`` is ``Hom(K, M)`` modulo the restrictions of ``Hom(P, M)``
+    for the projective cover ``0 -> K -> P -> X -> 0``.  ``method="images"``
+    (default) works in generator coordinates: ``Hom(K, M)`` as images of the
+    generators of ``K``, the restrictions read off the paths of ``P`` (no
+    system for ``Hom(P, M)``), and only the ``d`` chosen classes are turned
+    into matrices; nothing is done when ``M`` vanishes at every generator of
+    ``K``.  ``method="flat"`` (the reference path, for tests) computes both
+    Hom spaces as matrices and compares them flattened.
     """
+    if method not in ("images", "flat"):
+        raise HwcatError(f"method = {method!r}: expected 'images' or 'flat'")
     F = M.field
     A = M.algebra
-    cov = projective_cover(X)
+    cov, Kspaces, K = _cover_kernel(X)
     P = cov.cover
-    Kspaces = kernel_spaces(P, X, cov.projection)
-    K = P.submodule(Kspaces)
-    shapesKM = [(K.dims[v], M.dims[v]) for v in range(A.n)]
-    size = sum(r * c for r, c in shapesKM)
-    HK = hom(K, M)
-    if not HK or size == 0:
-        return M, 0
-    restr = [tuple(Kspaces[v] @ f[v] for v in range(A.n)) for f in hom(P, M)]
-    HKm = _flat_matrix(F, HK, size)
-    R = _flat_matrix(F, restr, size) if restr else None
-    keep = select_independent_rows(HKm, echelon(R) if R is not None and R.nrows else None)
-    xis = [HK[i] for i in keep]
+    if method == "flat":
+        shapesKM = [(K.dims[v], M.dims[v]) for v in range(A.n)]
+        size = sum(r * c for r, c in shapesKM)
+        HK = hom(K, M)
+        if not HK or size == 0:
+            return M, 0
+        restr = [tuple(Kspaces[v] @ f[v] for v in range(A.n)) for f in hom(P, M)]
+        HKm = _flat_matrix(F, HK, size)
+        R = _flat_matrix(F, restr, size) if restr else None
+        keep = select_independent_rows(HKm, echelon(R) if R is not None and R.nrows else None)
+        xis = [HK[i] for i in keep]
+    else:
+        gens = K.generators()
+        offsets, total = [], 0
+        for t, _ in gens:
+            offsets.append(total)
+            total += M.dims[t]
+        if total == 0:  # every homomorphism K -> M kills the generators
+            return M, 0
+        HK = hom_images(K, M)
+        if HK.nrows == 0:
+            return M, 0
+        R = _restrictions(cov, K, Kspaces, M, offsets, total)
+        Rb = echelon(R) if R.nrows else None
+        if Rb is not None and Rb.nrows == HK.nrows:  # the restrictions fill Hom(K, M)
+            return M, 0
+        keep = select_independent_rows(HK, Rb if Rb is not None and Rb.nrows else None)
+        xis = homomorphisms_from_images(K, M, HK.take_rows(keep)) if keep else []
     d = len(xis)
     if d == 0:
         return M, 0
@@ -125,13 +201,20 @@ def universal_extension(M: Module, X: Module) -> tuple[Module, int]:
     return E, d
 
 
-def is_local_endomorphism_ring(M: Module, vertex: int) -> bool:
+def is_local_endomorphism_ring(M: Module, vertex: int, *, method: str = "images") -> bool:
     """For ``M`` with ``[M : L(vertex)] = 1``: whether ``End(M)`` is local.
 
     The scalar by which an endomorphism acts on the line ``M_vertex`` is an
     algebra map ``End(M) -> k``; ``End(M)`` is local exactly when its kernel
-    ``I`` is nilpotent, tested by computing ``I, I^2, ...`` until zero or stable.
+    ``I`` is nilpotent.  ``method="images"`` (default) follows the images
+    ``M ⊇ I M ⊇ I(I M) ⊇ ...`` (``I^k M`` is spanned by the images of the
+    basis of ``I`` on ``I^(k-1) M``): ``I`` is nilpotent exactly when this
+    chain reaches zero, and it is not when the chain stops at a nonzero
+    submodule.  ``method="powers"`` (the reference path, for tests) computes
+    the ideals ``I, I^2, ...`` themselves from all products.
     """
+    if method not in ("images", "powers"):
+        raise HwcatError(f"method = {method!r}: expected 'images' or 'powers'")
     if M.dims[vertex] != 1:
         raise InternalInconsistency("is_local_endomorphism_ring needs multiplicity one")
     F = M.field
@@ -139,13 +222,31 @@ def is_local_endomorphism_ring(M: Module, vertex: int) -> bool:
     shapes = [(M.dims[v], M.dims[v]) for v in range(n)]
     size = sum(r * c for r, c in shapes)
     E = hom(M, M)
-    I = [f for f in E if f[vertex].is_zero()]
     # a basis of the kernel of f -> f[vertex] (scalars); I as spanned by combinations
     scal = Mat.from_flat(F, len(E), 1, [f[vertex].entries()[0] for f in E])
     K = scal.left_kernel()
     Em = _flat_matrix(F, E, size)
     Ibasis = echelon(K @ Em) if K.nrows else Mat.zeros(F, 0, size)
     I = [_unflat(F, Ibasis.take_rows([r]).entries(), shapes) for r in range(Ibasis.nrows)]
+    if method == "images":
+        support = [v for v in range(n) if M.dims[v]]
+        cur = {v: Mat.identity(F, M.dims[v]) for v in support}
+        dim = M.dim
+        while I:
+            nxt = {}
+            for v, U in cur.items():
+                if U.nrows == 0:
+                    continue
+                img = echelon(Mat.vstack(F, [U @ f[v] for f in I], M.dims[v]))
+                if img.nrows:
+                    nxt[v] = img
+            new = sum(U.nrows for U in nxt.values())
+            if new == 0:
+                return True
+            if new >= dim:
+                return False
+            cur, dim = nxt, new
+        return True
     power = I
     dims_seen = []
     while power:
