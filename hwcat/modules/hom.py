@@ -150,6 +150,10 @@ def hom_images(M: Module, N: Module) -> Mat:
     homomorphism (:func:`homomorphisms_from_images` gives its matrices) and is
     much shorter than the matrices.
     """
+    if M.algebra is not N.algebra:
+        raise InternalInconsistency("Hom between modules over different algebras")
+    if not any(N.dims[v] for v, _ in M.generators()):  # every generator goes to zero
+        return Mat.zeros(M.field, 0, 0)
     Z, _, _ = _hom_system(M, N)
     return Z.left_kernel() if Z.ncols else Mat.identity(M.field, Z.nrows)
 

@@ -56,15 +56,15 @@ Examples
 
 from __future__ import annotations
 
+import dataclasses
 from collections.abc import Sequence
 from dataclasses import dataclass
 from typing import Any
 
 from hwcat.algebras.hub.basic import BasicAlgebra
 from hwcat.errors import HwcatError, InternalInconsistency, WorkBudgetExceeded
-from hwcat.exact import Mat
-from hwcat.modules import Module, direct_sum, projective
-from hwcat.modules.module import kernel_spaces
+from hwcat.exact import Mat, echelon
+from hwcat.modules import Module, direct_sum, projective, simple
 
 __all__ = [
     "ProjectiveCover",
@@ -238,6 +238,49 @@ class _Step:
     syzygy: Module  # Omega^{i+1}
 
 
+def _map_kernels(f: Sequence[Mat]) -> list[Mat]:
+    """Echelon bases, per vertex, of the kernel of the maps ``f[v]`` (as ``kernel_spaces``).
+
+    Only the blocks between two nonzero spaces are solved: the kernel is
+    everything when the target space is zero and nothing when the source is.
+    """
+    out = []
+    for m in f:
+        r, c = m.shape
+        if r == 0 or c == 0:
+            out.append(Mat.identity(m.field, r))
+        else:
+            out.append(echelon(m.left_kernel()))
+    return out
+
+
+def _shared_simple(A: BasicAlgebra, j: int) -> Module:
+    """The simple module ``L(j)`` whose resolution is shared by every resolution reaching it."""
+    return A.cached(("homological:shared-simple", j), lambda: simple(A, j))
+
+
+def _extend_by_simple(M: Module, steps: list[_Step], S: Module, count: int, limit: int) -> None:
+    """Append to the steps of ``M`` (ending at a syzygy equal to ``S``) the steps of ``S``.
+
+    A refusal of the budget is raised as ``M``'s own, at ``M``'s degree.
+    """
+    k = len(steps)
+    try:
+        tail = _steps(S, count - k, limit)
+    except WorkBudgetExceeded as exc:
+        own = S._memo[_STEPS]
+        Y = S if exc.degree == 0 else own[exc.degree - 1].syzygy
+        _budgeted_cover(Y, k + exc.degree, limit, M.name)
+        raise InternalInconsistency(
+            "a shared resolution refused a step that the budget allows"
+        ) from exc
+    if tail:  # the first step covers M's own syzygy (equal to S as a representation)
+        first = tail[0]
+        cover = dataclasses.replace(first.cover, module=steps[-1].syzygy)
+        steps.append(_Step(cover, first.kernel, first.syzygy))
+        steps.extend(tail[1:])
+
+
 def _steps(M: Module, count: int, limit: int | None = None) -> list[_Step]:
     """The first ``count`` steps of the minimal resolution (fewer if it ends), cached on ``M``.
 
@@ -250,8 +293,15 @@ def _steps(M: Module, count: int, limit: int | None = None) -> list[_Step]:
         X = M if not steps else steps[-1].syzygy
         if X.dim == 0:
             break
+        if X.dim == 1 and steps:
+            # a simple syzygy L(j) (arrows act by zero on a line): from here on the
+            # resolution is that of L(j), computed once per algebra and shared
+            S = _shared_simple(M.algebra, X.dims.index(1))
+            if S is not M:
+                _extend_by_simple(M, steps, S, count, limit)
+                break
         c = _budgeted_cover(X, len(steps), limit, M.name)
-        K = kernel_spaces(c.cover, X, c.projection)
+        K = _map_kernels(c.projection)
         label = f"Omega^{len(steps) + 1}({M.name})" if M.name else ""
         steps.append(_Step(c, tuple(K), c.cover.submodule(K, label)))
     return steps[:count]

@@ -40,7 +40,6 @@ from hwcat.errors import HwcatError, InternalInconsistency, OrderError
 from hwcat.exact import Mat, assemble, echelon, select_independent_rows
 from hwcat.modules import Module, direct_sum, hom
 from hwcat.modules.hom import hom_images, homomorphisms_from_images
-from hwcat.modules.module import kernel_spaces
 from hwcat.progress import task
 from hwcat.theory.highest_weight import (
     costandard_filtration,
@@ -50,6 +49,7 @@ from hwcat.theory.highest_weight import (
 )
 from hwcat.theory.homological import projective_cover
 from hwcat.theory.orders import PartialOrder
+from hwcat.theory.resolutions import _map_kernels
 
 __all__ = [
     "universal_extension",
@@ -90,7 +90,7 @@ def _cover_kernel(X: Module) -> tuple[Any, list[Mat], Module]:
     key = "tilting:cover-kernel"
     if key not in X._memo:
         cov = projective_cover(X)
-        Kspaces = kernel_spaces(cov.cover, X, cov.projection)
+        Kspaces = _map_kernels(cov.projection)
         X._memo[key] = (cov, Kspaces, cov.cover.submodule(Kspaces))
     return X._memo[key]
 
