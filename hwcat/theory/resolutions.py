@@ -254,6 +254,9 @@ def _map_kernels(f: Sequence[Mat]) -> list[Mat]:
     return out
 
 
+_SHARED_DEPTH = 64  # nested shared tails (each costs a few stack frames)
+
+
 def _shared_simple(A: BasicAlgebra, j: int) -> Module:
     """The simple module ``L(j)`` whose resolution is shared by every resolution reaching it."""
     return A.cached(("homological:shared-simple", j), lambda: simple(A, j))
@@ -296,9 +299,16 @@ def _steps(M: Module, count: int, limit: int | None = None) -> list[_Step]:
         if X.dim == 1 and steps:
             # a simple syzygy L(j) (arrows act by zero on a line): from here on the
             # resolution is that of L(j), computed once per algebra and shared
+            # (not when S waits for such a tail itself further up, i.e. a cycle of
+            # simples, which goes on by hand; nor beyond _SHARED_DEPTH nested tails)
+            busy = M.algebra.cached(("homological:extending",), set)
             S = _shared_simple(M.algebra, X.dims.index(1))
-            if S is not M:
-                _extend_by_simple(M, steps, S, count, limit)
+            if S is not M and id(S) not in busy and len(busy) < _SHARED_DEPTH:
+                busy.add(id(M))
+                try:
+                    _extend_by_simple(M, steps, S, count, limit)
+                finally:
+                    busy.discard(id(M))
                 break
         c = _budgeted_cover(X, len(steps), limit, M.name)
         K = _map_kernels(c.projection)
