@@ -336,6 +336,21 @@ def _arrow_name(a: str, b: str, k: int, taken: set[str]) -> str:
     return name
 
 
+class _Unflattened(dict):
+    """Rows of flattened homomorphisms, as tuples of matrices, made on first use per pair."""
+
+    def __init__(self, F, rows: dict[tuple[int, int], Mat], shapes: dict) -> None:
+        super().__init__()
+        self.F, self.rows, self.shapes = F, rows, shapes
+
+    def __missing__(self, key: tuple[int, int]) -> list[tuple[Mat, ...]]:
+        m = self.rows[key]
+        e, w = m.entries(), m.ncols
+        out = [_unflat(self.F, e[r * w : (r + 1) * w], self.shapes[key]) for r in range(m.nrows)]
+        self[key] = out
+        return out
+
+
 class _GeneratorCoordinates:
     """Homomorphisms ``T_i -> T_j`` written by the images of the generators of ``T_i``.
 
@@ -353,7 +368,7 @@ class _GeneratorCoordinates:
         self.F = modules[0].field
         self.gens = [M.generators() for M in modules]
         self._G: dict[tuple[int, int], Mat] = {}
-        self._Y: dict[tuple[int, int, int], Mat] = {}
+        self._Y: dict[tuple, Any] = {}
 
     def offsets(self, i: int, j: int) -> tuple[list[int], int]:
         """Where the block of each generator of ``T_i`` starts; the total size."""
@@ -383,8 +398,34 @@ class _GeneratorCoordinates:
             self._G[(i, j)] = Mat.from_flat(self.F, o, size, cells)
         return self._G[(i, j)]
 
+    def _unit_columns(self, i: int, j: int) -> list[int] | None:
+        """When every generator of ``T_i`` is a unit vector ``e_r`` (the usual case), the
+        flattened positions of the rows ``r`` it picks: generator coordinates are
+        then just these columns.  ``None`` otherwise."""
+        key = (i, j, "columns")
+        if key not in self._Y:
+            shapes = self.shapes[(i, j)]
+            flat_off, o = [], 0
+            for r, c in shapes:
+                flat_off.append(o)
+                o += r * c
+            cols: list[int] | None = []
+            for v, g in self.gens[i]:
+                e = g.entries()
+                nz = [r for r, x in enumerate(e) if x != 0]
+                if len(nz) != 1 or e[nz[0]] != 1:
+                    cols = None
+                    break
+                dj = shapes[v][1]
+                cols.extend(flat_off[v] + nz[0] * dj + c for c in range(dj))
+            self._Y[key] = cols
+        return self._Y[key]
+
     def of(self, i: int, j: int, rows: Mat) -> Mat:
         """Rows of flattened homomorphisms ``T_i -> T_j`` in generator coordinates."""
+        cols = self._unit_columns(i, j)
+        if cols is not None:
+            return rows.take_cols(cols)
         return rows @ self.matrix(i, j)
 
     def _side_by_side(self, k: int, j: int, v: int, ys: list[tuple[Mat, ...]]) -> Mat:
@@ -394,14 +435,59 @@ class _GeneratorCoordinates:
             self._Y[key] = Mat.hstack(self.F, [y[v] for y in ys], dk)
         return self._Y[key]
 
-    def radical_square(self, i: int, j: int, rad: dict, rad_homs: dict) -> Mat:
-        """Echelon basis, in generator coordinates, of the span of the composites ``x y``."""
+    def basis_rows(self, i: int, j: int, flat: dict) -> Mat:
+        """The (flattened, echelon) basis of ``Hom(T_i, T_j)`` in generator coordinates."""
+        key = (i, j, "basis")
+        if key not in self._Y:
+            self._Y[key] = self.of(i, j, flat[(i, j)])
+        return self._Y[key]
+
+    def compose_with(self, s: int, k: int, j: int, flat: dict, h: tuple[Mat, ...]) -> Mat:
+        """The matrix of ``g -> g h`` from the basis of ``Hom(T_s, T_k)`` to that of ``Hom(T_s, T_j)``.
+
+        Row ``r``: the coordinates of ``g_r h`` (first ``g_r``, then ``h : T_k ->
+        T_j``).  In generator coordinates ``g h`` has, for each generator ``e``
+        of ``T_s``, the block ``(e g) h[v_e]``: one product per generator for
+        all ``g`` at once; the coordinates solve one linear system against the
+        basis of ``Hom(T_s, T_j)`` (they are unique: a basis).
+        """
+        G = self.basis_rows(s, k, flat)
+        B = self.basis_rows(s, j, flat)
+        if G.nrows == 0 or B.nrows == 0:
+            return Mat.zeros(self.F, G.nrows, B.nrows)
+        kof, _ = self.offsets(s, k)
+        dk, dj = self.modules[k].dims, self.modules[j].dims
+        blocks = []
+        for t, (v, _) in enumerate(self.gens[s]):
+            if dj[v] == 0:
+                continue
+            if dk[v] == 0:
+                blocks.append(Mat.zeros(self.F, G.nrows, dj[v]))
+                continue
+            blocks.append(G.take_cols(range(kof[t], kof[t] + dk[v])) @ h[v])
+        Z = Mat.hstack(self.F, blocks, G.nrows)
+        C = B.solve_left(Z)
+        if C is None:
+            raise InternalInconsistency("a composite of homomorphisms left the Hom space")
+        return C
+
+    def radical_square(
+        self, i: int, j: int, rad: dict, rad_homs: dict, whole: int | None = None
+    ) -> Mat:
+        """Echelon basis, in generator coordinates, of the span of the composites ``x y``.
+
+        The composites through each middle summand ``k`` are added to the echelon
+        form in turn; with ``whole`` (the dimension of the radical ``rad(i, j)``
+        holding them all) the work stops as soon as the span is the whole
+        radical: the span, hence its echelon basis, is then already final.
+        """
         n = len(self.modules)
         goff, size = self.offsets(i, j)
         dj = self.modules[j].dims
-        rows: list = []
-        nrows = 0
+        acc: Mat | None = None
         for k in range(n):
+            rows: list = []
+            nrows = 0
             X, ys = rad[(i, k)], rad_homs[(k, j)]
             if X.nrows == 0 or not ys:
                 continue
@@ -427,9 +513,13 @@ class _GeneratorCoordinates:
                             base = x * ny * dj_v + y * dj_v
                             rows.extend(e[base : base + dj_v])
                     nrows += 1
-        if not nrows:
-            return Mat.zeros(self.F, 0, size)
-        return echelon(Mat.from_flat(self.F, nrows, size, rows))
+            if not nrows:
+                continue
+            new = Mat.from_flat(self.F, nrows, size, rows)
+            acc = echelon(new if acc is None else Mat.vstack(self.F, [acc, new], size))
+            if whole is not None and acc.nrows >= whole:
+                break
+        return Mat.zeros(self.F, 0, size) if acc is None else acc
 
 
 def endomorphism_algebra(
@@ -464,7 +554,6 @@ def endomorphism_algebra(
         for j in range(n)
     }
     sizes = {k: sum(r * c for r, c in s) for k, s in shapes.items()}
-    basis: dict[tuple[int, int], list[tuple[Mat, ...]]] = {}
     flat: dict[tuple[int, int], Mat] = {}
     pivots: dict[tuple[int, int], tuple[int, ...]] = {}
     for i in range(n):
@@ -473,9 +562,8 @@ def endomorphism_algebra(
             Hm = echelon(_flat_matrix(F, H, sizes[(i, j)])) if H else Mat.zeros(F, 0, sizes[(i, j)])
             flat[(i, j)] = Hm
             pivots[(i, j)] = Hm.echelon_pivots()
-            basis[(i, j)] = [
-                _unflat(F, Hm.take_rows([r]).entries(), shapes[(i, j)]) for r in range(Hm.nrows)
-            ]
+    # the basis homomorphisms as matrices, made when asked for
+    basis = _Unflattened(F, flat, shapes)
 
     def coords(i, j, f):
         row = _flat(f)
@@ -490,15 +578,14 @@ def endomorphism_algebra(
                 rad[(i, j)] = H
                 continue
             v = vertices[i]
-            scal = Mat.from_flat(
-                F, len(basis[(i, i)]), 1, [f[v].entries()[0] for f in basis[(i, i)]]
-            )
+            if modules[i].dims[v] != 1:
+                raise InternalInconsistency("the vertex of a summand needs multiplicity one")
+            # the scalar at v: the flattened column of the single entry at v
+            at = sum(r * c for r, c in shapes[(i, i)][:v])
+            scal = H.take_cols([at])
             K = scal.left_kernel()
             rad[(i, j)] = echelon(K @ H) if K.nrows else Mat.zeros(F, 0, H.ncols)
-    rad_homs = {
-        k: [_unflat(F, m.take_rows([r]).entries(), shapes[k]) for r in range(m.nrows)]
-        for k, m in rad.items()
-    }
+    rad_homs = _Unflattened(F, rad, shapes)
     arrows: list[Arrow] = []
     arrow_homs: list[tuple[Mat, ...]] = []
     taken: set[str] = set()
@@ -518,7 +605,7 @@ def endomorphism_algebra(
                 R2 = echelon(_flat_matrix(F, prods, sizes[(i, j)])) if prods else Mat.zeros(F, 0, 1)
                 keep = select_independent_rows(R, R2 if R2.nrows else None)
             else:
-                R2 = gens.radical_square(i, j, rad, rad_homs)
+                R2 = gens.radical_square(i, j, rad, rad_homs, R.nrows)
                 keep = select_independent_rows(gens.of(i, j, R), R2 if R2.nrows else None)
             for k, r in enumerate(keep):
                 arrows.append(Arrow(_arrow_name(labels[i], labels[j], k, taken), i, j))
@@ -530,13 +617,15 @@ def endomorphism_algebra(
         dims = tuple(len(basis[(s, t)]) for t in range(n))
         maps = []
         for a, h in zip(arrows, arrow_homs, strict=True):
-            rows = [
-                coords(s, a.target, tuple(g[v] @ h[v] for v in range(N)))
-                for g in basis[(s, a.source)]
-            ]
-            maps.append(
-                Mat.from_flat(F, dims[a.source], dims[a.target], [x for r in rows for x in r])
-            )
+            if method == "pairs":
+                rows = [
+                    coords(s, a.target, tuple(g[v] @ h[v] for v in range(N)))
+                    for g in basis[(s, a.source)]
+                ]
+                m = Mat.from_flat(F, dims[a.source], dims[a.target], [x for r in rows for x in r])
+            else:
+                m = gens.compose_with(s, a.source, a.target, flat, h)
+            maps.append(m)
         reps.append((dims, tuple(maps)))
         ident = tuple(Mat.identity(F, modules[s].dims[v]) for v in range(N))
         starts.append(Mat.from_flat(F, 1, dims[s], coords(s, s, ident)))
