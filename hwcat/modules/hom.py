@@ -136,7 +136,10 @@ def homomorphisms_from_images(M: Module, N: Module, U: Mat) -> list[tuple[Mat, .
             lo = j * dn
             f.append(
                 Mat.from_flat(
-                    F, dm, dn, [x for r in range(dm) for x in R[r * width + lo : r * width + lo + dn]]
+                    F,
+                    dm,
+                    dn,
+                    [x for r in range(dm) for x in R[r * width + lo : r * width + lo + dn]],
                 )
             )
     return [tuple(f) for f in out]

@@ -284,9 +284,7 @@ def simple_summands(X: Module) -> dict[int, Mat]:
         if d == 0:
             continue
         # soc(X)_j and rad(X)_j, as X.socle_spaces()[j] and X.radical_spaces()[j]
-        soc = (
-            echelon(Mat.hstack(F, outs[j], d).left_kernel()) if j in outs else Mat.identity(F, d)
-        )
+        soc = echelon(Mat.hstack(F, outs[j], d).left_kernel()) if j in outs else Mat.identity(F, d)
         rad = echelon(Mat.vstack(F, imgs[j], d)) if j in imgs else Mat.zeros(F, 0, d)
         if soc.nrows and not contains(rad, soc):
             for r in range(soc.nrows):

@@ -95,7 +95,9 @@ def _cover_kernel(X: Module) -> tuple[Any, list[Mat], Module]:
     return X._memo[key]
 
 
-def _restrictions(cov: Any, K: Module, Kspaces: list[Mat], M: Module, offsets: list[int], total: int) -> Mat:
+def _restrictions(
+    cov: Any, K: Module, Kspaces: list[Mat], M: Module, offsets: list[int], total: int
+) -> Mat:
     """``Hom(P, M)`` restricted to ``K``, in the generator coordinates of ``Hom(K, M)``.
 
     ``P`` is free on the tops ``e_j`` of its summands (at vertices ``v_j``): a
