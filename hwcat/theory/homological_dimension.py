@@ -272,6 +272,13 @@ def simple_summands(X: Module) -> dict[int, Mat]:
     ``rad(X)_j``; the vector is a socle vector outside the radical (exact, no
     randomness).
     """
+    key = "homological:simple-summands"
+    if key not in X._memo:
+        X._memo[key] = _simple_summands(X)
+    return dict(X._memo[key])
+
+
+def _simple_summands(X: Module) -> dict[int, Mat]:
     F = X.field
     arrows = X.algebra.arrows
     outs: dict[int, list[Mat]] = {}
@@ -496,10 +503,12 @@ def _scan(
             return HomologicalDimension("at_least", k, limit="max_syzygy_dimension")
         for j in range(k):
             Y = M if j == 0 else steps[j - 1].syzygy
-            if not _summand_possible(Y, X, inv):
-                continue
             if Y.dim == 1:  # a simple: decided exactly by the socle and the radical
+                if X.dims[Y.dims.index(1)] == 0:
+                    continue
                 pair = _simple_split(Y, X)
+            elif not _summand_possible(Y, X, inv):
+                continue
             elif X.dim <= lim.split_limit:
                 pair = _split_embedding(Y, X, rng, lim.tries)
             else:
