@@ -30,50 +30,71 @@ __all__ = [
 ]
 
 
+def _presentation(M: Module) -> tuple[list, list[tuple[int, int, int, list[tuple[int, list]]]]]:
+    """What ``Hom(M, -)`` needs of ``M`` alone, kept with ``M``.
+
+    The generators, and for each arrow ``a : v -> t`` the word-basis elements
+    ``k = g * w`` at ``v`` with ``g * w * a`` not a basis element, each with the
+    nonzero coordinates ``(j, C[k, j])`` of ``(g * w) * a`` in the basis at ``t``.
+    """
+    key = "hom:presentation"
+    if key in M._memo:
+        return M._memo[key]
+    A = M.algebra
+    elems, rows = M.word_basis()
+    index = [{e: k for k, e in enumerate(elems[v])} for v in range(A.n)]
+    inv: dict[int, Mat] = {}
+    edges = []
+    for i, a in enumerate(A.arrows):
+        v, t = a.source, a.target
+        if not elems[v]:
+            continue
+        free = [k for k, (g, w) in enumerate(elems[v]) if (g, w + (i,)) not in index[t]]
+        if not free:
+            continue
+        if M.dims[t]:
+            if t not in inv:
+                inv[t] = rows[t].inverse()
+            Crows = (rows[v] @ M.maps[i] @ inv[t]).raw_rows()
+        else:
+            Crows = [[] for _ in elems[v]]
+        terms = [(k, [(jj, c) for jj, c in enumerate(Crows[k]) if c != 0]) for k in free]
+        edges.append((i, v, t, terms))
+    M._memo[key] = (elems, edges)
+    return M._memo[key]
+
+
 def _hom_system(M: Module, N: Module) -> tuple[Mat, list[int], list[tuple[int, Mat]]]:
     """The constraint matrix ``Z`` (unknowns as rows), generator offsets and generators."""
     if M.algebra is not N.algebra:
         raise InternalInconsistency("Hom between modules over different algebras")
     F = M.field
-    A = M.algebra
     gens = M.generators()
-    elems, rows = M.word_basis()
+    elems, edges = _presentation(M)
     offsets, total = [], 0
     for v, _ in gens:
         offsets.append(total)
         total += N.dims[v]
-    inv = [rows[v].inverse() if rows[v].nrows else rows[v] for v in range(A.n)]
-    index = [{e: k for k, e in enumerate(elems[v])} for v in range(A.n)]
-    # Phi_k = N-path matrix of the word of basis element k
-    phi = [[N.path_matrix(w, gens[g][0]) for g, w in elems[v]] for v in range(A.n)]
+    zero = F.zero
     columns: list[list] = []  # each: a list of dim U entries per column (built as flat rows of Z^T)
-    for i, a in enumerate(A.arrows):
-        v, t = a.source, a.target
-        if not elems[v] or N.dims[t] == 0:
-            continue
-        C = rows[v] @ M.maps[i] @ inv[t] if M.dims[t] else Mat.zeros(F, M.dims[v], 0)
-        Crows = C.raw_rows()
+    for i, v, t, terms in edges:
         nt = N.dims[t]
-        for k, (g, w) in enumerate(elems[v]):
-            j = index[t].get((g, w + (i,)))
-            if j is not None:
-                continue  # a tree edge: automatically respected
+        if nt == 0:
+            continue
+        for k, coeffs in terms:
+            g, w = elems[v][k]
             # constraint block (dim U x nt), stored transposed: nt rows of length dim U
-            block = [[F.zero] * total for _ in range(nt)]
-            lhs = phi[v][k] @ N.maps[i]  # dims N_{v_g} x nt
-            gk = g
-            off = offsets[gk]
-            le = lhs.raw_rows()
+            block = [[zero] * total for _ in range(nt)]
+            off = offsets[g]
+            le = (N.path_matrix(w, gens[g][0]) @ N.maps[i]).raw_rows()  # dims N_{v_g} x nt
             for r, row in enumerate(le):
                 for c, x in enumerate(row):
                     if x != 0:
                         block[c][off + r] -= x
-            for jj, cval in enumerate(Crows[k]):
-                if cval == 0:
-                    continue
-                gj = elems[t][jj][0]
+            for jj, cval in coeffs:
+                gj, wj = elems[t][jj]
                 offj = offsets[gj]
-                for r, row in enumerate(phi[t][jj].raw_rows()):
+                for r, row in enumerate(N.path_matrix(wj, gens[gj][0]).raw_rows()):
                     for c, x in enumerate(row):
                         if x != 0:
                             block[c][offj + r] += cval * x
