@@ -186,6 +186,12 @@ def _summand_possible(X: Module, Y: Module, inv: dict[Any, tuple]) -> bool:
             inv[id(Z)] = (Z, Z.socle(), tuple(Z.radical_layers()))
         return inv[id(Z)][1:]
 
+    def cheap(Z: Module) -> tuple:
+        key = ("socle and top", id(Z))
+        if key not in inv:
+            inv[key] = (Z, Z.socle(), Z.top())
+        return inv[key][1:]
+
     def support(Z: Module) -> list[tuple[int, int]]:
         key = ("support", id(Z))
         if key not in inv:
@@ -196,6 +202,11 @@ def _summand_possible(X: Module, Y: Module, inv: dict[Any, tuple]) -> bool:
         return False
     ydims = Y.dims
     if any(d > ydims[v] for v, d in support(X)):
+        return False
+    (sx, tx), (sy, ty) = cheap(X), cheap(Y)  # socle and top first: one pass each
+    if any(a > b for a, b in zip(sx, sy, strict=True)) or any(
+        a > b for a, b in zip(tx, ty, strict=True)
+    ):
         return False
     (sx, lx), (sy, ly) = invariants(X), invariants(Y)
     if len(lx) > len(ly) or any(a > b for a, b in zip(sx, sy, strict=True)):
