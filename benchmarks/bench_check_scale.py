@@ -46,7 +46,12 @@ from _common import measure, table
 
 from hwcat.algebras.families.quivers import auslander_truncated_polynomial, linear_A, spec_to_toml
 from hwcat.io.spec import load_spec_text
-from hwcat.theory.highest_weight import standard_module
+from hwcat.theory.highest_weight import (
+    costandard_filtration,
+    heredity_chain,
+    standard_filtration,
+    standard_module,
+)
 from hwcat.theory.search import quasi_hereditary_orders
 from hwcat.theory.tilting import (
     endomorphism_algebra,
@@ -104,10 +109,12 @@ def tilting_time(text: str, reference: bool) -> tuple[float, list]:
         return time.process_time() - t0, dims
     ext = P.first_extension()
     dims = []
-    for L in range(A.n):
+    for L in range(A.n):  # the same steps and checks as tilting_module, reference methods
+        assert heredity_chain(A, P).holds
         M = standard_module(A, L, P)
         for mu in ext[ext.index(L) + 1 :]:
             M, _ = universal_extension(M, standard_module(A, mu, P), method="flat")
+        assert standard_filtration(M, P).exists and costandard_filtration(M, P).exists
         assert is_local_endomorphism_ring(M, L, method="powers")
         dims.append(M.dims)
     return time.process_time() - t0, dims

@@ -338,6 +338,9 @@ def _arrow_name(a: str, b: str, k: int, taken: set[str]) -> str:
     return name
 
 
+_CHUNK = 64  # composites added to the radical square's echelon form at a time
+
+
 class _Unflattened(dict):
     """Rows of flattened homomorphisms, as tuples of matrices, made on first use per pair."""
 
@@ -488,8 +491,6 @@ class _GeneratorCoordinates:
         dj = self.modules[j].dims
         acc: Mat | None = None
         for k in range(n):
-            rows: list = []
-            nrows = 0
             X, ys = rad[(i, k)], rad_homs[(k, j)]
             if X.nrows == 0 or not ys:
                 continue
@@ -504,23 +505,25 @@ class _GeneratorCoordinates:
                 U = XG.take_cols(range(kof[t], kof[t] + dk_v))
                 blocks.append((U @ self._side_by_side(k, j, v, ys)).entries())
             ny = len(ys)
-            for x in range(X.nrows):
-                for y in range(ny):
-                    for t, (v, _) in enumerate(self.gens[i]):
-                        dj_v = dj[v]
-                        e = blocks[t]
-                        if e is None:
-                            rows.extend([self.F.zero] * dj_v)
-                        else:
-                            base = x * ny * dj_v + y * dj_v
-                            rows.extend(e[base : base + dj_v])
-                    nrows += 1
-            if not nrows:
-                continue
-            new = Mat.from_flat(self.F, nrows, size, rows)
-            acc = echelon(new if acc is None else Mat.vstack(self.F, [acc, new], size))
-            if whole is not None and acc.nrows >= whole:
-                break
+            step = max(1, _CHUNK // ny)  # a few composites at a time, then the echelon form
+            for x0 in range(0, X.nrows, step):
+                rows = []
+                nrows = 0
+                for x in range(x0, min(x0 + step, X.nrows)):
+                    for y in range(ny):
+                        for t, (v, _) in enumerate(self.gens[i]):
+                            dj_v = dj[v]
+                            e = blocks[t]
+                            if e is None:
+                                rows.extend([self.F.zero] * dj_v)
+                            else:
+                                base = x * ny * dj_v + y * dj_v
+                                rows.extend(e[base : base + dj_v])
+                        nrows += 1
+                new = Mat.from_flat(self.F, nrows, size, rows)
+                acc = echelon(new if acc is None else Mat.vstack(self.F, [acc, new], size))
+                if whole is not None and acc.nrows >= whole:
+                    return acc
         return Mat.zeros(self.F, 0, size) if acc is None else acc
 
 
