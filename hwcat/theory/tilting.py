@@ -338,6 +338,33 @@ def _arrow_name(a: str, b: str, k: int, taken: set[str]) -> str:
     return name
 
 
+class _Shapes(dict):
+    """``(i, j) -> [(dim T_i(v), dim T_j(v)) for every vertex v]``, made on first use."""
+
+    def __init__(self, modules: list[Module]) -> None:
+        super().__init__()
+        self.modules = modules
+
+    def __missing__(self, key: tuple[int, int]) -> list[tuple[int, int]]:
+        di, dj = self.modules[key[0]].dims, self.modules[key[1]].dims
+        out = self[key] = list(zip(di, dj, strict=True))
+        return out
+
+
+class _Sizes(dict):
+    """``(i, j) -> sum_v dim T_i(v) dim T_j(v)`` (the length of a flattened map), on first use."""
+
+    def __init__(self, modules: list[Module]) -> None:
+        super().__init__()
+        self.modules = modules
+        self.support = [[(v, d) for v, d in enumerate(M.dims) if d] for M in modules]
+
+    def __missing__(self, key: tuple[int, int]) -> int:
+        dj = self.modules[key[1]].dims
+        out = self[key] = sum(d * dj[v] for v, d in self.support[key[0]])
+        return out
+
+
 _CHUNK = 64  # composites added to the radical square's echelon form at a time
 
 
@@ -409,11 +436,12 @@ class _GeneratorCoordinates:
         then just these columns.  ``None`` otherwise."""
         key = (i, j, "columns")
         if key not in self._Y:
-            shapes = self.shapes[(i, j)]
-            flat_off, o = [], 0
-            for r, c in shapes:
-                flat_off.append(o)
-                o += r * c
+            di, dj = self.modules[i].dims, self.modules[j].dims
+            flat_off, o = {}, 0
+            for v, d in enumerate(di):  # where the block of each vertex starts
+                if d:
+                    flat_off[v] = o
+                    o += d * dj[v]
             cols: list[int] | None = []
             for v, g in self.gens[i]:
                 e = g.entries()
@@ -421,8 +449,7 @@ class _GeneratorCoordinates:
                 if len(nz) != 1 or e[nz[0]] != 1:
                     cols = None
                     break
-                dj = shapes[v][1]
-                cols.extend(flat_off[v] + nz[0] * dj + c for c in range(dj))
+                cols.extend(flat_off[v] + nz[0] * dj[v] + c for c in range(dj[v]))
             self._Y[key] = cols
         return self._Y[key]
 
@@ -456,10 +483,10 @@ class _GeneratorCoordinates:
         all ``g`` at once; the coordinates solve one linear system against the
         basis of ``Hom(T_s, T_j)`` (they are unique: a basis).
         """
+        if flat[(s, k)].nrows == 0 or flat[(s, j)].nrows == 0:
+            return Mat.zeros(self.F, flat[(s, k)].nrows, flat[(s, j)].nrows)
         G = self.basis_rows(s, k, flat)
         B = self.basis_rows(s, j, flat)
-        if G.nrows == 0 or B.nrows == 0:
-            return Mat.zeros(self.F, G.nrows, B.nrows)
         kof, _ = self.offsets(s, k)
         dk, dj = self.modules[k].dims, self.modules[j].dims
         blocks = []
@@ -553,12 +580,8 @@ def endomorphism_algebra(
     F = modules[0].field
     n = len(modules)
     N = modules[0].algebra.n
-    shapes = {
-        (i, j): [(modules[i].dims[v], modules[j].dims[v]) for v in range(N)]
-        for i in range(n)
-        for j in range(n)
-    }
-    sizes = {k: sum(r * c for r, c in s) for k, s in shapes.items()}
+    shapes = _Shapes(modules)  # (i, j) -> the shapes (dim T_i(v), dim T_j(v)), made on use
+    sizes = _Sizes(modules)  # (i, j) -> sum_v dim T_i(v) dim T_j(v), over the support of T_i
     flat: dict[tuple[int, int], Mat] = {}
     pivots: dict[tuple[int, int], tuple[int, ...]] = {}
     for i in range(n):
