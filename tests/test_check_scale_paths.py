@@ -27,7 +27,7 @@ from hwcat.exact import Mat, echelon
 from hwcat.modules import direct_sum, hom, hom_dimension_naive, simple
 from hwcat.modules.hom import hom_images, homomorphism_from_images, homomorphisms_from_images
 from hwcat.modules.module import is_homomorphism, kernel_spaces
-from hwcat.strategies import bound_quiver_algebras, modules
+from hwcat.strategies import algebra_from_spec, bound_quiver_algebras, bound_quiver_specs, modules
 from hwcat.theory.highest_weight import (
     costandard_filtration,
     standard_filtration,
@@ -35,7 +35,7 @@ from hwcat.theory.highest_weight import (
 )
 from hwcat.theory.homological import ext_dimension, global_dimension, projective_cover
 from hwcat.theory.orders import total_order
-from hwcat.theory.resolutions import _STEPS, _steps
+from hwcat.theory.resolutions import _STEPS, _shared_simple, _steps
 from hwcat.theory.search import quasi_hereditary_orders
 from hwcat.theory.tilting import is_local_endomorphism_ring, tilting_modules, universal_extension
 
@@ -155,3 +155,25 @@ def test_shared_simple_resolutions_against_scratch(A):
         for i in range(A.n):
             res = _scratch_resolution(simple(A, i), g.value + 2)
             assert len(res) <= g.value + 1 and (not res or res[-1][1] == (0,) * A.n)
+
+
+def _outcome(A, i, limit):
+    try:
+        return [(s.cover.summands, s.syzygy.dims) for s in _steps(simple(A, i), 6, limit)]
+    except WorkBudgetExceeded as exc:
+        return str(exc)
+
+
+@FAST
+@given(bound_quiver_specs(max_vertices=3, max_arrows=4, max_relations=2))
+def test_shared_tails_obey_the_callers_budget(spec):
+    # resolutions of the shared simples made first under a large budget must not let
+    # a later resolution under a small budget go further than it would on its own
+    A1, A2 = algebra_from_spec(spec), algebra_from_spec(spec)
+    for j in range(A1.n):
+        try:
+            _steps(_shared_simple(A1, j), 6, 200)
+        except WorkBudgetExceeded:
+            pass
+    for i in range(A1.n):
+        assert _outcome(A1, i, 6) == _outcome(A2, i, 6)

@@ -118,14 +118,19 @@ def _over_budget(name: str, degree: int, what: str, size: int, limit: int) -> Wo
     )
 
 
-def _budgeted_cover(X: Module, degree: int, limit: int, name: str) -> ProjectiveCover:
-    """The cover of ``X = Omega^degree``, refused when ``X`` or the cover exceeds ``limit``."""
+def _check_budget(X: Module, degree: int, limit: int, name: str) -> None:
+    """Refuse to cover ``X = Omega^degree`` when ``X`` or its cover exceeds ``limit``."""
     if X.dim > limit:
         raise _over_budget(name, degree, "the syzygy", X.dim, limit)
     A = X.algebra
     size = sum(sum(A.projective_dims(v)) for v, _ in X.generators())
     if size > limit:
         raise _over_budget(name, degree, "the projective term", size, limit)
+
+
+def _budgeted_cover(X: Module, degree: int, limit: int, name: str) -> ProjectiveCover:
+    """The cover of ``X = Omega^degree``, refused when ``X`` or the cover exceeds ``limit``."""
+    _check_budget(X, degree, limit, name)
     return projective_cover(X)
 
 
@@ -262,6 +267,20 @@ def _shared_simple(A: BasicAlgebra, j: int) -> Module:
     return A.cached(("homological:shared-simple", j), lambda: simple(A, j))
 
 
+def _syzygy_of(S: Module, m: int) -> Module:
+    """``Omega^m(S)`` among the steps already made (following shared tails)."""
+    while m:
+        own = S._memo.get(_STEPS, [])
+        if m <= len(own):
+            return own[m - 1].syzygy
+        if not own or own[-1].syzygy.dim != 1:
+            raise InternalInconsistency("a syzygy that was never built")
+        X = own[-1].syzygy
+        m -= len(own)
+        S = _shared_simple(S.algebra, X.dims.index(1))
+    return S
+
+
 def _extend_by_simple(M: Module, steps: list[_Step], S: Module, count: int, limit: int) -> None:
     """Append to the steps of ``M`` (ending at a syzygy equal to ``S``) the steps of ``S``.
 
@@ -271,17 +290,20 @@ def _extend_by_simple(M: Module, steps: list[_Step], S: Module, count: int, limi
     try:
         tail = _steps(S, count - k, limit)
     except WorkBudgetExceeded as exc:
-        own = S._memo[_STEPS]
-        Y = S if exc.degree == 0 else own[exc.degree - 1].syzygy
-        _budgeted_cover(Y, k + exc.degree, limit, M.name)
+        # the steps of S made before (perhaps under a larger budget) are checked
+        # against M's budget in order, then the step S refused, at M's degrees
+        for m in range(exc.degree + 1):
+            _check_budget(_syzygy_of(S, m), k + m, limit, M.name)
         raise InternalInconsistency(
             "a shared resolution refused a step that the budget allows"
         ) from exc
-    if tail:  # the first step covers M's own syzygy (equal to S as a representation)
-        first = tail[0]
-        cover = dataclasses.replace(first.cover, module=steps[-1].syzygy)
-        steps.append(_Step(cover, first.kernel, first.syzygy))
-        steps.extend(tail[1:])
+    for m, step in enumerate(tail):
+        # the steps of S may have been made under a larger budget: M's budget decides
+        _check_budget(S if m == 0 else tail[m - 1].syzygy, k + m, limit, M.name)
+        if m == 0:  # the first step covers M's own syzygy (equal to S as a representation)
+            cover = dataclasses.replace(step.cover, module=steps[-1].syzygy)
+            step = _Step(cover, step.kernel, step.syzygy)
+        steps.append(step)
 
 
 def _steps(M: Module, count: int, limit: int | None = None) -> list[_Step]:
