@@ -23,6 +23,12 @@ Baselines in the same run:
     python benchmarks/bench_check_scale.py                     # up to x^16 and A_100
     python benchmarks/bench_check_scale.py --quick
     python benchmarks/bench_check_scale.py --baseline 612ea2b  # the previous code, whole command
+
+Measured with ``--baseline 612ea2b`` on a shared 2-core machine (CPU seconds
+of the whole command, one run): Auslander k[x]/x^16 7.6 s against 25.5 s
+(3.3x), growth exponent 4.0 between x^12 and x^16 (the earlier code: 6.0);
+linear A_100 with rad^3 = 0 6.5 s against 24.0 s (3.7x), exponent 1.8
+between A_50 and A_100 (the earlier code: 2.6).
 """
 
 from __future__ import annotations
