@@ -20,7 +20,48 @@ from hwcat.errors import InternalInconsistency
 from hwcat.exact import Mat
 from hwcat.modules.module import Module
 
-__all__ = ["hom", "hom_dimension", "hom_dimension_naive", "homomorphism_from_images"]
+__all__ = [
+    "hom",
+    "hom_images",
+    "hom_dimension",
+    "hom_dimension_naive",
+    "homomorphism_from_images",
+    "homomorphisms_from_images",
+]
+
+
+def _presentation(M: Module) -> tuple[list, list[tuple[int, int, int, list[tuple[int, list]]]]]:
+    """What ``Hom(M, -)`` needs of ``M`` alone, kept with ``M``.
+
+    The generators, and for each arrow ``a : v -> t`` the word-basis elements
+    ``k = g * w`` at ``v`` with ``g * w * a`` not a basis element, each with the
+    nonzero coordinates ``(j, C[k, j])`` of ``(g * w) * a`` in the basis at ``t``.
+    """
+    key = "hom:presentation"
+    if key in M._memo:
+        return M._memo[key]
+    A = M.algebra
+    elems, rows = M.word_basis()
+    index = [{e: k for k, e in enumerate(elems[v])} for v in range(A.n)]
+    inv: dict[int, Mat] = {}
+    edges = []
+    for i, a in enumerate(A.arrows):
+        v, t = a.source, a.target
+        if not elems[v]:
+            continue
+        free = [k for k, (g, w) in enumerate(elems[v]) if (g, w + (i,)) not in index[t]]
+        if not free:
+            continue
+        if M.dims[t]:
+            if t not in inv:
+                inv[t] = rows[t].inverse()
+            Crows = (rows[v] @ M.maps[i] @ inv[t]).raw_rows()
+        else:
+            Crows = [[] for _ in elems[v]]
+        terms = [(k, [(jj, c) for jj, c in enumerate(Crows[k]) if c != 0]) for k in free]
+        edges.append((i, v, t, terms))
+    M._memo[key] = (elems, edges)
+    return M._memo[key]
 
 
 def _hom_system(M: Module, N: Module) -> tuple[Mat, list[int], list[tuple[int, Mat]]]:
@@ -28,45 +69,32 @@ def _hom_system(M: Module, N: Module) -> tuple[Mat, list[int], list[tuple[int, M
     if M.algebra is not N.algebra:
         raise InternalInconsistency("Hom between modules over different algebras")
     F = M.field
-    A = M.algebra
     gens = M.generators()
-    elems, rows = M.word_basis()
+    elems, edges = _presentation(M)
     offsets, total = [], 0
     for v, _ in gens:
         offsets.append(total)
         total += N.dims[v]
-    inv = [rows[v].inverse() if rows[v].nrows else rows[v] for v in range(A.n)]
-    index = [{e: k for k, e in enumerate(elems[v])} for v in range(A.n)]
-    # Phi_k = N-path matrix of the word of basis element k
-    phi = [[N.path_matrix(w, gens[g][0]) for g, w in elems[v]] for v in range(A.n)]
+    zero = F.zero
     columns: list[list] = []  # each: a list of dim U entries per column (built as flat rows of Z^T)
-    for i, a in enumerate(A.arrows):
-        v, t = a.source, a.target
-        if not elems[v] or N.dims[t] == 0:
-            continue
-        C = rows[v] @ M.maps[i] @ inv[t] if M.dims[t] else Mat.zeros(F, M.dims[v], 0)
-        Crows = C.raw_rows()
+    for i, v, t, terms in edges:
         nt = N.dims[t]
-        for k, (g, w) in enumerate(elems[v]):
-            j = index[t].get((g, w + (i,)))
-            if j is not None:
-                continue  # a tree edge: automatically respected
+        if nt == 0:
+            continue
+        for k, coeffs in terms:
+            g, w = elems[v][k]
             # constraint block (dim U x nt), stored transposed: nt rows of length dim U
-            block = [[F.zero] * total for _ in range(nt)]
-            lhs = phi[v][k] @ N.maps[i]  # dims N_{v_g} x nt
-            gk = g
-            off = offsets[gk]
-            le = lhs.raw_rows()
+            block = [[zero] * total for _ in range(nt)]
+            off = offsets[g]
+            le = (N.path_matrix(w, gens[g][0]) @ N.maps[i]).raw_rows()  # dims N_{v_g} x nt
             for r, row in enumerate(le):
                 for c, x in enumerate(row):
                     if x != 0:
                         block[c][off + r] -= x
-            for jj, cval in enumerate(Crows[k]):
-                if cval == 0:
-                    continue
-                gj = elems[t][jj][0]
+            for jj, cval in coeffs:
+                gj, wj = elems[t][jj]
                 offj = offsets[gj]
-                for r, row in enumerate(phi[t][jj].raw_rows()):
+                for r, row in enumerate(N.path_matrix(wj, gens[gj][0]).raw_rows()):
                     for c, x in enumerate(row):
                         if x != 0:
                             block[c][offj + r] += cval * x
@@ -81,6 +109,18 @@ def _hom_system(M: Module, N: Module) -> tuple[Mat, list[int], list[tuple[int, M
 
 def homomorphism_from_images(M: Module, N: Module, u: Mat) -> tuple[Mat, ...]:
     """The homomorphism ``M -> N`` sending generator ``g`` to the slice of ``u`` for ``g``."""
+    return homomorphisms_from_images(M, N, u)[0]
+
+
+def homomorphisms_from_images(M: Module, N: Module, U: Mat) -> list[tuple[Mat, ...]]:
+    """One homomorphism ``M -> N`` per row of ``U`` (images of the generators, see :func:`hom_images`).
+
+    All rows at once: at each vertex ``v`` the images of the word-basis
+    elements ``g * w`` of every row form one ``dim M_v x (rows * dim N_v)``
+    matrix ``Q`` (row ``k``: the images of element ``k`` side by side), and
+    one product with the inverse of the word-basis matrix gives the matrices
+    at ``v`` of all the homomorphisms.
+    """
     F = M.field
     A = M.algebra
     gens = M.generators()
@@ -89,27 +129,62 @@ def homomorphism_from_images(M: Module, N: Module, u: Mat) -> tuple[Mat, ...]:
     for v, _ in gens:
         offsets.append(total)
         total += N.dims[v]
-    ue = u.entries()
-    out = []
+    h = U.nrows
+    if h == 0:
+        return []
+    if U.ncols != total:
+        raise InternalInconsistency("images of generators of the wrong length")
+    slices: dict[int, Mat] = {}  # the columns of U for generator g (h x dim N_vg)
+    out: list[list[Mat]] = [[] for _ in range(h)]
     for v in range(A.n):
-        if M.dims[v] == 0:
-            out.append(Mat.zeros(F, 0, N.dims[v]))
+        dm, dn = M.dims[v], N.dims[v]
+        if dm == 0 or dn == 0:
+            z = Mat.zeros(F, dm, dn)
+            for f in out:
+                f.append(z)
             continue
-        imgs = []
+        flat: list = []
         for g, w in elems[v]:
-            vg = gens[g][0]
-            ug = Mat.from_flat(F, 1, N.dims[vg], ue[offsets[g] : offsets[g] + N.dims[vg]])
-            imgs.append(ug @ N.path_matrix(w, vg))
-        Phi = Mat.vstack(F, imgs, N.dims[v])
-        out.append(rows[v].inverse() @ Phi)
-    return tuple(out)
+            ug = slices.get(g)
+            if ug is None:
+                vg = gens[g][0]
+                ug = slices[g] = U.take_cols(range(offsets[g], offsets[g] + N.dims[vg]))
+            flat.extend((ug @ N.path_matrix(w, gens[g][0])).entries())
+        Q = Mat.from_flat(F, dm, h * dn, flat)
+        R = (rows[v].inverse() @ Q).entries()
+        width = h * dn
+        for j, f in enumerate(out):
+            lo = j * dn
+            f.append(
+                Mat.from_flat(
+                    F,
+                    dm,
+                    dn,
+                    [x for r in range(dm) for x in R[r * width + lo : r * width + lo + dn]],
+                )
+            )
+    return [tuple(f) for f in out]
+
+
+def hom_images(M: Module, N: Module) -> Mat:
+    """A basis of ``Hom_A(M, N)`` as rows of images of the generators of ``M``.
+
+    Row ``r`` lists, generator by generator (:meth:`Module.generators`), the
+    image of the generator in ``N``; this coordinate vector determines the
+    homomorphism (:func:`homomorphisms_from_images` gives its matrices) and is
+    much shorter than the matrices.
+    """
+    if M.algebra is not N.algebra:
+        raise InternalInconsistency("Hom between modules over different algebras")
+    if not any(N.dims[v] for v, _ in M.generators()):  # every generator goes to zero
+        return Mat.zeros(M.field, 0, 0)
+    Z, _, _ = _hom_system(M, N)
+    return Z.left_kernel() if Z.ncols else Mat.identity(M.field, Z.nrows)
 
 
 def hom(M: Module, N: Module) -> list[tuple[Mat, ...]]:
     """A basis of ``Hom_A(M, N)``; each homomorphism is a tuple of matrices, one per vertex."""
-    Z, _, _ = _hom_system(M, N)
-    K = Z.left_kernel() if Z.ncols else Mat.identity(M.field, Z.nrows)
-    return [homomorphism_from_images(M, N, K.take_rows([r])) for r in range(K.nrows)]
+    return homomorphisms_from_images(M, N, hom_images(M, N))
 
 
 def hom_dimension(M: Module, N: Module) -> int:

@@ -270,6 +270,10 @@ def heredity_chain(A: BasicAlgebra, order: PartialOrder) -> HeredityResult:
     module (else the chain's standard modules are not those of the order).
     """
     _check_order(A, order)
+    return A.cached(("heredity_chain", order.less), lambda: _heredity_chain(A, order))
+
+
+def _heredity_chain(A: BasicAlgebra, order: PartialOrder) -> HeredityResult:
     tc = trace_cache(A)
     n = A.n
     above = [mask(b for (a, b) in order.less if a == v) for v in range(n)]

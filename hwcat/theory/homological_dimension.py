@@ -57,7 +57,7 @@ from typing import TYPE_CHECKING, Any
 
 from hwcat.algebras.hub.basic import BasicAlgebra
 from hwcat.errors import InternalInconsistency, WorkBudgetExceeded
-from hwcat.exact import Mat, contains
+from hwcat.exact import Mat, contains, echelon
 from hwcat.modules import Module, simple
 from hwcat.modules.hom import _hom_system, homomorphism_from_images
 from hwcat.modules.module import is_homomorphism
@@ -178,7 +178,7 @@ def find_isomorphism(
     return _isomorphism(M, N, random.Random(seed), tries)
 
 
-def _summand_possible(X: Module, Y: Module, inv: dict[int, tuple]) -> bool:
+def _summand_possible(X: Module, Y: Module, inv: dict[Any, tuple]) -> bool:
     """Necessary conditions for ``X`` to be a direct summand of ``Y`` (layer by layer)."""
 
     def invariants(Z: Module) -> tuple:
@@ -186,7 +186,27 @@ def _summand_possible(X: Module, Y: Module, inv: dict[int, tuple]) -> bool:
             inv[id(Z)] = (Z, Z.socle(), tuple(Z.radical_layers()))
         return inv[id(Z)][1:]
 
-    if X.dim == 0 or any(a > b for a, b in zip(X.dims, Y.dims, strict=True)):
+    def cheap(Z: Module) -> tuple:
+        key = ("socle and top", id(Z))
+        if key not in inv:
+            inv[key] = (Z, Z.socle(), Z.top())
+        return inv[key][1:]
+
+    def support(Z: Module) -> list[tuple[int, int]]:
+        key = ("support", id(Z))
+        if key not in inv:
+            inv[key] = (Z, [(v, d) for v, d in enumerate(Z.dims) if d])
+        return inv[key][1]
+
+    if X.dim == 0 or X.dim > Y.dim:
+        return False
+    ydims = Y.dims
+    if any(d > ydims[v] for v, d in support(X)):
+        return False
+    (sx, tx), (sy, ty) = cheap(X), cheap(Y)  # socle and top first: one pass each
+    if any(a > b for a, b in zip(sx, sy, strict=True)) or any(
+        a > b for a, b in zip(tx, ty, strict=True)
+    ):
         return False
     (sx, lx), (sy, ly) = invariants(X), invariants(Y)
     if len(lx) > len(ly) or any(a > b for a, b in zip(sx, sy, strict=True)):
@@ -263,8 +283,27 @@ def simple_summands(X: Module) -> dict[int, Mat]:
     ``rad(X)_j``; the vector is a socle vector outside the radical (exact, no
     randomness).
     """
+    key = "homological:simple-summands"
+    if key not in X._memo:
+        X._memo[key] = _simple_summands(X)
+    return dict(X._memo[key])
+
+
+def _simple_summands(X: Module) -> dict[int, Mat]:
+    F = X.field
+    arrows = X.algebra.arrows
+    outs: dict[int, list[Mat]] = {}
+    imgs: dict[int, list[Mat]] = {}
+    for i, m in X.maps.items():  # only the maps between nonzero spaces
+        outs.setdefault(arrows[i].source, []).append(m)
+        imgs.setdefault(arrows[i].target, []).append(m)
     out = {}
-    for j, (soc, rad) in enumerate(zip(X.socle_spaces(), X.radical_spaces(), strict=True)):
+    for j, d in enumerate(X.dims):
+        if d == 0:
+            continue
+        # soc(X)_j and rad(X)_j, as X.socle_spaces()[j] and X.radical_spaces()[j]
+        soc = echelon(Mat.hstack(F, outs[j], d).left_kernel()) if j in outs else Mat.identity(F, d)
+        rad = echelon(Mat.vstack(F, imgs[j], d)) if j in imgs else Mat.zeros(F, 0, d)
         if soc.nrows and not contains(rad, soc):
             for r in range(soc.nrows):
                 v = soc.take_rows([r])
@@ -458,7 +497,7 @@ def _scan(
     if M.dim == 0:
         return _finite(-1)
     A = M.algebra
-    inv: dict[int, tuple] = {}
+    inv: dict[Any, tuple] = {}
     for k in range(1, lim.bound + 2):
         try:
             steps = _steps(M, k, lim.max_dim)
@@ -475,10 +514,12 @@ def _scan(
             return HomologicalDimension("at_least", k, limit="max_syzygy_dimension")
         for j in range(k):
             Y = M if j == 0 else steps[j - 1].syzygy
-            if not _summand_possible(Y, X, inv):
-                continue
             if Y.dim == 1:  # a simple: decided exactly by the socle and the radical
+                if X.dims[Y.dims.index(1)] == 0:
+                    continue
                 pair = _simple_split(Y, X)
+            elif not _summand_possible(Y, X, inv):
+                continue
             elif X.dim <= lim.split_limit:
                 pair = _split_embedding(Y, X, rng, lim.tries)
             else:

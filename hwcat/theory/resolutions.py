@@ -56,15 +56,15 @@ Examples
 
 from __future__ import annotations
 
+import dataclasses
 from collections.abc import Sequence
 from dataclasses import dataclass
 from typing import Any
 
 from hwcat.algebras.hub.basic import BasicAlgebra
 from hwcat.errors import HwcatError, InternalInconsistency, WorkBudgetExceeded
-from hwcat.exact import Mat
-from hwcat.modules import Module, direct_sum, projective
-from hwcat.modules.module import kernel_spaces
+from hwcat.exact import Mat, echelon
+from hwcat.modules import Module, direct_sum, projective, simple
 
 __all__ = [
     "ProjectiveCover",
@@ -118,14 +118,19 @@ def _over_budget(name: str, degree: int, what: str, size: int, limit: int) -> Wo
     )
 
 
-def _budgeted_cover(X: Module, degree: int, limit: int, name: str) -> ProjectiveCover:
-    """The cover of ``X = Omega^degree``, refused when ``X`` or the cover exceeds ``limit``."""
+def _check_budget(X: Module, degree: int, limit: int, name: str) -> None:
+    """Refuse to cover ``X = Omega^degree`` when ``X`` or its cover exceeds ``limit``."""
     if X.dim > limit:
         raise _over_budget(name, degree, "the syzygy", X.dim, limit)
     A = X.algebra
     size = sum(sum(A.projective_dims(v)) for v, _ in X.generators())
     if size > limit:
         raise _over_budget(name, degree, "the projective term", size, limit)
+
+
+def _budgeted_cover(X: Module, degree: int, limit: int, name: str) -> ProjectiveCover:
+    """The cover of ``X = Omega^degree``, refused when ``X`` or the cover exceeds ``limit``."""
+    _check_budget(X, degree, limit, name)
     return projective_cover(X)
 
 
@@ -238,6 +243,69 @@ class _Step:
     syzygy: Module  # Omega^{i+1}
 
 
+def _map_kernels(f: Sequence[Mat]) -> list[Mat]:
+    """Echelon bases, per vertex, of the kernel of the maps ``f[v]`` (as ``kernel_spaces``).
+
+    Only the blocks between two nonzero spaces are solved: the kernel is
+    everything when the target space is zero and nothing when the source is.
+    """
+    out = []
+    for m in f:
+        r, c = m.shape
+        if r == 0 or c == 0:
+            out.append(Mat.identity(m.field, r))
+        else:
+            out.append(echelon(m.left_kernel()))
+    return out
+
+
+_SHARED_DEPTH = 64  # nested shared tails (each costs a few stack frames)
+
+
+def _shared_simple(A: BasicAlgebra, j: int) -> Module:
+    """The simple module ``L(j)`` whose resolution is shared by every resolution reaching it."""
+    return A.cached(("homological:shared-simple", j), lambda: simple(A, j))
+
+
+def _syzygy_of(S: Module, m: int) -> Module:
+    """``Omega^m(S)`` among the steps already made (following shared tails)."""
+    while m:
+        own = S._memo.get(_STEPS, [])
+        if m <= len(own):
+            return own[m - 1].syzygy
+        if not own or own[-1].syzygy.dim != 1:
+            raise InternalInconsistency("a syzygy that was never built")
+        X = own[-1].syzygy
+        m -= len(own)
+        S = _shared_simple(S.algebra, X.dims.index(1))
+    return S
+
+
+def _extend_by_simple(M: Module, steps: list[_Step], S: Module, count: int, limit: int) -> None:
+    """Append to the steps of ``M`` (ending at a syzygy equal to ``S``) the steps of ``S``.
+
+    A refusal of the budget is raised as ``M``'s own, at ``M``'s degree.
+    """
+    k = len(steps)
+    try:
+        tail = _steps(S, count - k, limit)
+    except WorkBudgetExceeded as exc:
+        # the steps of S made before (perhaps under a larger budget) are checked
+        # against M's budget in order, then the step S refused, at M's degrees
+        for m in range(exc.degree + 1):
+            _check_budget(_syzygy_of(S, m), k + m, limit, M.name)
+        raise InternalInconsistency(
+            "a shared resolution refused a step that the budget allows"
+        ) from exc
+    for m, step in enumerate(tail):
+        # the steps of S may have been made under a larger budget: M's budget decides
+        _check_budget(S if m == 0 else tail[m - 1].syzygy, k + m, limit, M.name)
+        if m == 0:  # the first step covers M's own syzygy (equal to S as a representation)
+            cover = dataclasses.replace(step.cover, module=steps[-1].syzygy)
+            step = _Step(cover, step.kernel, step.syzygy)
+        steps.append(step)
+
+
 def _steps(M: Module, count: int, limit: int | None = None) -> list[_Step]:
     """The first ``count`` steps of the minimal resolution (fewer if it ends), cached on ``M``.
 
@@ -250,8 +318,22 @@ def _steps(M: Module, count: int, limit: int | None = None) -> list[_Step]:
         X = M if not steps else steps[-1].syzygy
         if X.dim == 0:
             break
+        if X.dim == 1 and steps:
+            # a simple syzygy L(j) (arrows act by zero on a line): from here on the
+            # resolution is that of L(j), computed once per algebra and shared
+            # (not when S waits for such a tail itself further up, i.e. a cycle of
+            # simples, which goes on by hand; nor beyond _SHARED_DEPTH nested tails)
+            busy = M.algebra.cached(("homological:extending",), set)
+            S = _shared_simple(M.algebra, X.dims.index(1))
+            if S is not M and id(S) not in busy and len(busy) < _SHARED_DEPTH:
+                busy.add(id(M))
+                try:
+                    _extend_by_simple(M, steps, S, count, limit)
+                finally:
+                    busy.discard(id(M))
+                break
         c = _budgeted_cover(X, len(steps), limit, M.name)
-        K = kernel_spaces(c.cover, X, c.projection)
+        K = _map_kernels(c.projection)
         label = f"Omega^{len(steps) + 1}({M.name})" if M.name else ""
         steps.append(_Step(c, tuple(K), c.cover.submodule(K, label)))
     return steps[:count]
