@@ -44,8 +44,9 @@ except ImportError:  # pragma: no cover - numpy is an optional extra
     _np = None
 
 COLUMN_TABLE_MIN = 200
-"""Temperley-Lieb tables of at least this dimension over GF(p) (p < 2^31) are built
-column by column with numpy when it is installed (no dictionary per product)."""
+"""Temperley-Lieb and symmetric group tables of at least this dimension over GF(p)
+(p < 2^31) are built column by column with numpy when it is installed (no dictionary
+per product)."""
 
 __all__ = [
     "MultiplicationTable",
@@ -596,7 +597,11 @@ def schur_algebra_2(r: int, field: Field | str = QQ) -> MultiplicationTable:
     by_rowsum: dict[int, list[int]] = {}  # weight of the first multi-index -> basis
     for k, (b11, b12, _, _) in enumerate(mats):
         by_rowsum.setdefault(b11 + b12, []).append(k)
+    binom = [[comb(c, k) for k in range(c + 1)] for c in range(r + 1)]
+    p = F.p if isinstance(F, PrimeField) else 0
+    by_columns = 0 < p < 2**31 and len(mats) >= COLUMN_TABLE_MIN
     products: dict[tuple[int, int], dict[int, Any]] = {}
+    cols: list[tuple[list[int], list[int], list[int]]] = [([], [], []) for _ in mats]
     for ka, (a11, a12, a21, a22) in enumerate(mats):
         for kb in by_rowsum.get(a11 + a21, ()):
             b11, b12, b21, b22 = mats[kb]
@@ -606,20 +611,33 @@ def schur_algebra_2(r: int, field: Field | str = QQ) -> MultiplicationTable:
                 for y in range(max(0, b21 - a22), min(a12, b21) + 1):
                     m122, m221, m222 = a12 - y, b21 - y, a22 - b21 + y
                     c11, c12, c21, c22 = x + y, m112 + m122, m211 + m221, m212 + m222
-                    coef = comb(c11, x) * comb(c12, m112) * comb(c21, m211) * comb(c22, m212)
+                    coef = binom[c11][x] * binom[c12][m112] * binom[c21][m211] * binom[c22][m212]
                     k = idx[(c11, c12, c21, c22)]
                     acc[k] = acc.get(k, 0) + coef
+            if by_columns:
+                ci, ck, cc = cols[kb]
+                for k, v in acc.items():
+                    if v % p:
+                        ci.append(ka)
+                        ck.append(k)
+                        cc.append(v % p)
+                continue
             entry = {k: F(v) for k, v in acc.items()}
             entry = {k: v for k, v in entry.items() if v != 0}
             if entry:
                 products[(ka, kb)] = entry
     unit = {idx[(a, 0, 0, r - a)]: F.one for a in range(r + 1)}
+    columns = None
+    if by_columns:
+        columns = [(array("q", ci), array("q", ck), array("q", cc)) for ci, ck, cc in cols]
+        products = _ColumnProducts(F, columns)
     return MultiplicationTable(
         name=f"S(2,{r}) over {F.name}",
         field=F,
         basis=tuple(name(A) for A in mats),
         products=products,
         unit=unit,
+        columns=columns,
     )
 
 
@@ -675,19 +693,49 @@ def symmetric_group_algebra(n: int, field: Field | str = QQ) -> MultiplicationTa
     check_products(math.factorial(n), f"the group algebra of S_{n}")
     F = _as_field(field)
     perms = list(itertools.permutations(range(n)))
-    idx = {p: k for k, p in enumerate(perms)}
     one = F.one
+    name = f"group algebra of S_{n} over {F.name}"
+    basis = tuple(_cycle_name(p) for p in perms)
+    if _np is not None and len(perms) >= COLUMN_TABLE_MIN and isinstance(F, PrimeField):
+        columns = _permutation_columns(perms)
+        return MultiplicationTable(
+            name=name,
+            field=F,
+            basis=basis,
+            products=_ColumnProducts(F, columns),
+            unit={0: one},
+            columns=columns,
+        )
+    idx = {p: k for k, p in enumerate(perms)}
     products = {}
     for i, s in enumerate(perms):
         for j, t in enumerate(perms):
             products[(i, j)] = {idx[tuple(s[x] for x in t)]: one}
-    return MultiplicationTable(
-        name=f"group algebra of S_{n} over {F.name}",
-        field=F,
-        basis=tuple(_cycle_name(p) for p in perms),
-        products=products,
-        unit={0: one},
-    )
+    return MultiplicationTable(name=name, field=F, basis=basis, products=products, unit={0: one})
+
+
+def _permutation_columns(perms: list[tuple[int, ...]]) -> list[tuple[array, array, array]]:
+    """The table of the group algebra of ``S_n`` by columns (int64 arrays).
+
+    Column ``t`` holds ``s * t`` for every ``s``: the one-line notation of ``s * t`` is
+    ``s`` read at the positions ``t``, and its index is found by reading the one-line
+    notation as a number in base ``n`` (the lexicographic order of ``perms`` is the
+    order of these numbers).  Every column shares the arrays of left factors and of
+    coefficients (all ``1``).
+    """
+    np = _np
+    N, n = len(perms), len(perms[0])
+    P = np.asarray(perms, dtype=np.int64).reshape(N, n)
+    weights = n ** np.arange(n - 1, -1, -1, dtype=np.int64)
+    lookup = np.full(n**n, -1, dtype=np.int64)
+    lookup[P @ weights] = np.arange(N, dtype=np.int64)
+    I = array("q", np.arange(N, dtype=np.int64).tobytes())
+    C = array("q", np.ones(N, dtype=np.int64).tobytes())
+    out = []
+    for t in perms:
+        K = lookup[P[:, list(t)] @ weights]
+        out.append((I, array("q", K.tobytes()), C))
+    return out
 
 
 def cyclic_group_algebra(m: int, field: Field | str = QQ) -> MultiplicationTable:
