@@ -617,8 +617,37 @@ class StructureAlgebra:
             ]
         return self._cache["rows"]
 
+    def _row_terms_of(self, rows: Sequence[int]) -> dict[int, tuple[Any, Any, Any]]:
+        """The terms ``(j, k, c)`` of ``b_i * b_j`` for the given ``i`` only (as
+        :meth:`_row_terms`, without keeping a copy of the whole table by rows)."""
+        if "rows" in self._cache or not self._vectorised():
+            by_row = self._row_terms()
+            return {i: by_row[i] for i in rows}
+        np = _np
+        want = np.zeros(self.dim, dtype=bool)
+        want[np.asarray(list(rows), dtype=np.int64)] = True
+        parts: dict[int, tuple[list, list, list]] = {i: ([], [], []) for i in rows}
+        for j, (i_a, k_a, c_a) in enumerate(self._np_cols()):
+            if not len(i_a):
+                continue
+            for t in np.flatnonzero(want[i_a]).tolist():
+                js, ks, cs = parts[int(i_a[t])]
+                js.append(j)
+                ks.append(int(k_a[t]))
+                cs.append(int(c_a[t]))
+        return {
+            i: (array("l", js), array("l", ks), array("q", cs)) for i, (js, ks, cs) in parts.items()
+        }
+
     def trace_functional(self) -> list[Any]:
         """``tau_k = trace of right multiplication by b_k`` (a linear form on the algebra)."""
+        if "trace" not in self._cache and self._vectorised():
+            p = self._p
+            t = [
+                int(c_a[i_a == k_a].sum() % p) if len(i_a) else 0
+                for i_a, k_a, c_a in self._np_cols()
+            ]
+            self._cache["trace"] = self.vec(t)
         if "trace" not in self._cache:
             t = [self._zero_raw()] * self.dim
             for k, (is_, ks, cs) in enumerate(self._cols):

@@ -230,8 +230,7 @@ def _new_class(A: StructureAlgebra, e: list[Any], R: Mat, index, rows) -> _Class
     U = A.gram(A.vec(phi), cols=[c for c in cpiv] if cols is None else [cols[c] for c in cpiv])
     sec = list(select_independent_rows(U))
     dim_Ae = _dim_left_ideal(A, e, R)
-    by_row = A._row_terms()
-    rowterms = {s: by_row[s] for s in sec}
+    rowterms = A._row_terms_of(sec)
     return _Class(
         e,
         index,
