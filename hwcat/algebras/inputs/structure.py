@@ -671,10 +671,10 @@ class StructureAlgebra:
         rpos = [-1] * n
         for a, i in enumerate(rows):
             rpos[i] = a
-        acc = [self._zero_raw()] * (len(rows) * len(cols))
         w = len(cols)
         if self._vectorised() and len(rows) * w >= GRAM_VECTOR_MIN:
             return self._gram_vectorised(ph, rpos, rows, cols)
+        acc = [self._zero_raw()] * (len(rows) * w)
         for b, c in enumerate(cols):
             is_, ks, cs = self._cols[c]
             for i, k, coef in zip(is_, ks, cs, strict=True):

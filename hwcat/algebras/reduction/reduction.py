@@ -100,6 +100,7 @@ from hwcat.algebras.reduction.radical import (
     primitive_idempotents,
     trace_radical,
 )
+from hwcat.algebras.reduction.sketch import sketched_independent_rows, sketched_rank
 from hwcat.errors import InternalInconsistency, NotSplitError, StructureConstantsError
 from hwcat.exact import Mat, echelon, select_independent_rows, splitting_field_hint
 from hwcat.exact.polys import (
@@ -164,7 +165,7 @@ class _Class:
 def _right_ideal_basis(A: StructureAlgebra, e: list[Any], rows) -> tuple[list[int], Mat]:
     """Basis elements ``b_l`` with ``e b_l`` a basis of ``eA`` (on span(rows)), and those rows."""
     L = A.left_action(A.vec(e), rows)
-    pos = select_independent_rows(L)
+    pos = sketched_independent_rows(L)
     rows_list = list(range(A.dim)) if rows is None else list(rows)
     return [rows_list[k] for k in pos], select_rows(L, pos)
 
@@ -277,7 +278,7 @@ def _dim_left_ideal(A: StructureAlgebra, f: list[Any], R: Mat) -> int:
     if p == 0 or p > A.dim:
         t = sum((a * b for a, b in zip(A.raw(A.trace_functional()), f, strict=True)), A._zero_raw())
         return int(t) % p if p else int(t)
-    return R.rank()
+    return sketched_rank(R)
 
 
 # ----------------------------------------------------------------------------------
@@ -292,6 +293,7 @@ class _Node:
     core: list[int] | None
     root: bool = False
     R: Mat | None = None
+    RT: Mat | None = None  # transpose of R, for the Krylov chains
     dim_Af: int | None = None
     attempts: int = 0
     depth: int = 0
@@ -369,7 +371,7 @@ class _Search:
     def exact_dim(self, node: _Node) -> int:
         if node.dim_Af is None:
             node.dim_Af = (
-                int(self.trace(node.f)) if self.trace_exact else self.ensure_R(node).rank()
+                int(self.trace(node.f)) if self.trace_exact else sketched_rank(self.ensure_R(node))
             )
         return node.dim_Af
 
@@ -438,7 +440,9 @@ class _Search:
                 Ty = A._right_action_transposed(self.random_sparse(node), node.index)
             mats = [Ty]
             if not node.root:
-                mats.append(A._right_action_transposed(node.f, node.index))
+                if node.RT is None:  # kept while the node is being split
+                    node.RT = A._right_action_transposed(node.f, node.index)
+                mats.append(node.RT)
             self.tick("dense_elements", t0)
             t0 = time.perf_counter()
             v0 = as_row(A, restrict(node.f, node.index))
@@ -513,6 +517,7 @@ class _Search:
                 self._give_up(node, degrees)
             res = self.split_attempt(node)
             if isinstance(res, list):
+                node.R = node.RT = None
                 d = node.depth + node.attempts
                 return [_Node(f, node.index, node.rows, node.core, depth=d) for f in res]
             g, _ = res
@@ -541,7 +546,7 @@ class _Search:
                     raise InternalInconsistency("a primitive idempotent of a known class was kept")
                 if cl.index is None and self.A.dim > KEEP_MATRICES_LIMIT:
                     cl.R = None  # rebuilt by _class_R when the basic algebra is assembled
-                node.R = None
+                node.R = node.RT = None
                 self.classes.append(cl)
                 return []
 
