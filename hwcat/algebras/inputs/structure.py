@@ -347,6 +347,19 @@ class StructureAlgebra:
         """``x * b_j`` for a raw vector ``x``."""
         return self._accumulate(x, self._cols[j])
 
+    def _times_basis_rows(self, X: Any, j: int) -> Any:
+        """``x * b_j`` for every row ``x`` of the int64 array ``X`` (residues), as an
+        int64 array of residues (vectorised tables only)."""
+        np = _np
+        p = self._p
+        i_a, k_a, c_a = self._np_cols()[j]
+        outT = np.zeros((self.dim, X.shape[0]), dtype=np.int64)
+        if len(i_a):
+            vals = (X[:, i_a] * c_a) % p  # below 2^62; at most dim of them meet at one k
+            np.add.at(outT, k_a, vals.T)
+        outT %= p
+        return outT.T
+
     def _vectorised(self) -> bool:
         return (
             USE_VECTOR

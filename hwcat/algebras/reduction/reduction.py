@@ -81,6 +81,7 @@ from typing import Any
 from hwcat.algebras.hub.basic import BasicAlgebra
 from hwcat.algebras.hub.quiver import Arrow, Quiver
 from hwcat.algebras.inputs.structure import StructureAlgebra
+from hwcat.algebras.reduction import sketch
 from hwcat.algebras.reduction.kernels import (
     apply_transfer,
     as_row,
@@ -103,10 +104,12 @@ from hwcat.algebras.reduction.radical import (
 from hwcat.algebras.reduction.sketch import sketched_independent_rows, sketched_rank
 from hwcat.errors import InternalInconsistency, NotSplitError, StructureConstantsError
 from hwcat.exact import Mat, echelon, select_independent_rows, splitting_field_hint
+from hwcat.exact.bulk_rows import take_rows
 from hwcat.exact.polys import (
     Poly,
     fitting_polynomials,
     matrix_from_ints,
+    matrix_from_residues,
     select_columns,
     select_rows,
     sparse_matrix,
@@ -167,7 +170,7 @@ def _right_ideal_basis(A: StructureAlgebra, e: list[Any], rows) -> tuple[list[in
     L = A.left_action(A.vec(e), rows)
     pos = sketched_independent_rows(L)
     rows_list = list(range(A.dim)) if rows is None else list(rows)
-    return [rows_list[k] for k in pos], select_rows(L, pos)
+    return [rows_list[k] for k in pos], take_rows(L, pos)
 
 
 def _corner_data(A: StructureAlgebra, e: list[Any], R: Mat, index, rows) -> tuple:
@@ -782,14 +785,26 @@ def _class_R(A: StructureAlgebra, c: _Class) -> Mat:
     return c.R if c.R is not None else A._action(c.e, c.index, left=False)
 
 
-def _assemble(A: StructureAlgebra, classes: list[_Class], name: str) -> BasicAlgebra:
+def _block_sketch(A: StructureAlgebra, RtT: Mat, width: int, seed: int) -> Mat | None:
+    """``R_t Y`` for a random ``Y`` with ``width`` columns (``RtT`` the transpose of
+    ``R_t``), or ``None`` when the blocks are better found without it."""
+    if not (sketch.USE_SKETCH and A._p) or 3 * width > RtT.nrows or RtT.nrows < sketch.MIN_SIZE:
+        return None
+    Yt = sketch.random_matrix(A.field, width, RtT.nrows, seed)
+    return (Yt @ RtT).transpose()
+
+
+def _block_bases(A: StructureAlgebra, classes: list[_Class]) -> tuple[dict, dict, dict, dict]:
+    """For all ``s, t``: basis indices ``l`` with ``e_s b_l e_t`` a basis of ``e_s A e_t``,
+    those elements (coordinates on span(index_t)), their coordinate solvers and the
+    columns of ``R_t`` at the solvers' pivots (times the solver)."""
     F = A.field
-    m = len(classes)
-    # bases of the blocks e_s A e_t, as e_s b_l e_t (coordinates on span(index_t))
     gen: dict[tuple[int, int], list[int]] = {}
     basis: dict[tuple[int, int], Mat] = {}
     solver: dict[tuple[int, int], tuple[tuple[int, ...], Mat]] = {}
     colsR: dict[tuple[int, int], Mat] = {}
+    # dim e_s A e_t <= dim A e_t: a sketch of that width (plus the margin) keeps every block
+    width = max(c.dim_Ae for c in classes) + sketch.MARGIN
     for t, ct in enumerate(classes):
         # one right multiplication matrix alive at a time, transposed: flint multiplies a
         # square matrix by a thin one faster than a thin one by a square one
@@ -797,38 +812,99 @@ def _assemble(A: StructureAlgebra, classes: list[_Class], name: str) -> BasicAlg
             RtT = A._right_action_transposed(ct.e, ct.index)
         else:
             RtT = _class_R(A, ct).transpose()
+        sk = _block_sketch(A, RtT, width, 1000 + t)
         for s, cs in enumerate(classes):
             Ls = apply_transfer(cs.L, transfer(A, cs.rows, ct.index))
-            X = (RtT @ Ls.transpose()).transpose()  # = Ls @ R_t
-            pos = select_independent_rows(X) if X.nrows else []
+            pos: list[int] | None = None
+            if sk is not None and Ls.nrows:
+                pos = select_independent_rows(Ls @ sk)  # rows of Ls @ R_t, found through R_t Y
+                if len(pos) + sketch.MARGIN > width:  # pragma: no cover - dim A e_t bounds it
+                    pos = None
+            if pos is None:
+                X = (RtT @ Ls.transpose()).transpose()  # = Ls @ R_t
+                pos = select_independent_rows(X) if X.nrows else []
+                B = X.take_rows(pos) if pos else Mat.zeros(F, 0, X.ncols)
+            else:
+                B = (RtT @ take_rows(Ls, pos).transpose()).transpose() if pos else Mat.zeros(
+                    F, 0, RtT.nrows
+                )
             gen[(s, t)] = [cs.J[k] for k in pos]
-            B = X.take_rows(pos) if pos else Mat.zeros(F, 0, X.ncols)
             if s == t and gen[(s, t)] != cs.corner:
                 raise InternalInconsistency("corner basis chosen twice differently")
             basis[(s, t)] = B
             solver[(s, t)] = coords_solver(B) if pos else ((), Mat.zeros(F, 0, 0))
             if pos:
                 piv, T = solver[(s, t)]
-                colsR[(s, t)] = RtT.take_rows(list(piv)).transpose() @ T  # columns piv of R_t
-        del RtT
+                colsR[(s, t)] = take_rows(RtT, list(piv)).transpose() @ T  # columns piv of R_t
+        del RtT, sk
+    # e_s A is the sum of the e_s A f over a complete set of primitive idempotents f, of
+    # which dim L(t) are conjugate to e_t: every block was found in full
+    for s, cs in enumerate(classes):
+        if sum(ct.n * len(gen[(s, t)]) for t, ct in enumerate(classes)) != cs.dim_P:
+            raise InternalInconsistency(
+                f"the blocks e_s A e_t of vertex {s + 1} do not add up to dim e_s A = {cs.dim_P}"
+            )
+    return gen, basis, solver, colsR
+
+
+def _block_products(
+    A: StructureAlgebra, classes: list[_Class], gen: dict, basis: dict, colsR: dict
+) -> dict[tuple[int, int, int], list[Mat]]:
+    """``mult[(s, u, t)][j]``: right multiplication by the ``j``-th basis element
+    ``e_u b_l e_t`` of ``e_u A e_t``, from ``e_s A e_u`` to ``e_s A e_t`` (coordinates).
+
+    ``x e_u b_l e_t = ((x b_l) restricted) e_t`` for ``x`` in ``e_s A e_u``; with the
+    table passes vectorised, the products with ``b_l`` of the bases of all ``e_s A e_u``
+    are formed at once as arrays."""
+    F = A.field
+    m = len(classes)
     dims = {k: v.nrows for k, v in basis.items()}
-    # multiplication: x (in e_s A e_u) times y = e_u b_l e_t is ((x b_l) restricted) e_t
     mult: dict[tuple[int, int, int], list[Mat]] = {}
+    vector = A._vectorised()
     for u in range(m):
+        stacked = None
+        if vector and any(dims[(s, u)] for s in range(m)):
+            rows = [embed(A, r, classes[u].index) for s in range(m) for r in raw_rows(A, basis[(s, u)])]
+            stacked = _np_rows(rows)
         for t in range(m):
+            it = classes[t].index
             for l in gen[(u, t)]:
+                prod = A._times_basis_rows(stacked, l) if stacked is not None else None
+                off = 0
                 for s in range(m):
                     key = (s, u, t)
                     mult.setdefault(key, [])
-                    if not dims[(s, u)]:
+                    r = dims[(s, u)]
+                    if not r:
                         mult[key].append(Mat.zeros(F, 0, dims[(s, t)]))
                         continue
-                    xs = [embed(A, r, classes[u].index) for r in raw_rows(A, basis[(s, u)])]
-                    prods = [restrict(A._times_basis_raw(x, l), classes[t].index) for x in xs]
-                    P = Mat.from_flat(F, len(prods), len(prods[0]), [v for r in prods for v in r])
-                    mult[key].append(
-                        P @ colsR[(s, t)] if dims[(s, t)] else Mat.zeros(F, len(prods), 0)
-                    )
+                    if prod is not None:
+                        block = prod[off : off + r]
+                        if it is not None:
+                            block = block[:, it]
+                        P = matrix_from_residues(F, r, block.shape[1], block.ravel().copy())
+                    else:
+                        xs = [embed(A, x, classes[u].index) for x in raw_rows(A, basis[(s, u)])]
+                        prods = [restrict(A._times_basis_raw(x, l), it) for x in xs]
+                        P = Mat.from_flat(F, r, len(prods[0]), [v for row in prods for v in row])
+                    off += r
+                    mult[key].append(P @ colsR[(s, t)] if dims[(s, t)] else Mat.zeros(F, r, 0))
+    return mult
+
+
+def _np_rows(rows: list[list[int]]) -> Any:
+    import numpy as np
+
+    return np.asarray(rows, dtype=np.int64)
+
+
+def _assemble(A: StructureAlgebra, classes: list[_Class], name: str) -> BasicAlgebra:
+    F = A.field
+    m = len(classes)
+    # bases of the blocks e_s A e_t, as e_s b_l e_t (coordinates on span(index_t))
+    gen, basis, solver, colsR = _block_bases(A, classes)
+    dims = {k: v.nrows for k, v in basis.items()}
+    mult = _block_products(A, classes, gen, basis, colsR)
     # radical and its square, block by block (coordinates)
     rad: dict[tuple[int, int], Mat] = {}
     for s in range(m):
