@@ -74,7 +74,7 @@ from __future__ import annotations
 import random
 import time
 import weakref
-from collections.abc import Sequence
+from collections.abc import Callable, Sequence
 from dataclasses import dataclass, field
 from typing import Any
 
@@ -114,6 +114,7 @@ from hwcat.exact.polys import (
     select_rows,
     sparse_matrix,
 )
+from hwcat.progress import task
 
 CORNER_LIMIT = 400
 """Largest corner ``e A e`` that is certified local (as an explicit algebra)."""
@@ -309,6 +310,7 @@ class _Search:
     classes: list[_Class] = field(default_factory=list)
     stats: dict[str, float] = field(default_factory=dict)
     max_attempts: int = 32
+    advance: Callable[[int], Any] = lambda n=1: None  # progress: dimension explained
 
     def __post_init__(self) -> None:
         p = self.A._char
@@ -551,6 +553,7 @@ class _Search:
                     cl.R = None  # rebuilt by _class_R when the basic algebra is assembled
                 node.R = node.RT = None
                 self.classes.append(cl)
+                self.advance(cl.n * cl.dim_P)
                 return []
 
     def _give_up(self, node: _Node, degrees: list[int]) -> None:
@@ -798,45 +801,16 @@ def _block_bases(A: StructureAlgebra, classes: list[_Class]) -> tuple[dict, dict
     """For all ``s, t``: basis indices ``l`` with ``e_s b_l e_t`` a basis of ``e_s A e_t``,
     those elements (coordinates on span(index_t)), their coordinate solvers and the
     columns of ``R_t`` at the solvers' pivots (times the solver)."""
-    F = A.field
     gen: dict[tuple[int, int], list[int]] = {}
     basis: dict[tuple[int, int], Mat] = {}
     solver: dict[tuple[int, int], tuple[tuple[int, ...], Mat]] = {}
     colsR: dict[tuple[int, int], Mat] = {}
     # dim e_s A e_t <= dim A e_t: a sketch of that width (plus the margin) keeps every block
     width = max(c.dim_Ae for c in classes) + sketch.MARGIN
-    for t, ct in enumerate(classes):
-        # one right multiplication matrix alive at a time, transposed: flint multiplies a
-        # square matrix by a thin one faster than a thin one by a square one
-        if A._vectorised():
-            RtT = A._right_action_transposed(ct.e, ct.index)
-        else:
-            RtT = _class_R(A, ct).transpose()
-        sk = _block_sketch(A, RtT, width, 1000 + t)
-        for s, cs in enumerate(classes):
-            Ls = apply_transfer(cs.L, transfer(A, cs.rows, ct.index))
-            pos: list[int] | None = None
-            if sk is not None and Ls.nrows:
-                pos = select_independent_rows(Ls @ sk)  # rows of Ls @ R_t, found through R_t Y
-                if len(pos) + sketch.MARGIN > width:  # pragma: no cover - dim A e_t bounds it
-                    pos = None
-            if pos is None:
-                X = (RtT @ Ls.transpose()).transpose()  # = Ls @ R_t
-                pos = select_independent_rows(X) if X.nrows else []
-                B = X.take_rows(pos) if pos else Mat.zeros(F, 0, X.ncols)
-            else:
-                B = (RtT @ take_rows(Ls, pos).transpose()).transpose() if pos else Mat.zeros(
-                    F, 0, RtT.nrows
-                )
-            gen[(s, t)] = [cs.J[k] for k in pos]
-            if s == t and gen[(s, t)] != cs.corner:
-                raise InternalInconsistency("corner basis chosen twice differently")
-            basis[(s, t)] = B
-            solver[(s, t)] = coords_solver(B) if pos else ((), Mat.zeros(F, 0, 0))
-            if pos:
-                piv, T = solver[(s, t)]
-                colsR[(s, t)] = take_rows(RtT, list(piv)).transpose() @ T  # columns piv of R_t
-        del RtT, sk
+    with task("blocks of the basic algebra", total=len(classes)) as step:
+        for t, ct in enumerate(classes):
+            _find_blocks(A, classes, t, ct, width, gen, basis, solver, colsR)
+            step(1)
     # e_s A is the sum of the e_s A f over a complete set of primitive idempotents f, of
     # which dim L(t) are conjugate to e_t: every block was found in full
     for s, cs in enumerate(classes):
@@ -845,6 +819,52 @@ def _block_bases(A: StructureAlgebra, classes: list[_Class]) -> tuple[dict, dict
                 f"the blocks e_s A e_t of vertex {s + 1} do not add up to dim e_s A = {cs.dim_P}"
             )
     return gen, basis, solver, colsR
+
+
+def _find_blocks(
+    A: StructureAlgebra,
+    classes: list[_Class],
+    t: int,
+    ct: _Class,
+    width: int,
+    gen: dict,
+    basis: dict,
+    solver: dict,
+    colsR: dict,
+) -> None:
+    """The blocks ``e_s A e_t`` for one ``t`` and every ``s`` (see :func:`_block_bases`)."""
+    F = A.field
+    # one right multiplication matrix alive at a time, transposed: flint multiplies a
+    # square matrix by a thin one faster than a thin one by a square one
+    if A._vectorised():
+        RtT = A._right_action_transposed(ct.e, ct.index)
+    else:
+        RtT = _class_R(A, ct).transpose()
+    sk = _block_sketch(A, RtT, width, 1000 + t)
+    for s, cs in enumerate(classes):
+        Ls = apply_transfer(cs.L, transfer(A, cs.rows, ct.index))
+        pos: list[int] | None = None
+        if sk is not None and Ls.nrows:
+            pos = select_independent_rows(Ls @ sk)  # rows of Ls @ R_t, found through R_t Y
+            if len(pos) + sketch.MARGIN > width:  # pragma: no cover - dim A e_t bounds it
+                pos = None
+        if pos is None:
+            X = (RtT @ Ls.transpose()).transpose()  # = Ls @ R_t
+            pos = select_independent_rows(X) if X.nrows else []
+            B = X.take_rows(pos) if pos else Mat.zeros(F, 0, X.ncols)
+        else:
+            B = (RtT @ take_rows(Ls, pos).transpose()).transpose() if pos else Mat.zeros(
+                F, 0, RtT.nrows
+            )
+        gen[(s, t)] = [cs.J[k] for k in pos]
+        if s == t and gen[(s, t)] != cs.corner:
+            raise InternalInconsistency("corner basis chosen twice differently")
+        basis[(s, t)] = B
+        solver[(s, t)] = coords_solver(B) if pos else ((), Mat.zeros(F, 0, 0))
+        if pos:
+            piv, T = solver[(s, t)]
+            colsR[(s, t)] = take_rows(RtT, list(piv)).transpose() @ T  # columns piv of R_t
+    del RtT, sk
 
 
 def _block_products(
@@ -1092,7 +1112,9 @@ def reduce_algebra(
     if method != "split":
         raise StructureConstantsError(f"reduce_algebra: unknown method {method!r}")
     S = _Search(A, random.Random(seed))
-    S.explore(_roots(A), A.dim)
+    with task("simple modules (dim A explained)", total=A.dim) as step:
+        S.advance = step
+        S.explore(_roots(A), A.dim)
     timings.update(S.stats)
     timings["search"] = time.perf_counter() - t0
     if S.covered() != A.dim:
