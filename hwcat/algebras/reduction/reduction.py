@@ -111,7 +111,6 @@ from hwcat.exact.polys import (
     matrix_from_ints,
     matrix_from_residues,
     select_columns,
-    select_rows,
     sparse_matrix,
 )
 from hwcat.progress import task
@@ -148,7 +147,7 @@ class _Class:
     e: list[Any]
     index: list[int] | None  # basis indices spanning A f (None: all)
     rows: list[int] | None  # basis indices spanning f A (None: all)
-    R: Mat | None  # right multiplication by e on span(index) (None: rebuilt when needed)
+    RT: Mat | None  # transposed right multiplication by e on span(index) (None: rebuilt)
     L: Mat  # rows e*b_l (l in J) on span(rows)
     J: list[int]  # basis indices with e*b_l a basis of eA
     corner: list[int]  # basis indices with e*b_l*e a basis of eAe
@@ -174,11 +173,12 @@ def _right_ideal_basis(A: StructureAlgebra, e: list[Any], rows) -> tuple[list[in
     return [rows_list[k] for k in pos], take_rows(L, pos)
 
 
-def _corner_data(A: StructureAlgebra, e: list[Any], R: Mat, index, rows) -> tuple:
-    """Basis of eA (as e*b_l), of eAe (as e*b_l*e) and the corner's structure constants."""
+def _corner_data(A: StructureAlgebra, e: list[Any], RT: Mat, index, rows) -> tuple:
+    """Basis of eA (as e*b_l), of eAe (as e*b_l*e) and the corner's structure constants
+    (``RT``: the transpose of right multiplication by ``e`` on span(index))."""
     F = A.field
     J, Lr = _right_ideal_basis(A, e, rows)
-    W = apply_transfer(Lr, transfer(A, rows, index)) @ R
+    W = (RT @ apply_transfer(Lr, transfer(A, rows, index)).transpose()).transpose()  # Lr R
     C_pos = select_independent_rows(W)
     if len(C_pos) > CORNER_LIMIT:
         raise NotSplitError(
@@ -188,9 +188,9 @@ def _corner_data(A: StructureAlgebra, e: list[Any], R: Mat, index, rows) -> tupl
             "as an explicit algebra, which is too costly at this size"
         )
     corner = [J[k] for k in C_pos]
-    Cb = select_rows(W, C_pos)
+    Cb = take_rows(W, C_pos)
     piv, T = coords_solver(Cb)
-    Rp = select_columns(R, piv)
+    Rp = take_rows(RT, piv).transpose()  # columns piv of R
     cvecs = [embed(A, r, index) for r in raw_rows(A, Cb)]
     c = len(corner)
     mult = []  # mult[l][a] = coordinates of c_a * c_l
@@ -198,7 +198,7 @@ def _corner_data(A: StructureAlgebra, e: list[Any], R: Mat, index, rows) -> tupl
         rowsb = [restrict(A._times_basis_raw(v, b), index) for v in cvecs]
         M = Mat.from_flat(F, c, len(rowsb[0]), [x for r in rowsb for x in r]) @ Rp @ T
         mult.append(M)
-    return Lr, J, corner, Cb, piv, T, mult
+    return Lr, J, corner, Cb, piv, T, mult, Rp
 
 
 def _local_data(A: StructureAlgebra, corner_mult: list[Mat], ecoords: Mat) -> tuple[Mat, list]:
@@ -214,16 +214,18 @@ def _local_data(A: StructureAlgebra, corner_mult: list[Mat], ecoords: Mat) -> tu
     return rad, chi.entries()
 
 
-def _new_class(A: StructureAlgebra, e: list[Any], R: Mat, index, rows) -> _Class:
+def _new_class(A: StructureAlgebra, e: list[Any], RT: Mat, index, rows) -> _Class:
+    """The class of the primitive idempotent ``e`` (``RT``: the transpose of right
+    multiplication by ``e`` on span(index)); ``_NotPrimitive`` if ``e A e`` is not local."""
     F = A.field
-    Lr, J, corner, Cb, piv, T, mult = _corner_data(A, e, R, index, rows)
+    Lr, J, corner, Cb, piv, T, mult, Rp = _corner_data(A, e, RT, index, rows)
     ecoords = select_columns(as_row(A, restrict(e, index)), piv) @ T
     rad, chi = _local_data(A, mult, ecoords)
     if rad.nrows != len(corner) - 1:
         _residue_check(A, mult, rad, random.Random(len(corner)))
     # phi(b_j) = chi(e b_j e): col is x -> chi(x e) on span(index), then one pass over b_j
     chicol = Mat.from_flat(F, len(chi), 1, chi)
-    col = embed(A, (select_columns(R, piv) @ (T @ chicol)).entries(), index)
+    col = embed(A, (Rp @ (T @ chicol)).entries(), index)
     phi = A._form_of_products(e, col, rows)  # e b_j = 0 outside f A
     # G[a][c] = phi(b_a b_c) = chi(e b_a b_c e) vanishes unless b_c e != 0, i.e. c in index
     cols = None if index is None else list(index)
@@ -234,13 +236,13 @@ def _new_class(A: StructureAlgebra, e: list[Any], R: Mat, index, rows) -> _Class
         raise InternalInconsistency("a primitive idempotent with a zero simple module")
     U = A.gram(A.vec(phi), cols=[c for c in cpiv] if cols is None else [cols[c] for c in cpiv])
     sec = list(select_independent_rows(U))
-    dim_Ae = _dim_left_ideal(A, e, R)
+    dim_Ae = _dim_left_ideal(A, e, RT, hint=len(J))
     rowterms = A._row_terms_of(sec)
     return _Class(
         e,
         index,
         rows,
-        R,
+        RT,
         Lr,
         J,
         corner,
@@ -276,13 +278,14 @@ def _random_element(F: Any, rng: random.Random, nonzero: bool = False) -> Any:
             return x
 
 
-def _dim_left_ideal(A: StructureAlgebra, f: list[Any], R: Mat) -> int:
-    """``dim A f`` (= trace of R when the characteristic exceeds the dimension)."""
+def _dim_left_ideal(A: StructureAlgebra, f: list[Any], R: Mat, hint: int = 0) -> int:
+    """``dim A f`` (= trace of R when the characteristic exceeds the dimension; ``R`` the
+    right multiplication by ``f`` or its transpose; ``hint`` a guess of the value)."""
     p = A._char
     if p == 0 or p > A.dim:
         t = sum((a * b for a, b in zip(A.raw(A.trace_functional()), f, strict=True)), A._zero_raw())
         return int(t) % p if p else int(t)
-    return sketched_rank(R)
+    return sketched_rank(R, hint=hint)
 
 
 # ----------------------------------------------------------------------------------
@@ -362,6 +365,17 @@ class _Search:
     def tick(self, key: str, t0: float) -> None:
         self.stats[key] = self.stats.get(key, 0.0) + time.perf_counter() - t0
 
+    def ensure_RT(self, node: _Node) -> Mat:
+        """The transpose of right multiplication by the node's idempotent (kept on the node)."""
+        if node.RT is None:
+            t0 = time.perf_counter()
+            if node.R is not None:
+                node.RT = node.R.transpose()
+            else:
+                node.RT = self.A._right_action_transposed(node.f, node.index)
+            self.tick("node_matrices", t0)
+        return node.RT
+
     def ensure_R(self, node: _Node) -> Mat:
         if node.R is None:
             t0 = time.perf_counter()
@@ -376,7 +390,7 @@ class _Search:
     def exact_dim(self, node: _Node) -> int:
         if node.dim_Af is None:
             node.dim_Af = (
-                int(self.trace(node.f)) if self.trace_exact else sketched_rank(self.ensure_R(node))
+                int(self.trace(node.f)) if self.trace_exact else sketched_rank(self.ensure_RT(node))
             )
         return node.dim_Af
 
@@ -537,7 +551,7 @@ class _Search:
                     cl = _new_class(
                         self.A,
                         node.f,
-                        self.ensure_R(node),
+                        self.ensure_RT(node),
                         node.index,
                         node.rows,
                     )
@@ -550,7 +564,7 @@ class _Search:
                 if sum(self.known_ranks(node.f)):
                     raise InternalInconsistency("a primitive idempotent of a known class was kept")
                 if cl.index is None and self.A.dim > KEEP_MATRICES_LIMIT:
-                    cl.R = None  # rebuilt by _class_R when the basic algebra is assembled
+                    cl.RT = None  # rebuilt by _class_RT when the basic algebra is assembled
                 node.R = node.RT = None
                 self.classes.append(cl)
                 self.advance(cl.n * cl.dim_P)
@@ -783,9 +797,9 @@ elements, simples) are not kept but rebuilt from the table when needed again: on
 vectorised pass over the table costs far less than the memory they would hold."""
 
 
-def _class_R(A: StructureAlgebra, c: _Class) -> Mat:
-    """Right multiplication by the class's idempotent (kept, or rebuilt from the table)."""
-    return c.R if c.R is not None else A._action(c.e, c.index, left=False)
+def _class_RT(A: StructureAlgebra, c: _Class) -> Mat:
+    """Transposed right multiplication by the class's idempotent (kept, or rebuilt)."""
+    return c.RT if c.RT is not None else A._right_action_transposed(c.e, c.index)
 
 
 def _block_sketch(A: StructureAlgebra, RtT: Mat, width: int, seed: int) -> Mat | None:
@@ -836,10 +850,7 @@ def _find_blocks(
     F = A.field
     # one right multiplication matrix alive at a time, transposed: flint multiplies a
     # square matrix by a thin one faster than a thin one by a square one
-    if A._vectorised():
-        RtT = A._right_action_transposed(ct.e, ct.index)
-    else:
-        RtT = _class_R(A, ct).transpose()
+    RtT = _class_RT(A, ct)
     sk = _block_sketch(A, RtT, width, 1000 + t)
     for s, cs in enumerate(classes):
         Ls = apply_transfer(cs.L, transfer(A, cs.rows, ct.index))
@@ -1158,7 +1169,7 @@ def _classes_from_idempotents(A: StructureAlgebra, ids: list[list[Any]]) -> list
             continue  # a further copy of a known simple
         known = sum(r)
         try:
-            cl = _new_class(A, e, Rs[j], None, None)
+            cl = _new_class(A, e, Rs[j].transpose(), None, None)
         except _NotPrimitive:
             raise StructureConstantsError(
                 f"idempotent [{j}] is not primitive (its corner e A e is not local)"

@@ -66,11 +66,12 @@ def _usable(M: Mat) -> bool:
     return USE_SKETCH and isinstance(M.field, PrimeField) and min(M.nrows, M.ncols) >= MIN_SIZE
 
 
-def sketched_rank(M: Mat, seed: int = 0) -> int:
-    """``rank(M)``, through ``M X`` for thin random ``X`` when the rank is small."""
+def sketched_rank(M: Mat, seed: int = 0, hint: int = 0) -> int:
+    """``rank(M)``, through ``M X`` for thin random ``X`` when the rank is small
+    (``hint``: a guess of the rank, to start with a wide enough ``X``)."""
     if _usable(M):
         n = M.ncols
-        w = START_WIDTH
+        w = max(START_WIDTH, hint + 2 * MARGIN)
         while 3 * w <= min(M.nrows, n):
             r = (M @ random_matrix(M.field, n, w, seed + w)).rank()
             if r + MARGIN <= w:
