@@ -85,7 +85,8 @@ is below 2^62 and every accumulated sum of ``dim`` residues stays below 2^63."""
 USE_VECTOR = True
 """Switch for the vectorised passes (tests compare both paths)."""
 GRAM_VECTOR_MIN = 4096
-"""Gram matrices with fewer entries are built by the plain loop."""
+"""Gram matrices with fewer entries, whose columns hold fewer table terms, are built by
+the plain loop."""
 
 
 @dataclass(frozen=True)
@@ -685,7 +686,10 @@ class StructureAlgebra:
         for a, i in enumerate(rows):
             rpos[i] = a
         w = len(cols)
-        if self._vectorised() and len(rows) * w >= GRAM_VECTOR_MIN:
+        if self._vectorised() and (
+            len(rows) * w >= GRAM_VECTOR_MIN
+            or sum(len(self._cols[c][0]) for c in cols) >= GRAM_VECTOR_MIN
+        ):
             return self._gram_vectorised(ph, rpos, rows, cols)
         acc = [self._zero_raw()] * (len(rows) * w)
         for b, c in enumerate(cols):
