@@ -453,8 +453,9 @@ class _Search:
                 Ty = self.pool_T.get(k)
                 if Ty is None:
                     Ty = A._right_action_transposed(w, None)
-                    if A.dim <= KEEP_MATRICES_LIMIT:
-                        self.pool_T[k] = Ty
+                    kept = 8 * A.dim * A.dim * (len(self.pool_T) + 1)
+                    if A.dim <= KEEP_MATRICES_LIMIT or kept <= POOL_BYTES:
+                        self.pool_T[k] = Ty  # the first few serve every node of their depth
             else:
                 Ty = A._right_action_transposed(self.random_sparse(node), node.index)
             mats = [Ty]
@@ -795,6 +796,12 @@ KEEP_MATRICES_LIMIT = 2500
 """Above this dimension the dense ``dim A x dim A`` matrices of the search (random
 elements, simples) are not kept but rebuilt from the table when needed again: one
 vectorised pass over the table costs far less than the memory they would hold."""
+
+
+POOL_BYTES = 1 << 29
+"""Above ``KEEP_MATRICES_LIMIT`` the transposed matrices of the first dense random elements
+are still kept while they take at most this many bytes: each serves every node of one
+depth of the splitting tree."""
 
 
 def _class_RT(A: StructureAlgebra, c: _Class) -> Mat:
