@@ -826,11 +826,9 @@ def _block_bases(A: StructureAlgebra, classes: list[_Class]) -> tuple[dict, dict
     basis: dict[tuple[int, int], Mat] = {}
     solver: dict[tuple[int, int], tuple[tuple[int, ...], Mat]] = {}
     colsR: dict[tuple[int, int], Mat] = {}
-    # dim e_s A e_t <= dim A e_t: a sketch of that width (plus the margin) keeps every block
-    width = max(c.dim_Ae for c in classes) + sketch.MARGIN
     with task("blocks of the basic algebra", total=len(classes)) as step:
         for t, ct in enumerate(classes):
-            _find_blocks(A, classes, t, ct, width, gen, basis, solver, colsR)
+            _find_blocks(A, classes, t, ct, gen, basis, solver, colsR)
             step(1)
     # e_s A is the sum of the e_s A f over a complete set of primitive idempotents f, of
     # which dim L(t) are conjugate to e_t: every block was found in full
@@ -847,7 +845,6 @@ def _find_blocks(
     classes: list[_Class],
     t: int,
     ct: _Class,
-    width: int,
     gen: dict,
     basis: dict,
     solver: dict,
@@ -858,14 +855,19 @@ def _find_blocks(
     # one right multiplication matrix alive at a time, transposed: flint multiplies a
     # square matrix by a thin one faster than a thin one by a square one
     RtT = _class_RT(A, ct)
+    # the blocks are usually far smaller than dim A e_t: sketches of growing width
+    width = sketch.START_WIDTH
     sk = _block_sketch(A, RtT, width, 1000 + t)
     for s, cs in enumerate(classes):
         Ls = apply_transfer(cs.L, transfer(A, cs.rows, ct.index))
         pos: list[int] | None = None
-        if sk is not None and Ls.nrows:
+        while sk is not None and Ls.nrows:
             pos = select_independent_rows(Ls @ sk)  # rows of Ls @ R_t, found through R_t Y
-            if len(pos) + sketch.MARGIN > width:  # pragma: no cover - dim A e_t bounds it
-                pos = None
+            if len(pos) + sketch.MARGIN <= width:
+                break
+            pos = None
+            width *= 4
+            sk = _block_sketch(A, RtT, width, 1000 + t + width)
         if pos is None:
             X = (RtT @ Ls.transpose()).transpose()  # = Ls @ R_t
             pos = select_independent_rows(X) if X.nrows else []
