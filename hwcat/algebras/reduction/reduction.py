@@ -387,10 +387,14 @@ class _Search:
         t = sum((a * b for a, b in zip(self.tau, f, strict=True) if b), self.A._zero_raw())
         return t % self.A._p if self.A._p else t
 
-    def exact_dim(self, node: _Node) -> int:
+    def exact_dim(self, node: _Node, at_least: int = 0) -> int:
+        """``dim A f`` (``at_least``: a known lower bound, so that a rank by thin products
+        starts wide enough)."""
         if node.dim_Af is None:
             node.dim_Af = (
-                int(self.trace(node.f)) if self.trace_exact else sketched_rank(self.ensure_RT(node))
+                int(self.trace(node.f))
+                if self.trace_exact
+                else sketched_rank(self.ensure_RT(node), hint=at_least)
             )
         return node.dim_Af
 
@@ -398,12 +402,13 @@ class _Search:
         """``dim L f`` for the simples found so far (cheap: via their sections)."""
         return [_rank_in_simple(self.A, c, f) for c in self.classes]
 
-    def screen(self, node: _Node) -> str:
-        """``skip`` (no new simple in f), ``explore`` or ``defer`` (undecided cheaply)."""
+    def screen(self, node: _Node, exact: bool = False) -> str:
+        """``skip`` (no new simple in f), ``explore`` or ``defer`` (undecided cheaply; with
+        ``exact`` the dimension of ``A f`` is computed instead of deferring)."""
         r = self.known_ranks(node.f)
         explained = sum(rj * c.dim_Ae for rj, c in zip(r, self.classes, strict=True))
-        if self.trace_exact or node.dim_Af is not None:
-            unk = self.exact_dim(node) - explained
+        if self.trace_exact or node.dim_Af is not None or exact:
+            unk = self.exact_dim(node, at_least=explained) - explained
             if unk < 0:
                 raise InternalInconsistency("more of A f explained by known simples than exists")
             return "explore" if unk else "skip"
@@ -513,8 +518,7 @@ class _Search:
                     continue
             elif deferred:
                 node = deferred.pop()
-                self.exact_dim(node)
-                verdict = self.screen(node)
+                verdict = self.screen(node, exact=True)
             else:
                 break
             if verdict == "skip":
