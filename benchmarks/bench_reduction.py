@@ -6,8 +6,9 @@ build the family's table and convert it, the time of the reduction (split into
 its phases: dense random elements, Krylov sequences, matrices of tree nodes,
 certification of the simples, assembly of the basic algebra), and -- measured
 in the same process -- the baseline: one dense rank of a random
-``dim A x dim A`` matrix over the same field.  The ratio is reduction time /
-baseline time (the goal is at most 20).  Peak memory is the peak resident set
+``dim A x dim A`` matrix over the same field (the median of three runs when
+one takes under 5 s).  The
+ratio is reduction time / baseline time (the goal is at most 20).  Peak memory is the peak resident set
 size of the case's process (``resource.getrusage``; it includes flint's
 matrices, which ``tracemalloc`` does not see).
 
@@ -15,13 +16,16 @@ A second, naive baseline -- the radical by the lifted-trace chain on the
 regular representation -- is run for the small cases only (``naive rad s``).
 
 Run ``python benchmarks/bench_reduction.py`` (``--quick`` for small cases only,
-``--large`` to add TL_9, TL_10, S(2, 30), S_7; ``--case NAME`` for one case).
+``--large`` to add TL_9, TL_10, S(2, 30), S_7; ``--case NAME`` for one case;
+``--profile`` prints the largest items of a cProfile run of each reduction).
 """
 
 from __future__ import annotations
 
 import argparse
+import cProfile
 import json
+import pstats
 import random
 import resource
 import subprocess
@@ -72,8 +76,9 @@ CASES_LARGE = {
 BASELINE_LIMIT = 130
 
 
-def dense_rank_seconds(field, n: int) -> float:
-    """Time of one rank of a random dense ``n x n`` matrix over ``field`` (building excluded)."""
+def dense_rank_seconds(field, n: int, repeat: int = 3) -> float:
+    """Time of one rank of a random dense ``n x n`` matrix over ``field`` (building excluded;
+    the median of ``repeat`` runs, since the machine is shared, unless one run takes over 5 s)."""
     rng = random.Random(1)
     p = field.characteristic
     if p:
@@ -82,13 +87,19 @@ def dense_rank_seconds(field, n: int) -> float:
         vals = [field(rng.randint(-9, 9)) for _ in range(n * n)]
     M = matrix_from_ints(field, n, n, vals)
     del vals
-    t0 = time.perf_counter()
-    M.rank()
-    return time.perf_counter() - t0
+    times: list[float] = []
+    while len(times) < repeat:
+        t0 = time.perf_counter()
+        M.rank()
+        times.append(time.perf_counter() - t0)
+        if times[0] > 5:  # long enough to be measured once
+            break
+    return sorted(times)[len(times) // 2]
 
 
-def run_case(name: str) -> dict:
-    """One case, in this process; returns the figures as a dictionary."""
+def run_case(name: str, profile: bool = False) -> dict:
+    """One case, in this process; returns the figures as a dictionary (with ``profile``,
+    the reduction runs under cProfile and the largest items are printed to stderr)."""
     make = CASES_LARGE[name]
     t0 = time.perf_counter()
     table = make()
@@ -97,9 +108,16 @@ def run_case(name: str) -> dict:
     A = from_table(table)
     t_conv = time.perf_counter() - t0
     del table
+    prof = cProfile.Profile() if profile else None
     t0 = time.perf_counter()
+    if prof is not None:
+        prof.enable()
     r = reduce_algebra(A)
+    if prof is not None:
+        prof.disable()
     t_red = time.perf_counter() - t0
+    if prof is not None:
+        pstats.Stats(prof, stream=sys.stderr).sort_stats("tottime").print_stats(15)
     t_rank = dense_rank_seconds(A.field, A.dim)
     naive = None
     if A.dim <= BASELINE_LIMIT and A.field.characteristic:
@@ -170,10 +188,13 @@ def main() -> None:
     size.add_argument("--quick", action="store_true", help="small cases only")
     size.add_argument("--large", action="store_true", help="add TL_9, TL_10, S(2,30), S_7")
     size.add_argument("--case", action="append", help="run only this case (repeatable)")
+    ap.add_argument(
+        "--profile", action="store_true", help="profile the reduction of each case (cProfile)"
+    )
     ap.add_argument("--json", action="store_true", help=argparse.SUPPRESS)  # child process
     args = ap.parse_args()
     if args.json:
-        print(json.dumps(run_case(args.case[0])))
+        print(json.dumps(run_case(args.case[0], args.profile)))
         return
     if args.case:
         names = args.case
@@ -186,10 +207,13 @@ def main() -> None:
     rows = []
     for name in names:
         out = subprocess.run(
-            [sys.executable, __file__, "--json", "--case", name],
+            [sys.executable, __file__, "--json", "--case", name]
+            + (["--profile"] if args.profile else []),
             capture_output=True,
             text=True,
         )
+        if args.profile:
+            print(out.stderr, file=sys.stderr, flush=True)
         if out.returncode:
             print(f"{name}: failed: {out.stderr.strip().splitlines()[-1:]}", flush=True)
             continue

@@ -16,6 +16,9 @@ True
 >>> r = read_residues(flint.nmod_mat(2, 2, [1, 0, 5, 6], 7))
 >>> r is None or list(r) == [1, 0, 5, 6]
 True
+>>> r = read_rows(flint.nmod_mat(3, 2, [1, 2, 3, 4, 5, 6], 7), [2, 0])
+>>> r is None or list(r) == [5, 6, 1, 2]
+True
 """
 
 from __future__ import annotations
@@ -26,7 +29,7 @@ from typing import Any
 
 import flint
 
-__all__ = ["bulk_available", "nmod_mat_from_residues", "read_residues"]
+__all__ = ["bulk_available", "nmod_mat_from_residues", "read_residues", "read_rows"]
 
 _LAYOUT: list[int | None] = []  # [word offset of the entries pointer] or [None]
 
@@ -96,5 +99,24 @@ def read_residues(M: Any) -> array | None:
     if addr is None:
         return None
     out = array("q")
-    out.frombytes(ctypes.string_at(addr, 8 * r * c))
+    out.frombytes(memoryview((ctypes.c_char * (8 * r * c)).from_address(addr)))  # one copy
+    return out
+
+
+def read_rows(M: Any, rows: Any) -> array | None:
+    """The rows ``rows`` of a flint ``nmod_mat`` as one ``array("q")`` (row-major), read
+    without touching the other rows; ``None`` when the one-piece copy is unavailable."""
+    r, c = M.nrows(), M.ncols()
+    rows = list(rows)
+    if r == 0 or c == 0 or not rows:
+        return array("q")
+    addr = _entries_address(M)
+    if addr is None:
+        return None
+    if min(rows) < 0 or max(rows) >= r:
+        raise IndexError("read_rows: row index out of range")
+    out = array("q")
+    width = 8 * c
+    for i in rows:
+        out.frombytes(memoryview((ctypes.c_char * width).from_address(addr + i * width)))
     return out

@@ -43,9 +43,10 @@ try:  # optional: large Temperley-Lieb tables are built with int64 arrays
 except ImportError:  # pragma: no cover - numpy is an optional extra
     _np = None
 
-COLUMN_TABLE_MIN = 2000
-"""Temperley-Lieb tables of at least this dimension over GF(p) (p < 2^31) are built
-column by column with numpy when it is installed (no dictionary per product)."""
+COLUMN_TABLE_MIN = 200
+"""Temperley-Lieb and symmetric group tables of at least this dimension over GF(p)
+(p < 2^31) are built column by column with numpy when it is installed (no dictionary
+per product)."""
 
 __all__ = [
     "MultiplicationTable",
@@ -370,27 +371,20 @@ def temperley_lieb(n: int, delta: Any, field: Field | str = QQ) -> Multiplicatio
     except CoefficientError as exc:
         raise CoefficientError(f"delta = {delta!r}: {exc}") from None
     halves = _half_diagrams(n)
-    hid = {h: k for k, h in enumerate(halves)}
     nfree = [h.count(-1) for h in halves]
     pairs = [(T, B) for T in range(len(halves)) for B in range(len(halves)) if nfree[T] == nfree[B]]
     pairs.sort(key=lambda tb: (-nfree[tb[0]], halves[tb[0]], halves[tb[1]]))
     basis = tuple(_tl_name(halves[T], halves[B]) for T, B in pairs)
     dim = len(basis)
-    index: list[dict[int, int]] = [dict() for _ in halves]  # index[T][B]
-    rows: list[list[tuple[int, int]]] = [[] for _ in halves]  # bottom B -> [(i, T)]
-    cols: list[list[tuple[int, int]]] = [[] for _ in halves]  # top T -> [(j, B)]
-    for i, (T, B) in enumerate(pairs):
-        index[T][B] = i
-        rows[B].append((i, T))
-        cols[T].append((i, B))
     name = f"TL_{n}({F.to_str(d)}) over {F.name}"
+    blocks = _tl_blocks(halves, pairs, skip_loops=(d == 0))
     if (
         _np is not None
         and dim >= COLUMN_TABLE_MIN
         and isinstance(F, PrimeField)
         and F.p < 2**31
     ):
-        columns = _tl_columns(halves, hid, rows, cols, index, dim, int(d), F.p)
+        columns = _tl_columns(blocks, pairs, len(halves), dim, int(d), F.p)
         return MultiplicationTable(
             name=name,
             field=F,
@@ -402,113 +396,137 @@ def temperley_lieb(n: int, delta: Any, field: Field | str = QQ) -> Multiplicatio
     gc_was_enabled = gc.isenabled()
     gc.disable()  # millions of small containers are made below; collection only slows it
     try:
-        products = _tl_products(halves, hid, rows, cols, index, dim, d)
+        products = _tl_products(blocks, pairs, len(halves), dim, d)
     finally:
         if gc_was_enabled:
             gc.enable()
     return MultiplicationTable(name=name, field=F, basis=basis, products=products, unit={0: F.one})
 
 
-def _tl_columns(
-    halves: list, hid: dict, rows: list, cols: list, index: list, dim: int, d: int, p: int
-) -> list[tuple[array, array, array]]:
-    """The products of :func:`_tl_products` by columns, with int64 arrays (``d`` a residue
-    mod ``p``).
+def _tl_blocks(
+    halves: list, pairs: list[tuple[int, int]], skip_loops: bool
+) -> Iterator[tuple[int, list[tuple[int, int, list[int], list[int]]]]]:
+    """The products of diagrams, grouped by the top half ``T2`` of the right factor.
 
-    For a bottom half ``B1`` and a top half ``T2`` the products of the diagrams
-    ``(T1, B1)`` and ``(T2, B2)`` form one block: the glued halves give the new
-    top of each row and the new bottom of each column once, the block of
-    result indices is one lookup in the table ``(top, bottom) -> diagram``.
+    A diagram is a pair (top half, bottom half).  The product ``(T1, B1) * (T2, B2)``
+    depends on ``B1`` and ``T2`` only through their gluing (:func:`_middle`): it is
+    ``delta^loops`` times the diagram ``(T1 + up, B2 + down)``.  For each ``T2`` this
+    yields ``(T2, [(B1, loops, tops, bottoms), ...])`` with ``tops[a]`` the new top half
+    of the ``a``-th diagram with bottom ``B1`` and ``bottoms[b]`` the new bottom half of
+    the ``b``-th diagram with top ``T2``: each block is a ``len(tops) x len(bottoms)``
+    rectangle of products with the same coefficient.
+    Blocks with loops are left out when ``skip_loops`` (``delta = 0``).  Joined halves
+    are computed once per half and pattern of arcs.
+    """
+    H = len(halves)
+    hid = {h: k for k, h in enumerate(halves)}
+    by_bottom: list[list[int]] = [[] for _ in range(H)]  # B -> tops T of diagrams (T, B)
+    by_top: list[list[int]] = [[] for _ in range(H)]  # T -> bottoms B of diagrams (T, B)
+    for T, B in pairs:
+        by_bottom[B].append(T)
+        by_top[T].append(B)
+    joined: dict[tuple[int, tuple], list[int]] = {}
+
+    def join_all(hs: list[int], key: int, arcs: list) -> list[int]:
+        k = (key, tuple(arcs))
+        got = joined.get(k)
+        if got is None:
+            got = joined[k] = [hid[_join(halves[h], arcs)] for h in hs]
+        return got
+
+    for T2 in range(H):
+        if not by_top[T2]:
+            continue
+        out = []
+        bottoms = {}
+        for B1 in range(H):
+            if not by_bottom[B1]:
+                continue
+            loops, up, down = _middle(halves[B1], halves[T2])
+            if skip_loops and loops:
+                continue
+            tops = join_all(by_bottom[B1], B1, up)
+            bottoms[B1] = join_all(by_top[T2], H + T2, down)
+            out.append((B1, loops, tops))
+        yield T2, [(B1, loops, tops, bottoms[B1]) for B1, loops, tops in out]
+
+
+def _tl_indices(pairs: list[tuple[int, int]], H: int) -> tuple[list, list, dict]:
+    """Diagram indices by bottom half and by top half, and ``(top, bottom) -> index``."""
+    by_bottom: list[list[int]] = [[] for _ in range(H)]
+    by_top: list[list[int]] = [[] for _ in range(H)]
+    index = {}
+    for i, (T, B) in enumerate(pairs):
+        by_bottom[B].append(i)
+        by_top[T].append(i)
+        index[(T, B)] = i
+    return by_bottom, by_top, index
+
+
+def _tl_columns(
+    blocks: Iterator, pairs: list, H: int, dim: int, d: int, p: int
+) -> list[tuple[array, array, array]]:
+    """The table by columns (int64 arrays; ``d`` a residue mod ``p``) from :func:`_tl_blocks`.
+
+    All diagrams with the same top half ``T2`` meet the same left factors with the
+    same coefficients, so their columns share one array of left factors and one of
+    coefficients; only the array of results differs.
     """
     np = _np
-    H = len(halves)
+    by_bottom, by_top, index = _tl_indices(pairs, H)
     idx = np.full((H, H), -1, dtype=np.int64)
-    for T, row in enumerate(index):
-        for B, i in row.items():
-            idx[T, B] = i
-    parts_i, parts_j, parts_k, parts_l = [], [], [], []
-    row_ids = [np.asarray([i for i, _ in rows[B]], dtype=np.int64) for B in range(H)]
-    col_ids = [np.asarray([j for j, _ in cols[T]], dtype=np.int64) for T in range(H)]
-    for B1, hB1 in enumerate(halves):
-        if not rows[B1]:
+    for (T, B), i in index.items():
+        idx[T, B] = i
+    out: list[Any] = [None] * dim
+    for T2, group in blocks:
+        js = by_top[T2]
+        if not group:
+            empty = array("q")
+            for j in js:
+                out[j] = (empty, empty, empty)
             continue
-        for T2, hT2 in enumerate(halves):
-            if not cols[T2]:
-                continue
-            loops, up, down = _middle(hB1, hT2)
-            if d == 0 and loops:
-                continue
-            tops = np.asarray([hid[_join(halves[T1], up)] for _, T1 in rows[B1]], dtype=np.int64)
-            bottoms = np.asarray(
-                [hid[_join(halves[B2], down)] for _, B2 in cols[T2]], dtype=np.int64
-            )
-            ri, cj = row_ids[B1], col_ids[T2]
-            parts_i.append(np.repeat(ri, len(cj)))
-            parts_j.append(np.tile(cj, len(ri)))
-            parts_k.append(idx[tops[:, None], bottoms[None, :]].ravel())
-            parts_l.append(np.full(len(ri) * len(cj), loops, dtype=np.int8))
-    J = np.concatenate(parts_j)
-    del parts_j
-    order = np.argsort(J, kind="stable")
-    bounds = np.concatenate(([0], np.cumsum(np.bincount(J, minlength=dim)))).tolist()
-    del J
-    I = np.concatenate(parts_i)[order]
-    del parts_i
-    K = np.concatenate(parts_k)[order]
-    del parts_k
-    loops_all = np.concatenate(parts_l)[order]
-    del parts_l, order
-    C = np.zeros(len(loops_all), dtype=np.int64)
-    for L in np.unique(loops_all).tolist():  # the coefficient delta^loops, mod p
-        C[loops_all == L] = pow(d, L, p)
-    del loops_all
-    keep = C != 0  # delta^loops vanishes mod p only for delta = 0 (skipped above)
-    if not keep.all():  # pragma: no cover
-        raise StructureConstantsError("temperley_lieb: a zero structure constant was kept")
-    if int(K.min()) < 0:  # pragma: no cover - every glued pair of halves is a diagram
-        raise StructureConstantsError("temperley_lieb: a product left the diagram basis")
-    out = []
-    for j in range(dim):
-        lo, hi = bounds[j], bounds[j + 1]
-        out.append(
-            (
-                array("q", I[lo:hi].tobytes()),
-                array("q", K[lo:hi].tobytes()),
-                array("q", C[lo:hi].tobytes()),
-            )
+        I = np.concatenate([np.asarray(by_bottom[B1], dtype=np.int64) for B1, _, _, _ in group])
+        C = np.concatenate(
+            [np.full(len(tops), pow(d, loops, p), dtype=np.int64) for _, loops, tops, _ in group]
         )
+        # K[b, a]: the product of the a-th left factor with the b-th diagram of top T2
+        K = np.concatenate(
+            [
+                idx[np.asarray(tops, dtype=np.int64)[None, :], np.asarray(bottoms)[:, None]]
+                for _, _, tops, bottoms in group
+            ],
+            axis=1,
+        )
+        if int(K.min()) < 0:  # pragma: no cover - every glued pair of halves is a diagram
+            raise StructureConstantsError("temperley_lieb: a product left the diagram basis")
+        if not C.all():  # pragma: no cover - delta^loops vanishes only for delta = 0
+            raise StructureConstantsError("temperley_lieb: a zero structure constant was kept")
+        Ia, Ca = array("q", I.tobytes()), array("q", C.tobytes())
+        for b, j in enumerate(js):
+            out[j] = (Ia, array("q", K[b].tobytes()), Ca)
     return out
 
 
 def _tl_products(
-    halves: list, hid: dict, rows: list, cols: list, index: list, dim: int, d: Any
+    blocks: Iterator, pairs: list, H: int, dim: int, d: Any
 ) -> dict[tuple[int, int], dict[int, Any]]:
-    powers: dict[int, Any] = {}
+    """The table as a dictionary of products from :func:`_tl_blocks` (one shared
+    ``{k: delta^loops}`` per result and power)."""
+    by_bottom, by_top, index = _tl_indices(pairs, H)
     shared: dict[int, list[dict[int, Any]]] = {}  # loops -> [{k: delta^loops}]
     products: dict[tuple[int, int], dict[int, Any]] = {}
-    for B1, hB1 in enumerate(halves):
-        if not rows[B1]:
-            continue
-        for T2, hT2 in enumerate(halves):
-            if not cols[T2]:
-                continue
-            loops, up, down = _middle(hB1, hT2)
-            if loops not in shared:
-                c = powers.setdefault(loops, d**loops)
-                if c == 0:
-                    shared[loops] = []
-                else:
-                    shared[loops] = [{k: c} for k in range(dim)]
-            vals = shared[loops]
+    for T2, group in blocks:
+        js = by_top[T2]
+        for B1, loops, tops, bottoms in group:
+            vals = shared.get(loops)
+            if vals is None:
+                c = d**loops
+                vals = shared[loops] = [{k: c} for k in range(dim)] if c != 0 else []
             if not vals:
                 continue
-            new_bottoms = [hid[_join(halves[B2], down)] for _, B2 in cols[T2]]
-            js = [j for j, _ in cols[T2]]
-            for i, T1 in rows[B1]:
-                row = index[hid[_join(halves[T1], up)]]
-                products.update(
-                    zip([(i, j) for j in js], [vals[row[b]] for b in new_bottoms], strict=True)
-                )
+            for i, top in zip(by_bottom[B1], tops, strict=True):
+                res = [vals[index[(top, b)]] for b in bottoms]
+                products.update(zip([(i, j) for j in js], res, strict=True))
     return products
 
 
@@ -579,7 +597,11 @@ def schur_algebra_2(r: int, field: Field | str = QQ) -> MultiplicationTable:
     by_rowsum: dict[int, list[int]] = {}  # weight of the first multi-index -> basis
     for k, (b11, b12, _, _) in enumerate(mats):
         by_rowsum.setdefault(b11 + b12, []).append(k)
+    binom = [[comb(c, k) for k in range(c + 1)] for c in range(r + 1)]
+    p = F.p if isinstance(F, PrimeField) else 0
+    by_columns = 0 < p < 2**31 and len(mats) >= COLUMN_TABLE_MIN
     products: dict[tuple[int, int], dict[int, Any]] = {}
+    cols: list[tuple[list[int], list[int], list[int]]] = [([], [], []) for _ in mats]
     for ka, (a11, a12, a21, a22) in enumerate(mats):
         for kb in by_rowsum.get(a11 + a21, ()):
             b11, b12, b21, b22 = mats[kb]
@@ -589,20 +611,33 @@ def schur_algebra_2(r: int, field: Field | str = QQ) -> MultiplicationTable:
                 for y in range(max(0, b21 - a22), min(a12, b21) + 1):
                     m122, m221, m222 = a12 - y, b21 - y, a22 - b21 + y
                     c11, c12, c21, c22 = x + y, m112 + m122, m211 + m221, m212 + m222
-                    coef = comb(c11, x) * comb(c12, m112) * comb(c21, m211) * comb(c22, m212)
+                    coef = binom[c11][x] * binom[c12][m112] * binom[c21][m211] * binom[c22][m212]
                     k = idx[(c11, c12, c21, c22)]
                     acc[k] = acc.get(k, 0) + coef
+            if by_columns:
+                ci, ck, cc = cols[kb]
+                for k, v in acc.items():
+                    if v % p:
+                        ci.append(ka)
+                        ck.append(k)
+                        cc.append(v % p)
+                continue
             entry = {k: F(v) for k, v in acc.items()}
             entry = {k: v for k, v in entry.items() if v != 0}
             if entry:
                 products[(ka, kb)] = entry
     unit = {idx[(a, 0, 0, r - a)]: F.one for a in range(r + 1)}
+    columns = None
+    if by_columns:
+        columns = [(array("q", ci), array("q", ck), array("q", cc)) for ci, ck, cc in cols]
+        products = _ColumnProducts(F, columns)
     return MultiplicationTable(
         name=f"S(2,{r}) over {F.name}",
         field=F,
         basis=tuple(name(A) for A in mats),
         products=products,
         unit=unit,
+        columns=columns,
     )
 
 
@@ -658,19 +693,49 @@ def symmetric_group_algebra(n: int, field: Field | str = QQ) -> MultiplicationTa
     check_products(math.factorial(n), f"the group algebra of S_{n}")
     F = _as_field(field)
     perms = list(itertools.permutations(range(n)))
-    idx = {p: k for k, p in enumerate(perms)}
     one = F.one
+    name = f"group algebra of S_{n} over {F.name}"
+    basis = tuple(_cycle_name(p) for p in perms)
+    if _np is not None and len(perms) >= COLUMN_TABLE_MIN and isinstance(F, PrimeField):
+        columns = _permutation_columns(perms)
+        return MultiplicationTable(
+            name=name,
+            field=F,
+            basis=basis,
+            products=_ColumnProducts(F, columns),
+            unit={0: one},
+            columns=columns,
+        )
+    idx = {p: k for k, p in enumerate(perms)}
     products = {}
     for i, s in enumerate(perms):
         for j, t in enumerate(perms):
             products[(i, j)] = {idx[tuple(s[x] for x in t)]: one}
-    return MultiplicationTable(
-        name=f"group algebra of S_{n} over {F.name}",
-        field=F,
-        basis=tuple(_cycle_name(p) for p in perms),
-        products=products,
-        unit={0: one},
-    )
+    return MultiplicationTable(name=name, field=F, basis=basis, products=products, unit={0: one})
+
+
+def _permutation_columns(perms: list[tuple[int, ...]]) -> list[tuple[array, array, array]]:
+    """The table of the group algebra of ``S_n`` by columns (int64 arrays).
+
+    Column ``t`` holds ``s * t`` for every ``s``: the one-line notation of ``s * t`` is
+    ``s`` read at the positions ``t``, and its index is found by reading the one-line
+    notation as a number in base ``n`` (the lexicographic order of ``perms`` is the
+    order of these numbers).  Every column shares the arrays of left factors and of
+    coefficients (all ``1``).
+    """
+    np = _np
+    N, n = len(perms), len(perms[0])
+    P = np.asarray(perms, dtype=np.int64).reshape(N, n)
+    weights = n ** np.arange(n - 1, -1, -1, dtype=np.int64)
+    lookup = np.full(n**n, -1, dtype=np.int64)
+    lookup[P @ weights] = np.arange(N, dtype=np.int64)
+    I = array("q", np.arange(N, dtype=np.int64).tobytes())
+    C = array("q", np.ones(N, dtype=np.int64).tobytes())
+    out = []
+    for t in perms:
+        K = lookup[P[:, list(t)] @ weights]
+        out.append((I, array("q", K.tobytes()), C))
+    return out
 
 
 def cyclic_group_algebra(m: int, field: Field | str = QQ) -> MultiplicationTable:

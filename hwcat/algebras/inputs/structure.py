@@ -85,7 +85,8 @@ is below 2^62 and every accumulated sum of ``dim`` residues stays below 2^63."""
 USE_VECTOR = True
 """Switch for the vectorised passes (tests compare both paths)."""
 GRAM_VECTOR_MIN = 4096
-"""Gram matrices with fewer entries are built by the plain loop."""
+"""Gram matrices with fewer entries, whose columns hold fewer table terms, are built by
+the plain loop."""
 
 
 @dataclass(frozen=True)
@@ -371,6 +372,19 @@ class StructureAlgebra:
         """``x * b_j`` for a raw vector ``x``."""
         return self._accumulate(x, self._cols[j])
 
+    def _times_basis_rows(self, X: Any, j: int) -> Any:
+        """``x * b_j`` for every row ``x`` of the int64 array ``X`` (residues), as an
+        int64 array of residues (vectorised tables only)."""
+        np = _np
+        p = self._p
+        i_a, k_a, c_a = self._np_cols()[j]
+        outT = np.zeros((self.dim, X.shape[0]), dtype=np.int64)
+        if len(i_a):
+            vals = (X[:, i_a] * c_a) % p  # below 2^62; at most dim of them meet at one k
+            np.add.at(outT, k_a, vals.T)
+        outT %= p
+        return outT.T
+
     def _vectorised(self) -> bool:
         return (
             USE_VECTOR
@@ -641,8 +655,37 @@ class StructureAlgebra:
             ]
         return self._cache["rows"]
 
+    def _row_terms_of(self, rows: Sequence[int]) -> dict[int, tuple[Any, Any, Any]]:
+        """The terms ``(j, k, c)`` of ``b_i * b_j`` for the given ``i`` only (as
+        :meth:`_row_terms`, without keeping a copy of the whole table by rows)."""
+        if "rows" in self._cache or not self._vectorised():
+            by_row = self._row_terms()
+            return {i: by_row[i] for i in rows}
+        np = _np
+        want = np.zeros(self.dim, dtype=bool)
+        want[np.asarray(list(rows), dtype=np.int64)] = True
+        parts: dict[int, tuple[list, list, list]] = {i: ([], [], []) for i in rows}
+        for j, (i_a, k_a, c_a) in enumerate(self._np_cols()):
+            if not len(i_a):
+                continue
+            for t in np.flatnonzero(want[i_a]).tolist():
+                js, ks, cs = parts[int(i_a[t])]
+                js.append(j)
+                ks.append(int(k_a[t]))
+                cs.append(int(c_a[t]))
+        return {
+            i: (array("l", js), array("l", ks), array("q", cs)) for i, (js, ks, cs) in parts.items()
+        }
+
     def trace_functional(self) -> list[Any]:
         """``tau_k = trace of right multiplication by b_k`` (a linear form on the algebra)."""
+        if "trace" not in self._cache and self._vectorised():
+            p = self._p
+            t = [
+                int(c_a[i_a == k_a].sum() % p) if len(i_a) else 0
+                for i_a, k_a, c_a in self._np_cols()
+            ]
+            self._cache["trace"] = self.vec(t)
         if "trace" not in self._cache:
             t = [self._zero_raw()] * self.dim
             for k, (is_, ks, cs) in enumerate(self._cols):
@@ -666,10 +709,13 @@ class StructureAlgebra:
         rpos = [-1] * n
         for a, i in enumerate(rows):
             rpos[i] = a
-        acc = [self._zero_raw()] * (len(rows) * len(cols))
         w = len(cols)
-        if self._vectorised() and len(rows) * w >= GRAM_VECTOR_MIN:
+        if self._vectorised() and (
+            len(rows) * w >= GRAM_VECTOR_MIN
+            or sum(len(self._cols[c][0]) for c in cols) >= GRAM_VECTOR_MIN
+        ):
             return self._gram_vectorised(ph, rpos, rows, cols)
+        acc = [self._zero_raw()] * (len(rows) * w)
         for b, c in enumerate(cols):
             is_, ks, cs = self._cols[c]
             for i, k, coef in zip(is_, ks, cs, strict=True):

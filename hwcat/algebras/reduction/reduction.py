@@ -74,13 +74,14 @@ from __future__ import annotations
 import random
 import time
 import weakref
-from collections.abc import Sequence
+from collections.abc import Callable, Sequence
 from dataclasses import dataclass, field
 from typing import Any
 
 from hwcat.algebras.hub.basic import BasicAlgebra
 from hwcat.algebras.hub.quiver import Arrow, Quiver
 from hwcat.algebras.inputs.structure import StructureAlgebra
+from hwcat.algebras.reduction import sketch
 from hwcat.algebras.reduction.kernels import (
     apply_transfer,
     as_row,
@@ -100,16 +101,19 @@ from hwcat.algebras.reduction.radical import (
     primitive_idempotents,
     trace_radical,
 )
+from hwcat.algebras.reduction.sketch import sketched_independent_rows, sketched_rank
 from hwcat.errors import InternalInconsistency, NotSplitError, StructureConstantsError
 from hwcat.exact import Mat, echelon, select_independent_rows, splitting_field_hint
+from hwcat.exact.bulk_rows import take_rows
 from hwcat.exact.polys import (
     Poly,
     fitting_polynomials,
     matrix_from_ints,
+    matrix_from_residues,
     select_columns,
-    select_rows,
     sparse_matrix,
 )
+from hwcat.progress import task
 
 CORNER_LIMIT = 400
 """Largest corner ``e A e`` that is certified local (as an explicit algebra)."""
@@ -143,7 +147,7 @@ class _Class:
     e: list[Any]
     index: list[int] | None  # basis indices spanning A f (None: all)
     rows: list[int] | None  # basis indices spanning f A (None: all)
-    R: Mat | None  # right multiplication by e on span(index) (None: rebuilt when needed)
+    RT: Mat | None  # transposed right multiplication by e on span(index) (None: rebuilt)
     L: Mat  # rows e*b_l (l in J) on span(rows)
     J: list[int]  # basis indices with e*b_l a basis of eA
     corner: list[int]  # basis indices with e*b_l*e a basis of eAe
@@ -164,16 +168,17 @@ class _Class:
 def _right_ideal_basis(A: StructureAlgebra, e: list[Any], rows) -> tuple[list[int], Mat]:
     """Basis elements ``b_l`` with ``e b_l`` a basis of ``eA`` (on span(rows)), and those rows."""
     L = A.left_action(A.vec(e), rows)
-    pos = select_independent_rows(L)
+    pos = sketched_independent_rows(L)
     rows_list = list(range(A.dim)) if rows is None else list(rows)
-    return [rows_list[k] for k in pos], select_rows(L, pos)
+    return [rows_list[k] for k in pos], take_rows(L, pos)
 
 
-def _corner_data(A: StructureAlgebra, e: list[Any], R: Mat, index, rows) -> tuple:
-    """Basis of eA (as e*b_l), of eAe (as e*b_l*e) and the corner's structure constants."""
+def _corner_data(A: StructureAlgebra, e: list[Any], RT: Mat, index, rows) -> tuple:
+    """Basis of eA (as e*b_l), of eAe (as e*b_l*e) and the corner's structure constants
+    (``RT``: the transpose of right multiplication by ``e`` on span(index))."""
     F = A.field
     J, Lr = _right_ideal_basis(A, e, rows)
-    W = apply_transfer(Lr, transfer(A, rows, index)) @ R
+    W = (RT @ apply_transfer(Lr, transfer(A, rows, index)).transpose()).transpose()  # Lr R
     C_pos = select_independent_rows(W)
     if len(C_pos) > CORNER_LIMIT:
         raise NotSplitError(
@@ -183,9 +188,9 @@ def _corner_data(A: StructureAlgebra, e: list[Any], R: Mat, index, rows) -> tupl
             "as an explicit algebra, which is too costly at this size"
         )
     corner = [J[k] for k in C_pos]
-    Cb = select_rows(W, C_pos)
+    Cb = take_rows(W, C_pos)
     piv, T = coords_solver(Cb)
-    Rp = select_columns(R, piv)
+    Rp = take_rows(RT, piv).transpose()  # columns piv of R
     cvecs = [embed(A, r, index) for r in raw_rows(A, Cb)]
     c = len(corner)
     mult = []  # mult[l][a] = coordinates of c_a * c_l
@@ -193,7 +198,7 @@ def _corner_data(A: StructureAlgebra, e: list[Any], R: Mat, index, rows) -> tupl
         rowsb = [restrict(A._times_basis_raw(v, b), index) for v in cvecs]
         M = Mat.from_flat(F, c, len(rowsb[0]), [x for r in rowsb for x in r]) @ Rp @ T
         mult.append(M)
-    return Lr, J, corner, Cb, piv, T, mult
+    return Lr, J, corner, Cb, piv, T, mult, Rp
 
 
 def _local_data(A: StructureAlgebra, corner_mult: list[Mat], ecoords: Mat) -> tuple[Mat, list]:
@@ -209,16 +214,18 @@ def _local_data(A: StructureAlgebra, corner_mult: list[Mat], ecoords: Mat) -> tu
     return rad, chi.entries()
 
 
-def _new_class(A: StructureAlgebra, e: list[Any], R: Mat, index, rows) -> _Class:
+def _new_class(A: StructureAlgebra, e: list[Any], RT: Mat, index, rows) -> _Class:
+    """The class of the primitive idempotent ``e`` (``RT``: the transpose of right
+    multiplication by ``e`` on span(index)); ``_NotPrimitive`` if ``e A e`` is not local."""
     F = A.field
-    Lr, J, corner, Cb, piv, T, mult = _corner_data(A, e, R, index, rows)
+    Lr, J, corner, Cb, piv, T, mult, Rp = _corner_data(A, e, RT, index, rows)
     ecoords = select_columns(as_row(A, restrict(e, index)), piv) @ T
     rad, chi = _local_data(A, mult, ecoords)
     if rad.nrows != len(corner) - 1:
         _residue_check(A, mult, rad, random.Random(len(corner)))
     # phi(b_j) = chi(e b_j e): col is x -> chi(x e) on span(index), then one pass over b_j
     chicol = Mat.from_flat(F, len(chi), 1, chi)
-    col = embed(A, (select_columns(R, piv) @ (T @ chicol)).entries(), index)
+    col = embed(A, (Rp @ (T @ chicol)).entries(), index)
     phi = A._form_of_products(e, col, rows)  # e b_j = 0 outside f A
     # G[a][c] = phi(b_a b_c) = chi(e b_a b_c e) vanishes unless b_c e != 0, i.e. c in index
     cols = None if index is None else list(index)
@@ -229,14 +236,13 @@ def _new_class(A: StructureAlgebra, e: list[Any], R: Mat, index, rows) -> _Class
         raise InternalInconsistency("a primitive idempotent with a zero simple module")
     U = A.gram(A.vec(phi), cols=[c for c in cpiv] if cols is None else [cols[c] for c in cpiv])
     sec = list(select_independent_rows(U))
-    dim_Ae = _dim_left_ideal(A, e, R)
-    by_row = A._row_terms()
-    rowterms = {s: by_row[s] for s in sec}
+    dim_Ae = _dim_left_ideal(A, e, RT, hint=len(J))
+    rowterms = A._row_terms_of(sec)
     return _Class(
         e,
         index,
         rows,
-        R,
+        RT,
         Lr,
         J,
         corner,
@@ -272,13 +278,14 @@ def _random_element(F: Any, rng: random.Random, nonzero: bool = False) -> Any:
             return x
 
 
-def _dim_left_ideal(A: StructureAlgebra, f: list[Any], R: Mat) -> int:
-    """``dim A f`` (= trace of R when the characteristic exceeds the dimension)."""
+def _dim_left_ideal(A: StructureAlgebra, f: list[Any], R: Mat, hint: int = 0) -> int:
+    """``dim A f`` (= trace of R when the characteristic exceeds the dimension; ``R`` the
+    right multiplication by ``f`` or its transpose; ``hint`` a guess of the value)."""
     p = A._char
     if p == 0 or p > A.dim:
         t = sum((a * b for a, b in zip(A.raw(A.trace_functional()), f, strict=True)), A._zero_raw())
         return int(t) % p if p else int(t)
-    return R.rank()
+    return sketched_rank(R, hint=hint)
 
 
 # ----------------------------------------------------------------------------------
@@ -293,6 +300,7 @@ class _Node:
     core: list[int] | None
     root: bool = False
     R: Mat | None = None
+    RT: Mat | None = None  # transpose of R, for the Krylov chains
     dim_Af: int | None = None
     attempts: int = 0
     depth: int = 0
@@ -305,6 +313,7 @@ class _Search:
     classes: list[_Class] = field(default_factory=list)
     stats: dict[str, float] = field(default_factory=dict)
     max_attempts: int = 32
+    advance: Callable[[int], Any] = lambda n=1: None  # progress: dimension explained
 
     def __post_init__(self) -> None:
         p = self.A._char
@@ -356,6 +365,17 @@ class _Search:
     def tick(self, key: str, t0: float) -> None:
         self.stats[key] = self.stats.get(key, 0.0) + time.perf_counter() - t0
 
+    def ensure_RT(self, node: _Node) -> Mat:
+        """The transpose of right multiplication by the node's idempotent (kept on the node)."""
+        if node.RT is None:
+            t0 = time.perf_counter()
+            if node.R is not None:
+                node.RT = node.R.transpose()
+            else:
+                node.RT = self.A._right_action_transposed(node.f, node.index)
+            self.tick("node_matrices", t0)
+        return node.RT
+
     def ensure_R(self, node: _Node) -> Mat:
         if node.R is None:
             t0 = time.perf_counter()
@@ -367,10 +387,14 @@ class _Search:
         t = sum((a * b for a, b in zip(self.tau, f, strict=True) if b), self.A._zero_raw())
         return t % self.A._p if self.A._p else t
 
-    def exact_dim(self, node: _Node) -> int:
+    def exact_dim(self, node: _Node, at_least: int = 0) -> int:
+        """``dim A f`` (``at_least``: a known lower bound, so that a rank by thin products
+        starts wide enough)."""
         if node.dim_Af is None:
             node.dim_Af = (
-                int(self.trace(node.f)) if self.trace_exact else self.ensure_R(node).rank()
+                int(self.trace(node.f))
+                if self.trace_exact
+                else sketched_rank(self.ensure_RT(node), hint=at_least)
             )
         return node.dim_Af
 
@@ -378,12 +402,13 @@ class _Search:
         """``dim L f`` for the simples found so far (cheap: via their sections)."""
         return [_rank_in_simple(self.A, c, f) for c in self.classes]
 
-    def screen(self, node: _Node) -> str:
-        """``skip`` (no new simple in f), ``explore`` or ``defer`` (undecided cheaply)."""
+    def screen(self, node: _Node, exact: bool = False) -> str:
+        """``skip`` (no new simple in f), ``explore`` or ``defer`` (undecided cheaply; with
+        ``exact`` the dimension of ``A f`` is computed instead of deferring)."""
         r = self.known_ranks(node.f)
         explained = sum(rj * c.dim_Ae for rj, c in zip(r, self.classes, strict=True))
-        if self.trace_exact or node.dim_Af is not None:
-            unk = self.exact_dim(node) - explained
+        if self.trace_exact or node.dim_Af is not None or exact:
+            unk = self.exact_dim(node, at_least=explained) - explained
             if unk < 0:
                 raise InternalInconsistency("more of A f explained by known simples than exists")
             return "explore" if unk else "skip"
@@ -433,13 +458,16 @@ class _Search:
                 Ty = self.pool_T.get(k)
                 if Ty is None:
                     Ty = A._right_action_transposed(w, None)
-                    if A.dim <= KEEP_MATRICES_LIMIT:
-                        self.pool_T[k] = Ty
+                    kept = 8 * A.dim * A.dim * (len(self.pool_T) + 1)
+                    if A.dim <= KEEP_MATRICES_LIMIT or kept <= POOL_BYTES:
+                        self.pool_T[k] = Ty  # the first few serve every node of their depth
             else:
                 Ty = A._right_action_transposed(self.random_sparse(node), node.index)
             mats = [Ty]
             if not node.root:
-                mats.append(A._right_action_transposed(node.f, node.index))
+                if node.RT is None:  # kept while the node is being split
+                    node.RT = A._right_action_transposed(node.f, node.index)
+                mats.append(node.RT)
             self.tick("dense_elements", t0)
             t0 = time.perf_counter()
             v0 = as_row(A, restrict(node.f, node.index))
@@ -490,8 +518,7 @@ class _Search:
                     continue
             elif deferred:
                 node = deferred.pop()
-                self.exact_dim(node)
-                verdict = self.screen(node)
+                verdict = self.screen(node, exact=True)
             else:
                 break
             if verdict == "skip":
@@ -514,6 +541,7 @@ class _Search:
                 self._give_up(node, degrees)
             res = self.split_attempt(node)
             if isinstance(res, list):
+                node.R = node.RT = None
                 d = node.depth + node.attempts
                 return [_Node(f, node.index, node.rows, node.core, depth=d) for f in res]
             g, _ = res
@@ -528,7 +556,7 @@ class _Search:
                     cl = _new_class(
                         self.A,
                         node.f,
-                        self.ensure_R(node),
+                        self.ensure_RT(node),
                         node.index,
                         node.rows,
                     )
@@ -541,9 +569,10 @@ class _Search:
                 if sum(self.known_ranks(node.f)):
                     raise InternalInconsistency("a primitive idempotent of a known class was kept")
                 if cl.index is None and self.A.dim > KEEP_MATRICES_LIMIT:
-                    cl.R = None  # rebuilt by _class_R when the basic algebra is assembled
-                node.R = None
+                    cl.RT = None  # rebuilt by _class_RT when the basic algebra is assembled
+                node.R = node.RT = None
                 self.classes.append(cl)
+                self.advance(cl.n * cl.dim_P)
                 return []
 
     def _give_up(self, node: _Node, degrees: list[int]) -> None:
@@ -773,58 +802,153 @@ elements, simples) are not kept but rebuilt from the table when needed again: on
 vectorised pass over the table costs far less than the memory they would hold."""
 
 
-def _class_R(A: StructureAlgebra, c: _Class) -> Mat:
-    """Right multiplication by the class's idempotent (kept, or rebuilt from the table)."""
-    return c.R if c.R is not None else A._action(c.e, c.index, left=False)
+POOL_BYTES = 1 << 29
+"""Above ``KEEP_MATRICES_LIMIT`` the transposed matrices of the first dense random elements
+are still kept while they take at most this many bytes: each serves every node of one
+depth of the splitting tree."""
+
+
+def _class_RT(A: StructureAlgebra, c: _Class) -> Mat:
+    """Transposed right multiplication by the class's idempotent (kept, or rebuilt)."""
+    return c.RT if c.RT is not None else A._right_action_transposed(c.e, c.index)
+
+
+def _block_sketch(A: StructureAlgebra, RtT: Mat, width: int, seed: int) -> Mat | None:
+    """``R_t Y`` for a random ``Y`` with ``width`` columns (``RtT`` the transpose of
+    ``R_t``), or ``None`` when the blocks are better found without it."""
+    if not (sketch.USE_SKETCH and A._p) or 3 * width > RtT.nrows or RtT.nrows < sketch.MIN_SIZE:
+        return None
+    Yt = sketch.random_matrix(A.field, width, RtT.nrows, seed)
+    return (Yt @ RtT).transpose()
+
+
+def _block_bases(A: StructureAlgebra, classes: list[_Class]) -> tuple[dict, dict, dict, dict]:
+    """For all ``s, t``: basis indices ``l`` with ``e_s b_l e_t`` a basis of ``e_s A e_t``,
+    those elements (coordinates on span(index_t)), their coordinate solvers and the
+    columns of ``R_t`` at the solvers' pivots (times the solver)."""
+    gen: dict[tuple[int, int], list[int]] = {}
+    basis: dict[tuple[int, int], Mat] = {}
+    solver: dict[tuple[int, int], tuple[tuple[int, ...], Mat]] = {}
+    colsR: dict[tuple[int, int], Mat] = {}
+    with task("blocks of the basic algebra", total=len(classes)) as step:
+        for t, ct in enumerate(classes):
+            _find_blocks(A, classes, t, ct, gen, basis, solver, colsR)
+            step(1)
+    # e_s A is the sum of the e_s A f over a complete set of primitive idempotents f, of
+    # which dim L(t) are conjugate to e_t: every block was found in full
+    for s, cs in enumerate(classes):
+        if sum(ct.n * len(gen[(s, t)]) for t, ct in enumerate(classes)) != cs.dim_P:
+            raise InternalInconsistency(
+                f"the blocks e_s A e_t of vertex {s + 1} do not add up to dim e_s A = {cs.dim_P}"
+            )
+    return gen, basis, solver, colsR
+
+
+def _find_blocks(
+    A: StructureAlgebra,
+    classes: list[_Class],
+    t: int,
+    ct: _Class,
+    gen: dict,
+    basis: dict,
+    solver: dict,
+    colsR: dict,
+) -> None:
+    """The blocks ``e_s A e_t`` for one ``t`` and every ``s`` (see :func:`_block_bases`)."""
+    F = A.field
+    # one right multiplication matrix alive at a time, transposed: flint multiplies a
+    # square matrix by a thin one faster than a thin one by a square one
+    RtT = _class_RT(A, ct)
+    # the blocks are usually far smaller than dim A e_t: sketches of growing width
+    width = sketch.START_WIDTH
+    sk = _block_sketch(A, RtT, width, 1000 + t)
+    for s, cs in enumerate(classes):
+        Ls = apply_transfer(cs.L, transfer(A, cs.rows, ct.index))
+        pos: list[int] | None = None
+        while sk is not None and Ls.nrows:
+            pos = select_independent_rows(Ls @ sk)  # rows of Ls @ R_t, found through R_t Y
+            if len(pos) + sketch.MARGIN <= width:
+                break
+            pos = None
+            width *= 4
+            sk = _block_sketch(A, RtT, width, 1000 + t + width)
+        if pos is None:
+            X = (RtT @ Ls.transpose()).transpose()  # = Ls @ R_t
+            pos = select_independent_rows(X) if X.nrows else []
+            B = X.take_rows(pos) if pos else Mat.zeros(F, 0, X.ncols)
+        else:
+            B = (RtT @ take_rows(Ls, pos).transpose()).transpose() if pos else Mat.zeros(
+                F, 0, RtT.nrows
+            )
+        gen[(s, t)] = [cs.J[k] for k in pos]
+        if s == t and gen[(s, t)] != cs.corner:
+            raise InternalInconsistency("corner basis chosen twice differently")
+        basis[(s, t)] = B
+        solver[(s, t)] = coords_solver(B) if pos else ((), Mat.zeros(F, 0, 0))
+        if pos:
+            piv, T = solver[(s, t)]
+            colsR[(s, t)] = take_rows(RtT, list(piv)).transpose() @ T  # columns piv of R_t
+    del RtT, sk
+
+
+def _block_products(
+    A: StructureAlgebra, classes: list[_Class], gen: dict, basis: dict, colsR: dict
+) -> dict[tuple[int, int, int], list[Mat]]:
+    """``mult[(s, u, t)][j]``: right multiplication by the ``j``-th basis element
+    ``e_u b_l e_t`` of ``e_u A e_t``, from ``e_s A e_u`` to ``e_s A e_t`` (coordinates).
+
+    ``x e_u b_l e_t = ((x b_l) restricted) e_t`` for ``x`` in ``e_s A e_u``; with the
+    table passes vectorised, the products with ``b_l`` of the bases of all ``e_s A e_u``
+    are formed at once as arrays."""
+    F = A.field
+    m = len(classes)
+    dims = {k: v.nrows for k, v in basis.items()}
+    mult: dict[tuple[int, int, int], list[Mat]] = {}
+    vector = A._vectorised()
+    for u in range(m):
+        stacked = None
+        if vector and any(dims[(s, u)] for s in range(m)):
+            rows = [embed(A, r, classes[u].index) for s in range(m) for r in raw_rows(A, basis[(s, u)])]
+            stacked = _np_rows(rows)
+        for t in range(m):
+            it = classes[t].index
+            for l in gen[(u, t)]:
+                prod = A._times_basis_rows(stacked, l) if stacked is not None else None
+                off = 0
+                for s in range(m):
+                    key = (s, u, t)
+                    mult.setdefault(key, [])
+                    r = dims[(s, u)]
+                    if not r:
+                        mult[key].append(Mat.zeros(F, 0, dims[(s, t)]))
+                        continue
+                    if prod is not None:
+                        block = prod[off : off + r]
+                        if it is not None:
+                            block = block[:, it]
+                        P = matrix_from_residues(F, r, block.shape[1], block.ravel().copy())
+                    else:
+                        xs = [embed(A, x, classes[u].index) for x in raw_rows(A, basis[(s, u)])]
+                        prods = [restrict(A._times_basis_raw(x, l), it) for x in xs]
+                        P = Mat.from_flat(F, r, len(prods[0]), [v for row in prods for v in row])
+                    off += r
+                    mult[key].append(P @ colsR[(s, t)] if dims[(s, t)] else Mat.zeros(F, r, 0))
+    return mult
+
+
+def _np_rows(rows: list[list[int]]) -> Any:
+    import numpy as np
+
+    return np.asarray(rows, dtype=np.int64)
 
 
 def _assemble(A: StructureAlgebra, classes: list[_Class], name: str) -> BasicAlgebra:
     F = A.field
     m = len(classes)
     # bases of the blocks e_s A e_t, as e_s b_l e_t (coordinates on span(index_t))
-    gen: dict[tuple[int, int], list[int]] = {}
-    basis: dict[tuple[int, int], Mat] = {}
-    solver: dict[tuple[int, int], tuple[tuple[int, ...], Mat]] = {}
-    colsR: dict[tuple[int, int], Mat] = {}
-    for t, ct in enumerate(classes):
-        # one right multiplication matrix alive at a time, transposed: flint multiplies a
-        # square matrix by a thin one faster than a thin one by a square one
-        if A._vectorised():
-            RtT = A._right_action_transposed(ct.e, ct.index)
-        else:
-            RtT = _class_R(A, ct).transpose()
-        for s, cs in enumerate(classes):
-            Ls = apply_transfer(cs.L, transfer(A, cs.rows, ct.index))
-            X = (RtT @ Ls.transpose()).transpose()  # = Ls @ R_t
-            pos = select_independent_rows(X) if X.nrows else []
-            gen[(s, t)] = [cs.J[k] for k in pos]
-            B = X.take_rows(pos) if pos else Mat.zeros(F, 0, X.ncols)
-            if s == t and gen[(s, t)] != cs.corner:
-                raise InternalInconsistency("corner basis chosen twice differently")
-            basis[(s, t)] = B
-            solver[(s, t)] = coords_solver(B) if pos else ((), Mat.zeros(F, 0, 0))
-            if pos:
-                piv, T = solver[(s, t)]
-                colsR[(s, t)] = RtT.take_rows(list(piv)).transpose() @ T  # columns piv of R_t
-        del RtT
+    gen, basis, solver, colsR = _block_bases(A, classes)
     dims = {k: v.nrows for k, v in basis.items()}
-    # multiplication: x (in e_s A e_u) times y = e_u b_l e_t is ((x b_l) restricted) e_t
-    mult: dict[tuple[int, int, int], list[Mat]] = {}
-    for u in range(m):
-        for t in range(m):
-            for l in gen[(u, t)]:
-                for s in range(m):
-                    key = (s, u, t)
-                    mult.setdefault(key, [])
-                    if not dims[(s, u)]:
-                        mult[key].append(Mat.zeros(F, 0, dims[(s, t)]))
-                        continue
-                    xs = [embed(A, r, classes[u].index) for r in raw_rows(A, basis[(s, u)])]
-                    prods = [restrict(A._times_basis_raw(x, l), classes[t].index) for x in xs]
-                    P = Mat.from_flat(F, len(prods), len(prods[0]), [v for r in prods for v in r])
-                    mult[key].append(
-                        P @ colsR[(s, t)] if dims[(s, t)] else Mat.zeros(F, len(prods), 0)
-                    )
+    mult = _block_products(A, classes, gen, basis, colsR)
     # radical and its square, block by block (coordinates)
     rad: dict[tuple[int, int], Mat] = {}
     for s in range(m):
@@ -1012,7 +1136,9 @@ def reduce_algebra(
     if method != "split":
         raise StructureConstantsError(f"reduce_algebra: unknown method {method!r}")
     S = _Search(A, random.Random(seed))
-    S.explore(_roots(A), A.dim)
+    with task("simple modules (dim A explained)", total=A.dim) as step:
+        S.advance = step
+        S.explore(_roots(A), A.dim)
     timings.update(S.stats)
     timings["search"] = time.perf_counter() - t0
     if S.covered() != A.dim:
@@ -1056,7 +1182,7 @@ def _classes_from_idempotents(A: StructureAlgebra, ids: list[list[Any]]) -> list
             continue  # a further copy of a known simple
         known = sum(r)
         try:
-            cl = _new_class(A, e, Rs[j], None, None)
+            cl = _new_class(A, e, Rs[j].transpose(), None, None)
         except _NotPrimitive:
             raise StructureConstantsError(
                 f"idempotent [{j}] is not primitive (its corner e A e is not local)"

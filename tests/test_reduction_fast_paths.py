@@ -1,0 +1,259 @@
+"""The faster paths of the reduction at scale agree exactly with the former ones.
+
+* thin random products for ranks and independent rows (``reduction/sketch.py``)
+  against the plain elimination, on random matrices of low rank and inside whole
+  reductions of family algebras and random structure-constant algebras (simples,
+  projectives, Cartan matrices, idempotents, basic algebras unchanged);
+* the column-built tables of the symmetric groups and the Schur algebras against
+  the dictionary-built ones (same products), and the dimensions of the families
+  against their formulas;
+* section rows read from the table, the trace form by arrays, products of many rows
+  with a basis element, rows read alone from flint's entries, against the plain loops;
+* the reduction announces its progress only when progress is enabled.
+
+Sources: dim TL_n = Catalan(n) (from memory); dim S(2, r) = binomial(r + 3, 3)
+(J. A. Green, *Polynomial Representations of GL_n*, LNM 830, 1980); the number of
+simple modules of the group algebra of S_n over GF(p) is the number of p-regular
+partitions of n (from memory; G. James, *The Representation Theory of the Symmetric
+Groups*, LNM 682, 1978); TL_n(delta) is cellular with cell modules indexed by
+``n - 2k`` through strands and is quasi-hereditary iff it has as many simples as
+cell modules, which holds for delta != 0 (S. Konig, C. C. Xi, *When is a cellular
+algebra quasi-hereditary?*, Math. Ann. 315 (1999), from memory; the count for
+delta != 0 from memory).
+"""
+
+from __future__ import annotations
+
+import io
+import math
+import random
+
+import pytest
+from hypothesis import given, settings
+from hypothesis import strategies as st
+
+import hwcat.algebras.families.tables as tables
+import hwcat.algebras.inputs.structure as structure
+from hwcat import progress
+from hwcat.algebras.inputs.structure import from_table
+from hwcat.algebras.inputs.structure_input import from_basic_algebra
+from hwcat.algebras.reduction import sketch
+from hwcat.algebras.reduction.reduction import reduce_algebra
+from hwcat.exact import GF, Mat, select_independent_rows
+from hwcat.exact.bulk_rows import take_rows
+from hwcat.strategies import bound_quiver_algebras
+
+pytest.importorskip("numpy")
+
+
+def _low_rank(F, n, m, r, rng):
+    """A random ``n x m`` matrix of rank at most ``r`` (a product of two thin ones)."""
+    p = F.p
+    X = Mat.from_flat(F, n, r, [rng.randrange(p) for _ in range(n * r)])
+    Y = Mat.from_flat(F, r, m, [rng.randrange(p) for _ in range(r * m)])
+    return X @ Y
+
+
+@settings(max_examples=30, deadline=None)
+@given(
+    st.sampled_from([GF(2), GF(3), GF(101)]),
+    st.integers(200, 280),
+    st.integers(200, 280),
+    st.integers(0, 45),
+    st.integers(0, 2**16),
+)
+def test_sketched_rank_and_rows_equal_the_elimination(F, n, m, r, seed):
+    rng = random.Random(seed)
+    M = _low_rank(F, n, m, r, rng)
+    # a few copies of earlier rows, so that the greedy choice matters
+    extra = [rng.randrange(n) for _ in range(5)]
+    M = Mat.vstack(F, [M, take_rows(M, extra)], m)
+    old = (sketch.MIN_SIZE, sketch.START_WIDTH)
+    try:
+        sketch.MIN_SIZE = 0
+        rank, rows = sketch.sketched_rank(M, seed), sketch.sketched_independent_rows(M, seed)
+    finally:
+        sketch.MIN_SIZE, sketch.START_WIDTH = old
+    assert rank == M.rank()
+    assert rows == select_independent_rows(M)
+
+
+def test_sketched_rank_checked_with_sympy():
+    """The rank of a 300 x 300 matrix of rank 7 over GF(2) (sympy's rank over GF(2))."""
+    sympy = pytest.importorskip("sympy")
+    from sympy.polys.matrices import DomainMatrix
+
+    F = GF(2)
+    M = _low_rank(F, 300, 300, 7, random.Random(5))
+    D = DomainMatrix([[sympy.GF(2)(int(x)) for x in row] for row in M.raw_rows()], (300, 300), sympy.GF(2))
+    assert sketch.sketched_rank(M) == D.rank() == M.rank()
+
+
+def _without_sketch(fn, monkeypatch):
+    monkeypatch.setattr(sketch, "USE_SKETCH", False)
+    try:
+        return fn()
+    finally:
+        monkeypatch.setattr(sketch, "USE_SKETCH", True)
+
+
+def _same_reduction(a, b):
+    assert a.simple_dimensions == b.simple_dimensions
+    assert a.projective_dimensions == b.projective_dimensions
+    assert a.basic.cartan() == b.basic.cartan()
+    assert a.idempotents == b.idempotents
+    assert a.basic.dim == b.basic.dim
+    assert a.basic.quiver.arrows == b.basic.quiver.arrows
+
+
+def _p_regular_partitions(n, p):
+    def parts(n, top):
+        if n == 0:
+            yield ()
+            return
+        for k in range(min(n, top), 0, -1):
+            for rest in parts(n - k, k):
+                yield (k, *rest)
+
+    return sum(1 for lam in parts(n, n) if all(lam.count(k) < p for k in set(lam)))
+
+
+@pytest.mark.parametrize(
+    ("make", "simples"),
+    [
+        (lambda: tables.temperley_lieb(7, 0, "GF(3)"), None),
+        (lambda: tables.temperley_lieb(7, 1, "GF(2)"), 4),  # cell modules 7, 5, 3, 1 through strands
+        (lambda: tables.symmetric_group_algebra(5, "GF(2)"), _p_regular_partitions(5, 2)),
+        (lambda: tables.symmetric_group_algebra(5, "GF(3)"), _p_regular_partitions(5, 3)),
+        (lambda: tables.schur_algebra_2(10, "GF(3)"), 6),  # dominant weights of S(2, 10): 11 // 2 + 1
+    ],
+    ids=["TL7(0)", "TL7(1)", "S5-GF2", "S5-GF3", "S(2,10)"],
+)
+def test_reduction_of_families_unchanged_by_the_sketches(make, simples, monkeypatch):
+    monkeypatch.setattr(sketch, "MIN_SIZE", 64)
+    monkeypatch.setattr(sketch, "START_WIDTH", 8)
+    A = from_table(make())
+    drawn = []
+    real = sketch.random_matrix
+    monkeypatch.setattr(sketch, "random_matrix", lambda *a: drawn.append(a) or real(*a))
+    fast = reduce_algebra(A)
+    # the thin products were used (Schur algebras work in small Peirce blocks instead)
+    assert drawn or A.peirce_idempotents() is not None
+    plain = _without_sketch(lambda: reduce_algebra(A), monkeypatch)
+    _same_reduction(fast, plain)
+    if simples is not None:
+        assert len(fast.simple_dimensions) == simples
+    assert sum(n * p for n, p in zip(fast.simple_dimensions, fast.projective_dimensions, strict=True)) == A.dim
+
+
+@settings(max_examples=15, deadline=None)
+@given(bound_quiver_algebras(max_vertices=4, field=st.sampled_from([GF(2), GF(3), GF(7)])))
+def test_reduction_of_random_algebras_unchanged_by_the_sketches(B):
+    """Sketches at every size (tiny thresholds) on random structure-constant algebras."""
+    A = from_basic_algebra(B)
+    old = (sketch.MIN_SIZE, sketch.START_WIDTH)
+    try:
+        sketch.MIN_SIZE, sketch.START_WIDTH = 0, 1
+        fast = reduce_algebra(A)
+        sketch.USE_SKETCH = False
+        plain = reduce_algebra(A)
+    finally:
+        sketch.USE_SKETCH = True
+        sketch.MIN_SIZE, sketch.START_WIDTH = old
+    _same_reduction(fast, plain)
+    # B is basic: it is its own basic algebra (one-dimensional simples, the same Cartan
+    # matrix up to the order of the vertices; common practice)
+    assert fast.simple_dimensions == (1,) * B.n
+    C, D = fast.basic.cartan(), B.cartan()
+    assert sorted(C[i][i] for i in range(B.n)) == sorted(D[i][i] for i in range(B.n))
+    assert sorted(x for r in C for x in r) == sorted(x for r in D for x in r)
+
+
+@pytest.mark.parametrize(("n", "field"), [(4, "GF(2)"), (5, "GF(3)"), (5, "GF(7)")])
+def test_symmetric_group_by_columns_matches_the_dictionary_table(n, field, monkeypatch):
+    plain = tables.symmetric_group_algebra(n, field)
+    monkeypatch.setattr(tables, "COLUMN_TABLE_MIN", 0)
+    cols = tables.symmetric_group_algebra(n, field)
+    assert cols.columns is not None and plain.columns is None
+    assert dict(cols.products) == plain.products
+    assert cols.dim == math.factorial(n)  # |S_n| = n!
+
+
+@pytest.mark.parametrize(("r", "field"), [(3, "GF(2)"), (6, "GF(3)"), (5, "GF(5)")])
+def test_schur_by_columns_matches_the_dictionary_table(r, field, monkeypatch):
+    plain = tables.schur_algebra_2(r, field)
+    monkeypatch.setattr(tables, "COLUMN_TABLE_MIN", 0)
+    cols = tables.schur_algebra_2(r, field)
+    assert cols.columns is not None and plain.columns is None
+    assert dict(cols.products) == plain.products
+    assert cols.dim == math.comb(r + 3, 3)  # Green 1980
+    assert tables.check_associative(cols) and tables.check_unit(cols)
+
+
+@pytest.mark.parametrize("n", [7, 8])
+def test_temperley_lieb_by_columns_has_catalan_dimension(n):
+    T = tables.temperley_lieb(n, 1, "GF(5)")
+    assert T.columns is not None
+    assert T.dim == math.comb(2 * n, n) // (n + 1)  # Catalan(n), from memory
+    # every product of two diagrams is a diagram (times delta^loops, delta = 1 here)
+    assert from_table(T).nnz == T.dim**2
+
+
+@pytest.mark.parametrize(
+    "make",
+    [
+        lambda: tables.temperley_lieb(6, 1, "GF(3)"),
+        lambda: tables.schur_algebra_2(5, "GF(2)"),
+        lambda: tables.symmetric_group_algebra(4, "GF(3)"),
+    ],
+    ids=["TL6", "S(2,5)", "S4"],
+)
+def test_table_passes_agree_with_the_plain_loops(make, monkeypatch):
+    monkeypatch.setattr(tables, "COLUMN_TABLE_MIN", 0)
+    A = from_table(make())
+    rng = random.Random(2)
+    rows = rng.sample(range(A.dim), min(6, A.dim))
+    got = A._row_terms_of(rows)
+    full = A._row_terms()
+    assert {i: tuple(list(x) for x in got[i]) for i in rows} == {
+        i: tuple(list(x) for x in full[i]) for i in rows
+    }
+    A._cache.pop("trace", None)
+    fast = A.trace_functional()
+    monkeypatch.setattr(structure, "USE_VECTOR", False)
+    A._cache.pop("trace", None)
+    assert A.trace_functional() == fast
+    monkeypatch.setattr(structure, "USE_VECTOR", True)
+    import numpy as np
+
+    X = [[rng.randrange(A._p) for _ in range(A.dim)] for _ in range(4)]
+    for j in rng.sample(range(A.dim), 5):
+        prod = A._times_basis_rows(np.asarray(X, dtype=np.int64), j)
+        assert prod.tolist() == [A._times_basis_raw(x, j) for x in X]
+
+
+@settings(max_examples=20, deadline=None)
+@given(st.integers(1, 60), st.integers(1, 60), st.integers(0, 2**16))
+def test_rows_read_alone_equal_the_matrix_rows(n, m, seed):
+    F = GF(5)
+    rng = random.Random(seed)
+    M = Mat.from_flat(F, n, m, [rng.randrange(5) for _ in range(n * m)])
+    idx = [rng.randrange(n) for _ in range(rng.randint(1, n))]
+    assert take_rows(M, idx).tolist() == [M.tolist()[i] for i in idx]
+
+
+def test_reduction_shows_progress_only_when_enabled():
+    class Terminal(io.StringIO):
+        def isatty(self):
+            return True
+
+    A = from_table(tables.temperley_lieb(5, 1, "GF(3)"))
+    quiet = reduce_algebra(A)
+    out = Terminal()
+    progress.enable(out, delay=0)
+    try:
+        shown = reduce_algebra(A)
+    finally:
+        progress.disable()
+    assert "simple modules" in out.getvalue() and "blocks of the basic algebra" in out.getvalue()
+    _same_reduction(quiet, shown)
