@@ -27,13 +27,16 @@ Examples
 from __future__ import annotations
 
 import random
+import sys
 from dataclasses import dataclass, field
-from typing import Any
+from typing import TYPE_CHECKING, Any
 
 from hwcat.algebras.hub.basic import BasicAlgebra
-from hwcat.algebras.inputs.structure import StructureAlgebra
 from hwcat.exact import Mat, echelon
 from hwcat.exact.sparse import sparse_rows
+
+if TYPE_CHECKING:  # the table code (and numpy) only when a table's centre is asked for
+    from hwcat.algebras.inputs.structure import StructureAlgebra
 
 __all__ = ["Centre", "centre", "algebra_centre", "hub_centre", "PATH_TERMS", "USER_TERMS_LIMIT"]
 
@@ -108,10 +111,11 @@ def centre(
 def algebra_centre(B: BasicAlgebra, *, seed: int = 0) -> Centre:
     """``Z`` of the algebra behind a hub: the user's algebra when the hub came from a
     reduction (table, matrices, family), else the quiver algebra in paths."""
-    from hwcat.algebras.reduction.reduction import reduction_of
-
     def compute() -> Centre:
-        r = reduction_of(B)
+        # a hub made by a reduction exists only once the reduction code is loaded;
+        # a quiver algebra's describe need not load it (and the table code with it)
+        red = sys.modules.get("hwcat.algebras.reduction.reduction")
+        r = red.reduction_of(B) if red is not None else None
         if r is not None and r.algebra.dim <= USER_TERMS_LIMIT:
             Z = centre(r.algebra, seed=seed)
             return Centre(Z.algebra, Z.basis, Z.texts, OWN_TERMS)

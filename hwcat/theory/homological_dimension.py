@@ -728,8 +728,6 @@ def _close_links(
     A: BasicAlgebra, dims: list[HomologicalDimension], links: dict[tuple[int, int], SimpleSummand]
 ) -> list[HomologicalDimension]:
     """Propagate infinity along the links; check them against the finite dimensions."""
-    import networkx as nx
-
     for (i, j), link in links.items():
         di, dj = dims[i], dims[j]
         if di.case == "finite" and not (dj.case == "finite" and dj.value <= di.value - link.degree):
@@ -737,6 +735,10 @@ def _close_links(
                 f"L({A.vertices[j]}) is a summand of Omega^{link.degree}(L({A.vertices[i]})) "
                 f"but pd L({A.vertices[i]}) = {di} and pd L({A.vertices[j]}) = {dj}"
             )
+    if not links or all(d.case != "at_least" for d in dims):
+        return list(dims)  # nothing to propagate
+    import networkx as nx
+
     G = nx.DiGraph()
     G.add_nodes_from(range(A.n))
     G.add_edges_from(links)

@@ -91,6 +91,57 @@ class Quiver:
             G.add_edge(a.source, a.target, key=i)
         return G
 
+    def strongly_connected_components(self) -> list[frozenset[int]]:
+        """The strongly connected components of the quiver (vertex indices).
+
+        Tarjan's algorithm with an explicit stack, so no recursion depth depends
+        on the quiver (common practice); kept here rather than importing a graph
+        library on the path of every build.
+        """
+        n = len(self.vertices)
+        succ: list[list[int]] = [[] for _ in range(n)]
+        for a in self.arrows:
+            succ[a.source].append(a.target)
+        index = [-1] * n
+        low = [0] * n
+        on_stack = [False] * n
+        stack: list[int] = []
+        comps: list[frozenset[int]] = []
+        counter = 0
+        for root in range(n):
+            if index[root] >= 0:
+                continue
+            work = [(root, 0)]
+            while work:
+                v, i = work[-1]
+                if i == 0:
+                    index[v] = low[v] = counter
+                    counter += 1
+                    stack.append(v)
+                    on_stack[v] = True
+                if i < len(succ[v]):
+                    work[-1] = (v, i + 1)
+                    w = succ[v][i]
+                    if index[w] < 0:
+                        work.append((w, 0))
+                    elif on_stack[w]:
+                        low[v] = min(low[v], index[w])
+                    continue
+                work.pop()
+                if work:
+                    u = work[-1][0]
+                    low[u] = min(low[u], low[v])
+                if low[v] == index[v]:
+                    comp = []
+                    while True:
+                        w = stack.pop()
+                        on_stack[w] = False
+                        comp.append(w)
+                        if w == v:
+                            break
+                    comps.append(frozenset(comp))
+        return comps
+
     def path_source(self, p: Path) -> int:
         return self.arrows[p[0]].source
 

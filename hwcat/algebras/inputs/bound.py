@@ -200,12 +200,9 @@ def golod_shafarevich_witness(Q: Quiver, relations: Sequence[dict[Path, Any]]) -
         p0 = next(iter(r))
         s, t, d = Q.arrows[p0[0]].source, Q.arrows[p0[-1]].target, len(p0)
         R[s][t][d] = R[s][t].get(d, 0) + 1
-    import networkx as nx
-
-    G = _graph(Q)
     supports = [
         sorted(c)
-        for c in nx.strongly_connected_components(G)
+        for c in Q.strongly_connected_components()
         if len(c) > 1 or any(M[v][v] for v in c)
     ]
     supports.append(list(range(n)))
