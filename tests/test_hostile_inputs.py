@@ -212,13 +212,49 @@ CASES = [
         ("family", "temperley-lieb", "n=3", "delta=0.5"),
         "'0.5' is not a coefficient",
     ),
+    Case(
+        "tensor product over a quiver family",
+        (
+            "module",
+            "--family",
+            "linear-a",
+            "n=2",
+            "--module",
+            "regular",
+            "--tensor",
+            "regular",
+            "--coproduct",
+            "group",
+        ),
+        "given by a quiver",
+    ),
+    Case(
+        "--coproduct without --tensor",
+        (
+            "module",
+            "--family",
+            "symmetric-group",
+            "n=3",
+            "--module",
+            "regular",
+            "--coproduct",
+            "group",
+        ),
+        "--coproduct: give the second factor with --tensor",
+    ),
     Case("unknown family parameter", ("family", "schur", "r=2", "s=3"), "unknown parameter"),
-    Case("family over GF(10)", ("family", "schur", "r=2", "field=GF(10)"), "10 is not a prime power"),
+    Case(
+        "family over GF(10)", ("family", "schur", "r=2", "field=GF(10)"), "10 is not a prime power"
+    ),
     Case("Temperley-Lieb n = 100000", ("family", "temperley-lieb", "n=100000"), "max_dim"),
     Case("symmetric group n = 40", ("family", "symmetric-group", "n=40"), "max_dim"),
     Case("symmetric group n = 8", ("family", "symmetric-group", "n=8"), "max_products"),
     Case("zigzag with 10^6 vertices", ("family", "zigzag-a", "n=1000000"), "max_vertices"),
-    Case("quantum group q of the wrong order", ("family", "small-quantum-sl2", "ell=4"), "root of unity of order exactly 4"),
+    Case(
+        "quantum group q of the wrong order",
+        ("family", "small-quantum-sl2", "ell=4"),
+        "root of unity of order exactly 4",
+    ),
     # -- output ------------------------------------------------------------------------------
     Case(
         "write into a directory",

@@ -380,7 +380,9 @@ def test_family_modules_by_name_and_file(tmp_path, capsys):
     d = run_json(capsys, ["module", "--family", "zigzag-a", "n=3", "--module", f])
     assert [i["name"] for i in d["summands"][0]["identified_as"]][0] == "L(1)"
     # unknown parameters and a missing family name are one-line errors
-    assert "unknown" in run_error(capsys, ["module", "--family", "zigzag-a", "n=3", "m=2", "--module", "P(1)"])
+    assert "unknown" in run_error(
+        capsys, ["module", "--family", "zigzag-a", "n=3", "m=2", "--module", "P(1)"]
+    )
     assert "exactly one" in run_error(capsys, ["module"])
 
 
@@ -397,3 +399,18 @@ def test_coproduct_option_for_a_multiplication_spec(tmp_path, capsys):
     one = write(tmp_path, "one.toml", "dimension = 1\n[matrices]\nu = [[1]]\n")
     err = run_error(capsys, ["module", m, "--module", one, "--tensor", one, "--coproduct", "group"])
     assert "[matrices]" in err
+
+
+def test_named_modules_of_a_reduced_algebra_say_they_live_over_the_basic_algebra(capsys):
+    # kS_4 over GF(3) (dimension 24) has a basic algebra of dimension 8 (derived):
+    # its regular module is the basic algebra's, and the header says so
+    from hwcat.cli import main
+
+    rc = main(
+        ["module", "--family", "symmetric-group", "n=4", "field=GF(3)", "--module", "regular"]
+    )
+    out = capsys.readouterr().out
+    assert rc == 0
+    assert out.splitlines()[0].startswith(
+        "module regular of the basic algebra over GF(3): dimension 8"
+    )

@@ -58,6 +58,15 @@ def _coproduct(spec, args: argparse.Namespace):
             "cyclic-group, small-quantum-sl2; or --coproduct group|quantum-sl2 for a "
             "[multiplication] spec)"
         )
+    if spec.kind == "family":
+        from hwcat.algebras.families.registry import FAMILIES
+
+        fam = FAMILIES[str(spec.table.get("name"))]
+        if fam.kind != "table":
+            raise SpecError(
+                f"--tensor: family {fam.name} is given by a quiver; tensor products are "
+                "for multiplication tables and table families"
+            )
     if spec.kind not in ("family", "multiplication"):
         raise SpecError(
             f"--tensor: tensor products are for multiplication tables and table families, "
@@ -110,6 +119,8 @@ def _cmd_module(args: argparse.Namespace) -> int:
         named = args.module is not None and not Path(args.module).exists()
         needs_B = identify or spec.kind in ("quiver", "family") or named or bool(args.tensor)
         B = build_algebra(spec) if needs_B else None
+        if args.coproduct is not None and not args.tensor:
+            raise SpecError("--coproduct: give the second factor with --tensor")
         if args.tensor:
             coproduct = _coproduct(spec, args)
             if args.module is None:
@@ -146,6 +157,12 @@ def _cmd_module(args: argparse.Namespace) -> int:
 
                 order = as_order(B, B.natural_order)
             M = named_module(args.module, B, order)
+            from hwcat.algebras.reduction.reduction import reduction_of
+
+            if reduction_of(B) is not None:
+                # named modules of a reduced algebra live over its basic algebra (Morita
+                # equivalent); --tensor factors are the input algebra's own modules
+                M.name = f"{M.name} of the basic algebra"
         if B is not None:
             attach_algebra(M, "family" if spec.kind == "family" else spec.kind, B)
     for e in args.element:

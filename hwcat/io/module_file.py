@@ -26,7 +26,7 @@ from pathlib import Path as FilePath
 from typing import Any
 
 from hwcat.algebras.hub.basic import BasicAlgebra
-from hwcat.errors import HwcatError, ModuleFileError, SpecError
+from hwcat.errors import HwcatError, InternalInconsistency, ModuleFileError, SpecError
 from hwcat.exact import Mat, parse_field
 from hwcat.io.spec import Spec, _matrix_value, build_structure
 from hwcat.modules import Module, injective, projective, regular_module, simple
@@ -507,5 +507,10 @@ def attach_spin_chain(M: ActionModule, n: int, B: BasicAlgebra) -> None:
     act = BasisAction(A, M.dim, M.generators, elements=elements, stored=stored)
     M.combination_action = act.act
     if stored:
+        # the chain is built here, not read: a failure is an internal inconsistency
+        # (for example a loop weight that does not match the chain's q)
+        why = act.failure()
+        if why is not None:
+            raise InternalInconsistency(f"the spin chain of length {n} is not a module: {why}")
         M.basis_action = act.matrix
 
