@@ -7,6 +7,8 @@ from collections.abc import Sequence
 from itertools import compress
 from typing import Any
 
+from hwcat.errors import InternalInconsistency
+
 __all__ = [
     "to_json",
     "write_json",
@@ -43,7 +45,7 @@ def write_json(result: Any, stream: Any) -> None:
 def layer_text(vertices: Sequence[str], dims: Sequence[int]) -> str:
     """``(0, 2, 1)`` over vertices ``1, 2, 3`` -> ``"2^2 3"``."""
     if len(vertices) != len(dims):
-        raise ValueError(f"{len(dims)} dimensions for {len(vertices)} vertices")
+        raise InternalInconsistency(f"{len(dims)} dimensions for {len(vertices)} vertices")
     parts = []
     for i in compress(range(len(dims)), dims):  # the nonzero entries only
         d = dims[i]
@@ -71,7 +73,7 @@ def matrix_text(
     for r in rows:
         lens = [len(str(x)) for x in r]
         if len(lens) != len(widths):
-            raise ValueError(f"a row of {len(lens)} entries under {len(widths)} column labels")
+            raise InternalInconsistency(f"a row of {len(lens)} entries under {len(widths)} column labels")
         widths = list(map(max, widths, lens))
     lines = [
         indent
