@@ -177,3 +177,26 @@ def test_shared_tails_obey_the_callers_budget(spec):
             pass
     for i in range(A1.n):
         assert _outcome(A1, i, 6) == _outcome(A2, i, 6)
+
+
+@FAST
+@given(st.data())
+def test_submodules_and_quotients_on_the_support_against_every_vertex(data):
+    """Submodule and quotient over the stored arrows agree entry for entry with the
+    vertex-by-vertex reference (common practice: two computations must agree)."""
+    A = data.draw(SMALL)
+    M = data.draw(modules(A))
+    vs = data.draw(st.lists(st.sampled_from(range(A.n)), max_size=A.n))
+    for U in (M.trace_of_vertices(vs), M.radical_spaces(), M.zero_spaces(), M.full()):
+        S, R = M.submodule(U), M.submodule(U, method="reference")
+        Q, Qr = M.quotient(U), M.quotient(U, method="reference")
+        for X, Y in ((S, R), (Q, Qr)):
+            assert X.dims == Y.dims
+            assert [(i, m.entries()) for i, m in X.maps.items()] == [
+                (i, m.entries()) for i, m in Y.maps.items()
+            ]
+        Qp, pis = M.quotient_with_projection(U)
+        assert Qp.dims == Q.dims and len(pis) == A.n
+        for v in range(A.n):
+            assert pis[v].shape == (M.dims[v], Q.dims[v])
+            assert (U[v] @ pis[v]).is_zero()
