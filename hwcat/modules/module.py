@@ -251,19 +251,20 @@ class Module:
         )
 
     # -- radical and socle -------------------------------------------------------------
+    def _radical_on_support(self) -> dict[int, Mat]:
+        """``rad M`` at the vertices some stored arrow reaches (elsewhere it is zero)."""
+        F = self.field
+        imgs: dict[int, list[Mat]] = {}
+        arrows = self.algebra.arrows
+        for i, m in self.maps.items():
+            imgs.setdefault(arrows[i].target, []).append(m)
+        return {v: echelon(Mat.vstack(F, ms, self.dims[v])) for v, ms in imgs.items()}
+
     def radical_spaces(self) -> list[Mat]:
         """``rad M`` per vertex: the sum of the images of the arrows."""
         F = self.field
-        imgs: list[list[Mat]] = [[] for _ in self.dims]
-        arrows = self.algebra.arrows
-        for i, m in self.maps.items():
-            imgs[arrows[i].target].append(m)
-        return [
-            echelon(Mat.vstack(F, imgs[v], self.dims[v]))
-            if imgs[v]
-            else Mat.zeros(F, 0, self.dims[v])
-            for v in range(len(self.dims))
-        ]
+        rad = self._radical_on_support()
+        return [rad[v] if v in rad else Mat.zeros(F, 0, d) for v, d in enumerate(self.dims)]
 
     def radical(self) -> Module:
         return self.submodule(self.radical_spaces())
@@ -603,8 +604,11 @@ class Module:
         if "generators" in self._memo:
             return self._memo["generators"]
         gens = []
-        for v, R in enumerate(self.radical_spaces()):
-            C = complement(R, self.dims[v])
+        rad = self._radical_on_support()
+        for v in self.support:  # no generators where M is zero
+            R = rad.get(v)
+            d = self.dims[v]
+            C = complement(R, d) if R is not None else Mat.identity(self.field, d)
             gens.extend((v, row) for row in C.split_rows())
         self._memo["generators"] = gens
         return gens
