@@ -134,7 +134,10 @@ class Module:
 
     @property
     def dim(self) -> int:
-        return sum(self.dims)
+        d = self._memo.get("dim")
+        if d is None:
+            d = self._memo["dim"] = sum(self.dims)
+        return d
 
     def dimension_vector(self) -> tuple[int, ...]:
         """Composition multiplicities ``[M : L(i)]`` (the algebra is split basic)."""
