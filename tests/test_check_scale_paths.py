@@ -23,7 +23,7 @@ from hypothesis import HealthCheck, assume, given, settings
 from hypothesis import strategies as st
 
 from hwcat.errors import WorkBudgetExceeded
-from hwcat.exact import Mat, echelon
+from hwcat.exact import Mat, complement, echelon
 from hwcat.modules import direct_sum, hom, hom_dimension_naive, simple
 from hwcat.modules.hom import hom_images, homomorphism_from_images, homomorphisms_from_images
 from hwcat.modules.module import is_homomorphism, kernel_spaces
@@ -200,3 +200,20 @@ def test_submodules_and_quotients_on_the_support_against_every_vertex(data):
         for v in range(A.n):
             assert pis[v].shape == (M.dims[v], Q.dims[v])
             assert (U[v] @ pis[v]).is_zero()
+
+
+@FAST
+@given(st.data())
+def test_generators_on_the_support_against_every_vertex(data):
+    """Generators read over the support are the complements of ``rad M`` at every vertex
+    (common practice: two computations must agree), and ``dim M`` is the sum of ``dims``."""
+    A = data.draw(SMALL)
+    M = data.draw(modules(A))
+    expected = []
+    for v, R in enumerate(M.radical_spaces()):
+        expected.extend((v, row) for row in complement(R, M.dims[v]).split_rows())
+    assert [(v, g.entries()) for v, g in M.generators()] == [(v, g.entries()) for v, g in expected]
+    assert M.dim == sum(M.dims) and M.dim == sum(M.dims)  # computed, then kept
+    for v, R in enumerate(M.radical_spaces()):
+        imgs = [m for i, m in M.maps.items() if A.arrows[i].target == v]
+        assert R.nrows == (Mat.vstack(A.field, imgs, M.dims[v]).rank() if imgs else 0)
