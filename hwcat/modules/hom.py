@@ -79,17 +79,11 @@ def _hom_system(M: Module, N: Module) -> tuple[Mat, list[int], list[tuple[int, M
         total += N.dims[v]
     # Z by sparse rows (one per unknown); constraint (i, k) owns nt columns from ``col``
     Zrows: list[dict] = [{} for _ in range(total)]
-    nonzero: dict[tuple[int, Path], list[tuple[int, int, object]]] = {}
 
     def entries_of(gj: int, wj: Path) -> list[tuple[int, int, object]]:
         """Nonzero ``(row, column, value)`` of the action of ``wj`` on ``N_{v_gj}``."""
-        out = nonzero.get((gj, wj))
-        if out is None:
-            rows = N.path_matrix(wj, gens[gj][0]).raw_rows()
-            out = nonzero[(gj, wj)] = [
-                (r, c, x) for r, row in enumerate(rows) for c, x in enumerate(row) if x != 0
-            ]
-        return out
+        rows = N.path_matrix(wj, gens[gj][0]).raw_rows()
+        return [(r, c, x) for r, row in enumerate(rows) for c, x in enumerate(row) if x != 0]
 
     col = 0
     for i, v, t, terms in edges:
