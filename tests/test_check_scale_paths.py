@@ -23,7 +23,7 @@ from hypothesis import HealthCheck, assume, given, settings
 from hypothesis import strategies as st
 
 from hwcat.errors import WorkBudgetExceeded
-from hwcat.exact import Mat, echelon
+from hwcat.exact import Mat, complement, echelon
 from hwcat.modules import direct_sum, hom, hom_dimension_naive, simple
 from hwcat.modules.hom import hom_images, homomorphism_from_images, homomorphisms_from_images
 from hwcat.modules.module import is_homomorphism, kernel_spaces
@@ -177,3 +177,43 @@ def test_shared_tails_obey_the_callers_budget(spec):
             pass
     for i in range(A1.n):
         assert _outcome(A1, i, 6) == _outcome(A2, i, 6)
+
+
+@FAST
+@given(st.data())
+def test_submodules_and_quotients_on_the_support_against_every_vertex(data):
+    """Submodule and quotient over the stored arrows agree entry for entry with the
+    vertex-by-vertex reference (common practice: two computations must agree)."""
+    A = data.draw(SMALL)
+    M = data.draw(modules(A))
+    vs = data.draw(st.lists(st.sampled_from(range(A.n)), max_size=A.n))
+    for U in (M.trace_of_vertices(vs), M.radical_spaces(), M.zero_spaces(), M.full()):
+        S, R = M.submodule(U), M.submodule(U, method="reference")
+        Q, Qr = M.quotient(U), M.quotient(U, method="reference")
+        for X, Y in ((S, R), (Q, Qr)):
+            assert X.dims == Y.dims
+            assert [(i, m.entries()) for i, m in X.maps.items()] == [
+                (i, m.entries()) for i, m in Y.maps.items()
+            ]
+        Qp, pis = M.quotient_with_projection(U)
+        assert Qp.dims == Q.dims and len(pis) == A.n
+        for v in range(A.n):
+            assert pis[v].shape == (M.dims[v], Q.dims[v])
+            assert (U[v] @ pis[v]).is_zero()
+
+
+@FAST
+@given(st.data())
+def test_generators_on_the_support_against_every_vertex(data):
+    """Generators read over the support are the complements of ``rad M`` at every vertex
+    (common practice: two computations must agree), and ``dim M`` is the sum of ``dims``."""
+    A = data.draw(SMALL)
+    M = data.draw(modules(A))
+    expected = []
+    for v, R in enumerate(M.radical_spaces()):
+        expected.extend((v, row) for row in complement(R, M.dims[v]).split_rows())
+    assert [(v, g.entries()) for v, g in M.generators()] == [(v, g.entries()) for v, g in expected]
+    assert M.dim == sum(M.dims) and M.dim == sum(M.dims)  # computed, then kept
+    for v, R in enumerate(M.radical_spaces()):
+        imgs = [m for i, m in M.maps.items() if A.arrows[i].target == v]
+        assert R.nrows == (Mat.vstack(A.field, imgs, M.dims[v]).rank() if imgs else 0)

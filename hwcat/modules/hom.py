@@ -16,8 +16,10 @@ kept as :func:`hom_dimension_naive` as an independent check.
 
 from __future__ import annotations
 
+from hwcat.algebras.hub.quiver import Path
 from hwcat.errors import InternalInconsistency
 from hwcat.exact import Mat
+from hwcat.exact.sparse import to_mat
 from hwcat.modules.module import Module
 
 __all__ = [
@@ -75,35 +77,38 @@ def _hom_system(M: Module, N: Module) -> tuple[Mat, list[int], list[tuple[int, M
     for v, _ in gens:
         offsets.append(total)
         total += N.dims[v]
-    zero = F.zero
-    columns: list[list] = []  # each: a list of dim U entries per column (built as flat rows of Z^T)
+    # Z by sparse rows (one per unknown); constraint (i, k) owns nt columns from ``col``
+    Zrows: list[dict] = [{} for _ in range(total)]
+
+    def entries_of(gj: int, wj: Path) -> list[tuple[int, int, object]]:
+        """Nonzero ``(row, column, value)`` of the action of ``wj`` on ``N_{v_gj}``."""
+        rows = N.path_matrix(wj, gens[gj][0]).raw_rows()
+        return [(r, c, x) for r, row in enumerate(rows) for c, x in enumerate(row) if x != 0]
+
+    col = 0
     for i, v, t, terms in edges:
         nt = N.dims[t]
         if nt == 0:
             continue
         for k, coeffs in terms:
             g, w = elems[v][k]
-            # constraint block (dim U x nt), stored transposed: nt rows of length dim U
-            block = [[zero] * total for _ in range(nt)]
             off = offsets[g]
             le = (N.path_matrix(w, gens[g][0]) @ N.maps[i]).raw_rows()  # dims N_{v_g} x nt
             for r, row in enumerate(le):
+                zr = Zrows[off + r]
                 for c, x in enumerate(row):
                     if x != 0:
-                        block[c][off + r] -= x
+                        y = zr.get(col + c)
+                        zr[col + c] = -x if y is None else y - x
             for jj, cval in coeffs:
                 gj, wj = elems[t][jj]
                 offj = offsets[gj]
-                for r, row in enumerate(N.path_matrix(wj, gens[gj][0]).raw_rows()):
-                    for c, x in enumerate(row):
-                        if x != 0:
-                            block[c][offj + r] += cval * x
-            columns.extend(block)
-    if columns:
-        ZT = Mat.from_flat(F, len(columns), total, [x for row in columns for x in row])
-        Z = ZT.transpose()
-    else:
-        Z = Mat.zeros(F, total, 0)
+                for r, c, x in entries_of(gj, wj):
+                    zr = Zrows[offj + r]
+                    y = zr.get(col + c)
+                    zr[col + c] = cval * x if y is None else y + cval * x
+            col += nt
+    Z = to_mat(F, Zrows, col) if col else Mat.zeros(F, total, 0)
     return Z, offsets, gens
 
 

@@ -54,6 +54,15 @@ def _check_order(A: BasicAlgebra, order: PartialOrder) -> None:
         raise OrderError("the order is on other vertices than the algebra's")
 
 
+def _opposite_order(op: BasicAlgebra, order: PartialOrder) -> PartialOrder:
+    """The same order on the opposite algebra's vertices, one object per order and algebra.
+
+    Shared so that its linear extension is computed once (the costandard
+    filtrations of all tilting modules read it).
+    """
+    return op.cached(("order:same-relations", order.less), lambda: PartialOrder(op.vertices, order.less))
+
+
 def _not_below(order: PartialOrder, L: int) -> int:
     below = order.below(L)
     return mask(v for v in range(order.n) if v not in below)
@@ -85,7 +94,7 @@ def costandard_module(A: BasicAlgebra, L: str | int, order: PartialOrder) -> Mod
     L = A.vertex_index(L)
     _check_order(A, order)
     op = A.opposite()
-    M = standard_module(op, L, PartialOrder(op.vertices, order.less)).dual()
+    M = standard_module(op, L, _opposite_order(op, order)).dual()
     M.name = f"nabla({A.vertices[L]})"
     return M
 
@@ -104,7 +113,7 @@ def proper_costandard_module(A: BasicAlgebra, L: str | int, order: PartialOrder)
     """Dual notion of :func:`proper_standard_module` (a submodule of ``I(L)``)."""
     L = A.vertex_index(L)
     op = A.opposite()
-    M = proper_standard_module(op, L, PartialOrder(op.vertices, order.less)).dual()
+    M = proper_standard_module(op, L, _opposite_order(op, order)).dual()
     M.name = f"proper nabla({A.vertices[L]})"
     return M
 
@@ -191,7 +200,7 @@ def costandard_filtration(M: Module, order: PartialOrder) -> FiltrationResult:
     """Decide whether ``M`` has a ``nabla``-filtration (via ``D M`` over the opposite)."""
     D = M.dual()
     op = D.algebra
-    res = standard_filtration(D, PartialOrder(op.vertices, order.less), kind="costandard")
+    res = standard_filtration(D, _opposite_order(op, order), kind="costandard")
     return FiltrationResult(
         M.name, "costandard", res.exists, res.multiplicities, res.extension, res.obstruction
     )

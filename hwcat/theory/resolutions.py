@@ -250,10 +250,14 @@ def _map_kernels(f: Sequence[Mat]) -> list[Mat]:
     everything when the target space is zero and nothing when the source is.
     """
     out = []
+    whole: dict[int, Mat] = {}  # one identity per size (most vertices: the empty 0 x 0)
     for m in f:
         r, c = m.shape
         if r == 0 or c == 0:
-            out.append(Mat.identity(m.field, r))
+            ident = whole.get(r)
+            if ident is None:
+                ident = whole[r] = Mat.identity(m.field, r)
+            out.append(ident)
         else:
             out.append(echelon(m.left_kernel()))
     return out
