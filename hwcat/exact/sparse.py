@@ -28,6 +28,7 @@ from hwcat.exact.matrices import Mat
 
 __all__ = [
     "SparseRow",
+    "axpy",
     "sparse_rows",
     "sparse_transpose",
     "to_mat",
@@ -151,7 +152,7 @@ def sparse_echelon(
             c = min(hits)
             if not own:
                 r, own = dict(r), True
-            _axpy(r, -r[c], piv[c])
+            axpy(r, -r[c], piv[c])
         if not r:
             continue
         p = min(r)
@@ -181,12 +182,12 @@ def sparse_echelon(
         for c in hits:
             x = r.get(c)
             if x is not None:
-                _axpy(r, -x, piv[c])
+                axpy(r, -x, piv[c])
         piv[p] = r
     return [piv[p] for p in order], tuple(order)
 
 
-def _axpy(y: SparseRow, a: Any, x: SparseRow) -> None:
+def axpy(y: SparseRow, a: Any, x: SparseRow) -> None:
     """``y += a * x`` in place."""
     for j, xj in x.items():
         z = y.get(j)

@@ -36,7 +36,7 @@ from typing import Any
 
 from hwcat.errors import InternalInconsistency
 from hwcat.exact import Mat, complement, select_independent_rows
-from hwcat.exact.sparse import row_times
+from hwcat.exact.sparse import axpy, row_times
 from hwcat.modules.module import Module, injective, projective
 
 __all__ = [
@@ -283,8 +283,8 @@ def _loewy_diagram_sparse(module: Module) -> LoewyDiagram:
                     p = min(hits)
                     x = v[p]
                     vec, c = ech[p]
-                    _axpy(v, -x, vec)
-                    _axpy(combo, x, c)
+                    axpy(v, -x, vec)
+                    axpy(combo, x, c)
                 if v:
                     j = len(kept)
                     kept.append(img)
@@ -406,23 +406,12 @@ def _loewy_diagram_sets(module: Module) -> LoewyDiagram:
     )
 
 
-def _axpy(y: dict[int, Any], a: Any, x: dict[int, Any]) -> None:
-    """``y += a * x`` on sparse rows, in place."""
-    for j, xj in x.items():
-        z = y.get(j)
-        z = a * xj if z is None else z + a * xj
-        if z == 0:
-            y.pop(j, None)
-        else:
-            y[j] = z
-
-
 def _reduce(v: dict[int, Any], echelon_rows: dict[int, dict[int, Any]]) -> dict[int, Any]:
     """``v`` reduced modulo reduced echelon rows given by pivot (in place; returned)."""
     for p in [p for p in v if p in echelon_rows]:
         x = v.get(p)
         if x is not None:
-            _axpy(v, -x, echelon_rows[p])
+            axpy(v, -x, echelon_rows[p])
     return v
 
 
