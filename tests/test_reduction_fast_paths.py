@@ -257,3 +257,39 @@ def test_reduction_shows_progress_only_when_enabled():
         progress.disable()
     assert "simple modules" in out.getvalue() and "blocks of the basic algebra" in out.getvalue()
     _same_reduction(quiet, shown)
+
+
+@pytest.mark.parametrize(
+    "make",
+    [
+        lambda: tables.temperley_lieb(7, 1, "GF(2)"),
+        lambda: tables.symmetric_group_algebra(5, "GF(3)"),
+    ],
+    ids=["TL7(1)", "S5-GF3"],
+)
+def test_unlucky_draws_fall_back_to_the_elimination(make, monkeypatch):
+    """Every random matrix of rank 1 (a draw that loses the rank): the closing checks fail,
+    the reduction runs again without sketches and equals the plain elimination."""
+    import hwcat.algebras.reduction.reduction as red
+
+    monkeypatch.setattr(sketch, "MIN_SIZE", 64)
+    monkeypatch.setattr(sketch, "START_WIDTH", 8)
+    A = from_table(make())
+    plain = _without_sketch(lambda: reduce_algebra(A), monkeypatch)
+
+    def rank_one(F, nrows, ncols, seed):
+        rng = random.Random(seed)
+        u = Mat.from_flat(F, nrows, 1, [rng.randrange(1, F.p) for _ in range(nrows)])
+        return u @ Mat.from_flat(F, 1, ncols, [1] * ncols)
+
+    monkeypatch.setattr(sketch, "random_matrix", rank_one)
+    runs = []
+    real = red._reduce
+    monkeypatch.setattr(red, "_reduce", lambda *a: runs.append(sketch.USE_SKETCH) or real(*a))
+    got = reduce_algebra(A)
+    assert runs == [True, False]  # the first run failed its checks, the second used no sketch
+    assert sketch.USE_SKETCH
+    _same_reduction(got, plain)
+    # the unlucky run alone does fail (a check, or a step further on)
+    with pytest.raises((AssertionError, ArithmeticError, LookupError, ValueError)):
+        real(A, 0, None, "split")

@@ -102,7 +102,14 @@ from hwcat.algebras.reduction.radical import (
     trace_radical,
 )
 from hwcat.algebras.reduction.sketch import sketched_independent_rows, sketched_rank
-from hwcat.errors import InternalInconsistency, NotSplitError, StructureConstantsError
+from hwcat.errors import (
+    HwcatError,
+    InternalInconsistency,
+    NotSplitError,
+    ResourceLimitError,
+    StructureConstantsError,
+    WorkBudgetExceeded,
+)
 from hwcat.exact import Mat, echelon, select_independent_rows, splitting_field_hint
 from hwcat.exact.bulk_rows import take_rows
 from hwcat.exact.polys import (
@@ -818,7 +825,7 @@ def _block_sketch(A: StructureAlgebra, RtT: Mat, width: int, seed: int) -> Mat |
     ``R_t``), or ``None`` when the blocks are better found without it."""
     if not (sketch.USE_SKETCH and A._p) or 3 * width > RtT.nrows or RtT.nrows < sketch.MIN_SIZE:
         return None
-    Yt = sketch.random_matrix(A.field, width, RtT.nrows, seed)
+    Yt = sketch.draw(A.field, width, RtT.nrows, seed)
     return (Yt @ RtT).transpose()
 
 
@@ -1119,7 +1126,34 @@ def reduce_algebra(
     NotSplitError
         When a simple module is not absolutely irreducible over the field, or no
         splitting element is found; the message names the corner and the remedy.
+
+    Notes
+    -----
+    Ranks of large matrices go through thin random products
+    (:mod:`~hwcat.algebras.reduction.sketch`); when a check fails after such a draw,
+    the reduction runs once more without them, so the result never depends on the draw.
     """
+    drawn = sketch.DRAWS
+    try:
+        return _reduce(A, seed, idempotents, method)
+    except (ResourceLimitError, WorkBudgetExceeded):
+        raise
+    except (HwcatError, ArithmeticError, LookupError, ValueError):
+        # an unlucky thin random product can only make a dimension too small, which the
+        # closing checks catch (or which spoils a corner and fails a step further on):
+        # once more by plain elimination, whose failures are the algebra's own
+        if sketch.DRAWS == drawn:
+            raise
+    with sketch.disabled():
+        return _reduce(A, seed, idempotents, method)
+
+
+def _reduce(
+    A: StructureAlgebra,
+    seed: int,
+    idempotents: Sequence[Sequence[Any]] | None,
+    method: str,
+) -> Reduction:
     timings: dict[str, float] = {}
     t0 = time.perf_counter()
     if idempotents is not None:
