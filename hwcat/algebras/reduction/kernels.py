@@ -14,8 +14,23 @@ from typing import Any
 
 from hwcat.algebras.inputs.structure import StructureAlgebra
 from hwcat.errors import InternalInconsistency
-from hwcat.exact import Mat, echelon, restrict_scalars, rows_over_extension
-from hwcat.exact.polys import Poly, lifted_power_trace, select_columns, sparse_matrix
+from hwcat.exact import Mat, PrimeField, echelon, restrict_scalars, rows_over_extension
+from hwcat.exact.nmod_bulk import power_trace, read_residues
+from hwcat.exact.polys import (
+    Poly,
+    lifted_power_trace,
+    matrix_from_residues,
+    select_columns,
+    sparse_matrix,
+)
+
+try:  # optional: the small radical by int64 arrays
+    import numpy as _np
+except ImportError:  # pragma: no cover - numpy is an optional extra
+    _np = None
+
+FAST_SMALL_RADICAL = True
+"""Switch for :func:`_small_radical_arrays` (tests compare both paths)."""
 
 __all__ = [
     "as_row",
@@ -29,6 +44,7 @@ __all__ = [
     "minpoly",
     "small_radical",
     "small_radical_by_restriction",
+    "FAST_SMALL_RADICAL",
 ]
 
 
@@ -157,6 +173,10 @@ def small_radical(F, mult: list[Mat]) -> Mat:
     c = len(mult)
     if getattr(F, "degree", 1) > 1 and F.characteristic and F.characteristic <= c:
         return small_radical_by_restriction(F, mult)
+    if FAST_SMALL_RADICAL and _np is not None and isinstance(F, PrimeField) and c:
+        rad = _small_radical_arrays(F, mult)
+        if rad is not None:
+            return rad
     tau = [sum((mult[l][a, a] for a in range(c)), F.zero) for l in range(c)]
 
     def gram(psi: Sequence[Any]) -> Mat:
@@ -190,6 +210,58 @@ def small_radical(F, mult: list[Mat]) -> Mat:
             select_columns(Mat.identity(F, c), piv) @ (T @ Mat.from_flat(F, len(g), 1, g))
         ).entries()
         K = (I @ gram(psi)).left_kernel()
+        I = echelon(K @ I) if K.nrows else Mat.zeros(F, 0, c)
+        i += 1
+    return I
+
+
+def _small_radical_arrays(F: Any, mult: list[Mat]) -> Mat | None:
+    """:func:`small_radical` over GF(p) with the multiplication matrices as one int64 array
+    ``R[l, a, k]`` (the same steps and the same matrices, exactly): Gram matrices by one
+    array product, each lifted trace by one copy into flint modulo ``p^(i+1)``.  ``None``
+    when the sizes do not allow exact int64 sums or the one-piece copies are unavailable."""
+    np = _np
+    p = F.p
+    c = len(mult)
+    if c * (p - 1) ** 2 >= 2**62:
+        return None
+    bufs = [read_residues(m._m) for m in mult]
+    if any(b is None or len(b) != c * c for b in bufs):
+        return None
+    flat = np.frombuffer(b"".join(b.tobytes() for b in bufs), dtype=np.int64).copy()
+    R = flat.reshape(c, c, c)
+    tau = np.trace(R, axis1=1, axis2=2) % p
+    byrow = matrix_from_residues(F, c * c, c, flat)  # row (l, a): row a of mult[l]
+    bymat = matrix_from_residues(F, c, c * c, flat)  # row l: mult[l] flattened
+
+    def gram(psi: Any) -> Mat:
+        col = matrix_from_residues(F, c, 1, np.ascontiguousarray(psi % p, dtype=np.int64))
+        G = np.frombuffer(read_residues((byrow @ col)._m), dtype=np.int64).reshape(c, c)
+        return matrix_from_residues(F, c, c, np.ascontiguousarray(G.T).ravel())  # G[a, l]
+
+    I = echelon(gram(tau).left_kernel())
+    i = 1
+    while p**i <= c and I.nrows:
+        mod = p ** (i + 1)
+        if mod >= 1 << 62:
+            return None
+        piv, T = coords_solver(I)
+        buf = read_residues((I @ bymat)._m)  # row r: sum_l I[r, l] mult[l]
+        if buf is None:
+            return None
+        Xs = np.frombuffer(buf, dtype=np.int64).reshape(I.nrows, c * c)
+        g = []
+        for X in Xs:
+            t = power_trace(c, np.ascontiguousarray(X), mod, p**i)
+            if t is None:
+                return None
+            if t % p**i:
+                raise InternalInconsistency("lifted trace not divisible on a small corner")
+            g.append(F(t // p**i))
+        psi = (
+            select_columns(Mat.identity(F, c), piv) @ (T @ Mat.from_flat(F, len(g), 1, g))
+        ).entries()
+        K = (I @ gram(np.asarray([int(x) for x in psi], dtype=np.int64))).left_kernel()
         I = echelon(K @ I) if K.nrows else Mat.zeros(F, 0, c)
         i += 1
     return I

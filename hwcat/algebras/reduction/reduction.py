@@ -201,10 +201,17 @@ def _corner_data(A: StructureAlgebra, e: list[Any], RT: Mat, index, rows) -> tup
     cvecs = [embed(A, r, index) for r in raw_rows(A, Cb)]
     c = len(corner)
     mult = []  # mult[l][a] = coordinates of c_a * c_l
+    stacked = _np_rows(cvecs) if A._vectorised() else None
     for b in corner:
-        rowsb = [restrict(A._times_basis_raw(v, b), index) for v in cvecs]
-        M = Mat.from_flat(F, c, len(rowsb[0]), [x for r in rowsb for x in r]) @ Rp @ T
-        mult.append(M)
+        if stacked is not None:  # the products with b of all the c_a at once
+            prod = A._times_basis_rows(stacked, b)
+            if index is not None:
+                prod = prod[:, list(index)]
+            P = matrix_from_residues(F, c, prod.shape[1], _np_contiguous(prod).ravel())
+        else:
+            rowsb = [restrict(A._times_basis_raw(v, b), index) for v in cvecs]
+            P = Mat.from_flat(F, c, len(rowsb[0]), [x for r in rowsb for x in r])
+        mult.append(P @ Rp @ T)
     return Lr, J, corner, Cb, piv, T, mult, Rp
 
 
@@ -947,6 +954,12 @@ def _np_rows(rows: list[list[int]]) -> Any:
     import numpy as np
 
     return np.asarray(rows, dtype=np.int64)
+
+
+def _np_contiguous(X: Any) -> Any:
+    import numpy as np
+
+    return np.ascontiguousarray(X, dtype=np.int64)
 
 
 def _assemble(A: StructureAlgebra, classes: list[_Class], name: str) -> BasicAlgebra:
