@@ -9,13 +9,14 @@ right multiplication matrices.
 
 from __future__ import annotations
 
+from array import array
 from collections.abc import Sequence
 from typing import Any
 
 from hwcat.algebras.inputs.structure import StructureAlgebra
 from hwcat.errors import InternalInconsistency
 from hwcat.exact import Mat, PrimeField, echelon, restrict_scalars, rows_over_extension
-from hwcat.exact.nmod_bulk import power_trace, read_residues
+from hwcat.exact.nmod_bulk import nmod_mat_from_residues, power_trace, read_residues
 from hwcat.exact.polys import (
     Poly,
     lifted_power_trace,
@@ -28,6 +29,16 @@ try:  # optional: the small radical by int64 arrays
     import numpy as _np
 except ImportError:  # pragma: no cover - numpy is an optional extra
     _np = None
+
+def residue_matrix(F: Any, nrows: int, ncols: int, buf: Any) -> Mat:
+    """:func:`~hwcat.exact.polys.matrix_from_residues` copied in one piece at every size
+    (the small matrices of the Krylov sequences and of the blocks are many)."""
+    if nrows and ncols:
+        M = nmod_mat_from_residues(nrows, ncols, buf, F.p)
+        if M is not None:
+            return Mat(F, M)
+    return matrix_from_residues(F, nrows, ncols, buf)
+
 
 FAST_SMALL_RADICAL = True
 """Switch for :func:`_small_radical_arrays` (tests compare both paths)."""
@@ -45,6 +56,7 @@ __all__ = [
     "small_radical",
     "small_radical_by_restriction",
     "FAST_SMALL_RADICAL",
+    "residue_matrix",
 ]
 
 
@@ -117,6 +129,7 @@ def chain_step(mats: Sequence[Mat], transposed: Sequence[Mat] | None = None):
             x = T @ x
         return x.transpose()
 
+    step.transposed = Ts  # type: ignore[attr-defined]  # krylov runs on columns with them
     return step
 
 
@@ -124,6 +137,11 @@ def krylov(v0: Mat, Z: Mat | None, step=None, limit: int | None = None) -> tuple
     """Vectors ``v0 Z^a`` up to the first dependency; returns ``(K, c)`` with
     ``v0 Z^d = c @ K`` and ``K`` the ``d`` independent vectors."""
     F = v0.field
+    Ts = getattr(step, "transposed", None)
+    if Ts is not None and isinstance(F, PrimeField):
+        out = _krylov_columns(v0, Ts, limit)
+        if out is not None:
+            return out
     vecs = [v0]
     size = 4
     while True:
@@ -139,6 +157,48 @@ def krylov(v0: Mat, Z: Mat | None, step=None, limit: int | None = None) -> tuple
         size *= 2
     Kd = Mat.vstack(F, vecs[:d], v0.ncols)
     c = Kd.solve_left(vecs[d])
+    if c is None:  # pragma: no cover - rank argument guarantees a solution
+        raise InternalInconsistency("Krylov dependency not found")
+    return Kd, c.entries()
+
+
+def _krylov_columns(v0: Mat, Ts: Sequence[Mat], limit: int | None) -> tuple[Mat, list[Any]] | None:
+    """:func:`krylov` for a chain step over GF(p), kept as columns: each vector is read
+    out of flint once (a column and a row hold the same residues) and the matrices of the
+    sequence are assembled from those buffers; ``None`` if the one-piece copies are
+    unavailable."""
+    F = v0.field
+    n = v0.ncols
+    first = read_residues(v0._m)
+    if first is None:
+        return None
+    bufs = [first]
+    x = v0.transpose()
+    size = 4
+
+    def stacked(k: int) -> Mat:
+        out = array("q")
+        for b in bufs[:k]:
+            out.extend(b)
+        return residue_matrix(F, k, n, out)
+
+    while True:
+        while len(bufs) < size:
+            for T in Ts:
+                x = T @ x
+            b = read_residues(x._m)
+            if b is None:
+                return None
+            bufs.append(b)
+        r = stacked(len(bufs)).rank()
+        if r < len(bufs):
+            d = r
+            break
+        if limit is not None and len(bufs) > limit + 1:
+            raise InternalInconsistency("Krylov sequence longer than the dimension")
+        size *= 2
+    Kd = stacked(d)
+    c = Kd.solve_left(residue_matrix(F, 1, n, array("q", bufs[d])))
     if c is None:  # pragma: no cover - rank argument guarantees a solution
         raise InternalInconsistency("Krylov dependency not found")
     return Kd, c.entries()

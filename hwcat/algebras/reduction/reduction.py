@@ -91,6 +91,7 @@ from hwcat.algebras.reduction.kernels import (
     krylov,
     minpoly,
     raw_rows,
+    residue_matrix,
     restrict,
     small_radical,
     transfer,
@@ -116,7 +117,6 @@ from hwcat.exact.polys import (
     Poly,
     fitting_polynomials,
     matrix_from_ints,
-    matrix_from_residues,
     select_columns,
     sparse_matrix,
 )
@@ -207,7 +207,7 @@ def _corner_data(A: StructureAlgebra, e: list[Any], RT: Mat, index, rows) -> tup
             prod = A._times_basis_rows(stacked, b)
             if index is not None:
                 prod = prod[:, list(index)]
-            P = matrix_from_residues(F, c, prod.shape[1], _np_contiguous(prod).ravel())
+            P = residue_matrix(F, c, prod.shape[1], _np_contiguous(prod).ravel())
         else:
             rowsb = [restrict(A._times_basis_raw(v, b), index) for v in cvecs]
             P = Mat.from_flat(F, c, len(rowsb[0]), [x for r in rowsb for x in r])
@@ -940,7 +940,7 @@ def _block_products(
                         block = prod[off : off + r]
                         if it is not None:
                             block = block[:, it]
-                        P = matrix_from_residues(F, r, block.shape[1], block.ravel().copy())
+                        P = residue_matrix(F, r, block.shape[1], block.ravel().copy())
                     else:
                         xs = [embed(A, x, classes[u].index) for x in raw_rows(A, basis[(s, u)])]
                         prods = [restrict(A._times_basis_raw(x, l), it) for x in xs]
