@@ -250,7 +250,12 @@ def _new_class(A: StructureAlgebra, e: list[Any], RT: Mat, index, rows) -> _Clas
         raise InternalInconsistency("a primitive idempotent with a zero simple module")
     U = A.gram(A.vec(phi), cols=[c for c in cpiv] if cols is None else [cols[c] for c in cpiv])
     sec = list(select_independent_rows(U))
-    dim_Ae = _dim_left_ideal(A, e, RT, hint=len(J))
+    if A._group_table() is not None:
+        # a group algebra is symmetric, so dim A e = dim Hom_A(e A, A) = dim D(e A) = dim e A
+        # (from memory: group algebras are symmetric algebras)
+        dim_Ae = len(J)
+    else:
+        dim_Ae = _dim_left_ideal(A, e, RT, hint=len(J))
     rowterms = A._row_terms_of(sec)
     return _Class(
         e,
@@ -318,6 +323,8 @@ class _Node:
     dim_Af: int | None = None
     attempts: int = 0
     depth: int = 0
+    parent_dim: int | None = None  # dim A f of the parent (the sum over its children)
+    family: list[_Node] | None = None  # the parent's children, this node among them
 
 
 @dataclass
@@ -404,6 +411,11 @@ class _Search:
     def exact_dim(self, node: _Node, at_least: int = 0) -> int:
         """``dim A f`` (``at_least``: a known lower bound, so that a rank by thin products
         starts wide enough)."""
+        if node.dim_Af is None and node.family is not None and node.parent_dim is not None:
+            # f_1 + ... + f_r = f orthogonal: A f is the direct sum of the A f_i
+            others = [k.dim_Af for k in node.family if k is not node]
+            if all(d is not None for d in others):
+                node.dim_Af = node.parent_dim - sum(others)
         if node.dim_Af is None:
             node.dim_Af = (
                 int(self.trace(node.f))
@@ -557,7 +569,13 @@ class _Search:
             if isinstance(res, list):
                 node.R = node.RT = None
                 d = node.depth + node.attempts
-                return [_Node(f, node.index, node.rows, node.core, depth=d) for f in res]
+                kids = [
+                    _Node(f, node.index, node.rows, node.core, depth=d, parent_dim=node.dim_Af)
+                    for f in res
+                ]
+                for kid in kids:
+                    kid.family = kids
+                return kids
             g, _ = res
             degrees.append(g.degree)
             # z = lambda f + nilpotent with lambda != 0 is evidence that f A f is local;
