@@ -90,8 +90,8 @@ the plain loop."""
 USE_GROUP_TABLE = True
 """Switch for the passes by index arrays on group tables (tests compare both paths)."""
 GROUP_TABLE_LIMIT = 5040
-"""Largest dimension whose group table is kept as index arrays (three ``n x n`` arrays
-of 16-bit indices: 150 MB at 5040)."""
+"""Largest dimension whose group table is kept as index arrays (four ``n x n`` arrays
+of 16-bit indices: 200 MB at 5040)."""
 
 
 @dataclass(frozen=True)
@@ -415,13 +415,14 @@ class StructureAlgebra:
             ]
         return self._cache["np_cols"]
 
-    def _group_table(self) -> tuple[Any, Any, Any] | None:
+    def _group_table(self) -> tuple[Any, Any, Any, Any] | None:
         """Index arrays of a group table, or ``None``.
 
         When every product of basis elements is a basis element (coefficient 1) and
         both ``i -> k`` (``j`` fixed) and ``j -> k`` (``i`` fixed) are bijections, as in
         the group algebra of a finite group on its elements, the table is ``P[i, j] = k``
-        (``b_i b_j = b_k``) with the solutions ``JR[i, k] = j`` and ``ILT[j, k] = i``.
+        (``b_i b_j = b_k``) with the solutions ``JR[i, k] = j`` and ``ILT[j, k] = i``
+        (and ``JR`` transposed).
         Then right multiplication by ``y`` is the matrix ``y[JR]`` and left
         multiplication by ``x`` is ``x[ILT]``: one gather each, no pass over the table.
         """
@@ -450,6 +451,7 @@ class StructureAlgebra:
                         P.astype(small),
                         JR.astype(small),
                         np.ascontiguousarray(IL.T).astype(small),
+                        np.ascontiguousarray(JR.T).astype(small),
                     )
         self._cache["group"] = out
         return out
@@ -467,10 +469,8 @@ class StructureAlgebra:
             yv = np.asarray([int(v) % p for v in y], dtype=np.int64)
             if left:
                 M = yv[group[2]]  # row j: x b_j, entry k = x_i with b_i b_j = b_k
-            else:
-                M = yv[group[1]]  # row i: b_i y, entry k = y_j with b_i b_j = b_k
-                if transpose:
-                    M = np.ascontiguousarray(M.T)
+            else:  # row i: b_i y, entry k = y_j with b_i b_j = b_k (its transpose: by JR^T)
+                M = yv[group[3]] if transpose else yv[group[1]]
             return matrix_from_residues(self.field, n, n, M.ravel())
         cols = self._np_cols()
         acc = np.zeros(m * m, dtype=np.int64)

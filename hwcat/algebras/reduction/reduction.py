@@ -660,6 +660,11 @@ def _rank_in_simple_vectorised(A: StructureAlgebra, c: _Class, f: list[Any]) -> 
         Ua = c.uarray = np.asarray(c.urows, dtype=np.int64).reshape(A.dim, c.n)
     fv = np.asarray([int(x) % p for x in f], dtype=np.int64)
     out = np.zeros((len(c.sec), A.dim), dtype=np.int64)
+    group = A._group_table()
+    if group is not None:  # b_s f = sum_j f_j b_(P[s, j]): one permutation of f per row
+        out[np.arange(len(c.sec))[:, None], group[0][c.sec]] = fv[None, :]
+        M = (out @ Ua) % p
+        return matrix_from_ints(A.field, len(c.sec), c.n, M.ravel().tolist()).rank()
     for r, s in enumerate(c.sec):
         js, ks, cs = c.rowterms[s]
         if not len(js):
