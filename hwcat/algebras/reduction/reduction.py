@@ -325,6 +325,7 @@ class _Node:
     depth: int = 0
     parent_dim: int | None = None  # dim A f of the parent (the sum over its children)
     family: list[_Node] | None = None  # the parent's children, this node among them
+    ranks: list[int] = field(default_factory=list)  # dim L f for the first simples found
 
 
 @dataclass
@@ -428,10 +429,18 @@ class _Search:
         """``dim L f`` for the simples found so far (cheap: via their sections)."""
         return [_rank_in_simple(self.A, c, f) for c in self.classes]
 
+    def node_ranks(self, node: _Node) -> list[int]:
+        """:meth:`known_ranks` of the node's idempotent, kept on the node (only the simples
+        found since the last call are added)."""
+        done = node.ranks
+        if len(done) < len(self.classes):
+            done.extend(_rank_in_simple(self.A, c, node.f) for c in self.classes[len(done) :])
+        return list(done)
+
     def screen(self, node: _Node, exact: bool = False) -> str:
         """``skip`` (no new simple in f), ``explore`` or ``defer`` (undecided cheaply; with
         ``exact`` the dimension of ``A f`` is computed instead of deferring)."""
-        r = self.known_ranks(node.f)
+        r = self.node_ranks(node)
         explained = sum(rj * c.dim_Ae for rj, c in zip(r, self.classes, strict=True))
         if self.trace_exact or node.dim_Af is not None or exact:
             unk = self.exact_dim(node, at_least=explained) - explained
@@ -553,7 +562,7 @@ class _Search:
             if kids:
                 scored = []
                 for kid in kids:
-                    known = sum(self.known_ranks(kid.f))
+                    known = sum(self.node_ranks(kid))
                     scored.append(((known > 0, int(self.trace(kid.f)) if self.trace_exact else 0), kid))
                 scored.sort(key=lambda s: s[0])
                 stack.extend(k for _, k in reversed(scored))
@@ -598,7 +607,7 @@ class _Search:
                     continue
                 finally:
                     self.tick("certify", t0)
-                if sum(self.known_ranks(node.f)):
+                if sum(self.node_ranks(node)):
                     raise InternalInconsistency("a primitive idempotent of a known class was kept")
                 if cl.index is None and self.A.dim > KEEP_MATRICES_LIMIT:
                     cl.RT = None  # rebuilt by _class_RT when the basic algebra is assembled
