@@ -251,8 +251,8 @@ def _new_class(A: StructureAlgebra, e: list[Any], RT: Mat, index, rows) -> _Clas
     U = A.gram(A.vec(phi), cols=[c for c in cpiv] if cols is None else [cols[c] for c in cpiv])
     sec = list(select_independent_rows(U))
     if A._group_table() is not None:
-        # a group algebra is symmetric, so dim A e = dim Hom_A(e A, A) = dim D(e A) = dim e A
-        # (from memory: group algebras are symmetric algebras)
+        # a group algebra is symmetric (A ~ D(A) as modules; from memory), so
+        # dim A e = dim Hom_A(e A, A) = dim Hom_A(e A, D(A)) = dim D(e A) = dim e A
         dim_Ae = len(J)
     else:
         dim_Ae = _dim_left_ideal(A, e, RT, hint=len(J))
@@ -311,7 +311,7 @@ def _dim_left_ideal(A: StructureAlgebra, f: list[Any], R: Mat, hint: int = 0) ->
 # the splitting tree
 
 
-@dataclass
+@dataclass(eq=False)  # nodes are compared by identity (a node's family holds the node)
 class _Node:
     f: list[Any]
     index: list[int] | None
