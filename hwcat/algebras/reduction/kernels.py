@@ -40,6 +40,10 @@ def residue_matrix(F: Any, nrows: int, ncols: int, buf: Any) -> Mat:
     return matrix_from_residues(F, nrows, ncols, buf)
 
 
+FROBENIUS_WORK = 1 << 26
+"""Largest ``(p - 1) c^3`` for which a commutative corner's radical is found through the
+Frobenius map (the powers ``c_l^p`` of its basis elements take that many products)."""
+
 FAST_SMALL_RADICAL = True
 """Switch for :func:`_small_radical_arrays` (tests compare both paths)."""
 
@@ -137,9 +141,12 @@ def krylov(v0: Mat, Z: Mat | None, step=None, limit: int | None = None) -> tuple
     """Vectors ``v0 Z^a`` up to the first dependency; returns ``(K, c)`` with
     ``v0 Z^d = c @ K`` and ``K`` the ``d`` independent vectors."""
     F = v0.field
-    Ts = getattr(step, "transposed", None)
-    if Ts is not None and isinstance(F, PrimeField):
-        out = _krylov_columns(v0, Ts, limit)
+    if isinstance(F, PrimeField):
+        Ts = getattr(step, "transposed", None)
+        if Ts is not None:  # columns: x -> T_k ... T_1 x
+            out = _krylov_columns(v0, v0.transpose(), lambda x: _chain(Ts, x), limit)
+        else:
+            out = _krylov_columns(v0, v0, step if step is not None else (lambda x: x @ Z), limit)
         if out is not None:
             return out
     vecs = [v0]
@@ -162,18 +169,23 @@ def krylov(v0: Mat, Z: Mat | None, step=None, limit: int | None = None) -> tuple
     return Kd, c.entries()
 
 
-def _krylov_columns(v0: Mat, Ts: Sequence[Mat], limit: int | None) -> tuple[Mat, list[Any]] | None:
-    """:func:`krylov` for a chain step over GF(p), kept as columns: each vector is read
-    out of flint once (a column and a row hold the same residues) and the matrices of the
-    sequence are assembled from those buffers; ``None`` if the one-piece copies are
-    unavailable."""
+def _chain(Ts: Sequence[Mat], x: Mat) -> Mat:
+    for T in Ts:
+        x = T @ x
+    return x
+
+
+def _krylov_columns(v0: Mat, x: Mat, advance, limit: int | None) -> tuple[Mat, list[Any]] | None:
+    """:func:`krylov` over GF(p) with each vector read out of flint once (``x``: ``v0`` as
+    a row or a column -- both hold the same residues -- and ``advance`` the next vector in
+    the same shape); the matrices of the sequence are assembled from those buffers.
+    ``None`` if the one-piece copies are unavailable."""
     F = v0.field
     n = v0.ncols
     first = read_residues(v0._m)
     if first is None:
         return None
     bufs = [first]
-    x = v0.transpose()
     size = 4
 
     def stacked(k: int) -> Mat:
@@ -184,8 +196,7 @@ def _krylov_columns(v0: Mat, Ts: Sequence[Mat], limit: int | None) -> tuple[Mat,
 
     while True:
         while len(bufs) < size:
-            for T in Ts:
-                x = T @ x
+            x = advance(x)
             b = read_residues(x._m)
             if b is None:
                 return None
@@ -299,6 +310,8 @@ def _small_radical_arrays(F: Any, mult: list[Mat]) -> Mat | None:
         G = np.frombuffer(read_residues((byrow @ col)._m), dtype=np.int64).reshape(c, c)
         return matrix_from_residues(F, c, c, np.ascontiguousarray(G.T).ravel())  # G[a, l]
 
+    if p <= c and (R == R.transpose(1, 0, 2)).all() and (p - 1) * c**3 <= FROBENIUS_WORK:
+        return _commutative_radical(F, R)
     I = echelon(gram(tau).left_kernel())
     i = 1
     while p**i <= c and I.nrows:
@@ -325,3 +338,29 @@ def _small_radical_arrays(F: Any, mult: list[Mat]) -> Mat | None:
         I = echelon(K @ I) if K.nrows else Mat.zeros(F, 0, c)
         i += 1
     return I
+
+
+def _commutative_radical(F: Any, R: Any) -> Mat:
+    """The radical of a commutative algebra over GF(p) (``R[l, a, k]``: ``c_a c_l``), as
+    the kernel of a power of the Frobenius map.
+
+    In a commutative algebra of characteristic ``p`` the map ``x -> x^p`` is additive and
+    fixes GF(p), so it is linear, with the rows ``c_l^p`` as its matrix; the radical is the
+    set of nilpotent elements, i.e. the kernel of ``x -> x^(p^k)`` once ``p^k >= c``
+    (common practice).  One small matrix power and one kernel: about one rank.
+    """
+    np = _np
+    p = F.p
+    c = R.shape[0]
+    V = np.ascontiguousarray(R[np.arange(c), np.arange(c), :])  # row l: c_l * c_l
+    for _ in range(p - 2):
+        V = np.einsum("lk,lkm->lm", V, R) % p  # row l: c_l^j * c_l
+    Fr = residue_matrix(F, c, c, np.ascontiguousarray(V, dtype=np.int64).ravel())
+    k, q = 1, p
+    while q < c:
+        k, q = k + 1, q * p
+    P = Fr
+    for _ in range(k - 1):
+        P = P @ Fr
+    K = P.left_kernel()
+    return echelon(K) if K.nrows else Mat.zeros(F, 0, c)
