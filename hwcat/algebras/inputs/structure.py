@@ -777,8 +777,13 @@ class StructureAlgebra:
         cols: Sequence[int] | None = None,
     ) -> Mat:
         """``G[a][c] = phi(b_a * b_c)`` for ``a`` in ``rows``, ``c`` in ``cols`` (default: all)."""
+        return self._gram_raw(self.raw(phi), rows, cols)
+
+    def _gram_raw(
+        self, ph: list[Any], rows: Sequence[int] | None = None, cols: Sequence[int] | None = None
+    ) -> Mat:
+        """:meth:`gram` for ``phi`` in internal coordinates."""
         n = self.dim
-        ph = self.raw(phi)
         rows = list(range(n)) if rows is None else list(rows)
         cols = list(range(n)) if cols is None else list(cols)
         rpos = [-1] * n

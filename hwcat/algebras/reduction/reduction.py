@@ -174,7 +174,7 @@ class _Class:
 
 def _right_ideal_basis(A: StructureAlgebra, e: list[Any], rows) -> tuple[list[int], Mat]:
     """Basis elements ``b_l`` with ``e b_l`` a basis of ``eA`` (on span(rows)), and those rows."""
-    L = A.left_action(A.vec(e), rows)
+    L = A._action(e, rows, left=True)
     pos = sketched_independent_rows(L)
     rows_list = list(range(A.dim)) if rows is None else list(rows)
     return [rows_list[k] for k in pos], take_rows(L, pos)
@@ -243,12 +243,12 @@ def _new_class(A: StructureAlgebra, e: list[Any], RT: Mat, index, rows) -> _Clas
     phi = A._form_of_products(e, col, rows)  # e b_j = 0 outside f A
     # G[a][c] = phi(b_a b_c) = chi(e b_a b_c e) vanishes unless b_c e != 0, i.e. c in index
     cols = None if index is None else list(index)
-    G = A.gram(A.vec(phi), rows=J, cols=cols)
+    G = A._gram_raw(phi, rows=J, cols=cols)
     _, cpiv = G.rref()
     n_simple = len(cpiv)
     if n_simple == 0:
         raise InternalInconsistency("a primitive idempotent with a zero simple module")
-    U = A.gram(A.vec(phi), cols=[c for c in cpiv] if cols is None else [cols[c] for c in cpiv])
+    U = A._gram_raw(phi, cols=[c for c in cpiv] if cols is None else [cols[c] for c in cpiv])
     sec = list(select_independent_rows(U))
     if A._group_table() is not None:
         # a group algebra is symmetric (A ~ D(A) as modules; from memory), so
