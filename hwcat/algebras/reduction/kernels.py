@@ -40,6 +40,10 @@ def residue_matrix(F: Any, nrows: int, ncols: int, buf: Any) -> Mat:
     return matrix_from_residues(F, nrows, ncols, buf)
 
 
+ARRAY_CORNER_LIMIT = 256
+"""Largest corner whose multiplication matrices are copied into one array (three copies of
+``c^3`` int64 entries: 400 MB at 256)."""
+
 FROBENIUS_WORK = 1 << 26
 """Largest ``(p - 1) c^3`` for which a commutative corner's radical is found through the
 Frobenius map (the powers ``c_l^p`` of its basis elements take that many products)."""
@@ -294,16 +298,16 @@ def _small_radical_arrays(F: Any, mult: list[Mat]) -> Mat | None:
     np = _np
     p = F.p
     c = len(mult)
-    if c * (p - 1) ** 2 >= 2**62:
+    if c * (p - 1) ** 2 >= 2**62 or c > ARRAY_CORNER_LIMIT:
         return None
-    bufs = [read_residues(m._m) for m in mult]
-    if any(b is None or len(b) != c * c for b in bufs):
-        return None
-    flat = np.frombuffer(b"".join(b.tobytes() for b in bufs), dtype=np.int64).copy()
-    R = flat.reshape(c, c, c)
+    R = np.empty((c, c, c), dtype=np.int64)
+    for l, m in enumerate(mult):
+        b = read_residues(m._m)
+        if b is None or len(b) != c * c:
+            return None
+        R[l] = np.frombuffer(b, dtype=np.int64).reshape(c, c)
+    flat = R.reshape(c * c * c)
     tau = np.trace(R, axis1=1, axis2=2) % p
-    byrow = matrix_from_residues(F, c * c, c, flat)  # row (l, a): row a of mult[l]
-    bymat = matrix_from_residues(F, c, c * c, flat)  # row l: mult[l] flattened
 
     def gram(psi: Any) -> Mat:
         col = matrix_from_residues(F, c, 1, np.ascontiguousarray(psi % p, dtype=np.int64))
@@ -312,6 +316,8 @@ def _small_radical_arrays(F: Any, mult: list[Mat]) -> Mat | None:
 
     if p <= c and (R == R.transpose(1, 0, 2)).all() and (p - 1) * c**3 <= FROBENIUS_WORK:
         return _commutative_radical(F, R)
+    byrow = matrix_from_residues(F, c * c, c, flat)  # row (l, a): row a of mult[l]
+    bymat = matrix_from_residues(F, c, c * c, flat)  # row l: mult[l] flattened
     I = echelon(gram(tau).left_kernel())
     i = 1
     while p**i <= c and I.nrows:
