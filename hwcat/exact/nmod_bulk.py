@@ -19,6 +19,8 @@ True
 >>> r = read_rows(flint.nmod_mat(3, 2, [1, 2, 3, 4, 5, 6], 7), [2, 0])
 >>> r is None or list(r) == [5, 6, 1, 2]
 True
+>>> power_trace(2, array("q", [1, 1, 0, 1]), 9, 3)   # Tr [[1, 3], [0, 1]] = 2
+2
 """
 
 from __future__ import annotations
@@ -29,7 +31,13 @@ from typing import Any
 
 import flint
 
-__all__ = ["bulk_available", "nmod_mat_from_residues", "read_residues", "read_rows"]
+__all__ = [
+    "bulk_available",
+    "nmod_mat_from_residues",
+    "power_trace",
+    "read_residues",
+    "read_rows",
+]
 
 _LAYOUT: list[int | None] = []  # [word offset of the entries pointer] or [None]
 
@@ -120,3 +128,27 @@ def read_rows(M: Any, rows: Any) -> array | None:
     for i in rows:
         out.frombytes(memoryview((ctypes.c_char * width).from_address(addr + i * width)))
     return out
+
+
+def power_trace(n: int, buf: Any, modulus: int, e: int) -> int | None:
+    """``Tr(X^e) mod modulus`` for the ``n x n`` integer matrix ``X`` whose entries are
+    ``buf`` (int64 in ``[0, modulus)``, row-major): one copy in, squarings, the diagonal
+    read out; ``None`` when the one-piece copy is unavailable."""
+    if n == 0:
+        return 0
+    X = nmod_mat_from_residues(n, n, buf, modulus)
+    if X is None:
+        return None
+    R = None
+    while e:
+        if e & 1:
+            R = X if R is None else R * X
+        e >>= 1
+        if e:
+            X = X * X
+    if R is None:
+        return n % modulus
+    ent = read_residues(R)
+    if ent is None:
+        return None
+    return sum(ent[k * n + k] for k in range(n)) % modulus

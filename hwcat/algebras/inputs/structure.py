@@ -87,6 +87,11 @@ USE_VECTOR = True
 GRAM_VECTOR_MIN = 4096
 """Gram matrices with fewer entries, whose columns hold fewer table terms, are built by
 the plain loop."""
+USE_GROUP_TABLE = True
+"""Switch for the passes by index arrays on group tables (tests compare both paths)."""
+GROUP_TABLE_LIMIT = 5040
+"""Largest dimension whose group table is kept as index arrays (four ``n x n`` arrays
+of 16-bit indices: 200 MB at 5040)."""
 
 
 @dataclass(frozen=True)
@@ -377,6 +382,9 @@ class StructureAlgebra:
         int64 array of residues (vectorised tables only)."""
         np = _np
         p = self._p
+        group = self._group_table()
+        if group is not None:  # (x b_j)_k = x_i with b_i b_j = b_k
+            return X[:, group[2][j]]
         i_a, k_a, c_a = self._np_cols()[j]
         outT = np.zeros((self.dim, X.shape[0]), dtype=np.int64)
         if len(i_a):
@@ -407,6 +415,47 @@ class StructureAlgebra:
             ]
         return self._cache["np_cols"]
 
+    def _group_table(self) -> tuple[Any, Any, Any, Any] | None:
+        """Index arrays of a group table, or ``None``.
+
+        When every product of basis elements is a basis element (coefficient 1) and
+        both ``i -> k`` (``j`` fixed) and ``j -> k`` (``i`` fixed) are bijections, as in
+        the group algebra of a finite group on its elements, the table is ``P[i, j] = k``
+        (``b_i b_j = b_k``) with the solutions ``JR[i, k] = j`` and ``ILT[j, k] = i``
+        (and ``JR`` transposed).
+        Then right multiplication by ``y`` is the matrix ``y[JR]`` and left
+        multiplication by ``x`` is ``x[ILT]``: one gather each, no pass over the table.
+        """
+        if "group" in self._cache:
+            return self._cache["group"]
+        out = None
+        n = self.dim
+        if USE_GROUP_TABLE and self._vectorised() and self.nnz == n * n and n <= GROUP_TABLE_LIMIT:
+            np = _np
+            P = np.full((n, n), -1, dtype=np.int64)
+            ok = True
+            for j, (i_a, k_a, c_a) in enumerate(self._np_cols()):
+                if len(i_a) != n or not (c_a == 1).all():
+                    ok = False
+                    break
+                P[i_a, j] = k_a
+            if ok and int(P.min()) >= 0:  # each column holds every i once
+                ar = np.arange(n, dtype=np.int64)
+                JR = np.full((n, n), -1, dtype=np.int64)
+                np.put_along_axis(JR, P, np.broadcast_to(ar[None, :], (n, n)), axis=1)
+                IL = np.full((n, n), -1, dtype=np.int64)
+                np.put_along_axis(IL, P, np.broadcast_to(ar[:, None], (n, n)), axis=0)
+                if int(JR.min()) >= 0 and int(IL.min()) >= 0:  # n values fill n places
+                    small = np.int16 if n < 2**15 else np.int32
+                    out = (
+                        P.astype(small),
+                        JR.astype(small),
+                        np.ascontiguousarray(IL.T).astype(small),
+                        np.ascontiguousarray(JR.T).astype(small),
+                    )
+        self._cache["group"] = out
+        return out
+
     def _action_dense_vectorised(
         self, y: list[Any], index: Sequence[int] | None, m: int, left: bool, transpose: bool = False
     ) -> Mat:
@@ -415,6 +464,14 @@ class StructureAlgebra:
         np = _np
         p = self._p
         n = self.dim
+        group = self._group_table() if index is None else None
+        if group is not None:
+            yv = np.asarray([int(v) % p for v in y], dtype=np.int64)
+            if left:
+                M = yv[group[2]]  # row j: x b_j, entry k = x_i with b_i b_j = b_k
+            else:  # row i: b_i y, entry k = y_j with b_i b_j = b_k (its transpose: by JR^T)
+                M = yv[group[3]] if transpose else yv[group[1]]
+            return matrix_from_residues(self.field, n, n, M.ravel())
         cols = self._np_cols()
         acc = np.zeros(m * m, dtype=np.int64)
         if index is None:
@@ -480,6 +537,13 @@ class StructureAlgebra:
             p = self._p
             xv = np.asarray([int(v) % p for v in x], dtype=np.int64)
             cv = np.asarray([int(v) % p for v in col], dtype=np.int64)
+            group = self._group_table()
+            if group is not None:  # phi_j = sum_i x_i col(b_i b_j)
+                jj = np.arange(self.dim) if rows is None else np.asarray(list(js), dtype=np.int64)
+                vals = (xv @ cv[group[0][:, jj]]) % p if len(jj) else []
+                for j, v in zip(jj.tolist(), np.asarray(vals).tolist(), strict=True):
+                    phi[j] = int(v)
+                return phi
             npc = self._np_cols()
             for j in js:
                 i_a, k_a, c_a = npc[j]
@@ -527,8 +591,12 @@ class StructureAlgebra:
         np = _np
         p = self._p
         w = len(cols)
-        acc = np.zeros(len(rows) * w, dtype=np.int64)
         pharr = np.asarray([int(x) % p for x in ph], dtype=np.int64)
+        group = self._group_table()
+        if group is not None:  # G[a, c] = phi(b_a b_c)
+            sub = group[0][np.ix_(np.asarray(rows, dtype=np.int64), np.asarray(cols, dtype=np.int64))]
+            return matrix_from_residues(self.field, len(rows), w, pharr[sub].ravel())
+        acc = np.zeros(len(rows) * w, dtype=np.int64)
         rp = np.asarray(rpos, dtype=np.int64)
         npc = self._np_cols()
         for b, c in enumerate(cols):
@@ -662,6 +730,13 @@ class StructureAlgebra:
             by_row = self._row_terms()
             return {i: by_row[i] for i in rows}
         np = _np
+        group = self._group_table()
+        if group is not None:  # b_i b_j = b_(P[i, j]) for every j
+            ar = array("l", range(self.dim))
+            ones = array("q", [1]) * self.dim
+            return {
+                i: (ar, array("l", group[0][i].astype(np.int64).tobytes()), ones) for i in rows
+            }
         want = np.zeros(self.dim, dtype=bool)
         want[np.asarray(list(rows), dtype=np.int64)] = True
         parts: dict[int, tuple[list, list, list]] = {i: ([], [], []) for i in rows}
@@ -702,8 +777,13 @@ class StructureAlgebra:
         cols: Sequence[int] | None = None,
     ) -> Mat:
         """``G[a][c] = phi(b_a * b_c)`` for ``a`` in ``rows``, ``c`` in ``cols`` (default: all)."""
+        return self._gram_raw(self.raw(phi), rows, cols)
+
+    def _gram_raw(
+        self, ph: list[Any], rows: Sequence[int] | None = None, cols: Sequence[int] | None = None
+    ) -> Mat:
+        """:meth:`gram` for ``phi`` in internal coordinates."""
         n = self.dim
-        ph = self.raw(phi)
         rows = list(range(n)) if rows is None else list(rows)
         cols = list(range(n)) if cols is None else list(cols)
         rpos = [-1] * n

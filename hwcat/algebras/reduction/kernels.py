@@ -9,13 +9,47 @@ right multiplication matrices.
 
 from __future__ import annotations
 
+from array import array
 from collections.abc import Sequence
 from typing import Any
 
 from hwcat.algebras.inputs.structure import StructureAlgebra
 from hwcat.errors import InternalInconsistency
-from hwcat.exact import Mat, echelon, restrict_scalars, rows_over_extension
-from hwcat.exact.polys import Poly, lifted_power_trace, select_columns, sparse_matrix
+from hwcat.exact import Mat, PrimeField, echelon, restrict_scalars, rows_over_extension
+from hwcat.exact.nmod_bulk import nmod_mat_from_residues, power_trace, read_residues
+from hwcat.exact.polys import (
+    Poly,
+    lifted_power_trace,
+    matrix_from_residues,
+    select_columns,
+    sparse_matrix,
+)
+
+try:  # optional: the small radical by int64 arrays
+    import numpy as _np
+except ImportError:  # pragma: no cover - numpy is an optional extra
+    _np = None
+
+def residue_matrix(F: Any, nrows: int, ncols: int, buf: Any) -> Mat:
+    """:func:`~hwcat.exact.polys.matrix_from_residues` copied in one piece at every size
+    (the small matrices of the Krylov sequences and of the blocks are many)."""
+    if nrows and ncols:
+        M = nmod_mat_from_residues(nrows, ncols, buf, F.p)
+        if M is not None:
+            return Mat(F, M)
+    return matrix_from_residues(F, nrows, ncols, buf)
+
+
+ARRAY_CORNER_LIMIT = 256
+"""Largest corner whose multiplication matrices are copied into one array (three copies of
+``c^3`` int64 entries: 400 MB at 256)."""
+
+FROBENIUS_WORK = 1 << 26
+"""Largest ``(p - 1) c^3`` for which a commutative corner's radical is found through the
+Frobenius map (the powers ``c_l^p`` of its basis elements take that many products)."""
+
+FAST_SMALL_RADICAL = True
+"""Switch for :func:`_small_radical_arrays` (tests compare both paths)."""
 
 __all__ = [
     "as_row",
@@ -29,6 +63,8 @@ __all__ = [
     "minpoly",
     "small_radical",
     "small_radical_by_restriction",
+    "FAST_SMALL_RADICAL",
+    "residue_matrix",
 ]
 
 
@@ -101,6 +137,7 @@ def chain_step(mats: Sequence[Mat], transposed: Sequence[Mat] | None = None):
             x = T @ x
         return x.transpose()
 
+    step.transposed = Ts  # type: ignore[attr-defined]  # krylov runs on columns with them
     return step
 
 
@@ -108,6 +145,14 @@ def krylov(v0: Mat, Z: Mat | None, step=None, limit: int | None = None) -> tuple
     """Vectors ``v0 Z^a`` up to the first dependency; returns ``(K, c)`` with
     ``v0 Z^d = c @ K`` and ``K`` the ``d`` independent vectors."""
     F = v0.field
+    if isinstance(F, PrimeField):
+        Ts = getattr(step, "transposed", None)
+        if Ts is not None:  # columns: x -> T_k ... T_1 x
+            out = _krylov_columns(v0, v0.transpose(), lambda x: _chain(Ts, x), limit)
+        else:
+            out = _krylov_columns(v0, v0, step if step is not None else (lambda x: x @ Z), limit)
+        if out is not None:
+            return out
     vecs = [v0]
     size = 4
     while True:
@@ -123,6 +168,52 @@ def krylov(v0: Mat, Z: Mat | None, step=None, limit: int | None = None) -> tuple
         size *= 2
     Kd = Mat.vstack(F, vecs[:d], v0.ncols)
     c = Kd.solve_left(vecs[d])
+    if c is None:  # pragma: no cover - rank argument guarantees a solution
+        raise InternalInconsistency("Krylov dependency not found")
+    return Kd, c.entries()
+
+
+def _chain(Ts: Sequence[Mat], x: Mat) -> Mat:
+    for T in Ts:
+        x = T @ x
+    return x
+
+
+def _krylov_columns(v0: Mat, x: Mat, advance, limit: int | None) -> tuple[Mat, list[Any]] | None:
+    """:func:`krylov` over GF(p) with each vector read out of flint once (``x``: ``v0`` as
+    a row or a column -- both hold the same residues -- and ``advance`` the next vector in
+    the same shape); the matrices of the sequence are assembled from those buffers.
+    ``None`` if the one-piece copies are unavailable."""
+    F = v0.field
+    n = v0.ncols
+    first = read_residues(v0._m)
+    if first is None:
+        return None
+    bufs = [first]
+    size = 4
+
+    def stacked(k: int) -> Mat:
+        out = array("q")
+        for b in bufs[:k]:
+            out.extend(b)
+        return residue_matrix(F, k, n, out)
+
+    while True:
+        while len(bufs) < size:
+            x = advance(x)
+            b = read_residues(x._m)
+            if b is None:
+                return None
+            bufs.append(b)
+        r = stacked(len(bufs)).rank()
+        if r < len(bufs):
+            d = r
+            break
+        if limit is not None and len(bufs) > limit + 1:
+            raise InternalInconsistency("Krylov sequence longer than the dimension")
+        size *= 2
+    Kd = stacked(d)
+    c = Kd.solve_left(residue_matrix(F, 1, n, array("q", bufs[d])))
     if c is None:  # pragma: no cover - rank argument guarantees a solution
         raise InternalInconsistency("Krylov dependency not found")
     return Kd, c.entries()
@@ -157,6 +248,10 @@ def small_radical(F, mult: list[Mat]) -> Mat:
     c = len(mult)
     if getattr(F, "degree", 1) > 1 and F.characteristic and F.characteristic <= c:
         return small_radical_by_restriction(F, mult)
+    if FAST_SMALL_RADICAL and _np is not None and isinstance(F, PrimeField) and c:
+        rad = _small_radical_arrays(F, mult)
+        if rad is not None:
+            return rad
     tau = [sum((mult[l][a, a] for a in range(c)), F.zero) for l in range(c)]
 
     def gram(psi: Sequence[Any]) -> Mat:
@@ -193,3 +288,85 @@ def small_radical(F, mult: list[Mat]) -> Mat:
         I = echelon(K @ I) if K.nrows else Mat.zeros(F, 0, c)
         i += 1
     return I
+
+
+def _small_radical_arrays(F: Any, mult: list[Mat]) -> Mat | None:
+    """:func:`small_radical` over GF(p) with the multiplication matrices as one int64 array
+    ``R[l, a, k]`` (the same steps and the same matrices, exactly): Gram matrices by one
+    array product, each lifted trace by one copy into flint modulo ``p^(i+1)``.  ``None``
+    when the sizes do not allow exact int64 sums or the one-piece copies are unavailable."""
+    np = _np
+    p = F.p
+    c = len(mult)
+    if c * (p - 1) ** 2 >= 2**62 or c > ARRAY_CORNER_LIMIT:
+        return None
+    R = np.empty((c, c, c), dtype=np.int64)
+    for l, m in enumerate(mult):
+        b = read_residues(m._m)
+        if b is None or len(b) != c * c:
+            return None
+        R[l] = np.frombuffer(b, dtype=np.int64).reshape(c, c)
+    flat = R.reshape(c * c * c)
+    tau = np.trace(R, axis1=1, axis2=2) % p
+
+    def gram(psi: Any) -> Mat:
+        col = matrix_from_residues(F, c, 1, np.ascontiguousarray(psi % p, dtype=np.int64))
+        G = np.frombuffer(read_residues((byrow @ col)._m), dtype=np.int64).reshape(c, c)
+        return matrix_from_residues(F, c, c, np.ascontiguousarray(G.T).ravel())  # G[a, l]
+
+    if p <= c and (R == R.transpose(1, 0, 2)).all() and (p - 1) * c**3 <= FROBENIUS_WORK:
+        return _commutative_radical(F, R)
+    byrow = matrix_from_residues(F, c * c, c, flat)  # row (l, a): row a of mult[l]
+    bymat = matrix_from_residues(F, c, c * c, flat)  # row l: mult[l] flattened
+    I = echelon(gram(tau).left_kernel())
+    i = 1
+    while p**i <= c and I.nrows:
+        mod = p ** (i + 1)
+        if mod >= 1 << 62:
+            return None
+        piv, T = coords_solver(I)
+        buf = read_residues((I @ bymat)._m)  # row r: sum_l I[r, l] mult[l]
+        if buf is None:
+            return None
+        Xs = np.frombuffer(buf, dtype=np.int64).reshape(I.nrows, c * c)
+        g = []
+        for X in Xs:
+            t = power_trace(c, np.ascontiguousarray(X), mod, p**i)
+            if t is None:
+                return None
+            if t % p**i:
+                raise InternalInconsistency("lifted trace not divisible on a small corner")
+            g.append(F(t // p**i))
+        psi = (
+            select_columns(Mat.identity(F, c), piv) @ (T @ Mat.from_flat(F, len(g), 1, g))
+        ).entries()
+        K = (I @ gram(np.asarray([int(x) for x in psi], dtype=np.int64))).left_kernel()
+        I = echelon(K @ I) if K.nrows else Mat.zeros(F, 0, c)
+        i += 1
+    return I
+
+
+def _commutative_radical(F: Any, R: Any) -> Mat:
+    """The radical of a commutative algebra over GF(p) (``R[l, a, k]``: ``c_a c_l``), as
+    the kernel of a power of the Frobenius map.
+
+    In a commutative algebra of characteristic ``p`` the map ``x -> x^p`` is additive and
+    fixes GF(p), so it is linear, with the rows ``c_l^p`` as its matrix; the radical is the
+    set of nilpotent elements, i.e. the kernel of ``x -> x^(p^k)`` once ``p^k >= c``
+    (common practice).  One small matrix power and one kernel: about one rank.
+    """
+    np = _np
+    p = F.p
+    c = R.shape[0]
+    V = np.ascontiguousarray(R[np.arange(c), np.arange(c), :])  # row l: c_l * c_l
+    for _ in range(p - 2):
+        V = np.einsum("lk,lkm->lm", V, R) % p  # row l: c_l^j * c_l
+    Fr = residue_matrix(F, c, c, np.ascontiguousarray(V, dtype=np.int64).ravel())
+    k, q = 1, p
+    while q < c:
+        k, q = k + 1, q * p
+    P = Fr
+    for _ in range(k - 1):
+        P = P @ Fr
+    K = P.left_kernel()
+    return echelon(K) if K.nrows else Mat.zeros(F, 0, c)

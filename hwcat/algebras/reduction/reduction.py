@@ -91,6 +91,7 @@ from hwcat.algebras.reduction.kernels import (
     krylov,
     minpoly,
     raw_rows,
+    residue_matrix,
     restrict,
     small_radical,
     transfer,
@@ -102,14 +103,20 @@ from hwcat.algebras.reduction.radical import (
     trace_radical,
 )
 from hwcat.algebras.reduction.sketch import sketched_independent_rows, sketched_rank
-from hwcat.errors import InternalInconsistency, NotSplitError, StructureConstantsError
+from hwcat.errors import (
+    HwcatError,
+    InternalInconsistency,
+    NotSplitError,
+    ResourceLimitError,
+    StructureConstantsError,
+    WorkBudgetExceeded,
+)
 from hwcat.exact import Mat, echelon, select_independent_rows, splitting_field_hint
 from hwcat.exact.bulk_rows import take_rows
 from hwcat.exact.polys import (
     Poly,
     fitting_polynomials,
     matrix_from_ints,
-    matrix_from_residues,
     select_columns,
     sparse_matrix,
 )
@@ -167,7 +174,7 @@ class _Class:
 
 def _right_ideal_basis(A: StructureAlgebra, e: list[Any], rows) -> tuple[list[int], Mat]:
     """Basis elements ``b_l`` with ``e b_l`` a basis of ``eA`` (on span(rows)), and those rows."""
-    L = A.left_action(A.vec(e), rows)
+    L = A._action(e, rows, left=True)
     pos = sketched_independent_rows(L)
     rows_list = list(range(A.dim)) if rows is None else list(rows)
     return [rows_list[k] for k in pos], take_rows(L, pos)
@@ -194,10 +201,17 @@ def _corner_data(A: StructureAlgebra, e: list[Any], RT: Mat, index, rows) -> tup
     cvecs = [embed(A, r, index) for r in raw_rows(A, Cb)]
     c = len(corner)
     mult = []  # mult[l][a] = coordinates of c_a * c_l
+    stacked = _np_rows(cvecs) if A._vectorised() else None
     for b in corner:
-        rowsb = [restrict(A._times_basis_raw(v, b), index) for v in cvecs]
-        M = Mat.from_flat(F, c, len(rowsb[0]), [x for r in rowsb for x in r]) @ Rp @ T
-        mult.append(M)
+        if stacked is not None:  # the products with b of all the c_a at once
+            prod = A._times_basis_rows(stacked, b)
+            if index is not None:
+                prod = prod[:, list(index)]
+            P = residue_matrix(F, c, prod.shape[1], _np_contiguous(prod).ravel())
+        else:
+            rowsb = [restrict(A._times_basis_raw(v, b), index) for v in cvecs]
+            P = Mat.from_flat(F, c, len(rowsb[0]), [x for r in rowsb for x in r])
+        mult.append(P @ Rp @ T)
     return Lr, J, corner, Cb, piv, T, mult, Rp
 
 
@@ -229,14 +243,19 @@ def _new_class(A: StructureAlgebra, e: list[Any], RT: Mat, index, rows) -> _Clas
     phi = A._form_of_products(e, col, rows)  # e b_j = 0 outside f A
     # G[a][c] = phi(b_a b_c) = chi(e b_a b_c e) vanishes unless b_c e != 0, i.e. c in index
     cols = None if index is None else list(index)
-    G = A.gram(A.vec(phi), rows=J, cols=cols)
+    G = A._gram_raw(phi, rows=J, cols=cols)
     _, cpiv = G.rref()
     n_simple = len(cpiv)
     if n_simple == 0:
         raise InternalInconsistency("a primitive idempotent with a zero simple module")
-    U = A.gram(A.vec(phi), cols=[c for c in cpiv] if cols is None else [cols[c] for c in cpiv])
+    U = A._gram_raw(phi, cols=[c for c in cpiv] if cols is None else [cols[c] for c in cpiv])
     sec = list(select_independent_rows(U))
-    dim_Ae = _dim_left_ideal(A, e, RT, hint=len(J))
+    if A._group_table() is not None:
+        # a group algebra is symmetric (A ~ D(A) as modules; from memory), so
+        # dim A e = dim Hom_A(e A, A) = dim Hom_A(e A, D(A)) = dim D(e A) = dim e A
+        dim_Ae = len(J)
+    else:
+        dim_Ae = _dim_left_ideal(A, e, RT, hint=len(J))
     rowterms = A._row_terms_of(sec)
     return _Class(
         e,
@@ -292,7 +311,7 @@ def _dim_left_ideal(A: StructureAlgebra, f: list[Any], R: Mat, hint: int = 0) ->
 # the splitting tree
 
 
-@dataclass
+@dataclass(eq=False)  # nodes are compared by identity (a node's family holds the node)
 class _Node:
     f: list[Any]
     index: list[int] | None
@@ -304,6 +323,9 @@ class _Node:
     dim_Af: int | None = None
     attempts: int = 0
     depth: int = 0
+    parent_dim: int | None = None  # dim A f of the parent (the sum over its children)
+    family: list[_Node] | None = None  # the parent's children, this node among them
+    ranks: list[int] = field(default_factory=list)  # dim L f for the first simples found
 
 
 @dataclass
@@ -390,6 +412,11 @@ class _Search:
     def exact_dim(self, node: _Node, at_least: int = 0) -> int:
         """``dim A f`` (``at_least``: a known lower bound, so that a rank by thin products
         starts wide enough)."""
+        if node.dim_Af is None and node.family is not None and node.parent_dim is not None:
+            # f_1 + ... + f_r = f orthogonal: A f is the direct sum of the A f_i
+            others = [k.dim_Af for k in node.family if k is not node]
+            if all(d is not None for d in others):
+                node.dim_Af = node.parent_dim - sum(others)
         if node.dim_Af is None:
             node.dim_Af = (
                 int(self.trace(node.f))
@@ -402,10 +429,18 @@ class _Search:
         """``dim L f`` for the simples found so far (cheap: via their sections)."""
         return [_rank_in_simple(self.A, c, f) for c in self.classes]
 
+    def node_ranks(self, node: _Node) -> list[int]:
+        """:meth:`known_ranks` of the node's idempotent, kept on the node (only the simples
+        found since the last call are added)."""
+        done = node.ranks
+        if len(done) < len(self.classes):
+            done.extend(_rank_in_simple(self.A, c, node.f) for c in self.classes[len(done) :])
+        return list(done)
+
     def screen(self, node: _Node, exact: bool = False) -> str:
         """``skip`` (no new simple in f), ``explore`` or ``defer`` (undecided cheaply; with
         ``exact`` the dimension of ``A f`` is computed instead of deferring)."""
-        r = self.known_ranks(node.f)
+        r = self.node_ranks(node)
         explained = sum(rj * c.dim_Ae for rj, c in zip(r, self.classes, strict=True))
         if self.trace_exact or node.dim_Af is not None or exact:
             unk = self.exact_dim(node, at_least=explained) - explained
@@ -527,7 +562,7 @@ class _Search:
             if kids:
                 scored = []
                 for kid in kids:
-                    known = sum(self.known_ranks(kid.f))
+                    known = sum(self.node_ranks(kid))
                     scored.append(((known > 0, int(self.trace(kid.f)) if self.trace_exact else 0), kid))
                 scored.sort(key=lambda s: s[0])
                 stack.extend(k for _, k in reversed(scored))
@@ -543,7 +578,13 @@ class _Search:
             if isinstance(res, list):
                 node.R = node.RT = None
                 d = node.depth + node.attempts
-                return [_Node(f, node.index, node.rows, node.core, depth=d) for f in res]
+                kids = [
+                    _Node(f, node.index, node.rows, node.core, depth=d, parent_dim=node.dim_Af)
+                    for f in res
+                ]
+                for kid in kids:
+                    kid.family = kids
+                return kids
             g, _ = res
             degrees.append(g.degree)
             # z = lambda f + nilpotent with lambda != 0 is evidence that f A f is local;
@@ -566,7 +607,7 @@ class _Search:
                     continue
                 finally:
                     self.tick("certify", t0)
-                if sum(self.known_ranks(node.f)):
+                if sum(self.node_ranks(node)):
                     raise InternalInconsistency("a primitive idempotent of a known class was kept")
                 if cl.index is None and self.A.dim > KEEP_MATRICES_LIMIT:
                     cl.RT = None  # rebuilt by _class_RT when the basic algebra is assembled
@@ -628,6 +669,11 @@ def _rank_in_simple_vectorised(A: StructureAlgebra, c: _Class, f: list[Any]) -> 
         Ua = c.uarray = np.asarray(c.urows, dtype=np.int64).reshape(A.dim, c.n)
     fv = np.asarray([int(x) % p for x in f], dtype=np.int64)
     out = np.zeros((len(c.sec), A.dim), dtype=np.int64)
+    group = A._group_table()
+    if group is not None:  # b_s f = sum_j f_j b_(P[s, j]): one permutation of f per row
+        out[np.arange(len(c.sec))[:, None], group[0][c.sec]] = fv[None, :]
+        M = (out @ Ua) % p
+        return matrix_from_ints(A.field, len(c.sec), c.n, M.ravel().tolist()).rank()
     for r, s in enumerate(c.sec):
         js, ks, cs = c.rowterms[s]
         if not len(js):
@@ -818,7 +864,7 @@ def _block_sketch(A: StructureAlgebra, RtT: Mat, width: int, seed: int) -> Mat |
     ``R_t``), or ``None`` when the blocks are better found without it."""
     if not (sketch.USE_SKETCH and A._p) or 3 * width > RtT.nrows or RtT.nrows < sketch.MIN_SIZE:
         return None
-    Yt = sketch.random_matrix(A.field, width, RtT.nrows, seed)
+    Yt = sketch.draw(A.field, width, RtT.nrows, seed)
     return (Yt @ RtT).transpose()
 
 
@@ -926,7 +972,7 @@ def _block_products(
                         block = prod[off : off + r]
                         if it is not None:
                             block = block[:, it]
-                        P = matrix_from_residues(F, r, block.shape[1], block.ravel().copy())
+                        P = residue_matrix(F, r, block.shape[1], block.ravel().copy())
                     else:
                         xs = [embed(A, x, classes[u].index) for x in raw_rows(A, basis[(s, u)])]
                         prods = [restrict(A._times_basis_raw(x, l), it) for x in xs]
@@ -940,6 +986,12 @@ def _np_rows(rows: list[list[int]]) -> Any:
     import numpy as np
 
     return np.asarray(rows, dtype=np.int64)
+
+
+def _np_contiguous(X: Any) -> Any:
+    import numpy as np
+
+    return np.ascontiguousarray(X, dtype=np.int64)
 
 
 def _assemble(A: StructureAlgebra, classes: list[_Class], name: str) -> BasicAlgebra:
@@ -1119,7 +1171,34 @@ def reduce_algebra(
     NotSplitError
         When a simple module is not absolutely irreducible over the field, or no
         splitting element is found; the message names the corner and the remedy.
+
+    Notes
+    -----
+    Ranks of large matrices go through thin random products
+    (:mod:`~hwcat.algebras.reduction.sketch`); when a check fails after such a draw,
+    the reduction runs once more without them, so the result never depends on the draw.
     """
+    drawn = sketch.DRAWS
+    try:
+        return _reduce(A, seed, idempotents, method)
+    except (ResourceLimitError, WorkBudgetExceeded):
+        raise
+    except (HwcatError, ArithmeticError, LookupError, ValueError):
+        # an unlucky thin random product can only make a dimension too small, which the
+        # closing checks catch (or which spoils a corner and fails a step further on):
+        # once more by plain elimination, whose failures are the algebra's own
+        if sketch.DRAWS == drawn:
+            raise
+    with sketch.disabled():
+        return _reduce(A, seed, idempotents, method)
+
+
+def _reduce(
+    A: StructureAlgebra,
+    seed: int,
+    idempotents: Sequence[Sequence[Any]] | None,
+    method: str,
+) -> Reduction:
     timings: dict[str, float] = {}
     t0 = time.perf_counter()
     if idempotents is not None:

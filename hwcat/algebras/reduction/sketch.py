@@ -17,7 +17,10 @@ in the span of earlier rows of ``M X`` but not of ``M`` would give a nonzero
 vector of the row space killed by ``X``), so the results do not depend on the
 random matrix.  An unlucky draw can only make a dimension too small; the
 reduction's closing identities ``dim A = sum dim L(i) dim P(i)`` (for right and
-left projectives) then fail loudly, they never pass with a wrong value.
+left projectives) then fail, they never pass with a wrong value.  The reduction
+counts the draws (:data:`DRAWS`) and, when its checks fail after some draw, runs
+once more with the thin products switched off (:func:`disabled`): the answer is
+always exact, only its time is random (Las Vegas).
 
 >>> from hwcat.exact import GF, Mat
 >>> F = GF(2)
@@ -31,6 +34,8 @@ True
 from __future__ import annotations
 
 import random
+from collections.abc import Iterator
+from contextlib import contextmanager
 from typing import Any
 
 from hwcat.exact import Mat, PrimeField, select_independent_rows
@@ -41,7 +46,16 @@ try:  # optional: random residues in one call
 except ImportError:  # pragma: no cover - numpy is an optional extra
     _np = None
 
-__all__ = ["MARGIN", "USE_SKETCH", "random_matrix", "sketched_rank", "sketched_independent_rows"]
+__all__ = [
+    "DRAWS",
+    "MARGIN",
+    "USE_SKETCH",
+    "disabled",
+    "draw",
+    "random_matrix",
+    "sketched_independent_rows",
+    "sketched_rank",
+]
 
 MARGIN = 24
 """Columns beyond the rank found: an unlucky draw has probability below ``2^-24``."""
@@ -50,6 +64,28 @@ USE_SKETCH = True
 """Switch for the thin random products (tests compare both paths)."""
 MIN_SIZE = 256
 """Matrices with fewer rows or columns are eliminated directly."""
+DRAWS = 0
+"""Number of random matrices drawn so far (the reduction reruns without sketches when its
+closing checks fail after a draw)."""
+
+
+@contextmanager
+def disabled() -> Iterator[None]:
+    """Switch the thin random products off inside the block (plain elimination)."""
+    global USE_SKETCH
+    old = USE_SKETCH
+    USE_SKETCH = False
+    try:
+        yield
+    finally:
+        USE_SKETCH = old
+
+
+def draw(F: Any, nrows: int, ncols: int, seed: int) -> Mat:
+    """:func:`random_matrix`, counted in :data:`DRAWS`."""
+    global DRAWS
+    DRAWS += 1
+    return random_matrix(F, nrows, ncols, seed)
 
 
 def random_matrix(F: Any, nrows: int, ncols: int, seed: int) -> Mat:
@@ -73,7 +109,7 @@ def sketched_rank(M: Mat, seed: int = 0, hint: int = 0) -> int:
         n = M.ncols
         w = max(START_WIDTH, hint + 2 * MARGIN)
         while 3 * w <= min(M.nrows, n):
-            r = (M @ random_matrix(M.field, n, w, seed + w)).rank()
+            r = (M @ draw(M.field, n, w, seed + w)).rank()
             if r + MARGIN <= w:
                 return r
             w *= 4
@@ -87,7 +123,7 @@ def sketched_independent_rows(M: Mat, seed: int = 0) -> list[int]:
         n = M.ncols
         w = START_WIDTH
         while 3 * w <= min(M.nrows, n):
-            pos = select_independent_rows(M @ random_matrix(M.field, n, w, seed + w))
+            pos = select_independent_rows(M @ draw(M.field, n, w, seed + w))
             if len(pos) + MARGIN <= w:
                 return pos
             w *= 4
