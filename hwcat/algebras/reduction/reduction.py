@@ -324,7 +324,10 @@ class _Node:
     attempts: int = 0
     depth: int = 0
     parent_dim: int | None = None  # dim A f of the parent (the sum over its children)
-    family: list[_Node] | None = None  # the parent's children, this node among them
+    # dim A f of the parent's children, shared by them (a list of numbers, not of the
+    # nodes: a finished sibling and its dense matrices must not be kept alive)
+    family: list[int | None] | None = None
+    slot: int = 0  # this node's place in ``family``
     ranks: list[int] = field(default_factory=list)  # dim L f for the first simples found
 
 
@@ -414,7 +417,7 @@ class _Search:
         starts wide enough)."""
         if node.dim_Af is None and node.family is not None and node.parent_dim is not None:
             # f_1 + ... + f_r = f orthogonal: A f is the direct sum of the A f_i
-            others = [k.dim_Af for k in node.family if k is not node]
+            others = [d for i, d in enumerate(node.family) if i != node.slot]
             if all(d is not None for d in others):
                 node.dim_Af = node.parent_dim - sum(others)
         if node.dim_Af is None:
@@ -423,6 +426,8 @@ class _Search:
                 if self.trace_exact
                 else sketched_rank(self.ensure_RT(node), hint=at_least)
             )
+        if node.family is not None:
+            node.family[node.slot] = node.dim_Af
         return node.dim_Af
 
     def known_ranks(self, f: list[Any]) -> list[int]:
@@ -563,7 +568,9 @@ class _Search:
                 scored = []
                 for kid in kids:
                     known = sum(self.node_ranks(kid))
-                    scored.append(((known > 0, int(self.trace(kid.f)) if self.trace_exact else 0), kid))
+                    scored.append(
+                        ((known > 0, int(self.trace(kid.f)) if self.trace_exact else 0), kid)
+                    )
                 scored.sort(key=lambda s: s[0])
                 stack.extend(k for _, k in reversed(scored))
 
@@ -578,13 +585,20 @@ class _Search:
             if isinstance(res, list):
                 node.R = node.RT = None
                 d = node.depth + node.attempts
-                kids = [
-                    _Node(f, node.index, node.rows, node.core, depth=d, parent_dim=node.dim_Af)
-                    for f in res
+                dims: list[int | None] = [None] * len(res)
+                return [
+                    _Node(
+                        f,
+                        node.index,
+                        node.rows,
+                        node.core,
+                        depth=d,
+                        parent_dim=node.dim_Af,
+                        family=dims,
+                        slot=i,
+                    )
+                    for i, f in enumerate(res)
                 ]
-                for kid in kids:
-                    kid.family = kids
-                return kids
             g, _ = res
             degrees.append(g.degree)
             # z = lambda f + nilpotent with lambda != 0 is evidence that f A f is local;
@@ -718,6 +732,7 @@ def _residue_check(A: StructureAlgebra, mult: list[Mat], rad: Mat, rng: random.R
         Q = Mat.vstack(F, [rad, Mat.unit_rows(F, c, comp)], c)
     d = c - rad.nrows
     Qi = Q.inverse()  # coordinates in the basis (rad, complement)
+
     def residue_minpoly(x: list[Any]) -> list[tuple[Poly, int]]:
         # right multiplication by x on the quotient corner / rad
         Rx = Mat.zeros(F, c, c)
@@ -923,8 +938,10 @@ def _find_blocks(
             pos = select_independent_rows(X) if X.nrows else []
             B = X.take_rows(pos) if pos else Mat.zeros(F, 0, X.ncols)
         else:
-            B = (RtT @ take_rows(Ls, pos).transpose()).transpose() if pos else Mat.zeros(
-                F, 0, RtT.nrows
+            B = (
+                (RtT @ take_rows(Ls, pos).transpose()).transpose()
+                if pos
+                else Mat.zeros(F, 0, RtT.nrows)
             )
         gen[(s, t)] = [cs.J[k] for k in pos]
         if s == t and gen[(s, t)] != cs.corner:
@@ -954,7 +971,9 @@ def _block_products(
     for u in range(m):
         stacked = None
         if vector and any(dims[(s, u)] for s in range(m)):
-            rows = [embed(A, r, classes[u].index) for s in range(m) for r in raw_rows(A, basis[(s, u)])]
+            rows = [
+                embed(A, r, classes[u].index) for s in range(m) for r in raw_rows(A, basis[(s, u)])
+            ]
             stacked = _np_rows(rows)
         for t in range(m):
             it = classes[t].index
