@@ -34,7 +34,12 @@ from dataclasses import dataclass, field
 from math import comb
 from typing import Any
 
-from hwcat.errors import CoefficientError, SpecError, StructureConstantsError
+from hwcat.errors import (
+    CoefficientError,
+    InternalInconsistency,
+    SpecError,
+    StructureConstantsError,
+)
 from hwcat.exact.fields import QQ, Field, PrimeField, parse_field
 from hwcat.limits import check_products, current_limits, limit_error
 
@@ -727,14 +732,16 @@ def _permutation_columns(perms: list[tuple[int, ...]]) -> list[tuple[array, arra
     N, n = len(perms), len(perms[0])
     P = np.asarray(perms, dtype=np.int64).reshape(N, n)
     weights = n ** np.arange(n - 1, -1, -1, dtype=np.int64)
-    lookup = np.full(n**n, -1, dtype=np.int64)
-    lookup[P @ weights] = np.arange(N, dtype=np.int64)
+    keys = P @ weights  # increasing: the order of perms is lexicographic
+    if N > 1 and not bool(np.all(keys[1:] > keys[:-1])):
+        raise InternalInconsistency("the permutations are not in lexicographic order")
     I = array("q", np.arange(N, dtype=np.int64).tobytes())
     C = array("q", np.ones(N, dtype=np.int64).tobytes())
     out = []
     for t in perms:
-        K = lookup[P[:, list(t)] @ weights]
-        out.append((I, array("q", K.tobytes()), C))
+        # the index of each product by binary search among the n! keys (no n^n table)
+        K = np.searchsorted(keys, P[:, list(t)] @ weights)
+        out.append((I, array("q", K.astype(np.int64).tobytes()), C))
     return out
 
 
