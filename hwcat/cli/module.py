@@ -38,16 +38,10 @@ def _spin_chain(spec, identify: bool):
 
 
 def _coproduct(spec, args: argparse.Namespace):
-    from hwcat.algebras.families.coproducts import (
-        family_coproduct,
-        group_coproduct,
-        quantum_sl2_coproduct,
-    )
+    from hwcat.algebras.families.coproducts import coproduct_by_name, family_coproduct
 
-    if args.coproduct == "group":
-        c = group_coproduct()
-    elif args.coproduct == "quantum-sl2":
-        c = quantum_sl2_coproduct()
+    if args.coproduct is not None:
+        c = coproduct_by_name(args.coproduct)
     elif spec.kind == "family":
         c = family_coproduct(str(spec.table.get("name")), spec.table)
     else:

@@ -288,23 +288,17 @@ def tensor_product(
     >>> T.dim, sorted(T.generators)
     (4, ['E', 'F', 'K'])
     """
-    from hwcat.algebras.families.coproducts import (
-        Coproduct,
-        group_coproduct,
-        quantum_sl2_coproduct,
-    )
+    from hwcat.algebras.families.coproducts import Coproduct, coproduct_by_name
 
     if M.field is not N.field:
         raise StructureConstantsError(f"tensor product of modules over {M.field} and {N.field}")
     if isinstance(coproduct, str):
-        if coproduct == "group":
-            coproduct = group_coproduct()
-        elif coproduct == "quantum-sl2":
-            coproduct = quantum_sl2_coproduct()
-        else:
+        named = coproduct_by_name(coproduct)
+        if named is None:
             raise StructureConstantsError(
                 f"coproduct {coproduct!r}: 'group' (g -> g (x) g) or 'quantum-sl2' are known"
             )
+        coproduct = named
     if not isinstance(coproduct, Coproduct):
         raise StructureConstantsError(f"coproduct {coproduct!r}: not a Coproduct")
     if coproduct.kind == "group":

@@ -43,7 +43,14 @@ from typing import Any
 
 from hwcat.errors import SpecError
 
-__all__ = ["Coproduct", "group_coproduct", "quantum_sl2_coproduct", "family_coproduct"]
+__all__ = [
+    "COPRODUCT_NAMES",
+    "Coproduct",
+    "coproduct_by_name",
+    "family_coproduct",
+    "group_coproduct",
+    "quantum_sl2_coproduct",
+]
 
 
 @dataclass(frozen=True)
@@ -89,6 +96,19 @@ def quantum_sl2_coproduct() -> Coproduct:
         },
         "u_q(sl_2): E -> E (x) K + 1 (x) E, F -> F (x) 1 + K^-1 (x) F, K -> K (x) K",
     )
+
+
+COPRODUCT_NAMES = ("group", "quantum-sl2")
+"""Names accepted by :func:`coproduct_by_name` (and ``--coproduct``)."""
+
+
+def coproduct_by_name(name: str) -> Coproduct | None:
+    """``"group"`` (``g -> g (x) g``) or ``"quantum-sl2"``; ``None`` for other names."""
+    if name == "group":
+        return group_coproduct()
+    if name == "quantum-sl2":
+        return quantum_sl2_coproduct()
+    return None
 
 
 def family_coproduct(family: str, params: Mapping[str, Any]) -> Coproduct | None:
