@@ -205,16 +205,8 @@ def loewy_diagram(module: Module, *, method: str = "auto") -> LoewyDiagram:
         reps.append(nxt)
         add_layer(k + 1)
     # node indices of the layer below were assigned after the edges were read
-    edges = sorted(edge_arrows)
-    resolved = [(u, index[w]) for u, w in edges]
-    order = sorted(range(len(edges)), key=lambda e: resolved[e])
     free = all(r.nrows <= 1 for layer in reps for r in layer.values())
-    return LoewyDiagram(
-        nodes=tuple(nodes),
-        edges=tuple(resolved[e] for e in order),
-        edge_arrows=tuple(tuple(edge_arrows[edges[e]]) for e in order),
-        multiplicity_free=free,
-    )
+    return _diagram(nodes, edge_arrows, index, free)
 
 
 def _loewy_diagram_sparse(module: Module) -> LoewyDiagram:
@@ -310,16 +302,8 @@ def _loewy_diagram_sparse(module: Module) -> LoewyDiagram:
             nxt[t] = kept
         reps.append(nxt)
         add_layer(k + 1)
-    edges = sorted(edge_arrows)
-    resolved = [(u, index[w]) for u, w in edges]
-    order = sorted(range(len(edges)), key=lambda e: resolved[e])
     free = all(len(r) <= 1 for layer in reps for r in layer.values())
-    return LoewyDiagram(
-        nodes=tuple(nodes),
-        edges=tuple(resolved[e] for e in order),
-        edge_arrows=tuple(tuple(edge_arrows[edges[e]]) for e in order),
-        multiplicity_free=free,
-    )
+    return _diagram(nodes, edge_arrows, index, free)
 
 
 def _loewy_diagram_sets(module: Module) -> LoewyDiagram:
@@ -394,10 +378,16 @@ def _loewy_diagram_sets(module: Module) -> LoewyDiagram:
             nxt[t] = kept
         reps.append(nxt)
         add_layer(k + 1)
+    free = all(len(r) <= 1 for layer in reps for r in layer.values())
+    return _diagram(nodes, edge_arrows, index, free)
+
+
+def _diagram(nodes, edge_arrows: dict, index: dict, free: bool) -> LoewyDiagram:
+    """The diagram from its nodes and its edges keyed by node keys (each route's
+    node indices of a layer are assigned after the edges into it were read)."""
     edges = sorted(edge_arrows)
     resolved = [(u, index[w]) for u, w in edges]
     order = sorted(range(len(edges)), key=lambda e: resolved[e])
-    free = all(len(r) <= 1 for layer in reps for r in layer.values())
     return LoewyDiagram(
         nodes=tuple(nodes),
         edges=tuple(resolved[e] for e in order),

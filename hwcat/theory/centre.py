@@ -31,7 +31,7 @@ import sys
 from dataclasses import dataclass, field
 from typing import TYPE_CHECKING, Any
 
-from hwcat.algebras.hub.basic import BasicAlgebra
+from hwcat.algebras.hub.basic import BasicAlgebra, combination_text
 from hwcat.exact import Mat, echelon
 from hwcat.exact.sparse import sparse_rows
 
@@ -239,19 +239,8 @@ def hub_centre(B: BasicAlgebra, *, method: str = "auto") -> Centre:
         terms = []
         for j in sorted(row):
             s, k, full = where[j]
-            c = row[j]
-            vec[full] = c
-            p = B.path_text(B.words[s][s][k], s)
-            cs = str(c)
-            if cs == "1":
-                terms.append(f"+ {p}")
-            elif cs == "-1":
-                terms.append(f"- {p}")
-            elif cs.startswith("-"):
-                terms.append(f"- {cs[1:]}*{p}")
-            else:
-                terms.append(f"+ {cs}*{p}")
-        text = " ".join(terms)
-        texts.append(text[2:] if text.startswith("+ ") else "-" + text[2:])
+            vec[full] = row[j]
+            terms.append((row[j], B.path_text(B.words[s][s][k], s)))
+        texts.append(combination_text(terms))
         basis.append(tuple(vec))
     return Centre(None, tuple(basis), tuple(texts))

@@ -58,6 +58,25 @@ class _ActionRow(Sequence):
         return self._A.action_matrix(self._s, i)
 
 
+def combination_text(terms: Iterable[tuple[Any, str]]) -> str:
+    """``[(2, "a"), (-1, "b*c")]`` -> ``"2*a - b*c"`` (nonzero coefficients; ``"0"`` if none)."""
+    parts = []
+    for c, p in terms:
+        cs = str(c)
+        if cs == "1":
+            parts.append(f"+ {p}")
+        elif cs == "-1":
+            parts.append(f"- {p}")
+        elif cs.startswith("-"):
+            parts.append(f"- {cs[1:]}*{p}")
+        else:
+            parts.append(f"+ {cs}*{p}")
+    if not parts:
+        return "0"
+    text = " ".join(parts)
+    return text[2:] if text.startswith("+ ") else "-" + text[2:]
+
+
 class BasicAlgebra:
     """A split basic algebra given by its quiver and right regular representation.
 
@@ -259,24 +278,11 @@ class BasicAlgebra:
     def element_text(self, s: int, t: int, vec: Mat | Sequence[Any]) -> str:
         """A vector of ``e_s A e_t`` as a combination of basis paths."""
         entries = vec.entries() if isinstance(vec, Mat) else list(vec)
-        terms = []
-        for c, w in zip(entries, self.words[s][t], strict=True):
-            if c == 0:
-                continue
-            p = self.path_text(w, s)
-            cs = str(c)
-            if cs == "1":
-                terms.append(f"+ {p}")
-            elif cs == "-1":
-                terms.append(f"- {p}")
-            elif cs.startswith("-"):
-                terms.append(f"- {cs[1:]}*{p}")
-            else:
-                terms.append(f"+ {cs}*{p}")
-        if not terms:
-            return "0"
-        text = " ".join(terms)
-        return text[2:] if text.startswith("+ ") else "-" + text[2:]
+        return combination_text(
+            (c, self.path_text(w, s))
+            for c, w in zip(entries, self.words[s][t], strict=True)
+            if c != 0
+        )
 
     # -- consistency -------------------------------------------------------------
     def _check_action(self, action: Sequence[Sequence[Mat]]) -> None:
