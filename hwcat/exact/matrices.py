@@ -29,7 +29,8 @@ from collections.abc import Iterable, Sequence
 from typing import Any
 
 from hwcat.errors import InternalInconsistency
-from hwcat.exact.fields import Field, PrimeField
+from hwcat.exact.blockmat import BlockMatrix
+from hwcat.exact.fields import Field, PrimeField, RationalField
 from hwcat.exact.nmod_bulk import nmod_mat_from_residues, read_residues
 
 _BULK_MIN = 1024  # matrices over GF(p) with this many entries are moved in one piece
@@ -49,12 +50,22 @@ __all__ = [
 
 _EMPTY: dict[tuple, Mat] = {}  # shared 0 x n and n x 0 matrices
 
+_new = object.__new__
+
 
 class Mat:
     """An exact matrix over a field (row-vector convention).
 
     Create with :meth:`from_rows`, :meth:`zeros`, :meth:`identity` or
     :meth:`from_flat`; never pass flint objects in from above this layer.
+
+    Notes
+    -----
+    The operations on small matrices cost little more than flint's own call
+    (see ``benchmarks/bench_matrices.py``): inputs are checked where they
+    enter (:meth:`from_rows`, mixing fields), results are built with
+    :meth:`_wrap` (no ``__init__`` call), shape errors are left to flint and
+    only translated, and shapes are read only where an answer depends on them.
     """
 
     __slots__ = ("field", "_m")
@@ -62,6 +73,14 @@ class Mat:
     def __init__(self, field: Field, raw: Any) -> None:
         self.field = field
         self._m = raw
+
+    @staticmethod
+    def _wrap(field: Field, raw: Any) -> Mat:
+        """A ``Mat`` around the backend matrix ``raw`` over ``field`` (no checks, no copy)."""
+        out = _new(Mat)
+        out.field = field
+        out._m = raw
+        return out
 
     # -- construction ------------------------------------------------------
     @classmethod
@@ -151,7 +170,8 @@ class Mat:
     def __eq__(self, other: object) -> bool:
         if not isinstance(other, Mat):
             return NotImplemented
-        return self.field is other.field and self.shape == other.shape and self._m == other._m
+        # flint's == (and BlockMatrix's) answers False for matrices of different shapes
+        return self.field is other.field and self._m == other._m
 
     def __hash__(self) -> int:  # matrices are mutable in flint; hash by content
         return hash((self.field.name, self.shape, tuple(str(x) for x in self._m.entries())))
@@ -164,45 +184,68 @@ class Mat:
         return f"Mat({self.field}, {self.tolist()})"
 
     # -- arithmetic ----------------------------------------------------------
-    def _check(self, other: Mat) -> None:
-        if other.field is not self.field:
-            raise InternalInconsistency(f"matrices over {self.field} and {other.field} mixed")
-
+    # The hot paths: one identity test of the fields, flint's operation (which checks
+    # the shapes and handles empty matrices; its ValueError is translated) and the
+    # result built in place of a call to Mat(...).
     def __matmul__(self, other: Mat) -> Mat:
-        # the hot path: one identity test and flint's product (which checks the shapes
-        # and handles empty matrices); about 2x a bare flint product on 2 x 2 matrices
         field = self.field
         if other.field is not field:
             raise InternalInconsistency(f"matrices over {field} and {other.field} mixed")
         try:
-            return Mat(field, self._m * other._m)
+            raw = self._m * other._m
         except ValueError:
             raise InternalInconsistency(
                 f"cannot multiply {self.shape} by {other.shape}"
             ) from None
+        out = _new(Mat)
+        out.field = field
+        out._m = raw
+        return out
 
     def __add__(self, other: Mat) -> Mat:
-        self._check(other)
-        if self.shape != other.shape:
-            raise InternalInconsistency(f"cannot add {self.shape} and {other.shape}")
-        return Mat(self.field, self._m + other._m)
+        field = self.field
+        if other.field is not field:
+            raise InternalInconsistency(f"matrices over {field} and {other.field} mixed")
+        try:
+            raw = self._m + other._m
+        except ValueError:
+            raise InternalInconsistency(f"cannot add {self.shape} and {other.shape}") from None
+        out = _new(Mat)
+        out.field = field
+        out._m = raw
+        return out
 
     def __sub__(self, other: Mat) -> Mat:
-        self._check(other)
-        if self.shape != other.shape:
-            raise InternalInconsistency(f"cannot subtract {self.shape} and {other.shape}")
-        return Mat(self.field, self._m - other._m)
+        field = self.field
+        if other.field is not field:
+            raise InternalInconsistency(f"matrices over {field} and {other.field} mixed")
+        try:
+            raw = self._m - other._m
+        except ValueError:
+            raise InternalInconsistency(
+                f"cannot subtract {self.shape} and {other.shape}"
+            ) from None
+        out = _new(Mat)
+        out.field = field
+        out._m = raw
+        return out
 
     def __neg__(self) -> Mat:
-        return Mat(self.field, -self._m)
+        out = _new(Mat)
+        out.field = self.field
+        out._m = -self._m
+        return out
 
     def scale(self, c: Any) -> Mat:
         if self.nrows == 0 or self.ncols == 0:
             return self
-        return Mat(self.field, self._m * self.field(c))
+        return Mat._wrap(self.field, self._m * self.field(c))
 
     def transpose(self) -> Mat:
-        return Mat(self.field, self._m.transpose())
+        out = _new(Mat)
+        out.field = self.field
+        out._m = self._m.transpose()
+        return out
 
     @property
     def T(self) -> Mat:
@@ -323,11 +366,19 @@ class Mat:
         """Reduced row echelon form: ``(R, pivots)`` with R holding only the nonzero rows."""
         m = self._m
         r, c = m.nrows(), m.ncols()
-        if r == 0 or c == 0:
-            return Mat.zeros(self.field, 0, c), ()
+        if r * c < _BULK_MIN:  # the small path, inlined (flint's rref handles empty matrices)
+            R, rank = m.rref()
+            if rank == c:  # row i's pivot is at least i: the pivots are the first c columns
+                pivots = _RANGES[rank]  # rank <= min(r, c) < 32 here
+            elif not rank:
+                return Mat.zeros(self.field, 0, c), ()
+            else:
+                pivots = _pivots(R, rank, c)
+            out = _new(Mat)
+            out.field = field = self.field
+            out._m = R if rank == r else _selection(field, rank, r) * R
+            return out, pivots
         R, rank = m.rref()
-        if r * c < _BULK_MIN:
-            return _small_echelon(self.field, R, rank, r, c)
         buf = self._residues()  # None unless one-piece copies work for this matrix
         if buf is not None:
             buf = read_residues(R)
@@ -376,18 +427,24 @@ class Mat:
             return Mat.zeros(self.field, 0, 0)
         if r == 0:
             return Mat.identity(self.field, c)
-        if isinstance(self.field, PrimeField) and r * c < _BULK_MIN:
-            # flint's nullspace is this basis, as the first ``nullity`` columns
-            X, nullity = m.nullspace()
-            if not nullity:
-                return Mat.zeros(self.field, 0, c)
-            X = X.transpose()
-            if nullity < c:
-                X = _selection(self.field, nullity, c) * X
-            return Mat(self.field, X)
-        if r * c < _BULK_MIN:  # the zero rows of flint's echelon form need not be dropped
+        field = self.field
+        if r * c < _BULK_MIN:
+            if isinstance(field, PrimeField):
+                # flint's nullspace is this basis, as the first ``nullity`` columns
+                X, nullity = m.nullspace()
+                if not nullity:
+                    return Mat.zeros(field, 0, c)
+                X = X.transpose()
+                if nullity < c:
+                    X = _selection(field, nullity, c) * X
+                return Mat._wrap(field, X)
+            # the zero rows of flint's echelon form need not be dropped
             Rm, rank = m.rref()
+            if rank == c:
+                return Mat.zeros(field, 0, c)
             piv = _pivots(Rm, rank, c)
+            if isinstance(field, RationalField):
+                return Mat._wrap(field, _rational_kernel(Rm, piv, c))
         else:
             R, piv = self.rref()
             Rm = R._m
@@ -413,13 +470,24 @@ class Mat:
     def solve_left(self, b: Mat) -> Mat | None:
         """Some ``X`` with ``X @ self == b``, or ``None`` when there is none."""
         # X A = B  <=>  A^T X^T = B^T
-        if b.ncols != self.ncols:
+        m, bm = self._m, b._m
+        n, c = m.nrows(), m.ncols()
+        if bm.ncols() != c:
             raise InternalInconsistency("solve_left: column counts differ")
-        n = self.nrows
-        if b.nrows == 0:
+        nb = bm.nrows()
+        if nb == 0:
             return Mat.zeros(self.field, 0, n)
         if n == 0:
-            return Mat.zeros(self.field, b.nrows, 0) if b.is_zero() else None
+            return Mat.zeros(self.field, nb, 0) if b.is_zero() else None
+        if n == c and not isinstance(m, BlockMatrix):
+            # a square system: flint's solver answers unless the matrix is singular,
+            # and then the solution is unique (the one the echelon form below gives)
+            try:
+                X = m.transpose().solve(bm.transpose())
+            except ZeroDivisionError:
+                pass
+            else:
+                return Mat._wrap(self.field, X.transpose())
         aug = Mat.hstack(self.field, [self.transpose(), b.transpose()])
         R, piv = aug.rref()
         if any(p >= n for p in piv):
@@ -433,14 +501,40 @@ class Mat:
         return Mat(self.field, X).transpose()
 
     def inverse(self) -> Mat:
-        if self.nrows != self.ncols:
+        m = self._m
+        n = m.nrows()
+        if n != m.ncols():
             raise InternalInconsistency("inverse of a non-square matrix")
-        if self.nrows == 0:
+        if n == 0:
             return self
-        return Mat(self.field, self._m.inv())
+        out = _new(Mat)
+        out.field = self.field
+        out._m = m.inv()
+        return out
 
 
 # -- small echelon forms ---------------------------------------------------------------
+
+
+def _rational_kernel(R: Any, piv: tuple[int, ...], c: int) -> Any:
+    """The kernel basis of :meth:`Mat.right_kernel` from flint's echelon form ``R`` over QQ.
+
+    The entries go into one list and into flint in one call: reading only the
+    entries right of each pivot and building the matrix once costs a fraction
+    of writing the entries into a zero matrix one by one.
+    """
+    ps = set(piv)
+    free = [j for j in range(c) if j not in ps]
+    flat: list = [0] * (len(free) * c)
+    for k, f in enumerate(free):
+        flat[k * c + f] = 1
+    for i, p in enumerate(piv):
+        for k, f in enumerate(free):
+            if f > p:  # entries left of a pivot are zero
+                x = R[i, f]
+                if x:
+                    flat[k * c + p] = -x
+    return R.__class__(len(free), c, flat)
 
 _SELECT: dict[tuple, Any] = {}  # (field, k, n) -> the first k rows of the n x n identity (flint)
 _SELECT_MAX = 64
@@ -469,13 +563,14 @@ _RANGES = [tuple(range(k)) for k in range(_SELECT_MAX + 1)]
 
 def _pivots(R: Any, rank: int, c: int) -> tuple[int, ...]:
     """The pivot columns of a flint reduced echelon form ``R`` of rank ``rank``."""
-    if rank <= _SELECT_MAX and (rank == c or (rank and R[rank - 1, rank - 1] != 0)):
+    # entries are tested by truth value (comparing with 0 converts the 0 first)
+    if rank <= _SELECT_MAX and (rank == c or (rank and R[rank - 1, rank - 1])):
         # row i's pivot is at least i, so a nonzero at (rank-1, rank-1) pins them all
         return _RANGES[rank]
     piv = []
     j = 0
     for i in range(rank):
-        while R[i, j] == 0:
+        while not R[i, j]:
             j += 1
         piv.append(j)
         j += 1
