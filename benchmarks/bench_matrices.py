@@ -149,10 +149,20 @@ def cases(F, n: int, rng: random.Random) -> tuple[dict, list[tuple[str, str, str
     a2 = Mat.from_rows(F, a.tolist())  # equal to a, another object: == reads every entry
     ra, rb, rh, ra2 = a._m, b._m, h._m, a2._m
     raw_type, modulus = type(ra), (() if F is QQ else (F.p,))
-    env = dict(globals(), a=a, b=b, h=h, a2=a2, ra=ra, rb=rb, rh=rh, ra2=ra2,
-               S_half=selection(raw_type, n // 2, n, *modulus),
-               S_null=selection(raw_type, n - n // 2, n, *modulus),
-               pieces=kernel_pieces(rh) if F is QQ else None)
+    env = dict(
+        globals(),
+        a=a,
+        b=b,
+        h=h,
+        a2=a2,
+        ra=ra,
+        rb=rb,
+        rh=rh,
+        ra2=ra2,
+        S_half=selection(raw_type, n // 2, n, *modulus),
+        S_null=selection(raw_type, n - n // 2, n, *modulus),
+        pieces=kernel_pieces(rh) if F is QQ else None,
+    )
     kernel_primitive = "rh.rref()" if F is QQ else "rh.nullspace()"
     kernel_job = "raw_kernel_rational(rh, pieces)" if F is QQ else "raw_kernel_mod_p(rh, S_null)"
     ops = [  # (operation, through Mat, flint's primitive, the same job on flint's matrices)
@@ -190,13 +200,38 @@ def main() -> None:
                 small = n <= 4
                 if ratio > worst[small][0]:
                     worst[small] = (ratio, f"{F} {n}x{n} {op}")
-                rows.append([F.name, f"{n}x{n}", op, f"{tw:.2f}", f"{tp:.2f}",
-                             f"{tj:.2f}" if job else "=", f"{ratio:.1f}x", f"{tw / tp:.1f}x"])
-    print(table(rows, ["field", "size", "operation", "Mat us", "flint us", "same job us",
-                       "ratio", "vs primitive"]))
+                rows.append(
+                    [
+                        F.name,
+                        f"{n}x{n}",
+                        op,
+                        f"{tw:.2f}",
+                        f"{tp:.2f}",
+                        f"{tj:.2f}" if job else "=",
+                        f"{ratio:.1f}x",
+                        f"{tw / tp:.1f}x",
+                    ]
+                )
+    print(
+        table(
+            rows,
+            [
+                "field",
+                "size",
+                "operation",
+                "Mat us",
+                "flint us",
+                "same job us",
+                "ratio",
+                "vs primitive",
+            ],
+        )
+    )
     for small, label in ((True, "2 x 2 and 4 x 4"), (False, "8 x 8 up")):
-        print(f"largest ratio (Mat / same job in flint), {label}: "
-              f"{worst[small][0]:.1f}x ({worst[small][1]})")
+        print(
+            f"largest ratio (Mat / same job in flint), {label}: "
+            f"{worst[small][0]:.1f}x ({worst[small][1]})"
+        )
 
 
 if __name__ == "__main__":

@@ -35,7 +35,7 @@ from hypothesis import given, settings
 from hypothesis import strategies as st
 from sympy.polys.matrices.ddm import DDM
 
-from hwcat.errors import CoefficientError, FieldError, HwcatError
+from hwcat.errors import CoefficientError, FieldError, HwcatError, InternalInconsistency
 from hwcat.exact import (
     GF,
     QQ,
@@ -543,6 +543,58 @@ def test_empty_shapes(F: Field, shape: tuple[int, int]) -> None:
     assert subspace_sum(F, c, []).shape == (0, c)
     I0 = Mat.identity(F, 0)
     assert I0.inverse() == I0 and I0.shape == (0, 0)
+
+
+# -- misuse inside the library: shapes and fields checked by the operations ---------------------
+
+
+@pytest.mark.parametrize("F", FIELDS)
+def test_mismatched_shapes_and_fields_raise(F: Field) -> None:
+    # derived: the shapes below admit no sum, difference, product, inverse or solution
+    A, B = Mat.zeros(F, 2, 3), Mat.zeros(F, 3, 2)
+    msgs = [
+        (lambda: A + B, "cannot add (2, 3) and (3, 2)"),
+        (lambda: A - B, "cannot subtract (2, 3) and (3, 2)"),
+        (lambda: A @ A, "cannot multiply (2, 3) by (2, 3)"),
+        (lambda: A.inverse(), "inverse of a non-square matrix"),
+        (lambda: Mat.identity(F, 2).solve_left(A), "solve_left: column counts differ"),
+        (lambda: A.solve_left(B), "solve_left: column counts differ"),
+    ]
+    for op, msg in msgs:
+        with pytest.raises(
+            InternalInconsistency, match=msg.replace("(", r"\(").replace(")", r"\)")
+        ):
+            op()
+    G = QQ if F is not QQ else GF(3)
+    for op in (lambda x, y: x + y, lambda x, y: x - y, lambda x, y: x @ y):
+        with pytest.raises(InternalInconsistency, match="mixed"):
+            op(Mat.identity(F, 2), Mat.identity(G, 2))
+    assert Mat.zeros(F, 2, 3) != Mat.zeros(F, 3, 2) and Mat.zeros(F, 2, 3) == A
+
+
+@pytest.mark.parametrize("F", FIELDS)
+def test_square_solve_left(F: Field) -> None:
+    # derived: A = [[1, 1], [0, 1]] is invertible, so X @ A = B has the single solution
+    # B @ A^(-1) = B @ [[1, -1], [0, 1]]; [[1, 1], [1, 1]] is singular (the echelon path)
+    A = mk(F, [[1, 1], [0, 1]], 2)
+    B = mk(F, [[3, 5], [0, 2], [1, 0]], 2)
+    X = A.solve_left(B)
+    assert X is not None and rows_of(X) == rows_of(mk(F, [[3, 2], [0, 2], [1, -1]], 2))
+    assert A.solve_left(Mat.zeros(F, 0, 2)).shape == (0, 2)
+    S = mk(F, [[1, 1], [1, 1]], 2)
+    assert S.solve_left(mk(F, [[1, 0]], 2)) is None
+    Y = S.solve_left(mk(F, [[3, 3]], 2))
+    assert Y is not None and Y @ S == mk(F, [[3, 3]], 2)
+
+
+def test_rational_kernel_pivots_not_leading() -> None:
+    # derived: pivots at columns 1 and 3 of [[0, 1, 2, 0, 1/2], [0, 0, 0, 1, 3]]; free
+    # columns 0, 2, 4 give the rows e_0, e_2 - 2 e_1, e_4 - 1/2 e_1 - 3 e_3
+    A = Mat.from_rows(QQ, [[0, 1, 2, 0, "1/2"], [0, 0, 0, 1, 3], [0, 2, 4, 1, 4]])
+    for _ in range(2):  # the 0/1 matrices are cached: a second call must agree
+        K = A.right_kernel()
+        assert rows_of(K) == [[1, 0, 0, 0, 0], [0, -2, 1, 0, 0], [0, Fraction(-1, 2), 0, -3, 1]]
+        assert (A @ K.transpose()).is_zero()
 
 
 # -- subspaces ---------------------------------------------------------------------------------
