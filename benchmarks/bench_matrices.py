@@ -1,36 +1,78 @@
 """Benchmark: the matrix wrapper ``Mat`` against bare python-flint on small matrices.
 
-Times, through :class:`hwcat.exact.Mat` and directly on the flint objects in
-the same run, on square matrices of size 2 to 20 over QQ and GF(101):
+On square matrices of size 2 to 20 over QQ and GF(101), in one run, the
+statements of each case take turns (31 rounds of about 0.5 ms each; the best
+round is kept):
 
-* ``product``: ``A @ B`` against flint's product;
-* ``rref`` (full rank) and ``rref half`` (rank n/2, zero rows to drop):
-  ``Mat.rref()`` (nonzero rows + pivot tuple) against flint's ``rref()``
-  (the full matrix and the rank, no pivots);
-* ``rank``;
-* ``kernel`` of a rank-n/2 matrix: ``Mat.right_kernel()`` (exactly nullity
-  rows) against flint's ``nullspace()`` over GF(p) (an n x n matrix whose
-  first nullity columns are the basis); flint has no kernel of a rational
-  matrix, so over QQ the baseline is its ``rref()``, the only flint call the
-  kernel needs;
-* ``transpose``.
+* ``Mat us``: the call through :class:`hwcat.exact.Mat`: ``A @ B``, ``A + B``,
+  ``A == A2`` (equal, another object), ``transpose``, ``rank``, ``inverse``,
+  ``solve_left`` (``X @ A = B``, A invertible), ``rref`` (full rank), ``rref``
+  of a rank-n/2 matrix, ``right_kernel`` of the rank-n/2 matrix;
+* ``flint us``: flint's own call on the same flint matrices (for ``solve``
+  flint's ``A.solve(B)``, which solves ``A X = B``; for the kernel over QQ its
+  ``rref()``, as flint has no rational kernel);
+* ``same job us``, where ``Mat`` returns more than flint's call: the same
+  result computed directly on flint's matrices by the same sequence of flint
+  calls, with the same caches built outside the timings --
 
-Each figure is the best of five timings of a loop; the ratio column is
-wrapper time / flint time from the same run.
+  - ``rref`` (nonzero rows and the pivot tuple): ``rref()``, the shape, the
+    pivots (one entry read when they are the leading columns, else a scan),
+    zero rows dropped by a product with the first rows of an identity;
+  - ``kernel`` (exactly nullity rows, the echelon normal form): over GF(p)
+    ``nullspace()``, transposed, its first nullity rows; over QQ the echelon
+    form ``R``, its pivots and ``E_F - (E_F R^T) Q`` (0/1 matrices ``E_F``: unit
+    rows of the free columns, ``Q``: row ``i`` to the unit row of pivot ``i``);
+  - ``solve``: ``A^T.solve(B^T)^T``;
+
+* ``shell us``: a one-slot Python class (``Shell`` below) that only calls
+  flint and wraps the result: the interpreter's share (calling a Python method
+  or operator, creating the result object) that any wrapper pays;
+* ``ratio``: Mat / same job (flint's call where no job is listed);
+  ``vs primitive``: Mat / flint's call.
 
     python benchmarks/bench_matrices.py            # sizes 2, 4, 8, 12, 20
     python benchmarks/bench_matrices.py --quick    # sizes 2, 8, 20
 
-Figures (2-core machine shared with other work, load about 4; ratios from one run each).
-Before the small-matrix paths (``--quick``): rref 6-28x flint at 2 x 2 to 8 x 8 and 3.5x
-at 20 x 20 over GF(101); rank-deficient rref 5-82x; kernels 3-103x (GF(101) 20 x 20:
-463 us against 6 us).  After (full run): products, full-rank rref, rank and transpose
-within 1.0-1.5x from 8 x 8 up (2.2x for GF(101) rref at 8 x 8); rank-deficient rref
-1.3-1.8x over QQ and 2.0-5.9x over GF(101) (a pivot scan reads entries one by one);
-kernels 1.6-5.5x over QQ (Python loops over rational entries; flint has no rational
-kernel) and 2.1-4.1x over GF(101).  At 2 x 2 and 4 x 4 every wrapped call pays about
-0.3-1.5 us of interpreter work against flint calls of 0.1-0.4 us, so ratios there stay
-at 2-9x.
+Figures: ratio Mat / same job, before -> after the thin paths of ``Mat``
+(results built without ``__init__``, shape errors left to flint and
+translated, shapes read only where an answer needs them, square systems by
+flint's ``solve``, kernels over QQ by the three flint operations above); one
+run of this script on each version, back to back, on a 2-core machine shared
+with other work (``uptime`` load average 4.1 during both runs).
+
+    QQ           2x2         4x4         8x8         12x12       20x20
+    product      2.0 -> 2.0  1.5 -> 1.3  1.3 -> 1.1  0.9 -> 1.1  1.0 -> 1.0
+    sum          9.7 -> 3.2  4.8 -> 2.1  2.3 -> 1.4  1.6 -> 1.2  1.2 -> 1.1
+    equality    20.9 -> 4.3  6.2 -> 1.8  2.6 -> 1.3  1.8 -> 1.1  1.3 -> 1.1
+    transpose    2.4 -> 1.5  1.7 -> 1.6  1.2 -> 1.5  1.2 -> 1.1  1.1 -> 1.1
+    rank         1.1 -> 1.1  1.1 -> 1.0  1.0 -> 1.2  1.0 -> 1.0  1.0 -> 1.0
+    inverse      3.7 -> 1.4  1.3 -> 1.1  1.1 -> 1.0  1.0 -> 1.0  1.0 -> 1.0
+    solve       13.9 -> 1.4  8.6 -> 1.2  6.8 -> 1.0  5.7 -> 1.0  1.0 -> 1.0
+    rref         1.7 -> 1.3  1.3 -> 1.1  1.0 -> 1.1  1.1 -> 1.0  1.0 -> 1.0
+    rref half    1.6 -> 1.3  1.2 -> 1.1  1.1 -> 1.0  1.0 -> 1.0  1.0 -> 1.0
+    kernel       2.4 -> 1.5  1.6 -> 1.2  1.4 -> 1.1  1.3 -> 1.0  1.1 -> 1.0
+
+    GF(101)      2x2         4x4         8x8         12x12       20x20
+    product      3.9 -> 3.5  2.5 -> 2.4  1.6 -> 1.6  1.4 -> 1.3  1.1 -> 1.2
+    sum         10.3 -> 3.7  8.0 -> 3.0  6.2 -> 2.5  5.1 -> 2.4  2.0 -> 1.7
+    equality    18.7 -> 3.5  9.9 -> 2.6  4.4 -> 1.5  2.2 -> 1.2  1.3 -> 1.1
+    transpose    2.5 -> 2.1  2.6 -> 2.0  2.1 -> 1.7  1.8 -> 1.8  1.6 -> 1.3
+    rank         1.2 -> 1.2  1.2 -> 1.2  1.1 -> 1.1  0.8 -> 1.0  1.1 -> 1.0
+    inverse      2.4 -> 1.4  2.1 -> 1.3  1.3 -> 1.1  1.1 -> 1.1  1.1 -> 1.0
+    solve       15.7 -> 1.6 17.5 -> 1.4 23.0 -> 1.2 23.9 -> 1.1 32.5 -> 1.0
+    rref         1.8 -> 1.3  1.5 -> 1.3  1.4 -> 1.1  1.3 -> 1.1  1.2 -> 1.1
+    rref half    1.6 -> 1.3  1.5 -> 1.3  1.3 -> 1.2  1.2 -> 1.1  1.0 -> 1.1
+    kernel       1.7 -> 1.6  1.5 -> 1.5  1.3 -> 1.3  1.7 -> 1.2  1.1 -> 1.1
+
+Still above 2x after: sums, products, equality and transposes where flint's
+call takes 0.03-0.2 us (GF(101) up to 12 x 12; over QQ sums at 2 x 2 and
+4 x 4, equality at 2 x 2).  There the shell costs as much as ``Mat`` (GF(101) 2 x 2: sum 0.06 us
+in flint, 0.16 us in the shell, 0.21 us through ``Mat``; product 0.12, 0.37,
+0.42; equality 0.03, 0.08, 0.11): a Python-level operator call and a new
+object cost about 0.1-0.3 us, which is the floor for any wrapper written in
+Python.  Against flint's bare call (``vs primitive``) ``rref`` of a rank-n/2
+matrix and kernels stay at 3-12x at 2 x 2 (12x for the kernel over QQ): the
+job (pivots, dropping zero rows, building the basis) is several flint calls.
 """
 
 from __future__ import annotations
