@@ -368,10 +368,10 @@ class Mat:
         r, c = m.nrows(), m.ncols()
         if r * c < _BULK_MIN:  # the small path, inlined (flint's rref handles empty matrices)
             R, rank = m.rref()
+            if not rank:
+                return Mat.zeros(self.field, 0, c), ()
             if rank == c:  # row i's pivot is at least i: the pivots are the first c columns
                 pivots = _RANGES[rank]  # rank <= min(r, c) < 32 here
-            elif not rank:
-                return Mat.zeros(self.field, 0, c), ()
             else:
                 pivots = _pivots(R, rank, c)
             out = _new(Mat)
