@@ -85,6 +85,7 @@ from hwcat.algebras.reduction import sketch
 from hwcat.algebras.reduction.kernels import (
     apply_transfer,
     as_row,
+    _krylov_columns,
     chain_step,
     coords_solver,
     embed,
@@ -113,6 +114,7 @@ from hwcat.errors import (
 )
 from hwcat.exact import Mat, echelon, select_independent_rows, splitting_field_hint
 from hwcat.exact.bulk_rows import take_rows
+from hwcat.exact.nmod_bulk import read_residues
 from hwcat.exact.polys import (
     Poly,
     fitting_polynomials,
@@ -488,6 +490,10 @@ class _Search:
         """Try one random element ``z = f y f``; children vectors, or the single factor."""
         A = self.A
         node.attempts += 1
+        if GROUP_SPLIT and node.index is None and A._group_table() is not None:
+            out = self._split_group(node)
+            if out is not None:
+                return out
         m = A.dim if node.index is None else len(node.index)
         if m >= 256 and A._vectorised():
             # Krylov chains by column products with the transposes, built as such
@@ -530,6 +536,49 @@ class _Search:
             K, c = krylov(v0, None, step=lambda v: (v @ Ry) @ R, limit=v0.ncols)
         self.tick("krylov", t0)
         return self._children(node, K, c)
+
+    def _split_group(self, node: _Node) -> list[Any] | tuple[Poly, int] | None:
+        """:meth:`split_attempt` in a group algebra: ``z = f y f`` with ``y`` supported on a
+        few random group elements (up to ``GROUP_SUPPORT``, doubled on each further attempt
+        at the same node up to eight times that, and at most half of the group).
+
+        Right multiplication by a group element permutes the coordinates, so ``v -> v y``
+        costs a few gathers and the Krylov chain ``f, f z, f z^2, ...`` (with
+        ``f z^k = (f z^(k-1)) y f``) needs one dense matrix, that of ``f`` (none at the
+        root), instead of one per random element.  ``None`` when the one-piece copies
+        into flint are unavailable (the general route runs instead)."""
+        import numpy as np
+
+        A = self.A
+        F, p, n = A.field, A._p, A.dim
+        first = read_residues(as_row(A, node.f)._m)
+        if first is None:
+            return None
+        left = A._group_table()[2]  # x b_j = x[left[j]]
+        # at most half of the group (over GF(2) the sum of all elements is central), and a
+        # random size (sums of the same length lie in one coset of a small subspace)
+        top = max(1, min(n // 2, GROUP_SUPPORT << min(node.attempts - 1, 3)))
+        js = self.rng.sample(range(n), self.rng.randint(max(1, top // 2), top))
+        cs = [self.rng.randrange(1, p) for _ in js]
+        RT = None if node.root else self.ensure_RT(node)
+        t0 = time.perf_counter()
+        gathers = [left[j] for j in js]
+
+        def advance(x: Mat) -> Mat:
+            v = np.frombuffer(read_residues(x._m), dtype=np.int64)
+            w = np.zeros(n, dtype=np.int64)
+            for g, c in zip(gathers, cs, strict=True):
+                w += c * v[g]  # below s p^2, far from 2^63
+            w %= p
+            col = residue_matrix(F, n, 1, w)
+            return col if RT is None else RT @ col
+
+        v0 = residue_matrix(F, 1, n, first)
+        out = _krylov_columns(v0, v0, advance, n)
+        self.tick("krylov", t0)
+        if out is None:
+            return None
+        return self._children(node, *out)
 
     def _children(self, node: _Node, K: Mat, c: list[Any]) -> list[Any] | tuple[Poly, int]:
         """From the Krylov sequence of ``z``: children vectors, or the single factor."""
@@ -867,6 +916,14 @@ POOL_BYTES = 1 << 29
 """Above ``KEEP_MATRICES_LIMIT`` the transposed matrices of the first dense random elements
 are still kept while they take at most this many bytes: each serves every node of one
 depth of the splitting tree."""
+
+
+GROUP_SPLIT = True
+"""Switch for :meth:`_Search._split_group` (sparse random elements of a group algebra;
+tests compare both routes)."""
+
+GROUP_SUPPORT = 16
+"""Number of group elements in the first random element tried at a node of a group algebra."""
 
 
 def _class_RT(A: StructureAlgebra, c: _Class) -> Mat:
