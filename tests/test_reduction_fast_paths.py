@@ -85,7 +85,9 @@ def test_sketched_rank_checked_with_sympy():
 
     F = GF(2)
     M = _low_rank(F, 300, 300, 7, random.Random(5))
-    D = DomainMatrix([[sympy.GF(2)(int(x)) for x in row] for row in M.raw_rows()], (300, 300), sympy.GF(2))
+    D = DomainMatrix(
+        [[sympy.GF(2)(int(x)) for x in row] for row in M.raw_rows()], (300, 300), sympy.GF(2)
+    )
     assert sketch.sketched_rank(M) == D.rank() == M.rank()
 
 
@@ -122,10 +124,16 @@ def _p_regular_partitions(n, p):
     ("make", "simples"),
     [
         (lambda: tables.temperley_lieb(7, 0, "GF(3)"), None),
-        (lambda: tables.temperley_lieb(7, 1, "GF(2)"), 4),  # cell modules 7, 5, 3, 1 through strands
+        (
+            lambda: tables.temperley_lieb(7, 1, "GF(2)"),
+            4,
+        ),  # cell modules 7, 5, 3, 1 through strands
         (lambda: tables.symmetric_group_algebra(5, "GF(2)"), _p_regular_partitions(5, 2)),
         (lambda: tables.symmetric_group_algebra(5, "GF(3)"), _p_regular_partitions(5, 3)),
-        (lambda: tables.schur_algebra_2(10, "GF(3)"), 6),  # dominant weights of S(2, 10): 11 // 2 + 1
+        (
+            lambda: tables.schur_algebra_2(10, "GF(3)"),
+            6,
+        ),  # dominant weights of S(2, 10): 11 // 2 + 1
     ],
     ids=["TL7(0)", "TL7(1)", "S5-GF2", "S5-GF3", "S(2,10)"],
 )
@@ -143,7 +151,10 @@ def test_reduction_of_families_unchanged_by_the_sketches(make, simples, monkeypa
     _same_reduction(fast, plain)
     if simples is not None:
         assert len(fast.simple_dimensions) == simples
-    assert sum(n * p for n, p in zip(fast.simple_dimensions, fast.projective_dimensions, strict=True)) == A.dim
+    assert (
+        sum(n * p for n, p in zip(fast.simple_dimensions, fast.projective_dimensions, strict=True))
+        == A.dim
+    )
 
 
 @settings(max_examples=15, deadline=None)

@@ -73,7 +73,8 @@ def _invariants(r):
     for s in range(m):
         series = projective(B, s).radical_series()
         dims = [[X.nrows for X in layer] for layer in series]
-        layers.append(tuple(tuple(a - b for a, b in zip(u, v)) for u, v in zip(dims, dims[1:])))
+        pairs = zip(dims, dims[1:], strict=False)
+        layers.append(tuple(tuple(a - b for a, b in zip(u, v, strict=True)) for u, v in pairs))
     keys = list(zip(r.simple_dimensions, r.projective_dimensions, strict=True))
     return keys, B.cartan(), arrows, layers
 

@@ -83,9 +83,9 @@ from hwcat.algebras.hub.quiver import Arrow, Quiver
 from hwcat.algebras.inputs.structure import StructureAlgebra
 from hwcat.algebras.reduction import sketch
 from hwcat.algebras.reduction.kernels import (
+    _krylov_columns,
     apply_transfer,
     as_row,
-    _krylov_columns,
     chain_step,
     coords_solver,
     embed,
