@@ -37,6 +37,7 @@ sys.path.insert(0, str(Path(__file__).resolve().parents[1]))
 
 from hwcat.algebras.families import tables as ft  # noqa: E402
 from hwcat.algebras.inputs.structure import from_table  # noqa: E402
+from hwcat.algebras.reduction import reduction  # noqa: E402
 from hwcat.algebras.reduction.reduction import radical, reduce_algebra  # noqa: E402
 from hwcat.exact.polys import matrix_from_ints  # noqa: E402
 
@@ -58,6 +59,7 @@ CASES_FULL = {
     "TL_8(0) GF(5)": lambda: ft.temperley_lieb(8, 0, "GF(5)"),
     "TL_8(1) GF(3)": lambda: ft.temperley_lieb(8, 1, "GF(3)"),
     "TL_8(2) GF(10007)": lambda: ft.temperley_lieb(8, 2, "GF(10007)"),
+    "S_5 GF(3)": lambda: ft.symmetric_group_algebra(5, "GF(3)"),
     "S_6 GF(2)": lambda: ft.symmetric_group_algebra(6, "GF(2)"),
     "S_6 GF(3)": lambda: ft.symmetric_group_algebra(6, "GF(3)"),
     "C_64 GF(2)": lambda: ft.cyclic_group_algebra(64, "GF(2)"),
@@ -191,8 +193,15 @@ def main() -> None:
     ap.add_argument(
         "--profile", action="store_true", help="profile the reduction of each case (cProfile)"
     )
+    ap.add_argument(
+        "--general",
+        action="store_true",
+        help="group algebras by the general splitting search (dense random elements)",
+    )
     ap.add_argument("--json", action="store_true", help=argparse.SUPPRESS)  # child process
     args = ap.parse_args()
+    if args.general:
+        reduction.GROUP_SPLIT = False
     if args.json:
         print(json.dumps(run_case(args.case[0], args.profile)))
         return
@@ -208,7 +217,8 @@ def main() -> None:
     for name in names:
         out = subprocess.run(
             [sys.executable, __file__, "--json", "--case", name]
-            + (["--profile"] if args.profile else []),
+            + (["--profile"] if args.profile else [])
+            + (["--general"] if args.general else []),
             capture_output=True,
             text=True,
         )
