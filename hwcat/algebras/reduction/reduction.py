@@ -114,7 +114,7 @@ from hwcat.errors import (
 )
 from hwcat.exact import Mat, PrimeField, echelon, select_independent_rows, splitting_field_hint
 from hwcat.exact.bulk_rows import take_rows
-from hwcat.exact.nmod_bulk import read_residues
+from hwcat.exact.nmod_bulk import bulk_available, read_residues
 from hwcat.exact.polys import (
     Poly,
     fitting_polynomials,
@@ -608,9 +608,9 @@ class _Search:
 
         A = self.A
         F, p, n = A.field, A._p, A.dim
-        first = read_residues(as_row(A, node.f)._m)
-        if first is None:
-            return None
+        if not bulk_available():
+            return None  # no one-piece copies: the general route
+        first = np.fromiter((int(x) for x in node.f), dtype=np.int64, count=n) % p
         left = A._group_table()[2]  # x b_j = x[left[j]]
         # at most half of the group (over GF(2) the sum of all elements is central), and a
         # random size (sums of the same length lie in one coset of a small subspace)
