@@ -24,9 +24,13 @@ elements) in small corners and over QQ, where a component ``M_r(QQ)`` splits
 only with rational eigenvalues.  When the unit is a sum of basis elements that
 are orthogonal idempotents and every basis element lies in one Peirce block
 (Schur algebras, algebras coming from quivers), the tree starts from those
-idempotents and every matrix is restricted to a block.  A leaf is accepted when
+idempotents and every matrix is restricted to a block.  In a group algebra (a
+group table) ``y`` is supported on a few random group elements instead: right
+multiplication by a group element permutes coordinates, so the Krylov chain of
+``f y f`` needs only the matrix of ``f``.  A leaf is accepted when
 its corner ``e A e`` (a small explicit algebra) is certified local with residue
-field ``F``: its radical, by the lifted-trace chain, has codimension 1.  Each
+field ``F``: directly, by a multiplicative residue map with nilpotent kernel, or by
+its radical (the lifted-trace chain) having codimension 1.  Each
 new simple ``L`` gives a linear form ``phi(x) = chi(e x e)`` (``chi`` the residue
 map of the corner); ``dim L`` is the rank of ``(x, y) -> phi(x y)``, and
 ``dim L f`` (the multiplicity of ``L``'s projective in ``f A``) is read from a
@@ -230,7 +234,9 @@ def _local_certificate(F: Any, mult: list[Mat], ecoords: Mat) -> tuple[Mat, list
     ``F``, certified directly; ``None`` when the certificate does not come out.
 
     A guess of the residue map: ``chi(c_l)`` is the single root of the minimal polynomial
-    of ``c_l`` (if some ``c_l`` has another, ``None``).  Certificate: ``chi(e) = 1`` and
+    of ``c_l`` (two coprime factors give an idempotent other than ``0`` and ``e``, so ``C``
+    is not local: ``_NotPrimitive``; a single factor of higher degree: ``None``).
+    Certificate: ``chi(e) = 1`` and
     ``chi(c_a c_l) = chi(c_a) chi(c_l)`` for all ``a, l`` make ``N = ker chi`` a two-sided
     ideal of codimension 1, and ``N^k = 0`` (the chain ``N^(k+1) = N^k N``, spanned by
     ``v (c_l - chi(c_l) e)``) makes it nilpotent, so ``N`` is the radical and ``C / N = F``
