@@ -689,10 +689,16 @@ class _Search:
         return GROUP_SPLIT and self.A._group_table() is not None
 
     def _next_deferred(self, deferred: list[_Node]) -> tuple[_Node, str]:
-        """The next deferred node and its verdict.  In a group algebra, a node whose
-        ``A f`` is shown larger than the known simples explain by a cheap lower bound
-        (:meth:`_group_lower_dim`) comes first; otherwise the last one, screened exactly."""
+        """The next deferred node and its verdict.  In a group algebra, the only deferred
+        node is explored at once, and a node whose ``A f`` is shown larger than the known
+        simples explain by a cheap lower bound (:meth:`_group_lower_dim`) comes first;
+        otherwise the last one, screened exactly."""
         if self._group_route():
+            if len(deferred) == 1:
+                # the frontier of the tree sums to 1; skipped nodes and certified leaves
+                # meet no unknown simple, and one is unknown (dim A is not yet explained):
+                # the only deferred node meets it
+                return deferred.pop(), "explore"
             for i in range(len(deferred) - 1, -1, -1):
                 node = deferred[i]
                 r = self.node_ranks(node)
