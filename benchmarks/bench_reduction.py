@@ -99,28 +99,33 @@ def dense_rank_seconds(field, n: int, repeat: int = 3) -> float:
     return sorted(times)[len(times) // 2]
 
 
-def run_case(name: str, profile: bool = False) -> dict:
+def run_case(name: str, profile: bool = False, repeat: int = 1) -> dict:
     """One case, in this process; returns the figures as a dictionary (with ``profile``,
-    the reduction runs under cProfile and the largest items are printed to stderr)."""
+    the reduction runs under cProfile and the largest items are printed to stderr; with
+    ``repeat``, the median of that many reductions, each of a freshly converted table,
+    against the median of at least as many ranks)."""
     make = CASES_LARGE[name]
-    t0 = time.perf_counter()
-    table = make()
-    t_table = time.perf_counter() - t0
-    t0 = time.perf_counter()
-    A = from_table(table)
-    t_conv = time.perf_counter() - t0
-    del table
-    prof = cProfile.Profile() if profile else None
-    t0 = time.perf_counter()
-    if prof is not None:
-        prof.enable()
-    r = reduce_algebra(A)
-    if prof is not None:
-        prof.disable()
-    t_red = time.perf_counter() - t0
-    if prof is not None:
-        pstats.Stats(prof, stream=sys.stderr).sort_stats("tottime").print_stats(15)
-    t_rank = dense_rank_seconds(A.field, A.dim)
+    times = []
+    for _ in range(repeat):
+        t0 = time.perf_counter()
+        table = make()
+        t_table = time.perf_counter() - t0
+        t0 = time.perf_counter()
+        A = from_table(table)
+        t_conv = time.perf_counter() - t0
+        del table
+        prof = cProfile.Profile() if profile else None
+        t0 = time.perf_counter()
+        if prof is not None:
+            prof.enable()
+        r = reduce_algebra(A)
+        if prof is not None:
+            prof.disable()
+        times.append(time.perf_counter() - t0)
+        if prof is not None:
+            pstats.Stats(prof, stream=sys.stderr).sort_stats("tottime").print_stats(15)
+    t_red = sorted(times)[len(times) // 2]
+    t_rank = dense_rank_seconds(A.field, A.dim, repeat=max(3, repeat))
     naive = None
     if A.dim <= BASELINE_LIMIT and A.field.characteristic:
         t0 = time.perf_counter()
@@ -194,6 +199,12 @@ def main() -> None:
         "--profile", action="store_true", help="profile the reduction of each case (cProfile)"
     )
     ap.add_argument(
+        "--repeat",
+        type=int,
+        default=1,
+        help="median of this many reductions per case (and of at least as many ranks)",
+    )
+    ap.add_argument(
         "--general",
         action="store_true",
         help="group algebras by the general splitting search (dense random elements)",
@@ -203,7 +214,7 @@ def main() -> None:
     if args.general:
         reduction.GROUP_SPLIT = False
     if args.json:
-        print(json.dumps(run_case(args.case[0], args.profile)))
+        print(json.dumps(run_case(args.case[0], args.profile, args.repeat)))
         return
     if args.case:
         names = args.case
@@ -218,7 +229,8 @@ def main() -> None:
         out = subprocess.run(
             [sys.executable, __file__, "--json", "--case", name]
             + (["--profile"] if args.profile else [])
-            + (["--general"] if args.general else []),
+            + (["--general"] if args.general else [])
+            + ["--repeat", str(args.repeat)],
             capture_output=True,
             text=True,
         )
