@@ -17,7 +17,31 @@ regular representation -- is run for the small cases only (``naive rad s``).
 
 Run ``python benchmarks/bench_reduction.py`` (``--quick`` for small cases only,
 ``--large`` to add TL_9, TL_10, S(2, 30), S_7; ``--case NAME`` for one case;
-``--profile`` prints the largest items of a cProfile run of each reduction).
+``--profile`` prints the largest items of a cProfile run of each reduction;
+``--repeat N`` takes the median of N reductions against the median of at least N
+ranks; ``--general`` runs group algebras by the general splitting search).
+
+Group algebras of the symmetric groups (ratio = reduction / one dense rank of a
+``dim A x dim A`` matrix, same process; peak resident memory of the case's process).
+"Before": the general splitting search (dense random elements, the radical of every
+corner by lifted traces); "after": random elements supported on a few group elements,
+local corners certified directly, the cheap lower bound for deferred nodes.  Measured
+on a shared two-core machine with other jobs running: the rank of a 720 x 720 matrix
+over GF(3) took 13 to 31 ms from run to run, so the S_6 ratios scatter; the ranges are
+over runs, with ``--repeat 5`` for S_5 and S_6 and one run for S_7 (``--large``)::
+
+    case       dim   before: ratio   peak MiB   after: ratio   peak MiB
+    S_5 GF(2)   120     59 - 71          50        76 - 101        50
+    S_5 GF(3)   120    121 - 178         49       144 - 230        50
+    S_6 GF(2)   720     12 - 23         123         9 - 14         91
+    S_6 GF(3)   720     25 - 52         135        18 - 25        103
+    S_7 GF(2)  5040      5.1 (89 s)    1531         3.7 (84 s)   1247
+    S_7 GF(3)  5040     14 - 23 (61 - 132 s)  1480   9.9 (60 s)   1247
+
+S_5 stays far above 20: its rank takes under a millisecond, the reduction some 30 ms of
+fixed costs (both routes alike in processor time).  S_6 over GF(3) is at the goal only
+in the quieter runs (its reduction takes about 0.4 s of processor time against a
+13 to 17 ms rank).
 """
 
 from __future__ import annotations
@@ -37,6 +61,7 @@ sys.path.insert(0, str(Path(__file__).resolve().parents[1]))
 
 from hwcat.algebras.families import tables as ft  # noqa: E402
 from hwcat.algebras.inputs.structure import from_table  # noqa: E402
+from hwcat.algebras.reduction import reduction  # noqa: E402
 from hwcat.algebras.reduction.reduction import radical, reduce_algebra  # noqa: E402
 from hwcat.exact.polys import matrix_from_ints  # noqa: E402
 
@@ -58,6 +83,7 @@ CASES_FULL = {
     "TL_8(0) GF(5)": lambda: ft.temperley_lieb(8, 0, "GF(5)"),
     "TL_8(1) GF(3)": lambda: ft.temperley_lieb(8, 1, "GF(3)"),
     "TL_8(2) GF(10007)": lambda: ft.temperley_lieb(8, 2, "GF(10007)"),
+    "S_5 GF(3)": lambda: ft.symmetric_group_algebra(5, "GF(3)"),
     "S_6 GF(2)": lambda: ft.symmetric_group_algebra(6, "GF(2)"),
     "S_6 GF(3)": lambda: ft.symmetric_group_algebra(6, "GF(3)"),
     "C_64 GF(2)": lambda: ft.cyclic_group_algebra(64, "GF(2)"),
@@ -97,28 +123,33 @@ def dense_rank_seconds(field, n: int, repeat: int = 3) -> float:
     return sorted(times)[len(times) // 2]
 
 
-def run_case(name: str, profile: bool = False) -> dict:
+def run_case(name: str, profile: bool = False, repeat: int = 1) -> dict:
     """One case, in this process; returns the figures as a dictionary (with ``profile``,
-    the reduction runs under cProfile and the largest items are printed to stderr)."""
+    the reduction runs under cProfile and the largest items are printed to stderr; with
+    ``repeat``, the median of that many reductions, each of a freshly converted table,
+    against the median of at least as many ranks)."""
     make = CASES_LARGE[name]
-    t0 = time.perf_counter()
-    table = make()
-    t_table = time.perf_counter() - t0
-    t0 = time.perf_counter()
-    A = from_table(table)
-    t_conv = time.perf_counter() - t0
-    del table
-    prof = cProfile.Profile() if profile else None
-    t0 = time.perf_counter()
-    if prof is not None:
-        prof.enable()
-    r = reduce_algebra(A)
-    if prof is not None:
-        prof.disable()
-    t_red = time.perf_counter() - t0
-    if prof is not None:
-        pstats.Stats(prof, stream=sys.stderr).sort_stats("tottime").print_stats(15)
-    t_rank = dense_rank_seconds(A.field, A.dim)
+    times = []
+    for _ in range(repeat):
+        t0 = time.perf_counter()
+        table = make()
+        t_table = time.perf_counter() - t0
+        t0 = time.perf_counter()
+        A = from_table(table)
+        t_conv = time.perf_counter() - t0
+        del table
+        prof = cProfile.Profile() if profile else None
+        t0 = time.perf_counter()
+        if prof is not None:
+            prof.enable()
+        r = reduce_algebra(A)
+        if prof is not None:
+            prof.disable()
+        times.append(time.perf_counter() - t0)
+        if prof is not None:
+            pstats.Stats(prof, stream=sys.stderr).sort_stats("tottime").print_stats(15)
+    t_red = sorted(times)[len(times) // 2]
+    t_rank = dense_rank_seconds(A.field, A.dim, repeat=max(3, repeat))
     naive = None
     if A.dim <= BASELINE_LIMIT and A.field.characteristic:
         t0 = time.perf_counter()
@@ -191,10 +222,23 @@ def main() -> None:
     ap.add_argument(
         "--profile", action="store_true", help="profile the reduction of each case (cProfile)"
     )
+    ap.add_argument(
+        "--repeat",
+        type=int,
+        default=1,
+        help="median of this many reductions per case (and of at least as many ranks)",
+    )
+    ap.add_argument(
+        "--general",
+        action="store_true",
+        help="group algebras by the general splitting search (dense random elements)",
+    )
     ap.add_argument("--json", action="store_true", help=argparse.SUPPRESS)  # child process
     args = ap.parse_args()
+    if args.general:
+        reduction.GROUP_SPLIT = False
     if args.json:
-        print(json.dumps(run_case(args.case[0], args.profile)))
+        print(json.dumps(run_case(args.case[0], args.profile, args.repeat)))
         return
     if args.case:
         names = args.case
@@ -208,7 +252,9 @@ def main() -> None:
     for name in names:
         out = subprocess.run(
             [sys.executable, __file__, "--json", "--case", name]
-            + (["--profile"] if args.profile else []),
+            + (["--profile"] if args.profile else [])
+            + (["--general"] if args.general else [])
+            + ["--repeat", str(args.repeat)],
             capture_output=True,
             text=True,
         )

@@ -289,6 +289,12 @@ class StructureAlgebra:
     def vec(self, raw: Sequence[Any]) -> list[Any]:
         """Field elements from internal coordinates."""
         F = self.field
+        if self._p and self._p <= 1 << 12:  # the p elements converted once (immutable)
+            p = self._p
+            if "elements" not in self._cache:
+                self._cache["elements"] = [F(i) for i in range(p)]
+            elems = self._cache["elements"]
+            return [elems[int(x) % p] for x in raw]
         return [F(int(x)) for x in raw] if self._p else [F(x) for x in raw]
 
     def row(self, v: Sequence[Any]) -> Mat:

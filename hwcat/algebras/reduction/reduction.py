@@ -24,9 +24,13 @@ elements) in small corners and over QQ, where a component ``M_r(QQ)`` splits
 only with rational eigenvalues.  When the unit is a sum of basis elements that
 are orthogonal idempotents and every basis element lies in one Peirce block
 (Schur algebras, algebras coming from quivers), the tree starts from those
-idempotents and every matrix is restricted to a block.  A leaf is accepted when
+idempotents and every matrix is restricted to a block.  In a group algebra (a
+group table) ``y`` is supported on a few random group elements instead: right
+multiplication by a group element permutes coordinates, so the Krylov chain of
+``f y f`` needs only the matrix of ``f``.  A leaf is accepted when
 its corner ``e A e`` (a small explicit algebra) is certified local with residue
-field ``F``: its radical, by the lifted-trace chain, has codimension 1.  Each
+field ``F``: directly, by a multiplicative residue map with nilpotent kernel, or by
+its radical (the lifted-trace chain) having codimension 1.  Each
 new simple ``L`` gives a linear form ``phi(x) = chi(e x e)`` (``chi`` the residue
 map of the corner); ``dim L`` is the rank of ``(x, y) -> phi(x y)``, and
 ``dim L f`` (the multiplicity of ``L``'s projective in ``f A``) is read from a
@@ -83,6 +87,7 @@ from hwcat.algebras.hub.quiver import Arrow, Quiver
 from hwcat.algebras.inputs.structure import StructureAlgebra
 from hwcat.algebras.reduction import sketch
 from hwcat.algebras.reduction.kernels import (
+    _krylov_columns,
     apply_transfer,
     as_row,
     chain_step,
@@ -111,8 +116,9 @@ from hwcat.errors import (
     StructureConstantsError,
     WorkBudgetExceeded,
 )
-from hwcat.exact import Mat, echelon, select_independent_rows, splitting_field_hint
+from hwcat.exact import Mat, PrimeField, echelon, select_independent_rows, splitting_field_hint
 from hwcat.exact.bulk_rows import take_rows
+from hwcat.exact.nmod_bulk import bulk_available, read_residues
 from hwcat.exact.polys import (
     Poly,
     fitting_polynomials,
@@ -215,10 +221,67 @@ def _corner_data(A: StructureAlgebra, e: list[Any], RT: Mat, index, rows) -> tup
     return Lr, J, corner, Cb, piv, T, mult, Rp
 
 
+FAST_LOCAL = True
+"""Switch for :func:`_local_certificate` (tests compare both routes)."""
+
+FAST_LOCAL_LIMIT = 96
+"""Largest corner certified local by :func:`_local_certificate` (about ``c^4`` work)."""
+
+
+def _local_certificate(F: Any, mult: list[Mat], ecoords: Mat) -> tuple[Mat, list] | None:
+    """The radical and residue map of a corner ``C`` (basis ``c_l``, ``mult[l]`` the right
+    multiplication by ``c_l``, ``ecoords`` its unit) when ``C`` is local with residue field
+    ``F``, certified directly; ``None`` when the certificate does not come out.
+
+    A guess of the residue map: ``chi(c_l)`` is the single root of the minimal polynomial
+    of ``c_l`` (two coprime factors give an idempotent other than ``0`` and ``e``, so ``C``
+    is not local: ``_NotPrimitive``; a single factor of higher degree: ``None``).
+    Certificate: ``chi(e) = 1`` and
+    ``chi(c_a c_l) = chi(c_a) chi(c_l)`` for all ``a, l`` make ``N = ker chi`` a two-sided
+    ideal of codimension 1, and ``N^k = 0`` (the chain ``N^(k+1) = N^k N``, spanned by
+    ``v (c_l - chi(c_l) e)``) makes it nilpotent, so ``N`` is the radical and ``C / N = F``
+    (common practice).  About ``c^4`` operations, against the lifted traces of the
+    general radical."""
+    c = len(mult)
+    if not isinstance(F, PrimeField) or c > FAST_LOCAL_LIMIT or c == 0:
+        return None
+    chi = []
+    for M in mult:
+        K, co = krylov(ecoords, M)
+        facs = minpoly(F, K.nrows, co).factor()
+        if len(facs) > 1:  # Fitting's lemma: c_l gives an idempotent other than 0, e
+            raise _NotPrimitive()
+        if facs[0][0].degree != 1:
+            return None
+        g = facs[0][0].coeffs()  # g = g0 + g1 x
+        chi.append(-g[0] / g[1])
+    col = Mat.from_flat(F, c, 1, chi)
+    if (ecoords @ col).entries() != [F.one]:
+        return None
+    for l, M in enumerate(mult):  # (mult[l] chi)_a = chi(c_a c_l)
+        if (M @ col).entries() != [x * chi[l] for x in chi]:
+            return None
+    N = echelon(Mat.from_flat(F, 1, c, chi).transpose().left_kernel())
+    shifted = [M - Mat.identity(F, c).scale(chi[l]) for l, M in enumerate(mult)]
+    V = N
+    for _ in range(c + 1):
+        if V.nrows == 0:
+            return N, chi
+        W = echelon(Mat.vstack(F, [V @ S for S in shifted], c))
+        if W.nrows >= V.nrows:
+            return None  # N^(k+1) = N^k: not nilpotent
+        V = W
+    return None
+
+
 def _local_data(A: StructureAlgebra, corner_mult: list[Mat], ecoords: Mat) -> tuple[Mat, list]:
     """The radical of the corner and, when it has codimension 1, the residue map chi."""
     F = A.field
     c = len(corner_mult)
+    if FAST_LOCAL:
+        fast = _local_certificate(F, corner_mult, ecoords)
+        if fast is not None:
+            return fast
     rad = small_radical(F, corner_mult)
     if rad.nrows != c - 1:
         return rad, []
@@ -329,6 +392,8 @@ class _Node:
     family: list[int | None] | None = None
     slot: int = 0  # this node's place in ``family``
     ranks: list[int] = field(default_factory=list)  # dim L f for the first simples found
+    lower: int | None = None  # a lower bound of dim A f (group algebras) ...
+    lower_width: int = 0  # ... from that many elements of A f
 
 
 @dataclass
@@ -488,6 +553,10 @@ class _Search:
         """Try one random element ``z = f y f``; children vectors, or the single factor."""
         A = self.A
         node.attempts += 1
+        if GROUP_SPLIT and node.index is None and A._group_table() is not None:
+            out = self._split_group(node)
+            if out is not None:
+                return out
         m = A.dim if node.index is None else len(node.index)
         if m >= 256 and A._vectorised():
             # Krylov chains by column products with the transposes, built as such
@@ -531,6 +600,49 @@ class _Search:
         self.tick("krylov", t0)
         return self._children(node, K, c)
 
+    def _split_group(self, node: _Node) -> list[Any] | tuple[Poly, int] | None:
+        """:meth:`split_attempt` in a group algebra: ``z = f y f`` with ``y`` supported on a
+        few random group elements (up to ``GROUP_SUPPORT``, doubled on each further attempt
+        at the same node up to eight times that, and at most half of the group).
+
+        Right multiplication by a group element permutes the coordinates, so ``v -> v y``
+        costs a few gathers and the Krylov chain ``f, f z, f z^2, ...`` (with
+        ``f z^k = (f z^(k-1)) y f``) needs one dense matrix, that of ``f`` (none at the
+        root), instead of one per random element.  ``None`` when the one-piece copies
+        into flint are unavailable (the general route runs instead)."""
+        import numpy as np
+
+        A = self.A
+        F, p, n = A.field, A._p, A.dim
+        if not bulk_available():
+            return None  # no one-piece copies: the general route
+        first = np.fromiter((int(x) for x in node.f), dtype=np.int64, count=n) % p
+        left = A._group_table()[2]  # x b_j = x[left[j]]
+        # at most half of the group (over GF(2) the sum of all elements is central), and a
+        # random size (sums of the same length lie in one coset of a small subspace)
+        top = max(1, min(n // 2, GROUP_SUPPORT << min(node.attempts - 1, 3)))
+        js = self.rng.sample(range(n), self.rng.randint(max(1, top // 2), top))
+        cs = [self.rng.randrange(1, p) for _ in js]
+        RT = None if node.root else self.ensure_RT(node)
+        t0 = time.perf_counter()
+        gathers = [left[j] for j in js]
+
+        def advance(x: Mat) -> Mat:
+            v = np.frombuffer(read_residues(x._m), dtype=np.int64)
+            w = np.zeros(n, dtype=np.int64)
+            for g, c in zip(gathers, cs, strict=True):
+                w += c * v[g]  # below s p^2, far from 2^63
+            w %= p
+            col = residue_matrix(F, n, 1, w)
+            return col if RT is None else RT @ col
+
+        v0 = residue_matrix(F, 1, n, first)
+        out = _krylov_columns(v0, v0, advance, n)
+        self.tick("krylov", t0)
+        if out is None:
+            return None
+        return self._children(node, *out)
+
     def _children(self, node: _Node, K: Mat, c: list[Any]) -> list[Any] | tuple[Poly, int]:
         """From the Krylov sequence of ``z``: children vectors, or the single factor."""
         A = self.A
@@ -557,8 +669,7 @@ class _Search:
                     deferred.append(node)
                     continue
             elif deferred:
-                node = deferred.pop()
-                verdict = self.screen(node, exact=True)
+                node, verdict = self._next_deferred(deferred)
             else:
                 break
             if verdict == "skip":
@@ -573,6 +684,57 @@ class _Search:
                     )
                 scored.sort(key=lambda s: s[0])
                 stack.extend(k for _, k in reversed(scored))
+
+    def _group_route(self) -> bool:
+        return GROUP_SPLIT and self.A._group_table() is not None
+
+    def _next_deferred(self, deferred: list[_Node]) -> tuple[_Node, str]:
+        """The next deferred node and its verdict.  In a group algebra, the only deferred
+        node is explored at once, and a node whose ``A f`` is shown larger than the known
+        simples explain by a cheap lower bound (:meth:`_group_lower_dim`) comes first;
+        otherwise the last one, screened exactly."""
+        if self._group_route():
+            if len(deferred) == 1:
+                # the frontier of the tree sums to 1; skipped nodes and certified leaves
+                # meet no unknown simple, and one is unknown (dim A is not yet explained):
+                # the only deferred node meets it
+                return deferred.pop(), "explore"
+            for i in range(len(deferred) - 1, -1, -1):
+                node = deferred[i]
+                r = self.node_ranks(node)
+                explained = sum(rj * c.dim_Ae for rj, c in zip(r, self.classes, strict=True))
+                if node.dim_Af is None and self._group_lower_dim(node, explained) > explained:
+                    del deferred[i]
+                    return node, "explore"
+        node = deferred.pop()
+        return node, self.screen(node, exact=True)
+
+    def _group_lower_dim(self, node: _Node, explained: int) -> int:
+        """A lower bound of ``dim A f`` in a group algebra: the rank of ``explained + 16``
+        elements ``x f`` with ``x`` supported on eight random group elements (``x f`` costs
+        eight permutations of ``f``).  Elements of ``A f``, so never more than its dimension;
+        usually equal to it or to their number."""
+        import numpy as np
+
+        A = self.A
+        p, n = A._p, A.dim
+        w = min(n, explained + 16)
+        if node.lower is not None and (node.lower < node.lower_width or node.lower_width >= w):
+            return node.lower
+        t0 = time.perf_counter()
+        gen = np.random.default_rng(self.rng.randrange(2**32))
+        right = A._group_table()[1]  # b_h f = f[right[h]]
+        fv = np.asarray([int(x) % p for x in node.f], dtype=np.int64)
+        acc = np.zeros((w, n), dtype=np.int64)
+        for _ in range(8):
+            hs = gen.integers(0, n, size=w)
+            cs = gen.integers(1, p, size=w, dtype=np.int64) if p > 2 else 1
+            acc += (fv[right[hs]] * (cs[:, None] if p > 2 else 1)) % p
+        acc %= p
+        node.lower = residue_matrix(A.field, w, n, acc.ravel()).rank()
+        node.lower_width = w
+        self.tick("group_bounds", t0)
+        return node.lower
 
     def process(self, node: _Node) -> list[_Node]:
         """Split ``node`` (returning its children) or certify it as a new simple."""
@@ -605,7 +767,10 @@ class _Search:
             # a nilpotent z says nothing
             if g.degree == 1 and g.coeffs()[0] != 0:
                 hits += 1
-            if hits >= (2 if self.A._p else 3) or len(degrees) >= 8:
+            # in a group algebra over a small field the sparse elements of _split_group
+            # are cheap and a failed certification is not: more of them first
+            few = GROUP_EVIDENCE if self._group_route() and self.A._p <= 3 else 0
+            if (hits >= (2 if self.A._p else 3) and len(degrees) >= few) or len(degrees) >= 8:
                 t0 = time.perf_counter()
                 try:
                     cl = _new_class(
@@ -867,6 +1032,18 @@ POOL_BYTES = 1 << 29
 """Above ``KEEP_MATRICES_LIMIT`` the transposed matrices of the first dense random elements
 are still kept while they take at most this many bytes: each serves every node of one
 depth of the splitting tree."""
+
+
+GROUP_SPLIT = True
+"""Switch for :meth:`_Search._split_group` (sparse random elements of a group algebra;
+tests compare both routes)."""
+
+GROUP_SUPPORT = 16
+"""Number of group elements in the first random element tried at a node of a group algebra."""
+
+GROUP_EVIDENCE = 4
+"""In a group algebra over GF(2) or GF(3): random elements of a corner with a single
+factor in their minimal polynomial seen before the corner is certified local."""
 
 
 def _class_RT(A: StructureAlgebra, c: _Class) -> Mat:

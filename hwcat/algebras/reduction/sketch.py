@@ -112,7 +112,7 @@ def sketched_rank(M: Mat, seed: int = 0, hint: int = 0) -> int:
             r = (M @ draw(M.field, n, w, seed + w)).rank()
             if r + MARGIN <= w:
                 return r
-            w *= 4
+            w *= 2
     return M.rank()
 
 
@@ -126,5 +126,5 @@ def sketched_independent_rows(M: Mat, seed: int = 0) -> list[int]:
             pos = select_independent_rows(M @ draw(M.field, n, w, seed + w))
             if len(pos) + MARGIN <= w:
                 return pos
-            w *= 4
+            w *= 2
     return select_independent_rows(M)
