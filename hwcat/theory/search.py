@@ -468,35 +468,83 @@ def quasi_hereditary_orders(
 
 
 def _components(A: BasicAlgebra) -> list[list[int]]:
-    """The blocks (as :meth:`BasicAlgebra.components`, by bitmasks: the search is often small)."""
+    """The blocks (as :meth:`BasicAlgebra.components`; plain loops, as the search is often tiny)."""
     n = A.n
-    adj = [1 << v for v in range(n)]
+    root = list(range(n))
     for a in A.arrows:
-        adj[a.source] |= 1 << a.target
-        adj[a.target] |= 1 << a.source
-    seen = 0
-    comps = []
+        x, y = a.source, a.target
+        while root[x] != x:
+            x = root[x]
+        while root[y] != y:
+            y = root[y]
+        if x != y:
+            if x < y:
+                root[y] = x
+            else:
+                root[x] = y
+    if n and root.count(0) == n:
+        return [list(range(n))]
+    comps: dict[int, list[int]] = {}
     for v in range(n):
-        if seen >> v & 1:
+        x = v
+        while root[x] != x:
+            x = root[x]
+        if x in comps:
+            comps[x].append(v)
+        else:
+            comps[x] = [v]
+    return list(comps.values())  # by smallest vertex: each root is its block's smallest
+
+
+def _no_first_step(A: BasicAlgebra, comp: list[int]) -> bool:
+    """Whether no vertex of the block ``comp`` passes the dimension test of a first step.
+
+    A first step ``u`` (``S`` empty, ``B = A``) needs ``e_u A e_u = k`` and, for
+    every ``s != u``, an injective ``e_s A e_u (x) e_u A e_t -> e_s A e_t``, so
+    ``dim e_s A e_u * dim e_u A e_t <= dim e_s A e_t`` for every ``t`` (the
+    test :meth:`~hwcat.theory.traces.TraceCache.survey` makes before any
+    trace).  Read from the lengths of the basis lists, without a trace cache:
+    a block where it fails everywhere has the empty set as its only reachable
+    set (for instance cyclic Nakayama algebras with short radical length).
+    """
+    words = A.words
+    for u in comp:
+        wu = words[u]
+        if len(wu[u]) != 1:
             continue
-        comp = 1 << v
-        frontier = comp
-        while frontier:
-            grown = 0
-            for w in bits(frontier):
-                grown |= adj[w]
-            frontier = grown & ~comp
-            comp |= grown
-        seen |= comp
-        comps.append(list(bits(comp)))
-    return sorted(comps)
+        ok = True
+        for s in comp:
+            if s == u:
+                continue
+            ws = words[s]
+            a = len(ws[u])
+            if a:
+                for t in comp:
+                    d = len(wu[t])
+                    if d and a * d > len(ws[t]):
+                        ok = False
+                        break
+                if not ok:
+                    break
+        if ok:
+            return False
+    return True
 
 
 def _orders(A: BasicAlgebra, list_limit: int | None) -> OrdersResult:
     comps = _components(A)
     n = A.n
-    tc = trace_cache(A)
-    per_block = [(comp, _explore(A, tc, block=mask(comp))) for comp in comps]
+    tc: TraceCache | None = None
+    per_block = []
+    for comp in comps:
+        if _no_first_step(A, comp):
+            lat = _Lattice(n, mask(comp))
+            lat.steps[0] = 0
+        else:
+            if tc is None:
+                tc = trace_cache(A)
+            lat = _explore(A, tc, block=mask(comp))
+        per_block.append((comp, lat))
     qh = all(lat.orders > 0 for _, lat in per_block)
     total = 0
     nstruct = 0
@@ -516,7 +564,7 @@ def _orders(A: BasicAlgebra, list_limit: int | None) -> OrdersResult:
                 for combo in _product_capped(
                     [iter_structure_orders(lat) for _, lat in per_block], cap
                 ):
-                    structs.append(_combine(A, tc, combo, memo))
+                    structs.append(_combine(A, tc, combo, memo))  # type: ignore[arg-type]
                     step()
         listed_all = len(structs) >= nstruct
     best: list[int] = []
