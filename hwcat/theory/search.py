@@ -414,13 +414,14 @@ def _fill(tc: TraceCache, n: int, path: tuple[int, ...], sd, cd, below, memo: di
     """
     S = 0
     rest = mask(path)  # other blocks of the algebra see nothing of this one
+    into = tc.column_support  # dim e_t B e_u <= dim e_t A e_u: only these t can count
     for u in path:
         got = memo.get((S, u))
         if got is None:
             ru = tc.row(S, u)
             c = [0] * n
             b = ru[1]
-            for t in bits(rest):
+            for t in bits(rest & into[u]):
                 x = tc.entry(S, t)[1][u]
                 if x:
                     c[t] = x

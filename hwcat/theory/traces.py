@@ -102,6 +102,7 @@ class TraceCache:
         #: support of P(s): the vertices t with e_s A e_t != 0
         self.support = support = [mask(compress(_RANGE[:n], row)) for row in words]
         self._region: list[int] | None = None  # made when first needed (see region)
+        self._into: list[int] | None = None  # made when first needed (see column_support)
         self._steps: list[dict[int, bool]] = [{} for _ in range(n)]  # per u: S & region[u] -> answer
         self._recurs: dict[int, list[bool]] = {}
         self.n = n
@@ -117,6 +118,17 @@ class TraceCache:
         self._moves: list[Any] = [_UNDECIDED] * n
 
     @property
+    def column_support(self) -> list[int]:
+        """Per vertex ``u``: the vertices ``s`` with ``e_s A e_u != 0`` (``u`` in the support of ``P(s)``)."""
+        if self._into is None:
+            into = [0] * self.n
+            for s, m in enumerate(self.support):
+                for t in bits(m):
+                    into[t] |= 1 << s
+            self._into = into
+        return self._into
+
+    @property
     def region(self) -> list[int]:
         """Per vertex ``u``: the vertices whose membership in ``S`` can change the step test for ``u``.
 
@@ -125,13 +137,10 @@ class TraceCache:
         ``S & region[u]``; answers are kept under that key.
         """
         if self._region is None:
-            n = self.n
             support = self.support
-            into = [0] * n  # the s with u in the support of P(s)
-            for s in range(n):
-                for t in bits(support[s]):
-                    into[t] |= 1 << s
+            into = self.column_support
             region = []
+            n = self.n
             for u in range(n):
                 r = support[u] | into[u]
                 for s in bits(into[u]):
@@ -377,8 +386,11 @@ class TraceCache:
                 if after is None:
                     # e_s B e_u (x) e_u B e_t embeds in e_s B e_t: a count may already fail
                     qs = es[1]
-                    if any(a * qu[t] > qs[t] for t in tops):
-                        ok = False
+                    for t in tops:
+                        if a * qu[t] > qs[t]:
+                            ok = False
+                            break
+                    if not ok:
                         break
                     after = self._add(X, u, s)
                 if es[3] - after[3] != a * eB:
