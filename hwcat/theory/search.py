@@ -464,8 +464,13 @@ def quasi_hereditary_orders(
     >>> [s.representative for s in r.structure_list]
     [(0, 1, 2), (0, 2, 1), (1, 0, 2), (2, 0, 1), (2, 1, 0)]
     """
-    with _no_cycle_collection():
+    was = gc.isenabled()  # as _no_cycle_collection, without a generator: small calls are common
+    gc.disable()
+    try:
         return _orders(A, list_limit)
+    finally:
+        if was:
+            gc.enable()
 
 
 def _components(A: BasicAlgebra) -> list[list[int]]:
