@@ -65,7 +65,13 @@ dropped.  Listing walks the same states depth first, taking every smallest
 order of a structure once.
 
 Blocks are searched separately: orders of different blocks interleave freely
-(a multinomial factor) and structures multiply.
+(a multinomial factor) and structures multiply.  Two shortcuts, both exact:
+a block in which no vertex passes the dimension test of a first step
+(``dim e_s A e_u * dim e_u A e_t <= dim e_s A e_t``, read from the basis) has
+the empty set as its only reachable set and needs no trace; and a block equal
+to an earlier one (same quiver, dimensions and arrow actions in its own
+numbering) takes that block's lattice, carried over by the increasing
+bijection of their vertices.
 
 References
 ----------
