@@ -33,10 +33,10 @@ acyclic 10 free 61.1 -> 65.6x, zero relations 25.3 -> 28.9x, sum relations 23.5 
 acyclic 12 free 72.7 -> 60.2x, zero+commuting 69.7 -> 58.4x, sum 57.3 -> 47.1x,
 acyclic 14 free 52.8 -> 49.0x, zero+commuting 42.4 -> 50.5x, sum 40.2 -> 39.3x.
 The cases still below 10x take under 2 ms in hwcat.  Each run starts from a fresh
-algebra right after ``gc.collect()``, which leaves the processor's caches cold: the
-first touches of code and data then cost several times their warm price (measured:
-the cyclic Nakayama case takes 0.05 ms in hwcat warm, 0.11-0.15 ms after the
-collection), so fixed costs weigh most there; hwcat also lists up to 20 structures
+algebra right after ``gc.collect()``, after which the first touches of code and data
+cost several times their price in a loop (measured: the cyclic Nakayama case takes
+0.05 ms in hwcat when repeated without the collection, 0.11-0.15 ms after it), so
+fixed costs weigh most there; hwcat also lists up to 20 structures
 (14 for A_4, 20 for A_5 and A_6), which the naive search does not do.
 """
 

@@ -566,9 +566,7 @@ def _block_key(A: BasicAlgebra, comp: list[int], arrows_of: dict[int, list[int]]
         quiver = tuple((loc[arrows[a].source], loc[arrows[a].target]) for a in arr)
     dims = tuple(tuple(len(words[s][t]) for t in comp) for s in comp)
     # the nonzero actions (the only ones stored): matrices compared by equality, never hashed
-    acts = tuple(
-        tuple((aloc[a], A.action_matrix(s, a)) for a in A.action_support(s)) for s in comp
-    )
+    acts = tuple(tuple((aloc[a], A.action_matrix(s, a)) for a in A.action_support(s)) for s in comp)
     return (quiver, dims, acts)
 
 

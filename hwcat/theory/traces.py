@@ -103,7 +103,9 @@ class TraceCache:
         self.support = support = [mask(compress(_RANGE[:n], row)) for row in words]
         self._region: list[int] | None = None  # made when first needed (see region)
         self._into: list[int] | None = None  # made when first needed (see column_support)
-        self._steps: list[dict[int, bool]] = [{} for _ in range(n)]  # per u: S & region[u] -> answer
+        self._steps: list[dict[int, bool]] = [
+            {} for _ in range(n)
+        ]  # per u: S & region[u] -> answer
         self._recurs: dict[int, list[bool]] = {}
         self.n = n
         self._vt: dict[tuple[int, int], Any] = {}
