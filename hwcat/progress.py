@@ -44,12 +44,34 @@ def _nothing(n: int = 1) -> None:
     return None
 
 
-@contextmanager
-def task(description: str, total: int | None = None) -> Iterator[Callable[[int], Any]]:
-    """A named step of work with ``total`` parts; the context gives ``advance(n=1)``."""
+class _Silent:
+    """The context of a step while nothing is shown: entering gives a function doing nothing."""
+
+    __slots__ = ()
+
+    def __enter__(self) -> Callable[[int], Any]:
+        return _nothing
+
+    def __exit__(self, *exc: object) -> None:
+        return None
+
+
+_SILENT = _Silent()
+
+
+def task(description: str, total: int | None = None) -> Any:
+    """A named step of work with ``total`` parts; the context gives ``advance(n=1)``.
+
+    While progress is not shown this returns one shared context that does
+    nothing (no generator is made: small searches announce steps often).
+    """
     if _stream is None:
-        yield _nothing
-        return
+        return _SILENT
+    return _shown(description, total)
+
+
+@contextmanager
+def _shown(description: str, total: int | None) -> Iterator[Callable[[int], Any]]:
     from tqdm import tqdm  # only when progress is shown
 
     bar = tqdm(

@@ -65,7 +65,13 @@ dropped.  Listing walks the same states depth first, taking every smallest
 order of a structure once.
 
 Blocks are searched separately: orders of different blocks interleave freely
-(a multinomial factor) and structures multiply.
+(a multinomial factor) and structures multiply.  Two shortcuts, both exact:
+a block in which no vertex passes the dimension test of a first step
+(``dim e_s A e_u * dim e_u A e_t <= dim e_s A e_t``, read from the basis) has
+the empty set as its only reachable set and needs no trace; and a block equal
+to an earlier one (same quiver, dimensions and arrow actions in its own
+numbering) takes that block's lattice, carried over by the increasing
+bijection of their vertices.
 
 References
 ----------
@@ -414,13 +420,14 @@ def _fill(tc: TraceCache, n: int, path: tuple[int, ...], sd, cd, below, memo: di
     """
     S = 0
     rest = mask(path)  # other blocks of the algebra see nothing of this one
+    into = tc.column_support  # dim e_t B e_u <= dim e_t A e_u: only these t can count
     for u in path:
         got = memo.get((S, u))
         if got is None:
             ru = tc.row(S, u)
             c = [0] * n
             b = ru[1]
-            for t in bits(rest):
+            for t in bits(rest & into[u]):
                 x = tc.entry(S, t)[1][u]
                 if x:
                     c[t] = x
@@ -463,66 +470,190 @@ def quasi_hereditary_orders(
     >>> [s.representative for s in r.structure_list]
     [(0, 1, 2), (0, 2, 1), (1, 0, 2), (2, 0, 1), (2, 1, 0)]
     """
-    with _no_cycle_collection():
+    was = gc.isenabled()  # as _no_cycle_collection, without a generator: small calls are common
+    gc.disable()
+    try:
         return _orders(A, list_limit)
+    finally:
+        if was:
+            gc.enable()
 
 
 def _components(A: BasicAlgebra) -> list[list[int]]:
-    """The blocks (as :meth:`BasicAlgebra.components`, by bitmasks: the search is often small)."""
+    """The blocks (as :meth:`BasicAlgebra.components`; plain loops, as the search is often tiny)."""
     n = A.n
-    adj = [1 << v for v in range(n)]
+    root = list(range(n))
     for a in A.arrows:
-        adj[a.source] |= 1 << a.target
-        adj[a.target] |= 1 << a.source
-    seen = 0
-    comps = []
+        x, y = a.source, a.target
+        while root[x] != x:
+            x = root[x]
+        while root[y] != y:
+            y = root[y]
+        if x != y:
+            if x < y:
+                root[y] = x
+            else:
+                root[x] = y
+    if n and root.count(0) == n:
+        return [list(range(n))]
+    comps: dict[int, list[int]] = {}
     for v in range(n):
-        if seen >> v & 1:
+        x = v
+        while root[x] != x:
+            x = root[x]
+        if x in comps:
+            comps[x].append(v)
+        else:
+            comps[x] = [v]
+    return list(comps.values())  # by smallest vertex: each root is its block's smallest
+
+
+def _no_first_step(A: BasicAlgebra, comp: list[int]) -> bool:
+    """Whether no vertex of the block ``comp`` passes the dimension test of a first step.
+
+    A first step ``u`` (``S`` empty, ``B = A``) needs ``e_u A e_u = k`` and, for
+    every ``s != u``, an injective ``e_s A e_u (x) e_u A e_t -> e_s A e_t``, so
+    ``dim e_s A e_u * dim e_u A e_t <= dim e_s A e_t`` for every ``t`` (the
+    test :meth:`~hwcat.theory.traces.TraceCache.survey` makes before any
+    trace).  Read from the lengths of the basis lists, without a trace cache:
+    a block where it fails everywhere has the empty set as its only reachable
+    set (for instance cyclic Nakayama algebras with short radical length).
+    """
+    words = A.words
+    for u in comp:
+        wu = words[u]
+        if len(wu[u]) != 1:
             continue
-        comp = 1 << v
-        frontier = comp
-        while frontier:
-            grown = 0
-            for w in bits(frontier):
-                grown |= adj[w]
-            frontier = grown & ~comp
-            comp |= grown
-        seen |= comp
-        comps.append(list(bits(comp)))
-    return sorted(comps)
+        ok = True
+        for s in comp:
+            if s == u:
+                continue
+            ws = words[s]
+            a = len(ws[u])
+            if a:
+                for t in comp:
+                    d = len(wu[t])
+                    if d and a * d > len(ws[t]):
+                        ok = False
+                        break
+                if not ok:
+                    break
+        if ok:
+            return False
+    return True
+
+
+def _block_key(A: BasicAlgebra, comp: list[int], arrows_of: dict[int, list[int]]) -> tuple:
+    """Everything the search reads of the block ``comp``, in its own numbering.
+
+    Vertices are numbered by their place in ``comp`` (increasing), arrows by
+    their place among the block's arrows: the quiver, the dimensions
+    ``dim e_s A e_t`` and the matrices of the arrows acting on each ``P(s)``
+    (the right regular representation, from which every trace, step test and
+    standard module of the search is computed).  Two blocks with equal keys
+    are carried onto each other by the increasing bijection of their vertices,
+    so the search of one answers for the other.
+    """
+    arr = arrows_of.get(comp[0], [])
+    aloc = {a: j for j, a in enumerate(arr)}
+    arrows = A.arrows
+    words = A.words
+    first = comp[0]
+    if comp[-1] - first + 1 == len(comp):  # consecutive vertices: a shift
+        quiver = tuple((arrows[a].source - first, arrows[a].target - first) for a in arr)
+    else:
+        loc = {v: i for i, v in enumerate(comp)}
+        quiver = tuple((loc[arrows[a].source], loc[arrows[a].target]) for a in arr)
+    dims = tuple(tuple(len(words[s][t]) for t in comp) for s in comp)
+    # the nonzero actions (the only ones stored): matrices compared by equality, never hashed
+    acts = tuple(tuple((aloc[a], A.action_matrix(s, a)) for a in A.action_support(s)) for s in comp)
+    return (quiver, dims, acts)
+
+
+def _blocks(A: BasicAlgebra, comps: list[list[int]]) -> list[int]:
+    """For each block, the index of the first block equal to it (see :func:`_block_key`)."""
+    if len(comps) < 2:
+        return [0] * len(comps)
+    block_of = {}
+    for k, comp in enumerate(comps):
+        for v in comp:
+            block_of[v] = k
+    arrows_of: dict[int, list[int]] = {}
+    for i, a in enumerate(A.arrows):
+        arrows_of.setdefault(comps[block_of[a.source]][0], []).append(i)
+    out = []
+    seen: dict[tuple[int, int], list[tuple[tuple, int]]] = {}  # shape -> (key, block)
+    for k, comp in enumerate(comps):
+        # a cheap test first: equal blocks have equal sizes and arrow counts
+        sh = (len(comp), len(arrows_of.get(comp[0], ())))
+        found = seen.get(sh)
+        if found is None:  # the first of its shape: its key is made if another comes
+            seen[sh] = [((), k)]
+            out.append(k)
+            continue
+        if found[0][0] == ():
+            found[0] = (_block_key(A, comps[found[0][1]], arrows_of), found[0][1])
+        key = _block_key(A, comp, arrows_of)
+        for other, j in found:
+            if other == key:
+                out.append(j)
+                break
+        else:
+            found.append((key, k))
+            out.append(k)
+    return out
 
 
 def _orders(A: BasicAlgebra, list_limit: int | None) -> OrdersResult:
     comps = _components(A)
     n = A.n
-    tc = trace_cache(A)
-    per_block = [(comp, _explore(A, tc, block=mask(comp))) for comp in comps]
-    qh = all(lat.orders > 0 for _, lat in per_block)
+    tc: TraceCache | None = None
+    same = _blocks(A, comps)
+    # per block: (its vertices, the lattice searched, the map from the searched block's
+    # vertices to this one's, or None when this block was searched itself)
+    per_block: list[tuple[list[int], _Lattice, dict[int, int] | None]] = []
+    for k, comp in enumerate(comps):
+        j = same[k]
+        if j != k:
+            per_block.append((comp, per_block[j][1], dict(zip(comps[j], comp))))
+            continue
+        if _no_first_step(A, comp):
+            lat = _Lattice(n, mask(comp))
+            lat.steps[0] = 0
+        else:
+            if tc is None:
+                tc = trace_cache(A)
+            lat = _explore(A, tc, block=mask(comp))
+        per_block.append((comp, lat, None))
+    qh = all(lat.orders > 0 for _, lat, _ in per_block)
     total = 0
     nstruct = 0
     structs: list[Structure] = []
     listed_all = True
     if qh:
         total = factorial(n)
-        for comp, lat in per_block:
+        for comp, lat, _ in per_block:
             total = total // factorial(len(comp)) * lat.orders
         nstruct = 1
-        for _, lat in per_block:
+        for _, lat, _ in per_block:
             nstruct *= lat.structures
         cap = nstruct if list_limit is None else min(list_limit, nstruct)
         memo: dict = {}
         if cap:
+            assert tc is not None  # every block has a quasi-hereditary order
+            maps = [phi for _, _, phi in per_block]
             with task("order search: listing structures", total=cap) as step:
                 for combo in _product_capped(
-                    [iter_structure_orders(lat) for _, lat in per_block], cap
+                    [iter_structure_orders(lat) for _, lat, _ in per_block], cap
                 ):
-                    structs.append(_combine(A, tc, combo, memo))
+                    structs.append(_combine(A, tc, combo, memo, maps))
                     step()
         listed_all = len(structs) >= nstruct
     best: list[int] = []
-    for _, lat in per_block:
+    for _, lat, phi in per_block:
         target = lat.full if lat.orders else lat.deepest
-        best.extend(lat.chain_to(target))
+        chain = lat.chain_to(target)
+        best.extend(chain if phi is None else [phi[v] for v in chain])
     return OrdersResult(
         name=A.name,
         vertices=A.vertices,
@@ -532,7 +663,7 @@ def _orders(A: BasicAlgebra, list_limit: int | None) -> OrdersResult:
         structure_list=tuple(structs),
         listed_all=listed_all,
         blocks=tuple(tuple(A.vertices[v] for v in c) for c in comps),
-        reachable_sets=sum(lat.reachable for _, lat in per_block),
+        reachable_sets=sum(lat.reachable for _, lat, _ in per_block),
         best_attempt=tuple(best),
     )
 
@@ -562,15 +693,46 @@ def _product_capped(blocks, cap: int):
 
 
 def _combine(
-    A: BasicAlgebra, tc: TraceCache, paths: list[tuple[int, ...]], memo: dict
+    A: BasicAlgebra,
+    tc: TraceCache,
+    paths: list[tuple[int, ...]],
+    memo: dict,
+    maps: list[dict[int, int] | None] | None = None,
 ) -> Structure:
-    """Glue the structures of the blocks (each given by its smallest order) into one of ``A``."""
+    """Glue the structures of the blocks (each given by its smallest order) into one of ``A``.
+
+    ``maps[k]``, when given and not None, carries the vertices of the block
+    whose order ``paths[k]`` is onto the vertices of block ``k``, an equal block
+    that was not searched itself (see :func:`_blocks`).
+    """
     n = A.n
     sd: list[tuple[int, ...]] = [()] * n
     cd: list[tuple[int, ...]] = [()] * n
     below = [0] * n
-    for path in paths:
-        _fill(tc, n, path, sd, cd, below, memo)
+    mapped = []
+    for k, path in enumerate(paths):
+        phi = maps[k] if maps is not None else None
+        if phi is None:
+            _fill(tc, n, path, sd, cd, below, memo)
+            mapped.append(path)
+            continue
+        # the vectors of the searched block, moved to this block's vertices
+        sd1: list[tuple[int, ...]] = [()] * n
+        cd1: list[tuple[int, ...]] = [()] * n
+        below1 = [0] * n
+        _fill(tc, n, path, sd1, cd1, below1, memo)
+        for u in path:
+            v = phi[u]
+            x = [0] * n
+            y = [0] * n
+            for w, z in phi.items():
+                x[z] = sd1[u][w]
+                y[z] = cd1[u][w]
+            sd[v] = tuple(x)
+            cd[v] = tuple(y)
+            below[v] = mask(phi[w] for w in bits(below1[u]))
+        mapped.append(tuple(phi[u] for u in path))
+    paths = mapped
     # vertices of different blocks are independent: the smallest order of the
     # structure takes, at each step, the smallest next vertex of the blocks' smallest orders
     rep = tuple(heapq.merge(*paths)) if len(paths) > 1 else paths[0]

@@ -30,6 +30,7 @@ dimension vector of a projective of the quotient from cached data.
 
 from __future__ import annotations
 
+from itertools import compress
 from typing import Any
 
 from hwcat.algebras.hub.basic import BasicAlgebra
@@ -43,6 +44,7 @@ __all__ = ["TraceCache", "bits", "mask"]
 _UNDECIDED = object()  # a projective whose mode is not yet decided
 _BITS: dict[int, tuple[int, ...]] = {}
 _BITS_LIMIT = 1 << 20
+_RANGE = range(1 << 16)
 _BYTE = [tuple(i for i in range(8) if b >> i & 1) for b in range(256)]
 
 
@@ -95,35 +97,59 @@ class TraceCache:
     def __init__(self, A: BasicAlgebra) -> None:
         self.A = A
         n = A.n
-        self._pdims = [tuple(map(len, A.words[s])) for s in range(n)]  # A.projective_dims(s)
+        words = A.words
+        self._pdims = pdims = [tuple(map(len, words[s])) for s in range(n)]  # A.projective_dims(s)
         #: support of P(s): the vertices t with e_s A e_t != 0
-        self.support = [mask(t for t in range(n) if self._pdims[s][t]) for s in range(n)]
-        # the step test for u at S reads only the traces in P(u) and in the P(s) with
-        # u in their support, so it depends only on S & region[u]; answers are kept
-        region = []
-        for u in range(n):
-            r = self.support[u]
-            for s in range(n):
-                if self.support[s] >> u & 1:
-                    r |= self.support[s] | (1 << s)
-            region.append(r)
-        #: per vertex u: the vertices whose membership in S can change the step test for u
-        self.region = region
-        self._steps: list[dict[int, bool]] = [{} for _ in range(n)]  # per u: S & region[u] -> answer
+        self.support = support = [mask(compress(_RANGE[:n], row)) for row in words]
+        self._region: list[int] | None = None  # made when first needed (see region)
+        self._into: list[int] | None = None  # made when first needed (see column_support)
+        self._steps: list[dict[int, bool]] = [
+            {} for _ in range(n)
+        ]  # per u: S & region[u] -> answer
         self._recurs: dict[int, list[bool]] = {}
         self.n = n
         self._vt: dict[tuple[int, int], Any] = {}
-        #: per s: trace of X (a subset of the support of P(s)) -> cache entry
-        self._e: list[dict[int, tuple]] = [{} for _ in range(n)]
-        self._outs: list[list[int]] = [[] for _ in range(n)]  # arrows leaving each vertex
-        for i, a in enumerate(A.arrows):
-            self._outs[a.source].append(i)
+        #: per s: trace of X (a subset of the support of P(s)) -> cache entry; the zero
+        #: trace has no basis yet (see _zero), the whole of P(s) is left
+        self._e: list[dict[int, tuple]] = [
+            {0: (None, d, m, sum(d))} for d, m in zip(pdims, support)
+        ]
+        self._outs: list[list[int]] | None = None  # arrows leaving each vertex, when needed
         #: per s: per arrow acting on P(s), basis index -> image index (-1: zero); None when
         #: P(s) is not in path mode; decided when P(s) is first needed
         self._moves: list[Any] = [_UNDECIDED] * n
-        for s in range(n):  # the zero trace: no basis yet (see _zero), the whole of P(s) left
-            d = self._pdims[s]
-            self._e[s][0] = (None, d, self.support[s], sum(d))
+
+    @property
+    def column_support(self) -> list[int]:
+        """Per vertex ``u``: the vertices ``s`` with ``e_s A e_u != 0`` (``u`` in the support of ``P(s)``)."""
+        if self._into is None:
+            into = [0] * self.n
+            for s, m in enumerate(self.support):
+                for t in bits(m):
+                    into[t] |= 1 << s
+            self._into = into
+        return self._into
+
+    @property
+    def region(self) -> list[int]:
+        """Per vertex ``u``: the vertices whose membership in ``S`` can change the step test for ``u``.
+
+        The step test for ``u`` at ``S`` reads only the traces in ``P(u)`` and
+        in the ``P(s)`` with ``u`` in their support, so it depends only on
+        ``S & region[u]``; answers are kept under that key.
+        """
+        if self._region is None:
+            support = self.support
+            into = self.column_support
+            region = []
+            n = self.n
+            for u in range(n):
+                r = support[u] | into[u]
+                for s in bits(into[u]):
+                    r |= support[s]
+                region.append(r)
+            self._region = region
+        return self._region
 
     @property
     def path_mode(self) -> list[bool]:
@@ -194,6 +220,10 @@ class TraceCache:
         got = [0] * n
         got[u] = (1 << self._pdims[s][u]) - 1
         outs = self._outs
+        if outs is None:
+            outs = self._outs = [[] for _ in range(n)]
+            for i, a in enumerate(A.arrows):
+                outs[a.source].append(i)
         todo = [(u, j) for j in range(self._pdims[s][u])]
         moves = self._moves[s]
         assert moves is not None
@@ -326,10 +356,10 @@ class TraceCache:
                     col[t] |= 1 << s
         valid = 0
         memo = self._steps
-        region = self.region
         recur = self._recurs.get(W)
         if recur is None:  # per vertex: whether the step test can recur within W
-            recur = self._recurs[W] = [r & W != W for r in region]
+            recur = self._recurs[W] = [r & W != W for r in self.region]
+        region = self._region
         for u in bits(candidates):
             # kept only when the test can recur: sets are visited once each
             mu = memo[u] if recur[u] else None
@@ -358,8 +388,11 @@ class TraceCache:
                 if after is None:
                     # e_s B e_u (x) e_u B e_t embeds in e_s B e_t: a count may already fail
                     qs = es[1]
-                    if any(a * qu[t] > qs[t] for t in tops):
-                        ok = False
+                    for t in tops:
+                        if a * qu[t] > qs[t]:
+                            ok = False
+                            break
+                    if not ok:
                         break
                     after = self._add(X, u, s)
                 if es[3] - after[3] != a * eB:
