@@ -22,8 +22,10 @@ of ``M f`` and ``P`` with ``f = P B`` on ``M`` (``B P = 1``), sector by sector;
 an element ``f y f`` of the corner acts on ``M f`` by the small matrix
 ``B y P``, whose minimal polynomial is that of ``f y f`` in ``f A f`` (``x`` in
 ``f A f`` is determined by its action on ``M f``).  The random elements ``y``
-are sums of two products of ``floor(n^2/4) + 1`` random affine combinations of
-``1, e_1, ..., e_(n-1)`` (long enough to reach every diagram); the children are
+are sums of products of ``L = floor(n^2/4) + 1`` (long enough to reach every
+diagram), ``L/2 + 1``, 3 and 1 random affine combinations of ``1, e_1, ..., e_(n-1)``
+(short products too, since a long one is killed by a one-dimensional simple as
+soon as one factor is, and then separates nothing); the children are
 the generalised eigenspaces of ``B y P``.  Nothing depends on the draw: every
 leaf is certified and the totals are checked exactly.
 
@@ -236,8 +238,10 @@ class _Search:
             length = ch.n * ch.n // 4 + 1
             ngen = ch.n - 1
             total = [np.zeros((d, d), dtype=np.int64) for d in ch.dims]
-            for _ in range(2):
-                coefs = [[self.rng.randrange(p) for _ in range(ngen + 1)] for _ in range(length)]
+            # products of every length class: a long product alone is killed by a character
+            # (e.g. the one with every e_i -> 0) as soon as one factor is
+            for size in (length, length // 2 + 1, 3, 1):
+                coefs = [[self.rng.randrange(p) for _ in range(ngen + 1)] for _ in range(size)]
                 for k, d in enumerate(ch.dims):
                     Y = np.eye(d, dtype=np.int64)
                     for c in coefs:
