@@ -78,7 +78,18 @@ def _notes(A) -> list[str]:
 
     r = reduction_of(A)
     if r is None:
-        return []
+        from hwcat.algebras.families.tl_module import module_reduction_of
+
+        m = module_reduction_of(A)
+        if m is None:
+            return []
+        dims = ", ".join(
+            f"L({v}): {d}" for v, d in zip(m.basic.vertices, m.simple_dimensions, strict=True)
+        )
+        return [
+            f"reduced through the spin chain (no table) from an algebra of dimension "
+            f"{m.dimension}; radical dimension {m.radical_dimension}; simple dimensions {dims}",
+        ]
     B = r.algebra
     dims = ", ".join(
         f"L({v}): {d}" for v, d in zip(r.basic.vertices, r.simple_dimensions, strict=True)

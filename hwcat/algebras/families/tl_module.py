@@ -176,7 +176,9 @@ def _chain(n: int, q: Any, F: PrimeField) -> _Chain:
             k, a = where[r]
             kc, b = where[c]
             if kc != k:
-                raise InternalInconsistency("a spin chain generator changes the number of down spins")
+                raise InternalInconsistency(
+                    "a spin chain generator changes the number of down spins"
+                )
             if a == b:
                 diag[k][b] = int(v)
             else:
@@ -296,7 +298,9 @@ class _Search:
             for j, V in enumerate(spaces):
                 kids_B[j].append(V @ node.B[k])
                 cols = list(range(off, off + V.nrows))
-                kids_P[j].append(node.P[k] @ select_columns(Ti, cols) if cols else Mat.zeros(F, d, 0))
+                kids_P[j].append(
+                    node.P[k] @ select_columns(Ti, cols) if cols else Mat.zeros(F, d, 0)
+                )
                 off += V.nrows
         self.tick("eigenspaces", t0)
         depth = node.depth + node.attempts
@@ -418,7 +422,10 @@ class _Search:
         sq = [r * r for r in ranks]
         Cb = H[cpos]
         solver = coords_solver(_mat(F, Cb))
-        mult = [_coords(F, solver, _bd_products(Cb, Cb[l], ranks, ranks, ranks, p)) for l in range(len(cpos))]
+        mult = [
+            _coords(F, solver, _bd_products(Cb, Cb[l], ranks, ranks, ranks, p))
+            for l in range(len(cpos))
+        ]
         rad = small_radical(F, mult)
         c = len(cpos)
         if rad.nrows != c - 1:
@@ -556,7 +563,9 @@ def module_reduction_of(B: BasicAlgebra) -> ModuleReduction | None:
     return red if red is not None and red.basic is B else None
 
 
-def reduce_temperley_lieb(n: int, delta: Any = 0, field: Any = "GF(5)", *, seed: int = 0) -> ModuleReduction:
+def reduce_temperley_lieb(
+    n: int, delta: Any = 0, field: Any = "GF(5)", *, seed: int = 0
+) -> ModuleReduction:
     """Reduce ``TL_n(delta)`` over a prime field through the spin chain (see the notes).
 
     Raises
