@@ -116,7 +116,11 @@ def _cmd_presentation(args: argparse.Namespace) -> int:
 
 
 def _cmd_family(args: argparse.Namespace) -> int:
-    from hwcat.algebras.families.registry import FAMILIES, family_algebra
+    from hwcat.algebras.families.registry import (
+        FAMILIES,
+        family_algebra,
+        family_reduction_record,
+    )
     from hwcat.algebras.reduction.presentation import presentation_toml
     from hwcat.io.render import render_structure, to_json
     from hwcat.theory.structure import describe
@@ -133,7 +137,13 @@ def _cmd_family(args: argparse.Namespace) -> int:
         print(f"wrote {args.write_quiver}", file=sys.stderr)
     report = describe(A)
     if args.json:
-        print(to_json(report))
+        red = family_reduction_record(A)
+        if red is None:
+            print(to_json(report))
+        else:
+            import json
+
+            print(json.dumps({**report.to_dict(), "reduction": red.to_dict()}, indent=2))
     else:
         print(render_structure(report))
         for line in _notes(A):

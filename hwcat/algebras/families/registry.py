@@ -53,6 +53,7 @@ __all__ = [
     "FAMILIES",
     "family_structure",
     "family_reduction",
+    "family_reduction_record",
     "family_algebra",
     "family_spec",
     "parse_parameters",
@@ -253,6 +254,14 @@ def family_reduction(family: str, *, seed: int = 0, **params: Any) -> Reduction 
         return reduce_temperley_lieb(p["n"], p["delta"], p["field"], seed=seed)
     red = reduce_algebra(family_structure(family, **params), seed=seed)
     return label_simples(family, red, p)
+
+
+def family_reduction_record(B: BasicAlgebra) -> Reduction | ModuleReduction | None:
+    """How the hub ``B`` was reduced (table or spin chain), if it came from a reduction."""
+    from hwcat.algebras.families.tl_module import module_reduction_of
+    from hwcat.algebras.reduction.reduction import reduction_of
+
+    return reduction_of(B) or module_reduction_of(B)
 
 
 def _tl_spin_chain(p: Mapping[str, Any]) -> bool:

@@ -592,7 +592,7 @@ def reduce_temperley_lieb(
         )
     if sum(c.n * c.dim_Ae for c in S.classes) != total:
         raise InternalInconsistency("Morita count with left projectives failed on the spin chain")
-    classes = sorted(S.classes, key=lambda c: (c.n, c.dim_P))
+    classes = sorted(S.classes, key=lambda c: (c.n, c.dim_P, c.sector))
     t0 = time.perf_counter()
     name = f"TL_{n}({F.to_str(F(delta))}) over {F.name}"
     B = _assemble(F, S.chain, classes, name)
