@@ -154,6 +154,9 @@ def test_route_parameter() -> None:
     assert module_route_available(0, "GF(5)")
     assert not module_route_available(0, "GF(3)")  # x^2 + 1 is irreducible mod 3
     assert not module_route_available(2, "QQ")  # not a prime field
+    assert not module_route_available(2, "GF(16777259)")  # above the int64-safe bound
+    with pytest.raises(SpecError, match="2\\^24"):
+        reduce_temperley_lieb(3, 2, "GF(16777259)")
     with pytest.raises(SpecError, match="route"):
         family_reduction("temperley-lieb", n=4, delta="0", field="GF(5)", route="fast")
     with pytest.raises(SpecError, match="q"):

@@ -96,11 +96,16 @@ from hwcat.progress import task
 __all__ = ["ModuleReduction", "reduce_temperley_lieb", "module_route_available"]
 
 
+PRIME_LIMIT = 1 << 24
+"""The spin-chain route works with int64 residues: products of two residues and sums of
+up to ``2^14`` of them stay below ``2^63`` for primes below this bound."""
+
+
 def module_route_available(delta: Any, field: Any) -> bool:
-    """Whether the spin-chain route applies: a prime field containing ``q`` with
-    ``q + 1/q = delta``."""
+    """Whether the spin-chain route applies: a prime field ``GF(p)``, ``p < 2^24``,
+    containing ``q`` with ``q + 1/q = delta``."""
     F = parse_field(field) if isinstance(field, str) else field
-    if not isinstance(F, PrimeField):
+    if not isinstance(F, PrimeField) or F.p >= PRIME_LIMIT:
         return False
     try:
         loop_weight_root(delta, F)
@@ -218,6 +223,10 @@ class _Class:
     dim_Ae: int
 
 
+BASE = 3
+"""Random elements built from the generators; the later ones are products of these."""
+
+
 class _Search:
     def __init__(self, chain: _Chain, seed: int) -> None:
         self.chain = chain
@@ -233,10 +242,24 @@ class _Search:
 
     # -- random elements ----------------------------------------------------------
     def element(self, j: int) -> list[Mat]:
-        """The ``j``-th random element, sector by sector."""
+        """The ``j``-th random element, sector by sector: the first ``BASE`` are sums of
+        products of random affine combinations of the generators (see the notes), the
+        later ones ``w_a w_b + c w_d`` for random earlier ``a, b, d`` and scalar ``c``
+        (one product per sector instead of a hundred generator steps)."""
         ch, p = self.chain, self.F.p
         while len(self.pool) <= j:
             t0 = time.perf_counter()
+            if len(self.pool) >= BASE:
+                a, b, d = (self.rng.randrange(len(self.pool)) for _ in range(3))
+                c = self.rng.randrange(1, p)
+                self.pool.append(
+                    [
+                        wa @ wb + wd.scale(self.F(c))
+                        for wa, wb, wd in zip(self.pool[a], self.pool[b], self.pool[d], strict=True)
+                    ]
+                )
+                self.tick("random_elements", t0)
+                continue
             length = ch.n * ch.n // 4 + 1
             ngen = ch.n - 1
             total = [np.zeros((d, d), dtype=np.int64) for d in ch.dims]
@@ -375,15 +398,19 @@ class _Search:
     # -- closures and certificates -----------------------------------------------------
     def closure(self, start: list[Any], ranks: list[int], left: bool) -> Any:
         """A basis (rows) of ``e A`` (``left=False``: closure of ``start`` under right
-        multiplication) or of ``A e`` transposed (``left=True``)."""
+        multiplication) or of ``A e`` transposed (``left=True``).
+
+        The basis is kept in reduced echelon form: new candidates are reduced by one
+        product with it, and only their echelon form is computed."""
         ch, F = self.chain, self.F
         segs = _segments(ranks, ch.dims)
         width = segs[-1][1] if segs else 0
         v = np.zeros((1, width), dtype=np.int64)
         for (a, b), blk in zip(segs, start, strict=True):
             v[0, a:b] = blk.ravel()
-        basis = v
-        frontier = v
+        E, piv = _mat(F, v).rref()
+        piv = list(piv)
+        frontier = _arr(E)
         while frontier.shape[0]:
             m = frontier.shape[0]
             cands = np.zeros(((ch.n - 1) * m, width), dtype=np.int64)
@@ -395,15 +422,17 @@ class _Search:
                     X = frontier[:, a:b].reshape(m * r, ch.dims[k])
                     out = ch.left_t(X, i, k) if left else ch.right(X, i, k)
                     cands[i * m : (i + 1) * m, a:b] = out.reshape(m, b - a)
-            cands = cands[cands.any(axis=1)]
-            if not cands.shape[0]:
+            C = _mat(F, cands)
+            C = C - select_columns(C, piv) @ E
+            R, piv2 = C.rref()
+            if not piv2:
                 break
-            pos = select_independent_rows(_mat(F, cands), _mat(F, basis))
-            frontier = cands[pos]
-            basis = np.vstack([basis, frontier])
-            if basis.shape[0] > self.total:
+            E = Mat.vstack(F, [E - select_columns(E, list(piv2)) @ R, R], width)
+            piv += list(piv2)
+            frontier = _arr(R)
+            if E.nrows > self.total:
                 raise InternalInconsistency("a one-sided ideal larger than the algebra")
-        return basis
+        return _arr(E)
 
     def certify(self, node: _Node) -> _Class | None:
         """The class of the leaf ``node``, or ``None`` when its corner is not local."""
@@ -576,6 +605,11 @@ def reduce_temperley_lieb(
     F = parse_field(field) if isinstance(field, str) else field
     if not isinstance(F, PrimeField):
         raise SpecError(f"temperley-lieb: the spin-chain route needs a prime field GF(p), not {F}")
+    if F.p >= PRIME_LIMIT:
+        raise SpecError(
+            f"temperley-lieb: the spin-chain route needs a prime below 2^24, not {F.p} "
+            "(use route=table)"
+        )
     if isinstance(n, bool) or not isinstance(n, int) or n < 2:
         raise SpecError(f"temperley-lieb: the spin-chain route needs n >= 2, not {n!r}")
     q = loop_weight_root(delta, F)
