@@ -81,11 +81,12 @@ class Family:
         return f"{self.name} {ps}".strip()
 
 
-TL_SPIN_CHAIN_FROM = 9
+TL_SPIN_CHAIN_FROM = 8
 """``route=auto`` reduces ``TL_n`` through the spin chain from this ``n`` on (when the field
-allows it).  Measured (benchmarks/bench_reduction.py): the spin chain takes about 1 s at
-``n = 8`` against about half a minute for the table; below 9 the table route is kept
-because it also gives the idempotents in the diagram basis, which ``hwcat module`` uses."""
+allows it).  Measured (benchmarks/bench_reduction.py, one dense rank of a 1430 x 1430
+matrix as the unit): at ``n = 8`` the table route takes 23 to 27 units, the spin chain
+1.1 to 1.7; at ``n = 7`` both take well under a second.  ``hwcat module`` asks for
+``route=table`` (it reads modules in the diagram basis, which only that route has)."""
 
 TL_ROUTES = ("auto", "table", "spin-chain")
 
