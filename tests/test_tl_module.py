@@ -196,3 +196,12 @@ def test_command_line(capsys: pytest.CaptureFixture) -> None:
         ["check", "--family", "temperley-lieb", "n=5", "delta=1", "field=GF(7)", "route=spin-chain"]
     )
     assert code in (0, 1)
+
+
+@pytest.mark.slow
+def test_agrees_with_the_table_route_everywhere_small() -> None:
+    # every n <= 7 with every (delta, p) above, two seeds
+    for n in range(2, 8):
+        for delta, p in VALID:
+            for seed in (0, 7):
+                _compare(n, delta, p, seed)

@@ -6,7 +6,9 @@ Two kinds:
   Temperley--Lieb ``TL_n(delta)`` (diagram basis), Schur algebras ``S(2, r)``
   (Green's basis), group algebras of ``S_n`` and of cyclic groups, the small
   quantum group ``u_q(sl_2)``.  They are reduced to their basic algebra with
-  :func:`hwcat.algebras.reduction.reduction.reduce_algebra`.
+  :func:`hwcat.algebras.reduction.reduction.reduce_algebra`; Temperley--Lieb
+  over ``GF(p)`` also through its spin chain, without a table
+  (:mod:`hwcat.algebras.families.tl_module`, parameter ``route``).
 * **quiver families** (:mod:`hwcat.algebras.families.quivers`): linearly
   oriented and alternating ``A_n`` (with any ``vanish_from_length``), the
   Auslander algebra of ``k[x]/(x^n)``, zigzag algebras of type ``A_n``.  They
