@@ -242,43 +242,46 @@ class _Search:
 
     # -- random elements ----------------------------------------------------------
     def element(self, j: int) -> list[Mat]:
-        """The ``j``-th random element, sector by sector: the first ``BASE`` are sums of
-        products of random affine combinations of the generators (see the notes), the
-        later ones ``w_a w_b + c w_d`` for random earlier ``a, b, d`` and scalar ``c``
-        (one product per sector instead of a hundred generator steps)."""
+        """The ``j``-th random element, sector by sector: a sum of products of random
+        affine combinations of the generators (see the notes), the long products only in
+        the first ``BASE`` elements; each later one has ``w_a w_b`` for random earlier
+        ``a, b`` instead (one product per sector instead of a hundred generator steps),
+        and fresh short products, so that its values on the one-dimensional simples are
+        fresh too."""
         ch, p = self.chain, self.F.p
         while len(self.pool) <= j:
             t0 = time.perf_counter()
-            if len(self.pool) >= BASE:
-                a, b, d = (self.rng.randrange(len(self.pool)) for _ in range(3))
-                c = self.rng.randrange(1, p)
-                self.pool.append(
-                    [
-                        wa @ wb + wd.scale(self.F(c))
-                        for wa, wb, wd in zip(self.pool[a], self.pool[b], self.pool[d], strict=True)
-                    ]
-                )
-                self.tick("random_elements", t0)
-                continue
             length = ch.n * ch.n // 4 + 1
-            ngen = ch.n - 1
+            base = len(self.pool) < BASE
+            sizes = (length, length // 2 + 1, 3, 1) if base else (3, 1)
             total = [np.zeros((d, d), dtype=np.int64) for d in ch.dims]
             # products of every length class: a long product alone is killed by a character
             # (e.g. the one with every e_i -> 0) as soon as one factor is
-            for size in (length, length // 2 + 1, 3, 1):
-                coefs = [[self.rng.randrange(p) for _ in range(ngen + 1)] for _ in range(size)]
+            for size in sizes:
+                coefs = [[self.rng.randrange(p) for _ in range(ch.n)] for _ in range(size)]
                 for k, d in enumerate(ch.dims):
-                    Y = np.eye(d, dtype=np.int64)
-                    for c in coefs:
-                        acc = Y * c[0]
-                        for i in range(ngen):
-                            if c[i + 1]:
-                                acc += ch.right(Y, i, k) * c[i + 1]
-                        Y = acc % p
-                    total[k] = (total[k] + Y) % p
-            self.pool.append([_mat(self.F, Y) for Y in total])
+                    total[k] = (total[k] + self._product(coefs, k, d)) % p
+            out = [_mat(self.F, Y) for Y in total]
+            if not base:
+                a, b = (self.rng.randrange(len(self.pool)) for _ in range(2))
+                out = [
+                    y + wa @ wb for y, wa, wb in zip(out, self.pool[a], self.pool[b], strict=True)
+                ]
+            self.pool.append(out)
             self.tick("random_elements", t0)
         return self.pool[j]
+
+    def _product(self, coefs: list[list[int]], k: int, d: int) -> Any:
+        """``prod_j (c_j0 + sum_i c_ji e_i)`` on sector ``k`` (int64 residues)."""
+        ch, p = self.chain, self.F.p
+        Y = np.eye(d, dtype=np.int64)
+        for c in coefs:
+            acc = Y * c[0]
+            for i in range(ch.n - 1):
+                if c[i + 1]:
+                    acc += ch.right(Y, i, k) * c[i + 1]
+            Y = acc % p
+        return Y
 
     # -- splitting ------------------------------------------------------------------
     def split_attempt(self, node: _Node) -> list[_Node] | tuple[Poly, int]:
