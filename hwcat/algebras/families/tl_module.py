@@ -25,8 +25,11 @@ an element ``f y f`` of the corner acts on ``M f`` by the small matrix
 are sums of products of ``L = floor(n^2/4) + 1`` (long enough to reach every
 diagram), ``L/2 + 1``, 3 and 1 random affine combinations of ``1, e_1, ..., e_(n-1)``
 (short products too, since a long one is killed by a one-dimensional simple as
-soon as one factor is, and then separates nothing); the children are
-the generalised eigenspaces of ``B y P``.  Nothing depends on the draw: every
+soon as one factor is, and then separates nothing); after the first ``BASE`` the
+two long products are replaced by ``w_a w_b`` for earlier elements ``w_a, w_b``
+(one product per sector).  The children are the generalised eigenspaces of
+``B y P`` (kernels of ``g(B y P)^m`` for the factors ``g^m`` of the minimal
+polynomial).  Nothing depends on the draw: every
 leaf is certified and the totals are checked exactly.
 
 *Classes*: the rank of an idempotent on each sector.  Conjugate idempotents
