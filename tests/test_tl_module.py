@@ -205,3 +205,14 @@ def test_agrees_with_the_table_route_everywhere_small() -> None:
         for delta, p in VALID:
             for seed in (0, 7):
                 _compare(n, delta, p, seed)
+
+
+def test_module_command_keeps_the_table_route(monkeypatch, capsys) -> None:
+    # hwcat module reads and identifies modules through the diagram basis: even where
+    # route=auto would take the spin chain, it reduces the table
+    monkeypatch.setattr(registry, "TL_SPIN_CHAIN_FROM", 2)
+    code = main(["module", "--family", "temperley-lieb", "n=4", "delta=0", "field=GF(5)", "--json"])
+    d = json.loads(capsys.readouterr().out)
+    assert code == 0
+    assert sorted(d["simples"]) == ["2", "4"]
+    assert d["centre"]["terms"].startswith("the input algebra's own terms")
