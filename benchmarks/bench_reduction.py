@@ -222,7 +222,7 @@ def row(d: dict) -> list[str]:
         f"{d['convert']:.2f}",
         f"{d['reduce']:.2f}",
         f"{d['rank']:.3f}",
-        f"{d['ratio']:.1f}",
+        f"{d['ratio']:.1f}" if d["ratio"] >= 0.95 else f"{d['ratio']:.3f}",
         f"{d['peak_mib']:.0f}"
         + (f" ({d['peak_reduce_mib']:.0f})" if "peak_reduce_mib" in d else ""),
         "-" if d["naive"] is None else f"{d['naive']:.2f}",
