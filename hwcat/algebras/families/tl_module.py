@@ -610,14 +610,16 @@ def reduce_temperley_lieb(
     """
     F = parse_field(field) if isinstance(field, str) else field
     if not isinstance(F, PrimeField):
-        raise SpecError(f"temperley-lieb: the spin-chain route needs a prime field GF(p), not {F}")
+        raise SpecError(
+            f"family temperley-lieb: the spin-chain route needs a prime field GF(p), not {F}"
+        )
     if F.p >= PRIME_LIMIT:
         raise SpecError(
-            f"temperley-lieb: the spin-chain route needs a prime below 2^24, not {F.p} "
+            f"family temperley-lieb: the spin-chain route needs a prime below 2^24, not {F.p} "
             "(use route=table)"
         )
     if isinstance(n, bool) or not isinstance(n, int) or n < 2:
-        raise SpecError(f"temperley-lieb: the spin-chain route needs n >= 2, not {n!r}")
+        raise SpecError(f"family temperley-lieb: the spin-chain route needs n >= 2, not {n!r}")
     q = loop_weight_root(delta, F)
     timings: dict[str, float] = {}
     t0 = time.perf_counter()
