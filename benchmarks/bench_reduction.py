@@ -15,6 +15,15 @@ matrices, which ``tracemalloc`` does not see).
 A second, naive baseline -- the radical by the lifted-trace chain on the
 regular representation -- is run for the small cases only (``naive rad s``).
 
+Cases named ``... spin`` reduce ``TL_n(delta)`` through the spin chain
+(:mod:`hwcat.algebras.families.tl_module`): no table is built (``table`` and
+``convert`` are 0, ``nonzero`` is ``-``), and the baseline is still one dense rank of a
+``Catalan(n) x Catalan(n)`` matrix over the field, measured in the same process (at
+``n = 10``: 16796 x 16796, about 2.3 GB and a few minutes, so TL_10 is behind
+``--large``; ``--spin`` runs the spin-chain cases only, TL_10 included).  For these
+cases ``peak MiB`` also shows, in parentheses, the peak before the baseline ran: the
+reduction's own.
+
 Run ``python benchmarks/bench_reduction.py`` (``--quick`` for small cases only,
 ``--large`` to add TL_9, TL_10, S(2, 30), S_7; ``--case NAME`` for one case;
 ``--profile`` prints the largest items of a cProfile run of each reduction;
@@ -99,6 +108,25 @@ CASES_LARGE = {
     "S_7 GF(2)": lambda: ft.symmetric_group_algebra(7, "GF(2)"),
     "S_7 GF(3)": lambda: ft.symmetric_group_algebra(7, "GF(3)"),
 }
+SPIN_QUICK = {
+    "TL_8(0) GF(5) spin": (8, 0, "GF(5)"),
+    "TL_8(0) GF(2) spin": (8, 0, "GF(2)"),
+    "TL_8(1) GF(3) spin": (8, 1, "GF(3)"),
+    "TL_8(1) GF(7) spin": (8, 1, "GF(7)"),
+    "TL_9(0) GF(5) spin": (9, 0, "GF(5)"),
+    "TL_9(0) GF(2) spin": (9, 0, "GF(2)"),
+    "TL_9(1) GF(3) spin": (9, 1, "GF(3)"),
+    "TL_9(1) GF(7) spin": (9, 1, "GF(7)"),
+}
+SPIN_LARGE = {
+    **SPIN_QUICK,
+    "TL_10(0) GF(5) spin": (10, 0, "GF(5)"),
+    "TL_10(0) GF(2) spin": (10, 0, "GF(2)"),
+    "TL_10(1) GF(3) spin": (10, 1, "GF(3)"),
+    "TL_10(1) GF(7) spin": (10, 1, "GF(7)"),
+}
+SPIN_FULL = {k: v for k, v in SPIN_QUICK.items() if k.startswith("TL_8")}
+ALL_CASES = {**CASES_LARGE, **SPIN_LARGE}
 BASELINE_LIMIT = 130
 
 
@@ -128,6 +156,8 @@ def run_case(name: str, profile: bool = False, repeat: int = 1) -> dict:
     the reduction runs under cProfile and the largest items are printed to stderr; with
     ``repeat``, the median of that many reductions, each of a freshly converted table,
     against the median of at least as many ranks)."""
+    if name in SPIN_LARGE:
+        return run_spin_case(name, profile)
     make = CASES_LARGE[name]
     times = []
     for _ in range(repeat):
@@ -175,6 +205,44 @@ def run_case(name: str, profile: bool = False, repeat: int = 1) -> dict:
     }
 
 
+def run_spin_case(name: str, profile: bool = False) -> dict:
+    """A ``... spin`` case: ``TL_n(delta)`` through the spin chain, no table."""
+    from hwcat.algebras.families.tl_module import reduce_temperley_lieb
+    from hwcat.exact import parse_field
+
+    n, delta, field = SPIN_LARGE[name]
+    prof = cProfile.Profile() if profile else None
+    t0 = time.perf_counter()
+    if prof is not None:
+        prof.enable()
+    r = reduce_temperley_lieb(n, delta, field)
+    if prof is not None:
+        prof.disable()
+    t_red = time.perf_counter() - t0
+    if prof is not None:
+        pstats.Stats(prof, stream=sys.stderr).sort_stats("tottime").print_stats(15)
+    peak_red = resource.getrusage(resource.RUSAGE_SELF).ru_maxrss / 1024
+    t_rank = dense_rank_seconds(parse_field(field), r.dimension)
+    peak = resource.getrusage(resource.RUSAGE_SELF).ru_maxrss / 1024
+    return {
+        "case": name,
+        "dim": r.dimension,
+        "nonzero": "-",
+        "table": 0.0,
+        "convert": 0.0,
+        "reduce": t_red,
+        "rank": t_rank,
+        "ratio": t_red / t_rank if t_rank > 0 else float("inf"),
+        "peak_mib": peak,
+        "peak_reduce_mib": peak_red,
+        "naive": None,
+        "simples": len(r.simple_dimensions),
+        "rad": r.radical_dimension,
+        "basic": r.basic.dim,
+        "phases": {k: v for k, v in r.timings.items() if k != "search" and v >= 0.05},
+    }
+
+
 def row(d: dict) -> list[str]:
     phases = ", ".join(f"{k} {v:.1f}" for k, v in d["phases"].items())
     return [
@@ -185,8 +253,9 @@ def row(d: dict) -> list[str]:
         f"{d['convert']:.2f}",
         f"{d['reduce']:.2f}",
         f"{d['rank']:.3f}",
-        f"{d['ratio']:.1f}",
-        f"{d['peak_mib']:.0f}",
+        f"{d['ratio']:.1f}" if d["ratio"] >= 0.95 else f"{d['ratio']:.3f}",
+        f"{d['peak_mib']:.0f}"
+        + (f" ({d['peak_reduce_mib']:.0f})" if "peak_reduce_mib" in d else ""),
         "-" if d["naive"] is None else f"{d['naive']:.2f}",
         str(d["simples"]),
         str(d["rad"]),
@@ -219,6 +288,9 @@ def main() -> None:
     size.add_argument("--quick", action="store_true", help="small cases only")
     size.add_argument("--large", action="store_true", help="add TL_9, TL_10, S(2,30), S_7")
     size.add_argument("--case", action="append", help="run only this case (repeatable)")
+    size.add_argument(
+        "--spin", action="store_true", help="only TL_8, TL_9, TL_10 through the spin chain"
+    )
     ap.add_argument(
         "--profile", action="store_true", help="profile the reduction of each case (cProfile)"
     )
@@ -242,11 +314,17 @@ def main() -> None:
         return
     if args.case:
         names = args.case
+    elif args.spin:
+        names = list(SPIN_LARGE)
+    elif args.quick:
+        names = list(CASES_QUICK)
+    elif args.large:
+        names = list(CASES_LARGE) + list(SPIN_LARGE)
     else:
-        names = list(CASES_QUICK if args.quick else CASES_LARGE if args.large else CASES_FULL)
+        names = list(CASES_FULL) + list(SPIN_FULL)
     for name in names:
-        if name not in CASES_LARGE:
-            ap.error(f"unknown case {name!r}; known: {', '.join(CASES_LARGE)}")
+        if name not in ALL_CASES:
+            ap.error(f"unknown case {name!r}; known: {', '.join(ALL_CASES)}")
     print("  ".join(HEADER), flush=True)
     rows = []
     for name in names:

@@ -78,7 +78,18 @@ def _notes(A) -> list[str]:
 
     r = reduction_of(A)
     if r is None:
-        return []
+        from hwcat.algebras.families.tl_module import module_reduction_of
+
+        m = module_reduction_of(A)
+        if m is None:
+            return []
+        dims = ", ".join(
+            f"L({v}): {d}" for v, d in zip(m.basic.vertices, m.simple_dimensions, strict=True)
+        )
+        return [
+            f"reduced through the spin chain (no table) from an algebra of dimension "
+            f"{m.dimension}; radical dimension {m.radical_dimension}; simple dimensions {dims}",
+        ]
     B = r.algebra
     dims = ", ".join(
         f"L({v}): {d}" for v, d in zip(r.basic.vertices, r.simple_dimensions, strict=True)
@@ -105,7 +116,11 @@ def _cmd_presentation(args: argparse.Namespace) -> int:
 
 
 def _cmd_family(args: argparse.Namespace) -> int:
-    from hwcat.algebras.families.registry import FAMILIES, family_algebra
+    from hwcat.algebras.families.registry import (
+        FAMILIES,
+        family_algebra,
+        family_reduction_record,
+    )
     from hwcat.algebras.reduction.presentation import presentation_toml
     from hwcat.io.render import render_structure, to_json
     from hwcat.theory.structure import describe
@@ -122,7 +137,13 @@ def _cmd_family(args: argparse.Namespace) -> int:
         print(f"wrote {args.write_quiver}", file=sys.stderr)
     report = describe(A)
     if args.json:
-        print(to_json(report))
+        red = family_reduction_record(A)
+        if red is None:
+            print(to_json(report))
+        else:
+            import json
+
+            print(json.dumps({**report.to_dict(), "reduction": red.to_dict()}, indent=2))
     else:
         print(render_structure(report))
         for line in _notes(A):

@@ -97,6 +97,12 @@ def _cmd_module(args: argparse.Namespace) -> int:
         raise SpecError("hwcat module: give exactly one of a spec file or --family NAME KEY=VALUE ...")
     spec = read_spec(args.spec) if args.spec is not None else family_source(args.family)
     family = str(spec.table.get("name")) if spec.kind == "family" else None
+    if family == "temperley-lieb" and "route" not in spec.table:
+        # modules of TL_n are read and identified through the diagram basis, which only
+        # the table route's reduction carries
+        import dataclasses
+
+        spec = dataclasses.replace(spec, table={**spec.table, "route": "table"})
     identify = not args.no_simples
     order = None
     chain = family == "temperley-lieb" and args.module in (None, "spin-chain", "spin_chain")

@@ -615,7 +615,7 @@ def _orders(A: BasicAlgebra, list_limit: int | None) -> OrdersResult:
     for k, comp in enumerate(comps):
         j = same[k]
         if j != k:
-            per_block.append((comp, per_block[j][1], dict(zip(comps[j], comp))))
+            per_block.append((comp, per_block[j][1], dict(zip(comps[j], comp, strict=True))))
             continue
         if _no_first_step(A, comp):
             lat = _Lattice(n, mask(comp))

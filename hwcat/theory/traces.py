@@ -112,7 +112,7 @@ class TraceCache:
         #: per s: trace of X (a subset of the support of P(s)) -> cache entry; the zero
         #: trace has no basis yet (see _zero), the whole of P(s) is left
         self._e: list[dict[int, tuple]] = [
-            {0: (None, d, m, sum(d))} for d, m in zip(pdims, support)
+            {0: (None, d, m, sum(d))} for d, m in zip(pdims, support, strict=True)
         ]
         self._outs: list[list[int]] | None = None  # arrows leaving each vertex, when needed
         #: per s: per arrow acting on P(s), basis index -> image index (-1: zero); None when

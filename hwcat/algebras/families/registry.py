@@ -6,7 +6,9 @@ Two kinds:
   Temperley--Lieb ``TL_n(delta)`` (diagram basis), Schur algebras ``S(2, r)``
   (Green's basis), group algebras of ``S_n`` and of cyclic groups, the small
   quantum group ``u_q(sl_2)``.  They are reduced to their basic algebra with
-  :func:`hwcat.algebras.reduction.reduction.reduce_algebra`.
+  :func:`hwcat.algebras.reduction.reduction.reduce_algebra`; Temperley--Lieb
+  over ``GF(p)`` also through its spin chain, without a table
+  (:mod:`hwcat.algebras.families.tl_module`, parameter ``route``).
 * **quiver families** (:mod:`hwcat.algebras.families.quivers`): linearly
   oriented and alternating ``A_n`` (with any ``vanish_from_length``), the
   Auslander algebra of ``k[x]/(x^n)``, zigzag algebras of type ``A_n``.  They
@@ -34,6 +36,11 @@ from typing import Any
 
 from hwcat.algebras.families import quivers as quiver_families
 from hwcat.algebras.families import tables as family_tables
+from hwcat.algebras.families.tl_module import (
+    ModuleReduction,
+    module_route_available,
+    reduce_temperley_lieb,
+)
 from hwcat.algebras.hub.basic import BasicAlgebra
 from hwcat.algebras.hub.quiver import Quiver, parse_relation
 from hwcat.algebras.inputs.bound import bound_quiver_algebra
@@ -48,6 +55,7 @@ __all__ = [
     "FAMILIES",
     "family_structure",
     "family_reduction",
+    "family_reduction_record",
     "family_algebra",
     "family_spec",
     "parse_parameters",
@@ -75,6 +83,16 @@ class Family:
         return f"{self.name} {ps}".strip()
 
 
+TL_SPIN_CHAIN_FROM = 8
+"""``route=auto`` reduces ``TL_n`` through the spin chain from this ``n`` on (when the field
+allows it).  Measured (benchmarks/bench_reduction.py, one dense rank of a 1430 x 1430
+matrix as the unit): at ``n = 8`` the table route takes 23 to 27 units, the spin chain
+1.1 to 1.7; at ``n = 7`` both take well under a second.  ``hwcat module`` asks for
+``route=table`` (it reads modules in the diagram basis, which only that route has)."""
+
+TL_ROUTES = ("auto", "table", "spin-chain")
+
+
 def _table_family(fn: Callable[..., Any]) -> Callable[..., StructureAlgebra]:
     def build(**kw: Any) -> StructureAlgebra:
         return from_table(fn(**kw))
@@ -88,11 +106,17 @@ FAMILIES: dict[str, Family] = {
         Family(
             "temperley-lieb",
             "table",
-            {"n": (int, None), "delta": (str, "0"), "field": (str, "QQ")},
+            {"n": (int, None), "delta": (str, "0"), "field": (str, "QQ"), "route": (str, "auto")},
             "TL_n(delta) in the diagram basis (dimension Catalan(n)); generators e_i with "
-            "e_i^2 = delta e_i, e_i e_(i+-1) e_i = e_i, e_i e_j = e_j e_i for |i - j| > 1",
-            "standard (diagram calculus; cellular, Koenig-Xi criterion)",
-            _table_family(lambda n, delta, field: family_tables.temperley_lieb(n, delta, field)),
+            "e_i^2 = delta e_i, e_i e_(i+-1) e_i = e_i, e_i e_j = e_j e_i for |i - j| > 1; "
+            "route=table|spin-chain|auto: reduced from the multiplication table, or through "
+            "the spin chain without a table (GF(p) containing q with q + 1/q = delta; "
+            f"auto: the spin chain from n = {TL_SPIN_CHAIN_FROM} on when it applies)",
+            "standard (diagram calculus; cellular, Koenig-Xi criterion); spin chain: quantum "
+            "Schur-Weyl duality (Jimbo 1986, Martin 1991)",
+            _table_family(
+                lambda n, delta, field, route="auto": family_tables.temperley_lieb(n, delta, field)
+            ),
         ),
         Family(
             "schur",
@@ -219,13 +243,42 @@ def family_structure(family: str, **params: Any) -> StructureAlgebra:
     return fam.build(**parse_parameters(family, params))
 
 
-def family_reduction(family: str, *, seed: int = 0, **params: Any) -> Reduction:
+def family_reduction(family: str, *, seed: int = 0, **params: Any) -> Reduction | ModuleReduction:
     """The reduction (basic algebra, idempotents, Morita data) of a table family,
-    its simples labelled as the trade labels them (see :mod:`.labels`)."""
+    its simples labelled as the trade labels them (see :mod:`.labels`).
+
+    ``temperley-lieb`` with ``route=spin-chain`` (or ``auto`` for large ``n``) gives a
+    :class:`~hwcat.algebras.families.tl_module.ModuleReduction` instead: no table, no
+    idempotents in the diagram basis."""
     from hwcat.algebras.families.labels import label_simples
 
+    p = parse_parameters(family, params)
+    if family == "temperley-lieb" and _tl_spin_chain(p):
+        return reduce_temperley_lieb(p["n"], p["delta"], p["field"], seed=seed)
     red = reduce_algebra(family_structure(family, **params), seed=seed)
-    return label_simples(family, red, parse_parameters(family, params))
+    return label_simples(family, red, p)
+
+
+def family_reduction_record(B: BasicAlgebra) -> Reduction | ModuleReduction | None:
+    """How the hub ``B`` was reduced (table or spin chain), if it came from a reduction."""
+    from hwcat.algebras.families.tl_module import module_reduction_of
+    from hwcat.algebras.reduction.reduction import reduction_of
+
+    return reduction_of(B) or module_reduction_of(B)
+
+
+def _tl_spin_chain(p: Mapping[str, Any]) -> bool:
+    """Whether ``TL_n`` with parameters ``p`` goes through the spin chain."""
+    route = p["route"]
+    if route not in TL_ROUTES:
+        raise SpecError(
+            f"family temperley-lieb: route = {route!r} (allowed: {', '.join(TL_ROUTES)})"
+        )
+    if route == "table":
+        return False
+    if route == "spin-chain":
+        return True  # reduce_temperley_lieb names what is missing
+    return p["n"] >= TL_SPIN_CHAIN_FROM and module_route_available(p["delta"], p["field"])
 
 
 def family_spec(family: str, **params: Any) -> dict[str, Any]:
