@@ -79,11 +79,10 @@ import numpy as np
 
 from hwcat.algebras.families.spin_chain import loop_weight_root, spin_chain_entries
 from hwcat.algebras.hub.basic import BasicAlgebra
-from hwcat.algebras.hub.quiver import Arrow, Quiver
 from hwcat.algebras.reduction.kernels import coords_solver, small_radical
-from hwcat.algebras.reduction.reduction import CORNER_LIMIT
+from hwcat.algebras.reduction.reduction import CORNER_LIMIT, assemble_from_blocks
 from hwcat.errors import InternalInconsistency, NotSplitError, SpecError
-from hwcat.exact import Mat, echelon, parse_field, select_independent_rows
+from hwcat.exact import Mat, parse_field, select_independent_rows
 from hwcat.exact.fields import PrimeField
 from hwcat.exact.nmod_bulk import read_residues
 from hwcat.exact.polys import (
@@ -689,54 +688,11 @@ def _assemble(F: PrimeField, chain: _Chain, classes: list[_Class], name: str) ->
                     prod = _bd_products(basis[(s, u)], basis[(u, t)][j], rk[s], rk[u], rk[t], p)
                     out.append(_coords(F, solver[(s, t)], prod))
                 mult[(s, u, t)] = out
-    rad: dict[tuple[int, int], Mat] = {}
+    starts = []
     for s in range(m):
-        for t in range(m):
-            rad[(s, t)] = classes[s].corner_rad if s == t else Mat.identity(F, dims[(s, t)])
-    rad2: dict[tuple[int, int], Mat] = {}
-    for s in range(m):
-        for t in range(m):
-            parts = []
-            for u in range(m):
-                X, Y = rad[(s, u)], rad[(u, t)]
-                if X.nrows == 0 or Y.nrows == 0:
-                    continue
-                for y in Y.raw_rows():
-                    acc = Mat.zeros(F, X.nrows, dims[(s, t)])
-                    for j, yj in enumerate(y):
-                        if yj != 0:
-                            acc = acc + (X @ mult[(s, u, t)][j]).scale(yj)
-                    parts.append(acc)
-            rad2[(s, t)] = (
-                echelon(Mat.vstack(F, parts, dims[(s, t)]))
-                if parts
-                else Mat.zeros(F, 0, dims[(s, t)])
-            )
-    arrows: list[Arrow] = []
-    arrow_coords: list[Mat] = []
-    for s in range(m):
-        for t in range(m):
-            R1, R2 = rad[(s, t)], rad2[(s, t)]
-            if R1.nrows == R2.nrows:
-                continue
-            for k in select_independent_rows(R1, R2 if R2.nrows else None):
-                arrows.append(Arrow(f"a{len(arrows) + 1}", s, t))
-                arrow_coords.append(R1.take_rows([k]))
-    Q = Quiver(tuple(str(i + 1) for i in range(m)), tuple(arrows))
-    reps, starts = [], []
-    for s in range(m):
-        dvec = tuple(dims[(s, t)] for t in range(m))
-        maps = []
-        for a, co in zip(arrows, arrow_coords, strict=True):
-            u, t = a.source, a.target
-            M = Mat.zeros(F, dims[(s, u)], dims[(s, t)])
-            for j, cj in enumerate(co.entries()):
-                if cj != 0:
-                    M = M + mult[(s, u, t)][j].scale(cj)
-            maps.append(M)
-        reps.append((dvec, tuple(maps)))
         unit = np.concatenate([np.eye(r, dtype=np.int64).ravel() for r in rk[s]])[None, :]
         starts.append(_coords(F, solver[(s, s)], unit))
-    return BasicAlgebra.from_cyclic_representations(
-        F, Q, reps, starts=starts, name=name, morita=[c.n for c in classes]
+    B, _, _ = assemble_from_blocks(
+        F, dims, mult, [c.corner_rad for c in classes], starts, name, [c.n for c in classes]
     )
+    return B

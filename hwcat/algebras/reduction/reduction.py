@@ -1190,19 +1190,31 @@ def _np_contiguous(X: Any) -> Any:
     return np.ascontiguousarray(X, dtype=np.int64)
 
 
-def _assemble(A: StructureAlgebra, classes: list[_Class], name: str) -> BasicAlgebra:
-    F = A.field
-    m = len(classes)
-    # bases of the blocks e_s A e_t, as e_s b_l e_t (coordinates on span(index_t))
-    gen, basis, solver, colsR = _block_bases(A, classes)
-    dims = {k: v.nrows for k, v in basis.items()}
-    mult = _block_products(A, classes, gen, basis, colsR)
-    # radical and its square, block by block (coordinates)
+def assemble_from_blocks(
+    F: Any,
+    dims: dict[tuple[int, int], int],
+    mult: dict[tuple[int, int, int], list[Mat]],
+    corner_rads: Sequence[Mat],
+    starts: Sequence[Mat],
+    name: str,
+    morita: Sequence[int],
+) -> tuple[BasicAlgebra, list[Arrow], list[Mat]]:
+    """The hub of a basic algebra ``e A e`` given by its Peirce blocks.
+
+    ``dims[(s, t)]`` is ``dim e_s A e_t``; ``mult[(s, u, t)][j]`` the matrix of right
+    multiplication by the ``j``-th basis element of ``e_u A e_t``, from ``e_s A e_u`` to
+    ``e_s A e_t`` (coordinates); ``corner_rads[s]`` the radical of the local corner
+    ``e_s A e_s`` (rows of coordinates); ``starts[s]`` the coordinates of ``e_s``.  The
+    radical is the off-diagonal blocks plus the corner radicals; the arrows ``s -> t`` a
+    basis of a complement of ``rad^2`` in ``rad`` block by block; the projectives
+    ``e_s A e`` as quiver representations give the hub.  Returns the hub, its arrows and
+    each arrow's coordinates in its block.
+    """
+    m = len(corner_rads)
     rad: dict[tuple[int, int], Mat] = {}
     for s in range(m):
         for t in range(m):
-            d = dims[(s, t)]
-            rad[(s, t)] = classes[s].corner_rad if s == t else Mat.identity(F, d)
+            rad[(s, t)] = corner_rads[s] if s == t else Mat.identity(F, dims[(s, t)])
     rad2: dict[tuple[int, int], Mat] = {}
     for s in range(m):
         for t in range(m):
@@ -1229,12 +1241,11 @@ def _assemble(A: StructureAlgebra, classes: list[_Class], name: str) -> BasicAlg
             R1, R2 = rad[(s, t)], rad2[(s, t)]
             if R1.nrows == R2.nrows:
                 continue
-            keep = select_independent_rows(R1, R2 if R2.nrows else None)
-            for k in keep:
+            for k in select_independent_rows(R1, R2 if R2.nrows else None):
                 arrows.append(Arrow(f"a{len(arrows) + 1}", s, t))
                 arrow_coords.append(R1.take_rows([k]))
     Q = Quiver(tuple(str(i + 1) for i in range(m)), tuple(arrows))
-    reps, starts = [], []
+    reps = []
     for s in range(m):
         dvec = tuple(dims[(s, t)] for t in range(m))
         maps = []
@@ -1246,10 +1257,24 @@ def _assemble(A: StructureAlgebra, classes: list[_Class], name: str) -> BasicAlg
                     M = M + mult[(s, u, t)][j].scale(cj)
             maps.append(M)
         reps.append((dvec, tuple(maps)))
-        piv, T = solver[(s, s)]
-        starts.append(select_columns(as_row(A, restrict(classes[s].e, classes[s].index)), piv) @ T)
     B = BasicAlgebra.from_cyclic_representations(
-        F, Q, reps, starts=starts, name=name, morita=[c.n for c in classes]
+        F, Q, reps, starts=list(starts), name=name, morita=list(morita)
+    )
+    return B, arrows, arrow_coords
+
+
+def _assemble(A: StructureAlgebra, classes: list[_Class], name: str) -> BasicAlgebra:
+    F = A.field
+    # bases of the blocks e_s A e_t, as e_s b_l e_t (coordinates on span(index_t))
+    gen, basis, solver, colsR = _block_bases(A, classes)
+    dims = {k: v.nrows for k, v in basis.items()}
+    mult = _block_products(A, classes, gen, basis, colsR)
+    starts = []
+    for s, c in enumerate(classes):
+        piv, T = solver[(s, s)]
+        starts.append(select_columns(as_row(A, restrict(c.e, c.index)), piv) @ T)
+    B, arrows, arrow_coords = assemble_from_blocks(
+        F, dims, mult, [c.corner_rad for c in classes], starts, name, [c.n for c in classes]
     )
     # each arrow u -> t as an element of A: sum_k coef_k * (e_u b_(l_k) e_t)
     terms = []
