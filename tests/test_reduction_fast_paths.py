@@ -14,8 +14,7 @@
 Sources: dim TL_n = Catalan(n) (from memory); dim S(2, r) = binomial(r + 3, 3)
 (J. A. Green, *Polynomial Representations of GL_n*, LNM 830, 1980); the number of
 simple modules of the group algebra of S_n over GF(p) is the number of p-regular
-partitions of n (from memory; G. James, *The Representation Theory of the Symmetric
-Groups*, LNM 682, 1978); TL_n(delta) is cellular with cell modules indexed by
+partitions of n (from memory); TL_n(delta) is cellular with cell modules indexed by
 ``n - 2k`` through strands and is quasi-hereditary iff it has as many simples as
 cell modules, which holds for delta != 0 (S. Konig, C. C. Xi, *When is a cellular
 algebra quasi-hereditary?*, Math. Ann. 315 (1999), from memory; the count for

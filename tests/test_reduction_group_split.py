@@ -11,8 +11,7 @@ Second, local corners certified directly (``reduction.FAST_LOCAL``): a multiplic
 residue map with a nilpotent kernel, against the radical by lifted traces.
 
 Sources: the number of simple modules of the group algebra of S_n over GF(p) is the
-number of p-regular partitions of n (from memory; G. James, *The Representation Theory
-of the Symmetric Groups*, LNM 682, 1978); a p-group over a field of characteristic p has
+number of p-regular partitions of n (from memory); a p-group over a field of characteristic p has
 one simple module (from memory); the group algebra is symmetric, so its Cartan matrix is
 symmetric (from memory).
 """
@@ -22,6 +21,7 @@ from __future__ import annotations
 import itertools
 
 import pytest
+import sympy
 from hypothesis import given, settings
 from hypothesis import strategies as st
 
@@ -252,3 +252,19 @@ def test_local_certificate_rejects_a_split_corner():
         F, [Mat.identity(F, 2), x], Mat.from_flat(F, 1, 2, [1, 0])
     )
     assert rad == Mat.from_flat(F, 1, 2, [0, 1]) and chi == [F.one, F.zero]
+
+
+@pytest.mark.parametrize("n, p, dims", [(4, 2147483647, [1, 1, 2, 3, 3]), (5, 536870909, None)])
+def test_group_route_with_primes_near_two_to_the_31(n, p, dims):
+    # sums of products of residues overflowed int64 for such primes; in characteristic
+    # p > n the group algebra is semisimple (Maschke, common practice) with
+    # dim A = sum dim L^2; the dimensions of the simples of S_4 (1, 1, 2, 3, 3, from
+    # memory) are those of the characteristic-0 irreducibles
+    assert sympy.isprime(p)
+    A = from_table(tables.symmetric_group_algebra(n, f"GF({p})"))
+    for seed in range(3):
+        r = reduce_algebra(A, seed=seed)
+        assert r.radical_dimension == 0
+        assert sum(d * d for d in r.simple_dimensions) == A.dim
+        if dims is not None:
+            assert sorted(r.simple_dimensions) == dims

@@ -546,7 +546,7 @@ class StructureAlgebra:
             group = self._group_table()
             if group is not None:  # phi_j = sum_i x_i col(b_i b_j)
                 jj = np.arange(self.dim) if rows is None else np.asarray(list(js), dtype=np.int64)
-                vals = (xv @ cv[group[0][:, jj]]) % p if len(jj) else []
+                vals = _dot_mod(xv, cv[group[0][:, jj]], p) if len(jj) else []
                 for j, v in zip(jj.tolist(), np.asarray(vals).tolist(), strict=True):
                     phi[j] = int(v)
                 return phi
@@ -1359,4 +1359,16 @@ def coefficient_terms(text: str, field: Field, names) -> list[tuple[Any, list[st
         except CoefficientError as exc:
             raise CoefficientError(f"{text!r}: {exc}") from None
         out.append((coef if sign > 0 else -coef, factors, term))
+    return out
+
+
+def _dot_mod(x: Any, M: Any, p: int) -> Any:
+    """``x @ M mod p`` for int64 arrays of residues, in chunks of rows short enough that
+    no partial sum reaches ``2^63`` (each product is below ``p^2``)."""
+    step = max(1, (2**63 - 1) // max(1, (p - 1) ** 2))
+    if len(x) <= step:
+        return (x @ M) % p
+    out = _np.zeros(M.shape[1], dtype=_np.int64)
+    for i in range(0, len(x), step):
+        out = (out + (x[i : i + step] @ M[i : i + step]) % p) % p
     return out

@@ -627,11 +627,18 @@ class _Search:
         t0 = time.perf_counter()
         gathers = [left[j] for j in js]
 
+        # each term is below p^2 < 2^62; their sum stays below 2^63 unless p is large
+        exact_sum = len(cs) * (p - 1) ** 2 < 2**63
+
         def advance(x: Mat) -> Mat:
             v = np.frombuffer(read_residues(x._m), dtype=np.int64)
             w = np.zeros(n, dtype=np.int64)
             for g, c in zip(gathers, cs, strict=True):
-                w += c * v[g]  # below s p^2, far from 2^63
+                if exact_sum:
+                    w += c * v[g]
+                else:
+                    w += (c * v[g]) % p
+                    w %= p
             w %= p
             col = residue_matrix(F, n, 1, w)
             return col if RT is None else RT @ col
