@@ -566,7 +566,8 @@ def test_mismatched_shapes_and_fields_raise(F: Field) -> None:
         ):
             op()
     G = QQ if F is not QQ else GF(3)
-    for op in (lambda x, y: x + y, lambda x, y: x - y, lambda x, y: x @ y):
+    ops = (lambda x, y: x + y, lambda x, y: x - y, lambda x, y: x @ y, lambda x, y: x.solve_left(y))
+    for op in ops:
         with pytest.raises(InternalInconsistency, match="mixed"):
             op(Mat.identity(F, 2), Mat.identity(G, 2))
     assert Mat.zeros(F, 2, 3) != Mat.zeros(F, 3, 2) and Mat.zeros(F, 2, 3) == A

@@ -478,6 +478,8 @@ class Mat:
     def solve_left(self, b: Mat) -> Mat | None:
         """Some ``X`` with ``X @ self == b``, or ``None`` when there is none."""
         # X A = B  <=>  A^T X^T = B^T
+        if b.field is not self.field:
+            raise InternalInconsistency(f"matrices over {self.field} and {b.field} mixed")
         m, bm = self._m, b._m
         n = m.nrows()
         if n and n == m.ncols() and not isinstance(m, BlockMatrix):
