@@ -64,8 +64,9 @@ class Mat:
     The operations on small matrices cost little more than flint's own call
     (see ``benchmarks/bench_matrices.py``): inputs are checked where they
     enter (:meth:`from_rows`, mixing fields), results are built with
-    :meth:`_wrap` (no ``__init__`` call), shape errors are left to flint and
-    only translated, and shapes are read only where an answer depends on them.
+    :meth:`_wrap` or its inline form in the hot operators (no ``__init__``
+    call), shape errors are left to flint and only translated, and shapes are
+    read only where an answer depends on them.
     """
 
     __slots__ = ("field", "_m")
