@@ -498,7 +498,10 @@ def attach_spin_chain(M: ActionModule, n: int, B: BasicAlgebra) -> None:
 
     red = reduction_of(B)
     if red is None:
-        raise ModuleFileError("the Temperley-Lieb family's reduction is not at hand")
+        raise ModuleFileError(
+            "the spin chain as a module needs the diagram basis of the Temperley-Lieb family: "
+            "use route=table"
+        )
     A = red.algebra
     elements = {
         g: A.basis_vector(A.basis.index(name)) for g, name in generator_diagrams(n).items()

@@ -93,6 +93,7 @@ from math import factorial
 from typing import Any
 
 from hwcat.algebras.hub.basic import BasicAlgebra
+from hwcat.errors import InternalInconsistency
 from hwcat.progress import task
 from hwcat.theory.highest_weight import trace_cache
 from hwcat.theory.orders import PartialOrder
@@ -640,7 +641,8 @@ def _orders(A: BasicAlgebra, list_limit: int | None) -> OrdersResult:
         cap = nstruct if list_limit is None else min(list_limit, nstruct)
         memo: dict = {}
         if cap:
-            assert tc is not None  # every block has a quasi-hereditary order
+            if tc is None:  # every block has a quasi-hereditary order here
+                raise InternalInconsistency("structures to list but no block was searched")
             maps = [phi for _, _, phi in per_block]
             with task("order search: listing structures", total=cap) as step:
                 for combo in _product_capped(

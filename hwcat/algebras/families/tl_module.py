@@ -93,6 +93,7 @@ from hwcat.exact.polys import (
     minpoly,
     select_columns,
 )
+from hwcat.limits import check_dimension
 from hwcat.progress import task
 
 __all__ = ["ModuleReduction", "reduce_temperley_lieb", "module_route_available"]
@@ -588,13 +589,14 @@ class ModuleReduction:
         }
 
 
-_MODULE_REDUCTIONS: dict[int, ModuleReduction] = {}
+MODULE_REDUCTION = ("reduction", "spin chain")
+"""Cache key under which a hub made here holds its :class:`ModuleReduction` (the two
+refer to each other and are freed together)."""
 
 
 def module_reduction_of(B: BasicAlgebra) -> ModuleReduction | None:
     """The :class:`ModuleReduction` that produced the hub ``B``, if it came from one."""
-    red = _MODULE_REDUCTIONS.get(id(B))
-    return red if red is not None and red.basic is B else None
+    return B.cached(MODULE_REDUCTION, lambda: None) if B.is_cached(MODULE_REDUCTION) else None
 
 
 def reduce_temperley_lieb(
@@ -619,6 +621,7 @@ def reduce_temperley_lieb(
         )
     if isinstance(n, bool) or not isinstance(n, int) or n < 2:
         raise SpecError(f"family temperley-lieb: the spin-chain route needs n >= 2, not {n!r}")
+    check_dimension(math.comb(2 * n, n) // (n + 1), f"TL_{n}")
     q = loop_weight_root(delta, F)
     timings: dict[str, float] = {}
     t0 = time.perf_counter()
@@ -638,6 +641,14 @@ def reduce_temperley_lieb(
     name = f"TL_{n}({F.to_str(F(delta))}) over {F.name}"
     B = _assemble(F, S.chain, classes, name)
     labels = [str(n - 2 * c.sector) for c in classes]
+    for c in classes:  # L(t) is the head of the cell module W(t) (from memory)
+        k = c.sector
+        cell = math.comb(n, k) - (math.comb(n, k - 1) if k else 0)
+        if c.n > cell:
+            raise InternalInconsistency(
+                f"a simple of dimension {c.n} labelled {n - 2 * k} exceeds its cell module "
+                f"(dimension {cell})"
+            )
     order = " > ".join(str(t) for t in sorted(int(x) for x in labels))
     B = B.with_vertex_names(labels, natural_order=order)
     timings["basic_algebra"] = time.perf_counter() - t0
@@ -654,7 +665,7 @@ def reduce_temperley_lieb(
         seed=seed,
         timings=timings,
     )
-    _MODULE_REDUCTIONS[id(B)] = red
+    B.cached(MODULE_REDUCTION, lambda: red)
     return red
 
 

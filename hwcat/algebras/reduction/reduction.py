@@ -77,7 +77,6 @@ from __future__ import annotations
 
 import random
 import time
-import weakref
 from collections.abc import Callable, Sequence
 from dataclasses import dataclass, field
 from typing import Any
@@ -983,7 +982,7 @@ class Reduction:
         if self.basic.is_cached(ARROW_TERMS):  # the arrows do not change with the names
             B.cached(ARROW_TERMS, lambda: self.basic.cached(ARROW_TERMS, tuple))
         red = dataclasses.replace(self, basic=B)
-        _REDUCTIONS[B] = red
+        B.cached(REDUCTION, lambda: red)
         return red
 
     def idempotent_texts(self) -> list[str]:
@@ -1299,12 +1298,14 @@ ARROW_TERMS = ("reduction", "arrow_terms")
 ``sum coef * e_u b_l e_t`` in the input algebra (``e`` the primitive idempotents)."""
 
 
-_REDUCTIONS: weakref.WeakKeyDictionary = weakref.WeakKeyDictionary()
+REDUCTION = ("reduction", "table")
+"""Cache key under which a reduced hub holds its :class:`Reduction` (the two refer to
+each other and are freed together)."""
 
 
 def reduction_of(B: BasicAlgebra) -> Reduction | None:
     """The :class:`Reduction` that produced the hub ``B``, if it came from one."""
-    return _REDUCTIONS.get(B)
+    return B.cached(REDUCTION, lambda: None) if B.is_cached(REDUCTION) else None
 
 
 def _order_classes(classes: list[_Class]) -> list[_Class]:
@@ -1337,7 +1338,7 @@ def _finish(
         timings=timings,
         _classes=tuple(classes),
     )
-    _REDUCTIONS[B] = red
+    B.cached(REDUCTION, lambda: red)
     return red
 
 
