@@ -218,3 +218,12 @@ def test_module_command_keeps_the_table_route(monkeypatch, capsys) -> None:
     assert code == 0
     assert sorted(d["simples"]) == ["2", "4"]
     assert d["centre"]["terms"].startswith("the input algebra's own terms")
+
+
+def test_module_command_names_the_route_it_needs(capsys: pytest.CaptureFixture) -> None:
+    # the spin chain as a module is read in the diagram basis, which only the table
+    # route has: one line, exit code 2 (common practice for bad input)
+    args = ["module", "--family", "temperley-lieb", "n=4", "delta=0", "field=GF(5)"]
+    assert main([*args, "route=spin-chain"]) == 2
+    err = capsys.readouterr().err
+    assert "route=table" in err and len(err.strip().splitlines()) == 1
