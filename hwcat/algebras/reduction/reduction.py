@@ -186,11 +186,82 @@ def _right_ideal_basis(A: StructureAlgebra, e: list[Any], rows) -> tuple[list[in
     return [rows_list[k] for k in pos], take_rows(L, pos)
 
 
+def _group_inverses(A: StructureAlgebra) -> Any:
+    """In a group algebra whose unit is a basis element: ``inv[l]`` with ``b_l b_inv[l] = 1``
+    (an int64 array); else ``None``."""
+    group = A._group_table()
+    if group is None or not A._p:
+        return None
+    if "group_inverses" not in A._cache:
+        import numpy as np
+
+        nz = [i for i, v in enumerate(A._unit) if v]
+        ok = len(nz) == 1 and int(A._unit[nz[0]]) % A._p == 1
+        A._cache["group_inverses"] = (
+            np.ascontiguousarray(group[1][:, nz[0]], dtype=np.int64) if ok else None
+        )
+    return A._cache["group_inverses"]
+
+
+GROUP_TRACE_PAIRING = True
+"""Switch for :func:`_group_right_ideal_basis` and :func:`_group_form_of_products` (tests
+compare both routes)."""
+
+
+def _group_right_ideal_basis(A: StructureAlgebra, e: list[Any], RT: Mat):
+    """:func:`_right_ideal_basis` in a group algebra, without the matrix of ``x -> e x``.
+
+    The sketch ``L Y`` of the rows ``e b_l`` (``Y`` uniformly random, ``w`` columns) is read
+    off ``R_e^T Z`` for a uniformly random ``Z`` through the trace ``tau`` (coefficient of
+    the unit, ``tau(x y) = tau(y x)``): with ``y_j`` the ``j``-th column of ``Z``,
+    ``tau(e b_l y_j) = tau(b_l (y_j e)) = (y_j e)_(inv l)`` (``b_(inv l) = b_l^-1``), which
+    is ``(L Y)[l, j]`` for ``Y[k, j] = y_j[inv k]`` -- a row permutation of ``Z``, so
+    uniform as well.  The rows are then chosen as in
+    :func:`~hwcat.algebras.reduction.sketch.sketched_independent_rows` (the same greedy
+    choice when the rank is kept; the same closing checks catch an unlucky draw), and
+    ``e b_l = e[left[l]]`` is a gather.  ``None`` when that route does not apply."""
+    inv = _group_inverses(A)
+    n = A.dim
+    if not GROUP_TRACE_PAIRING or inv is None or not sketch.USE_SKETCH or n < sketch.MIN_SIZE:
+        return None
+    import numpy as np
+
+    F = A.field
+    w = sketch.START_WIDTH
+    while 3 * w <= n:
+        S = RT @ sketch.draw(F, n, w, w)  # column j: y_j e
+        pos = select_independent_rows(take_rows(S, inv.tolist()))
+        if len(pos) + sketch.MARGIN <= w:
+            ev = np.fromiter(map(int, e), dtype=np.int64, count=n) % A._p
+            rows = ev[A._group_table()[2][pos]]
+            return list(pos), residue_matrix(F, len(pos), n, np.ascontiguousarray(rows).ravel())
+        w *= 2
+    return None
+
+
+def _group_form_of_products(A: StructureAlgebra, e: list[Any], RT: Mat, col: list[Any]):
+    """``phi_j = col(e b_j)`` in a group algebra (``RT`` the transpose of right
+    multiplication by ``e``): with ``y[k] = col[inv k]``, ``col(e b_j) = tau(e b_j y) =
+    tau(b_j (y e)) = (y e)_(inv j)`` (see :func:`_group_right_ideal_basis`), one product
+    with ``RT``.  ``None`` when that route does not apply."""
+    inv = _group_inverses(A)
+    if not GROUP_TRACE_PAIRING or inv is None:
+        return None
+    import numpy as np
+
+    n, p = A.dim, A._p
+    cv = np.fromiter(map(int, col), dtype=np.int64, count=n) % p
+    ye = RT @ residue_matrix(A.field, n, 1, np.ascontiguousarray(cv[inv]))
+    out = np.frombuffer(read_residues(ye._m), dtype=np.int64)[inv]
+    return out.tolist()
+
+
 def _corner_data(A: StructureAlgebra, e: list[Any], RT: Mat, index, rows) -> tuple:
     """Basis of eA (as e*b_l), of eAe (as e*b_l*e) and the corner's structure constants
     (``RT``: the transpose of right multiplication by ``e`` on span(index))."""
     F = A.field
-    J, Lr = _right_ideal_basis(A, e, rows)
+    fast = _group_right_ideal_basis(A, e, RT) if index is None and rows is None else None
+    J, Lr = fast if fast is not None else _right_ideal_basis(A, e, rows)
     W = (RT @ apply_transfer(Lr, transfer(A, rows, index)).transpose()).transpose()  # Lr R
     C_pos = select_independent_rows(W)
     if len(C_pos) > CORNER_LIMIT:
@@ -303,7 +374,9 @@ def _new_class(A: StructureAlgebra, e: list[Any], RT: Mat, index, rows) -> _Clas
     # phi(b_j) = chi(e b_j e): col is x -> chi(x e) on span(index), then one pass over b_j
     chicol = Mat.from_flat(F, len(chi), 1, chi)
     col = embed(A, (Rp @ (T @ chicol)).entries(), index)
-    phi = A._form_of_products(e, col, rows)  # e b_j = 0 outside f A
+    phi = _group_form_of_products(A, e, RT, col) if index is None and rows is None else None
+    if phi is None:
+        phi = A._form_of_products(e, col, rows)  # e b_j = 0 outside f A
     # G[a][c] = phi(b_a b_c) = chi(e b_a b_c e) vanishes unless b_c e != 0, i.e. c in index
     cols = None if index is None else list(index)
     G = A._gram_raw(phi, rows=J, cols=cols)
@@ -394,6 +467,7 @@ class _Node:
     ranks: list[int] = field(default_factory=list)  # dim L f for the first simples found
     lower: int | None = None  # a lower bound of dim A f (group algebras) ...
     lower_width: int = 0  # ... from that many elements of A f
+    fv: Any = None  # f as an int64 array of residues (vectorised tables; made on demand)
 
 
 @dataclass
@@ -504,8 +578,18 @@ class _Search:
         found since the last call are added)."""
         done = node.ranks
         if len(done) < len(self.classes):
-            done.extend(_rank_in_simple(self.A, c, node.f) for c in self.classes[len(done) :])
+            fv = self.node_array(node) if self.A._vectorised() else None
+            done.extend(_rank_in_simple(self.A, c, node.f, fv) for c in self.classes[len(done) :])
         return list(done)
+
+    def node_array(self, node: _Node) -> Any:
+        """The node's idempotent as an int64 array of residues (kept on the node)."""
+        if node.fv is None:
+            import numpy as np
+
+            node.fv = np.fromiter(map(int, node.f), dtype=np.int64, count=len(node.f))
+            node.fv %= self.A._p
+        return node.fv
 
     def screen(self, node: _Node, exact: bool = False) -> str:
         """``skip`` (no new simple in f), ``explore`` or ``defer`` (undecided cheaply; with
@@ -616,7 +700,7 @@ class _Search:
         F, p, n = A.field, A._p, A.dim
         if not bulk_available():
             return None  # no one-piece copies: the general route
-        first = np.fromiter((int(x) for x in node.f), dtype=np.int64, count=n) % p
+        first = self.node_array(node)
         left = A._group_table()[2]  # x b_j = x[left[j]]
         # at most half of the group (over GF(2) the sum of all elements is central), and a
         # random size (sums of the same length lie in one coset of a small subspace)
@@ -637,7 +721,7 @@ class _Search:
             return col if RT is None else RT @ col
 
         v0 = residue_matrix(F, 1, n, first)
-        out = _krylov_columns(v0, v0, advance, n)
+        out = _krylov_columns(v0, v0, advance, n, fine=RT is not None)
         self.tick("krylov", t0)
         if out is None:
             return None
@@ -724,7 +808,7 @@ class _Search:
         t0 = time.perf_counter()
         gen = np.random.default_rng(self.rng.randrange(2**32))
         right = A._group_table()[1]  # b_h f = f[right[h]]
-        fv = np.asarray([int(x) % p for x in node.f], dtype=np.int64)
+        fv = self.node_array(node)
         acc = np.zeros((w, n), dtype=np.int64)
         for _ in range(8):
             hs = gen.integers(0, n, size=w)
@@ -807,12 +891,13 @@ class _Search:
         )
 
 
-def _rank_in_simple(A: StructureAlgebra, c: _Class, f: list[Any]) -> int:
-    """``dim L f`` for the simple ``L`` of class ``c``: rank of ``(b_s f) U`` over the section."""
+def _rank_in_simple(A: StructureAlgebra, c: _Class, f: list[Any], fv: Any = None) -> int:
+    """``dim L f`` for the simple ``L`` of class ``c``: rank of ``(b_s f) U`` over the section
+    (``fv``: optionally ``f`` as an int64 array of residues)."""
     F = A.field
     p = A._p
     if A._vectorised() and A.dim * (p - 1) ** 2 < 2**63:
-        return _rank_in_simple_vectorised(A, c, f)
+        return _rank_in_simple_vectorised(A, c, f, fv)
     if c.urows is None:
         c.urows = raw_rows(A, c.U)
     width = c.n
@@ -835,7 +920,7 @@ def _rank_in_simple(A: StructureAlgebra, c: _Class, f: list[Any]) -> int:
     return matrix_from_ints(F, len(rows), width, [x for r in rows for x in r]).rank()
 
 
-def _rank_in_simple_vectorised(A: StructureAlgebra, c: _Class, f: list[Any]) -> int:
+def _rank_in_simple_vectorised(A: StructureAlgebra, c: _Class, f: list[Any], fv: Any = None) -> int:
     """:func:`_rank_in_simple` with int64 arrays: ``(b_s f) U`` for the section rows at once
     (every product of residues and every sum of ``dim A`` of them stays below 2^63)."""
     import numpy as np
@@ -846,7 +931,8 @@ def _rank_in_simple_vectorised(A: StructureAlgebra, c: _Class, f: list[Any]) -> 
     Ua = c.uarray
     if Ua is None:
         Ua = c.uarray = np.asarray(c.urows, dtype=np.int64).reshape(A.dim, c.n)
-    fv = np.asarray([int(x) % p for x in f], dtype=np.int64)
+    if fv is None:
+        fv = np.asarray([int(x) % p for x in f], dtype=np.int64)
     out = np.zeros((len(c.sec), A.dim), dtype=np.int64)
     group = A._group_table()
     if group is not None:  # b_s f = sum_j f_j b_(P[s, j]): one permutation of f per row
