@@ -709,13 +709,12 @@ class _Search:
         cs = [self.rng.randrange(1, p) for _ in js]
         RT = None if node.root else self.ensure_RT(node)
         t0 = time.perf_counter()
-        gathers = [left[j] for j in js]
+        gathers = left[js]  # row t: the permutation of y's t-th group element
+        coefs = np.asarray(cs, dtype=np.int64)
 
         def advance(x: Mat) -> Mat:
             v = np.frombuffer(read_residues(x._m), dtype=np.int64)
-            w = np.zeros(n, dtype=np.int64)
-            for g, c in zip(gathers, cs, strict=True):
-                w += c * v[g]  # below s p^2, far from 2^63
+            w = coefs @ v[gathers]  # below s p^2, far from 2^63
             w %= p
             col = residue_matrix(F, n, 1, w)
             return col if RT is None else RT @ col
