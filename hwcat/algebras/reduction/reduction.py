@@ -795,8 +795,9 @@ class _Search:
     def _group_lower_dim(self, node: _Node, explained: int) -> int:
         """A lower bound of ``dim A f`` in a group algebra: the rank of ``explained + 16``
         elements ``x f`` with ``x`` supported on eight random group elements (``x f`` costs
-        eight permutations of ``f``).  Elements of ``A f``, so never more than its dimension;
-        usually equal to it or to their number."""
+        eight permutations of ``f``), read on ``explained + 48`` random coordinates only
+        (a submatrix: its rank is at most that of all the coordinates).  Elements of
+        ``A f``, so never more than its dimension; usually equal to it or to their number."""
         import numpy as np
 
         A = self.A
@@ -808,13 +809,15 @@ class _Search:
         gen = np.random.default_rng(self.rng.randrange(2**32))
         right = A._group_table()[1]  # b_h f = f[right[h]]
         fv = self.node_array(node)
-        acc = np.zeros((w, n), dtype=np.int64)
+        m = min(n, w + 32)
+        coords = np.sort(gen.choice(n, size=m, replace=False)) if m < n else np.arange(n)
+        acc = np.zeros((w, m), dtype=np.int64)
         for _ in range(8):
             hs = gen.integers(0, n, size=w)
             cs = gen.integers(1, p, size=w, dtype=np.int64) if p > 2 else 1
-            acc += (fv[right[hs]] * (cs[:, None] if p > 2 else 1)) % p
+            acc += (fv[right[hs[:, None], coords[None, :]]] * (cs[:, None] if p > 2 else 1)) % p
         acc %= p
-        node.lower = residue_matrix(A.field, w, n, acc.ravel()).rank()
+        node.lower = residue_matrix(A.field, w, m, acc.ravel()).rank()
         node.lower_width = w
         self.tick("group_bounds", t0)
         return node.lower
