@@ -705,12 +705,12 @@ class _Search:
         # at most half of the group (over GF(2) the sum of all elements is central), and a
         # random size (sums of the same length lie in one coset of a small subspace)
         top = max(1, min(n // 2, GROUP_SUPPORT << min(node.attempts - 1, 3)))
-        js = self.rng.sample(range(n), self.rng.randint(max(1, top // 2), top))
-        cs = [self.rng.randrange(1, p) for _ in js]
+        gen = np.random.default_rng(self.rng.randrange(2**32))
+        js = gen.choice(n, size=self.rng.randint(max(1, top // 2), top), replace=False)
+        coefs = gen.integers(1, p, size=len(js), dtype=np.int64)
         RT = None if node.root else self.ensure_RT(node)
         t0 = time.perf_counter()
         gathers = left[js]  # row t: the permutation of y's t-th group element
-        coefs = np.asarray(cs, dtype=np.int64)
 
         def advance(x: Mat) -> Mat:
             v = np.frombuffer(read_residues(x._m), dtype=np.int64)
@@ -1139,6 +1139,11 @@ def _class_RT(A: StructureAlgebra, c: _Class) -> Mat:
     return c.RT if c.RT is not None else A._right_action_transposed(c.e, c.index)
 
 
+BLOCK_START_WIDTH = 32
+"""Columns of the first thin product for the blocks ``e_s A e_t`` (usually of dimension a
+few units, far below ``32 - MARGIN``; wider products follow when one is not)."""
+
+
 def _block_sketch(A: StructureAlgebra, RtT: Mat, width: int, seed: int) -> Mat | None:
     """``R_t Y`` for a random ``Y`` with ``width`` columns (``RtT`` the transpose of
     ``R_t``), or ``None`` when the blocks are better found without it."""
@@ -1186,7 +1191,7 @@ def _find_blocks(
     # square matrix by a thin one faster than a thin one by a square one
     RtT = _class_RT(A, ct)
     # the blocks are usually far smaller than dim A e_t: sketches of growing width
-    width = sketch.START_WIDTH
+    width = BLOCK_START_WIDTH
     sk = _block_sketch(A, RtT, width, 1000 + t)
     for s, cs in enumerate(classes):
         Ls = apply_transfer(cs.L, transfer(A, cs.rows, ct.index))
