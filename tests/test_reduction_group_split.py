@@ -284,6 +284,7 @@ def test_trace_pairing_gives_the_rows_and_forms_of_the_general_route(gens, F, se
         return
     rng = random.Random(seed)
     p = F.p
+    assert reduction._group_trace(A) == A.raw(A.trace_functional())
     elems = []
     try:
         elems += [A.raw(list(e)) for e in reduce_algebra(A, seed=seed).idempotents]

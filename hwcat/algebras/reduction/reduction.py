@@ -203,6 +203,17 @@ def _group_inverses(A: StructureAlgebra) -> Any:
     return A._cache["group_inverses"]
 
 
+def _group_trace(A: StructureAlgebra) -> list[int] | None:
+    """The trace form (raw) of a group algebra whose unit is a basis element: right
+    multiplication by ``b_j`` fixes a basis element only for ``b_j = 1`` (cancellation),
+    and then all ``dim A`` of them; ``None`` otherwise."""
+    if _group_inverses(A) is None:
+        return None
+    tau = [0] * A.dim
+    tau[next(i for i, v in enumerate(A._unit) if v)] = A.dim % A._p
+    return tau
+
+
 GROUP_TRACE_PAIRING = True
 """Switch for :func:`_group_right_ideal_basis` and :func:`_group_form_of_products` (tests
 compare both routes)."""
@@ -230,7 +241,8 @@ def _group_right_ideal_basis(A: StructureAlgebra, e: list[Any], RT: Mat):
     w = sketch.START_WIDTH
     while 3 * w <= n:
         S = RT @ sketch.draw(F, n, w, w)  # column j: y_j e
-        pos = select_independent_rows(take_rows(S, inv.tolist()))
+        Sv = np.frombuffer(read_residues(S._m), dtype=np.int64).reshape(n, w)
+        pos = select_independent_rows(residue_matrix(F, n, w, np.ascontiguousarray(Sv[inv])))
         if len(pos) + sketch.MARGIN <= w:
             ev = np.fromiter(map(int, e), dtype=np.int64, count=n) % A._p
             rows = ev[A._group_table()[2][pos]]
@@ -482,7 +494,7 @@ class _Search:
     def __post_init__(self) -> None:
         p = self.A._char
         self.trace_exact = p == 0 or p > self.A.dim
-        self.tau = self.A.raw(self.A.trace_functional())
+        self.tau = _group_trace(self.A) or self.A.raw(self.A.trace_functional())
         self.pool: list[tuple[list[Any], Mat]] = []
         self.pool_T: dict[int, Mat] = {}  # transposed matrices of the pool (small algebras)
 
@@ -928,11 +940,16 @@ def _rank_in_simple_vectorised(A: StructureAlgebra, c: _Class, f: list[Any], fv:
     import numpy as np
 
     p = A._p
-    if c.urows is None:
-        c.urows = raw_rows(A, c.U)
     Ua = c.uarray
     if Ua is None:
-        Ua = c.uarray = np.asarray(c.urows, dtype=np.int64).reshape(A.dim, c.n)
+        buf = read_residues(c.U._m) if isinstance(A.field, PrimeField) else None
+        if buf is not None:
+            Ua = np.frombuffer(buf, dtype=np.int64).reshape(A.dim, c.n)
+        else:
+            if c.urows is None:
+                c.urows = raw_rows(A, c.U)
+            Ua = np.asarray(c.urows, dtype=np.int64).reshape(A.dim, c.n)
+        c.uarray = Ua
     if fv is None:
         fv = np.asarray([int(x) % p for x in f], dtype=np.int64)
     out = np.zeros((len(c.sec), A.dim), dtype=np.int64)
