@@ -750,7 +750,11 @@ class _Search:
         for pi in fitting_polynomials(facs):
             co = pi.coeffs() + [F.zero] * (K.nrows - pi.degree - 1)
             v = Mat.from_flat(F, 1, K.nrows, co[: K.nrows]) @ K
-            kids.append(embed(A, v.entries(), node.index))
+            buf = read_residues(v._m) if A._p and isinstance(F, PrimeField) else None
+            if buf is not None and node.index is None:
+                kids.append(buf.tolist())  # residues in one piece
+            else:
+                kids.append(embed(A, v.entries(), node.index))
         return kids
 
     def explore(self, start: list[_Node], n_total: int) -> None:
