@@ -27,7 +27,10 @@ are orthogonal idempotents and every basis element lies in one Peirce block
 idempotents and every matrix is restricted to a block.  In a group algebra (a
 group table) ``y`` is supported on a few random group elements instead: right
 multiplication by a group element permutes coordinates, so the Krylov chain of
-``f y f`` needs only the matrix of ``f``.  A leaf is accepted when
+``f y f`` needs only the matrix of ``f``; the trace ``tau`` (coefficient of the unit,
+``tau(x y) = tau(y x)``) turns the rows ``e b_l`` of a right ideal and the form
+``x -> col(e x)`` into products with that matrix (``tau(e b_l y) = (y e)_(inv l)``), so
+no matrix of left multiplication is built.  A leaf is accepted when
 its corner ``e A e`` (a small explicit algebra) is certified local with residue
 field ``F``: directly, by a multiplicative residue map with nilpotent kernel, or by
 its radical (the lifted-trace chain) having codimension 1.  Each
