@@ -323,3 +323,20 @@ def test_trace_pairing_gives_the_same_reduction(n, field, monkeypatch):
     monkeypatch.setattr(reduction, "GROUP_TRACE_PAIRING", False)
     plain = reduce_algebra(make())
     _exactly_equal(fast, plain)
+
+
+@pytest.mark.parametrize("k", [0, 1, 2, 5, 11, 12, 13])
+def test_thin_products_padded_to_twelve_rows_are_exact(k):
+    """``X @ M`` through the transpose of ``M``, with ``X`` padded by zero rows, against the
+    plain product (derived)."""
+    import random
+
+    F = GF(3)
+    rng = random.Random(k)
+    n = 80
+    M = Mat.from_flat(F, n, n, [rng.randrange(3) for _ in range(n * n)])
+    X = Mat.from_flat(F, k, n, [rng.randrange(3) for _ in range(k * n)])
+    out = reduction._times_transposed(X, M.transpose())
+    assert out.nrows == k and out.ncols == n
+    if k:
+        assert out == X @ M
