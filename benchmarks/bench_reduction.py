@@ -47,10 +47,30 @@ over runs, with ``--repeat 5`` for S_5 and S_6 and one run for S_7 (``--large``)
     S_7 GF(2)  5040      5.1 (89 s)    1531         3.7 (84 s)   1247
     S_7 GF(3)  5040     14 - 23 (61 - 132 s)  1480   9.9 (60 s)   1247
 
-S_5 stays far above 20: its rank takes under a millisecond, the reduction some 30 ms of
-fixed costs (both routes alike in processor time).  S_6 over GF(3) is at the goal only
-in the quieter runs (its reduction takes about 0.4 s of processor time against a
-13 to 17 ms rank).
+Then, on the same route, the work of a group algebra moved off full ``dim A x dim A``
+matrices: right ideals ``e A`` and the forms ``x -> col(e x)`` through the trace pairing
+(no matrix of left multiplication), the sparse random element applied by one gather, the
+lower bound of ``dim A f`` read on a few coordinates, the trace form and the table's
+index arrays built whole, the blocks ``e_s A e_t`` of one ``t`` in a single product and
+thin products padded to 12 columns (flint's faster product).  Ratio in elapsed time and
+in processor time (``cpu ratio``, with the reduction's processor seconds), two runs each
+of ``python benchmarks/bench_reduction.py --repeat 5 --case "S_6 GF(3)" --case "S_6
+GF(2)" --case "S_5 GF(3)" --case "S_5 GF(2)"`` before and after, and one run of
+``--case "S_7 GF(3)" --case "S_7 GF(2)"`` after (before: the table above)::
+
+    case       dim   before: ratio   cpu ratio (s)             after: ratio   cpu ratio (s)
+    S_5 GF(2)   120     87 - 102      87 - 94 (0.04)              68 - 97      68 - 93 (0.04)
+    S_5 GF(3)   120    157 - 168     157 - 161 (0.04)            194 - 251    194 - 249 (0.03-0.06)
+    S_6 GF(2)   720    9.7 - 10.6    9.6 - 10.7 (0.54 - 0.62)   6.9 - 9.4    6.9 - 9.6 (0.46 - 0.47)
+    S_6 GF(3)   720     24 - 29       24 - 29 (0.46 - 0.48)      16 - 22      16 - 22 (0.30 - 0.35)
+    S_7 GF(2)  5040      3.7 (84 s)                             2.5 (35 s)   2.5 (34 s)
+    S_7 GF(3)  5040      9.9 (60 s)                             6.1 (20 s)   6.0 (20 s)
+
+Peak memory after: 200 - 260 MiB for S_6 (the same before, in these runs), 1100 MiB for
+S_7.  S_6 over GF(3) in processor time, seven seeds after a warm-up run in one process:
+0.21 - 0.25 s against a 13 - 16 ms rank in quiet moments (ratios 14 - 20), 0.26 - 0.32 s when
+the machine is busier.  S_5 stays far above 20: its rank takes under a millisecond, the
+reduction some 30 ms of fixed costs.
 """
 
 from __future__ import annotations
@@ -133,6 +153,11 @@ BASELINE_LIMIT = 130
 def dense_rank_seconds(field, n: int, repeat: int = 3) -> float:
     """Time of one rank of a random dense ``n x n`` matrix over ``field`` (building excluded;
     the median of ``repeat`` runs, since the machine is shared, unless one run takes over 5 s)."""
+    return dense_rank_times(field, n, repeat)[0]
+
+
+def dense_rank_times(field, n: int, repeat: int = 3) -> tuple[float, float]:
+    """:func:`dense_rank_seconds` in elapsed and in processor time (medians of the same runs)."""
     rng = random.Random(1)
     p = field.characteristic
     if p:
@@ -142,13 +167,15 @@ def dense_rank_seconds(field, n: int, repeat: int = 3) -> float:
     M = matrix_from_ints(field, n, n, vals)
     del vals
     times: list[float] = []
+    cpu: list[float] = []
     while len(times) < repeat:
-        t0 = time.perf_counter()
+        t0, c0 = time.perf_counter(), time.process_time()
         M.rank()
         times.append(time.perf_counter() - t0)
+        cpu.append(time.process_time() - c0)
         if times[0] > 5:  # long enough to be measured once
             break
-    return sorted(times)[len(times) // 2]
+    return sorted(times)[len(times) // 2], sorted(cpu)[len(cpu) // 2]
 
 
 def run_case(name: str, profile: bool = False, repeat: int = 1) -> dict:
@@ -160,6 +187,7 @@ def run_case(name: str, profile: bool = False, repeat: int = 1) -> dict:
         return run_spin_case(name, profile)
     make = CASES_LARGE[name]
     times = []
+    cpu = []
     for _ in range(repeat):
         t0 = time.perf_counter()
         table = make()
@@ -169,17 +197,19 @@ def run_case(name: str, profile: bool = False, repeat: int = 1) -> dict:
         t_conv = time.perf_counter() - t0
         del table
         prof = cProfile.Profile() if profile else None
-        t0 = time.perf_counter()
+        t0, c0 = time.perf_counter(), time.process_time()
         if prof is not None:
             prof.enable()
         r = reduce_algebra(A)
         if prof is not None:
             prof.disable()
         times.append(time.perf_counter() - t0)
+        cpu.append(time.process_time() - c0)
         if prof is not None:
             pstats.Stats(prof, stream=sys.stderr).sort_stats("tottime").print_stats(15)
     t_red = sorted(times)[len(times) // 2]
-    t_rank = dense_rank_seconds(A.field, A.dim, repeat=max(3, repeat))
+    c_red = sorted(cpu)[len(cpu) // 2]
+    t_rank, c_rank = dense_rank_times(A.field, A.dim, repeat=max(3, repeat))
     naive = None
     if A.dim <= BASELINE_LIMIT and A.field.characteristic:
         t0 = time.perf_counter()
@@ -196,6 +226,8 @@ def run_case(name: str, profile: bool = False, repeat: int = 1) -> dict:
         "reduce": t_red,
         "rank": t_rank,
         "ratio": t_red / t_rank if t_rank > 0 else float("inf"),
+        "reduce_cpu": c_red,
+        "ratio_cpu": c_red / c_rank if c_rank > 0 else float("inf"),
         "peak_mib": peak,
         "naive": naive,
         "simples": len(r.simple_dimensions),
@@ -254,6 +286,7 @@ def row(d: dict) -> list[str]:
         f"{d['reduce']:.2f}",
         f"{d['rank']:.3f}",
         f"{d['ratio']:.1f}" if d["ratio"] >= 0.95 else f"{d['ratio']:.3f}",
+        f"{d['ratio_cpu']:.1f} ({d['reduce_cpu']:.2f})" if "ratio_cpu" in d else "-",
         f"{d['peak_mib']:.0f}"
         + (f" ({d['peak_reduce_mib']:.0f})" if "peak_reduce_mib" in d else ""),
         "-" if d["naive"] is None else f"{d['naive']:.2f}",
@@ -273,6 +306,7 @@ HEADER = [
     "reduce s",
     "dense rank s",
     "ratio",
+    "cpu ratio (s)",
     "peak MiB",
     "naive rad s",
     "simples",

@@ -240,3 +240,91 @@ def test_group_route_with_primes_near_two_to_the_31(n, p, dims):
         assert sum(d * d for d in r.simple_dimensions) == A.dim
         if dims is not None:
             assert sorted(r.simple_dimensions) == dims
+
+
+# -- the trace pairing of a group algebra (reduction.GROUP_TRACE_PAIRING) -------------
+
+
+def _small_sketches(monkeypatch):
+    """Thin products already at the sizes of these tests (the route runs from dimension 256)."""
+    from hwcat.algebras.reduction import sketch
+
+    monkeypatch.setattr(sketch, "MIN_SIZE", 0)
+    monkeypatch.setattr(sketch, "START_WIDTH", 32)
+
+
+@settings(max_examples=15, deadline=None)
+@given(
+    st.lists(st.permutations(range(5)), min_size=1, max_size=2),
+    st.sampled_from([GF(2), GF(3), GF(5)]),
+    st.integers(0, 2**16),
+)
+def test_trace_pairing_gives_the_rows_and_forms_of_the_general_route(gens, F, seed):
+    """``e b_l`` and ``col(e b_l)`` through ``tau(x y) = tau(y x)`` against the matrix of
+    left multiplication, for the reduction's idempotents and for random sparse elements
+    (the identities hold for any element); derived."""
+    import random
+
+    from hwcat.algebras.reduction import sketch
+
+    A = _permutation_group_algebra([tuple(g) for g in gens], F)
+    if A._group_table() is None:
+        return
+    rng = random.Random(seed)
+    p = F.p
+    assert reduction._group_trace(A) == A.raw(A.trace_functional())
+    elems = []
+    try:
+        elems += [A.raw(list(e)) for e in reduce_algebra(A, seed=seed).idempotents]
+    except NotSplitError:
+        pass
+    for _ in range(3):
+        y = [0] * A.dim
+        for i in rng.sample(range(A.dim), min(A.dim, rng.randint(1, 3))):
+            y[i] = rng.randrange(1, p)
+        elems.append(y)
+    old = (sketch.MIN_SIZE, sketch.START_WIDTH)
+    try:
+        sketch.MIN_SIZE, sketch.START_WIDTH = 0, 8
+        for e in elems:
+            RT = A._right_action_transposed(e, None)
+            col = [rng.randrange(p) for _ in range(A.dim)]
+            assert reduction._group_form_of_products(A, e, RT, col) == A._form_of_products(e, col)
+            fast = reduction._group_right_ideal_basis(A, e, RT)
+            with sketch.disabled():
+                J, Lr = reduction._right_ideal_basis(A, e, None)
+            if fast is not None:  # None: the rank is too large for a thin product here
+                assert fast[0] == J
+                assert fast[1] == Lr
+    finally:
+        sketch.MIN_SIZE, sketch.START_WIDTH = old
+
+
+@pytest.mark.parametrize(("n", "field"), [(4, "GF(3)"), (5, "GF(2)"), (5, "GF(3)")])
+def test_trace_pairing_gives_the_same_reduction(n, field, monkeypatch):
+    """The same random elements, so exactly the same reduction with the trace pairing on
+    and off (with thin products at this size, so that the route runs)."""
+    _small_sketches(monkeypatch)
+    make = lambda: from_table(tables.symmetric_group_algebra(n, field))  # noqa: E731
+    monkeypatch.setattr(reduction, "GROUP_TRACE_PAIRING", True)
+    fast = reduce_algebra(make())
+    monkeypatch.setattr(reduction, "GROUP_TRACE_PAIRING", False)
+    plain = reduce_algebra(make())
+    _exactly_equal(fast, plain)
+
+
+@pytest.mark.parametrize("k", [0, 1, 2, 5, 11, 12, 13])
+def test_thin_products_padded_to_twelve_rows_are_exact(k):
+    """``X @ M`` through the transpose of ``M``, with ``X`` padded by zero rows, against the
+    plain product (derived)."""
+    import random
+
+    F = GF(3)
+    rng = random.Random(k)
+    n = 80
+    M = Mat.from_flat(F, n, n, [rng.randrange(3) for _ in range(n * n)])
+    X = Mat.from_flat(F, k, n, [rng.randrange(3) for _ in range(k * n)])
+    out = reduction._times_transposed(X, M.transpose())
+    assert out.nrows == k and out.ncols == n
+    if k:
+        assert out == X @ M

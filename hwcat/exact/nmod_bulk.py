@@ -152,3 +152,23 @@ def power_trace(n: int, buf: Any, modulus: int, e: int) -> int | None:
     if ent is None:
         return None
     return sum(ent[k * n + k] for k in range(n)) % modulus
+
+
+def dot_mod(x: Any, M: Any, p: int) -> Any:
+    """``x @ M mod p`` for numpy int64 arrays of residues mod ``p < 2^31``, in chunks of
+    rows short enough that no partial sum reaches ``2^63`` (each product is below ``p^2``).
+
+    >>> import numpy as np
+    >>> p = 2**31 - 1
+    >>> x = np.full(5, p - 1, dtype=np.int64); M = np.full((5, 2), p - 1, dtype=np.int64)
+    >>> dot_mod(x, M, p).tolist() == [5 * (p - 1) ** 2 % p] * 2
+    True
+    """
+    step = max(1, (2**63 - 1) // max(1, (p - 1) ** 2))
+    if len(x) <= step:
+        return (x @ M) % p
+    out = None
+    for i in range(0, len(x), step):
+        part = (x[i : i + step] @ M[i : i + step]) % p
+        out = part if out is None else (out + part) % p
+    return out

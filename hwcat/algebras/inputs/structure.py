@@ -54,6 +54,7 @@ from hwcat.exact import (
     split_factors,
     split_signed_terms,
 )
+from hwcat.exact.nmod_bulk import dot_mod
 from hwcat.exact.polys import matrix_from_ints, matrix_from_residues, sparse_matrix
 from hwcat.limits import check_products
 
@@ -438,27 +439,26 @@ class StructureAlgebra:
         n = self.dim
         if USE_GROUP_TABLE and self._vectorised() and self.nnz == n * n and n <= GROUP_TABLE_LIMIT:
             np = _np
-            P = np.full((n, n), -1, dtype=np.int64)
-            ok = True
-            for j, (i_a, k_a, c_a) in enumerate(self._np_cols()):
-                if len(i_a) != n or not (c_a == 1).all():
-                    ok = False
-                    break
-                P[i_a, j] = k_a
-            if ok and int(P.min()) >= 0:  # each column holds every i once
-                ar = np.arange(n, dtype=np.int64)
-                JR = np.full((n, n), -1, dtype=np.int64)
-                np.put_along_axis(JR, P, np.broadcast_to(ar[None, :], (n, n)), axis=1)
-                IL = np.full((n, n), -1, dtype=np.int64)
-                np.put_along_axis(IL, P, np.broadcast_to(ar[:, None], (n, n)), axis=0)
-                if int(JR.min()) >= 0 and int(IL.min()) >= 0:  # n values fill n places
-                    small = np.int16 if n < 2**15 else np.int32
-                    out = (
-                        P.astype(small),
-                        JR.astype(small),
-                        np.ascontiguousarray(IL.T).astype(small),
-                        np.ascontiguousarray(JR.T).astype(small),
-                    )
+            cols = self._np_cols()
+            small = np.int16 if n < 2**15 else np.int32
+            if all(len(i_a) == n for i_a, _, _ in cols) and all(
+                (c_a == 1).all() for _, _, c_a in cols
+            ):
+                # all columns at once: column j of the table sits at rows i_a, values k_a
+                P = np.full((n, n), -1, dtype=small)
+                ar = np.arange(n, dtype=small)
+                P[np.concatenate([i_a for i_a, _, _ in cols]), np.repeat(ar, n)] = np.concatenate(
+                    [k_a for _, k_a, _ in cols]
+                )
+                if int(P.min()) >= 0:  # each column holds every i once
+                    JR = np.full((n, n), -1, dtype=small)  # JR[i, P[i, j]] = j
+                    JR[ar[:, None], P] = ar[None, :]
+                    ILT = np.full((n, n), -1, dtype=small)  # ILT[j, P[i, j]] = i
+                    ILT[ar[None, :], P] = ar[:, None]
+                    JRT = np.full((n, n), -1, dtype=small)  # JRT[P[i, j], i] = j
+                    JRT[P, ar[:, None]] = ar[None, :]
+                    if int(JR.min()) >= 0 and int(ILT.min()) >= 0:  # n values fill n places
+                        out = (P, JR, ILT, JRT)
         self._cache["group"] = out
         return out
 
@@ -546,7 +546,7 @@ class StructureAlgebra:
             group = self._group_table()
             if group is not None:  # phi_j = sum_i x_i col(b_i b_j)
                 jj = np.arange(self.dim) if rows is None else np.asarray(list(js), dtype=np.int64)
-                vals = _dot_mod(xv, cv[group[0][:, jj]], p) if len(jj) else []
+                vals = dot_mod(xv, cv[group[0][:, jj]], p) if len(jj) else []
                 for j, v in zip(jj.tolist(), np.asarray(vals).tolist(), strict=True):
                     phi[j] = int(v)
                 return phi
@@ -1359,16 +1359,4 @@ def coefficient_terms(text: str, field: Field, names) -> list[tuple[Any, list[st
         except CoefficientError as exc:
             raise CoefficientError(f"{text!r}: {exc}") from None
         out.append((coef if sign > 0 else -coef, factors, term))
-    return out
-
-
-def _dot_mod(x: Any, M: Any, p: int) -> Any:
-    """``x @ M mod p`` for int64 arrays of residues, in chunks of rows short enough that
-    no partial sum reaches ``2^63`` (each product is below ``p^2``)."""
-    step = max(1, (2**63 - 1) // max(1, (p - 1) ** 2))
-    if len(x) <= step:
-        return (x @ M) % p
-    out = _np.zeros(M.shape[1], dtype=_np.int64)
-    for i in range(0, len(x), step):
-        out = (out + (x[i : i + step] @ M[i : i + step]) % p) % p
     return out

@@ -30,6 +30,7 @@ try:  # optional: the small radical by int64 arrays
 except ImportError:  # pragma: no cover - numpy is an optional extra
     _np = None
 
+
 def residue_matrix(F: Any, nrows: int, ncols: int, buf: Any) -> Mat:
     """:func:`~hwcat.exact.polys.matrix_from_residues` copied in one piece at every size
     (the small matrices of the Krylov sequences and of the blocks are many)."""
@@ -179,10 +180,14 @@ def _chain(Ts: Sequence[Mat], x: Mat) -> Mat:
     return x
 
 
-def _krylov_columns(v0: Mat, x: Mat, advance, limit: int | None) -> tuple[Mat, list[Any]] | None:
+def _krylov_columns(
+    v0: Mat, x: Mat, advance, limit: int | None, fine: bool = False
+) -> tuple[Mat, list[Any]] | None:
     """:func:`krylov` over GF(p) with each vector read out of flint once (``x``: ``v0`` as
     a row or a column -- both hold the same residues -- and ``advance`` the next vector in
     the same shape); the matrices of the sequence are assembled from those buffers.
+    The dependency is looked for at 4, 8, 16, ... vectors, or with ``fine`` (for a costly
+    ``advance``) at 2, 3, 4, 6, 9, ... (same result, fewer vectors past it).
     ``None`` if the one-piece copies are unavailable."""
     F = v0.field
     n = v0.ncols
@@ -190,7 +195,7 @@ def _krylov_columns(v0: Mat, x: Mat, advance, limit: int | None) -> tuple[Mat, l
     if first is None:
         return None
     bufs = [first]
-    size = 4
+    size = 2 if fine else 4
 
     def stacked(k: int) -> Mat:
         out = array("q")
@@ -211,7 +216,7 @@ def _krylov_columns(v0: Mat, x: Mat, advance, limit: int | None) -> tuple[Mat, l
             break
         if limit is not None and len(bufs) > limit + 1:
             raise InternalInconsistency("Krylov sequence longer than the dimension")
-        size *= 2
+        size = max(size + 1, size * 3 // 2) if fine else 2 * size
     Kd = stacked(d)
     c = Kd.solve_left(residue_matrix(F, 1, n, array("q", bufs[d])))
     if c is None:  # pragma: no cover - rank argument guarantees a solution

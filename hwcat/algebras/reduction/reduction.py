@@ -27,7 +27,10 @@ are orthogonal idempotents and every basis element lies in one Peirce block
 idempotents and every matrix is restricted to a block.  In a group algebra (a
 group table) ``y`` is supported on a few random group elements instead: right
 multiplication by a group element permutes coordinates, so the Krylov chain of
-``f y f`` needs only the matrix of ``f``.  A leaf is accepted when
+``f y f`` needs only the matrix of ``f``; the trace ``tau`` (coefficient of the unit,
+``tau(x y) = tau(y x)``) turns the rows ``e b_l`` of a right ideal and the form
+``x -> col(e x)`` into products with that matrix (``tau(e b_l y) = (y e)_(inv l)``), so
+no matrix of left multiplication is built.  A leaf is accepted when
 its corner ``e A e`` (a small explicit algebra) is certified local with residue
 field ``F``: directly, by a multiplicative residue map with nilpotent kernel, or by
 its radical (the lifted-trace chain) having codimension 1.  Each
@@ -117,7 +120,7 @@ from hwcat.errors import (
 )
 from hwcat.exact import Mat, PrimeField, echelon, select_independent_rows, splitting_field_hint
 from hwcat.exact.bulk_rows import take_rows
-from hwcat.exact.nmod_bulk import bulk_available, read_residues
+from hwcat.exact.nmod_bulk import bulk_available, dot_mod, read_residues
 from hwcat.exact.polys import (
     Poly,
     fitting_polynomials,
@@ -185,12 +188,111 @@ def _right_ideal_basis(A: StructureAlgebra, e: list[Any], rows) -> tuple[list[in
     return [rows_list[k] for k in pos], take_rows(L, pos)
 
 
+def _group_inverses(A: StructureAlgebra) -> Any:
+    """In a group algebra whose unit is a basis element: ``inv[l]`` with ``b_l b_inv[l] = 1``
+    (an int64 array); else ``None``."""
+    group = A._group_table()
+    if group is None or not A._p:
+        return None
+    if "group_inverses" not in A._cache:
+        import numpy as np
+
+        nz = [i for i, v in enumerate(A._unit) if v]
+        ok = len(nz) == 1 and int(A._unit[nz[0]]) % A._p == 1
+        A._cache["group_inverses"] = (
+            np.ascontiguousarray(group[1][:, nz[0]], dtype=np.int64) if ok else None
+        )
+    return A._cache["group_inverses"]
+
+
+def _group_trace(A: StructureAlgebra) -> list[int] | None:
+    """The trace form (raw) of a group algebra whose unit is a basis element: right
+    multiplication by ``b_j`` fixes a basis element only for ``b_j = 1`` (cancellation),
+    and then all ``dim A`` of them; ``None`` otherwise."""
+    if _group_inverses(A) is None:
+        return None
+    tau = [0] * A.dim
+    tau[next(i for i, v in enumerate(A._unit) if v)] = A.dim % A._p
+    return tau
+
+
+GROUP_TRACE_PAIRING = True
+"""Switch for :func:`_group_right_ideal_basis` and :func:`_group_form_of_products` (tests
+compare both routes)."""
+
+
+def _group_right_ideal_basis(A: StructureAlgebra, e: list[Any], RT: Mat):
+    """:func:`_right_ideal_basis` in a group algebra, without the matrix of ``x -> e x``.
+
+    The sketch ``L Y`` of the rows ``e b_l`` (``Y`` uniformly random, ``w`` columns) is read
+    off ``R_e^T Z`` for a uniformly random ``Z`` through the trace ``tau`` (coefficient of
+    the unit, ``tau(x y) = tau(y x)``): with ``y_j`` the ``j``-th column of ``Z``,
+    ``tau(e b_l y_j) = tau(b_l (y_j e)) = (y_j e)_(inv l)`` (``b_(inv l) = b_l^-1``), which
+    is ``(L Y)[l, j]`` for ``Y[k, j] = y_j[inv k]`` -- a row permutation of ``Z``, so
+    uniform as well.  The rows are then chosen as in
+    :func:`~hwcat.algebras.reduction.sketch.sketched_independent_rows` (the same greedy
+    choice when the rank is kept; the same closing checks catch an unlucky draw), and
+    ``e b_l = e[left[l]]`` is a gather.  ``None`` when that route does not apply."""
+    inv = _group_inverses(A)
+    n = A.dim
+    if not GROUP_TRACE_PAIRING or inv is None or not sketch.USE_SKETCH or n < sketch.MIN_SIZE:
+        return None
+    import numpy as np
+
+    F = A.field
+    w = sketch.START_WIDTH
+    while 3 * w <= n:
+        S = RT @ sketch.draw(F, n, w, w)  # column j: y_j e
+        Sv = np.frombuffer(read_residues(S._m), dtype=np.int64).reshape(n, w)
+        pos = select_independent_rows(residue_matrix(F, n, w, np.ascontiguousarray(Sv[inv])))
+        if len(pos) + sketch.MARGIN <= w:
+            ev = np.fromiter(map(int, e), dtype=np.int64, count=n) % A._p
+            rows = ev[A._group_table()[2][pos]]
+            return list(pos), residue_matrix(F, len(pos), n, np.ascontiguousarray(rows).ravel())
+        w *= 2
+    return None
+
+
+def _group_form_of_products(A: StructureAlgebra, e: list[Any], RT: Mat, col: list[Any]):
+    """``phi_j = col(e b_j)`` in a group algebra (``RT`` the transpose of right
+    multiplication by ``e``): with ``y[k] = col[inv k]``, ``col(e b_j) = tau(e b_j y) =
+    tau(b_j (y e)) = (y e)_(inv j)`` (see :func:`_group_right_ideal_basis`), one product
+    with ``RT``.  ``None`` when that route does not apply."""
+    inv = _group_inverses(A)
+    if not GROUP_TRACE_PAIRING or inv is None:
+        return None
+    import numpy as np
+
+    n, p = A.dim, A._p
+    cv = np.fromiter(map(int, col), dtype=np.int64, count=n) % p
+    ye = RT @ residue_matrix(A.field, n, 1, np.ascontiguousarray(cv[inv]))
+    out = np.frombuffer(read_residues(ye._m), dtype=np.int64)[inv]
+    return out.tolist()
+
+
+THIN_PAD = 12
+"""Products of a large square matrix with fewer than this many columns are padded with
+zero columns up to it: flint's product then takes another algorithm, several times faster
+at these sizes (measured on GF(3) at 720 x 720: 10 columns 3.3 ms, 12 columns 0.4 ms)."""
+
+
+def _times_transposed(X: Mat, MT: Mat) -> Mat:
+    """``X @ M`` given ``MT`` (the transpose of a large square ``M``) and the few rows ``X``:
+    as ``(MT @ X^T)^T``, with ``X`` padded by zero rows up to :data:`THIN_PAD`."""
+    k = X.nrows
+    if k == 0 or k == 1 or k >= THIN_PAD or MT.nrows < 64 or not isinstance(X.field, PrimeField):
+        return (MT @ X.transpose()).transpose()
+    padded = Mat.vstack(X.field, [X, Mat.zeros(X.field, THIN_PAD - k, X.ncols)], X.ncols)
+    return take_rows((MT @ padded.transpose()).transpose(), range(k))
+
+
 def _corner_data(A: StructureAlgebra, e: list[Any], RT: Mat, index, rows) -> tuple:
     """Basis of eA (as e*b_l), of eAe (as e*b_l*e) and the corner's structure constants
     (``RT``: the transpose of right multiplication by ``e`` on span(index))."""
     F = A.field
-    J, Lr = _right_ideal_basis(A, e, rows)
-    W = (RT @ apply_transfer(Lr, transfer(A, rows, index)).transpose()).transpose()  # Lr R
+    fast = _group_right_ideal_basis(A, e, RT) if index is None and rows is None else None
+    J, Lr = fast if fast is not None else _right_ideal_basis(A, e, rows)
+    W = _times_transposed(apply_transfer(Lr, transfer(A, rows, index)), RT)  # Lr R
     C_pos = select_independent_rows(W)
     if len(C_pos) > CORNER_LIMIT:
         raise NotSplitError(
@@ -302,7 +404,9 @@ def _new_class(A: StructureAlgebra, e: list[Any], RT: Mat, index, rows) -> _Clas
     # phi(b_j) = chi(e b_j e): col is x -> chi(x e) on span(index), then one pass over b_j
     chicol = Mat.from_flat(F, len(chi), 1, chi)
     col = embed(A, (Rp @ (T @ chicol)).entries(), index)
-    phi = A._form_of_products(e, col, rows)  # e b_j = 0 outside f A
+    phi = _group_form_of_products(A, e, RT, col) if index is None and rows is None else None
+    if phi is None:
+        phi = A._form_of_products(e, col, rows)  # e b_j = 0 outside f A
     # G[a][c] = phi(b_a b_c) = chi(e b_a b_c e) vanishes unless b_c e != 0, i.e. c in index
     cols = None if index is None else list(index)
     G = A._gram_raw(phi, rows=J, cols=cols)
@@ -393,6 +497,7 @@ class _Node:
     ranks: list[int] = field(default_factory=list)  # dim L f for the first simples found
     lower: int | None = None  # a lower bound of dim A f (group algebras) ...
     lower_width: int = 0  # ... from that many elements of A f
+    fv: Any = None  # f as an int64 array of residues (vectorised tables; made on demand)
 
 
 @dataclass
@@ -407,7 +512,7 @@ class _Search:
     def __post_init__(self) -> None:
         p = self.A._char
         self.trace_exact = p == 0 or p > self.A.dim
-        self.tau = self.A.raw(self.A.trace_functional())
+        self.tau = _group_trace(self.A) or self.A.raw(self.A.trace_functional())
         self.pool: list[tuple[list[Any], Mat]] = []
         self.pool_T: dict[int, Mat] = {}  # transposed matrices of the pool (small algebras)
 
@@ -503,8 +608,18 @@ class _Search:
         found since the last call are added)."""
         done = node.ranks
         if len(done) < len(self.classes):
-            done.extend(_rank_in_simple(self.A, c, node.f) for c in self.classes[len(done) :])
+            fv = self.node_array(node) if self.A._vectorised() else None
+            done.extend(_rank_in_simple(self.A, c, node.f, fv) for c in self.classes[len(done) :])
         return list(done)
+
+    def node_array(self, node: _Node) -> Any:
+        """The node's idempotent as an int64 array of residues (kept on the node)."""
+        if node.fv is None:
+            import numpy as np
+
+            node.fv = np.fromiter(map(int, node.f), dtype=np.int64, count=len(node.f))
+            node.fv %= self.A._p
+        return node.fv
 
     def screen(self, node: _Node, exact: bool = False) -> str:
         """``skip`` (no new simple in f), ``explore`` or ``defer`` (undecided cheaply; with
@@ -615,35 +730,26 @@ class _Search:
         F, p, n = A.field, A._p, A.dim
         if not bulk_available():
             return None  # no one-piece copies: the general route
-        first = np.fromiter((int(x) for x in node.f), dtype=np.int64, count=n) % p
+        first = self.node_array(node)
         left = A._group_table()[2]  # x b_j = x[left[j]]
         # at most half of the group (over GF(2) the sum of all elements is central), and a
         # random size (sums of the same length lie in one coset of a small subspace)
         top = max(1, min(n // 2, GROUP_SUPPORT << min(node.attempts - 1, 3)))
-        js = self.rng.sample(range(n), self.rng.randint(max(1, top // 2), top))
-        cs = [self.rng.randrange(1, p) for _ in js]
+        gen = np.random.default_rng(self.rng.randrange(2**32))
+        js = gen.choice(n, size=self.rng.randint(max(1, top // 2), top), replace=False)
+        coefs = gen.integers(1, p, size=len(js), dtype=np.int64)
         RT = None if node.root else self.ensure_RT(node)
         t0 = time.perf_counter()
-        gathers = [left[j] for j in js]
-
-        # each term is below p^2 < 2^62; their sum stays below 2^63 unless p is large
-        exact_sum = len(cs) * (p - 1) ** 2 < 2**63
+        gathers = left[js]  # row t: the permutation of y's t-th group element
 
         def advance(x: Mat) -> Mat:
             v = np.frombuffer(read_residues(x._m), dtype=np.int64)
-            w = np.zeros(n, dtype=np.int64)
-            for g, c in zip(gathers, cs, strict=True):
-                if exact_sum:
-                    w += c * v[g]
-                else:
-                    w += (c * v[g]) % p
-                    w %= p
-            w %= p
+            w = dot_mod(coefs, v[gathers], p)  # partial sums below 2^63 for any p < 2^31
             col = residue_matrix(F, n, 1, w)
             return col if RT is None else RT @ col
 
         v0 = residue_matrix(F, 1, n, first)
-        out = _krylov_columns(v0, v0, advance, n)
+        out = _krylov_columns(v0, v0, advance, n, fine=RT is not None)
         self.tick("krylov", t0)
         if out is None:
             return None
@@ -661,7 +767,11 @@ class _Search:
         for pi in fitting_polynomials(facs):
             co = pi.coeffs() + [F.zero] * (K.nrows - pi.degree - 1)
             v = Mat.from_flat(F, 1, K.nrows, co[: K.nrows]) @ K
-            kids.append(embed(A, v.entries(), node.index))
+            buf = read_residues(v._m) if A._p and isinstance(F, PrimeField) else None
+            if buf is not None and node.index is None:
+                kids.append(buf.tolist())  # residues in one piece
+            else:
+                kids.append(embed(A, v.entries(), node.index))
         return kids
 
     def explore(self, start: list[_Node], n_total: int) -> None:
@@ -718,8 +828,9 @@ class _Search:
     def _group_lower_dim(self, node: _Node, explained: int) -> int:
         """A lower bound of ``dim A f`` in a group algebra: the rank of ``explained + 16``
         elements ``x f`` with ``x`` supported on eight random group elements (``x f`` costs
-        eight permutations of ``f``).  Elements of ``A f``, so never more than its dimension;
-        usually equal to it or to their number."""
+        eight permutations of ``f``), read on ``explained + 48`` random coordinates only
+        (a submatrix: its rank is at most that of all the coordinates).  Elements of
+        ``A f``, so never more than its dimension; usually equal to it or to their number."""
         import numpy as np
 
         A = self.A
@@ -730,14 +841,16 @@ class _Search:
         t0 = time.perf_counter()
         gen = np.random.default_rng(self.rng.randrange(2**32))
         right = A._group_table()[1]  # b_h f = f[right[h]]
-        fv = np.asarray([int(x) % p for x in node.f], dtype=np.int64)
-        acc = np.zeros((w, n), dtype=np.int64)
+        fv = self.node_array(node)
+        m = min(n, w + 32)
+        coords = np.sort(gen.choice(n, size=m, replace=False)) if m < n else np.arange(n)
+        acc = np.zeros((w, m), dtype=np.int64)
         for _ in range(8):
             hs = gen.integers(0, n, size=w)
             cs = gen.integers(1, p, size=w, dtype=np.int64) if p > 2 else 1
-            acc += (fv[right[hs]] * (cs[:, None] if p > 2 else 1)) % p
+            acc += (fv[right[hs[:, None], coords[None, :]]] * (cs[:, None] if p > 2 else 1)) % p
         acc %= p
-        node.lower = residue_matrix(A.field, w, n, acc.ravel()).rank()
+        node.lower = residue_matrix(A.field, w, m, acc.ravel()).rank()
         node.lower_width = w
         self.tick("group_bounds", t0)
         return node.lower
@@ -813,12 +926,13 @@ class _Search:
         )
 
 
-def _rank_in_simple(A: StructureAlgebra, c: _Class, f: list[Any]) -> int:
-    """``dim L f`` for the simple ``L`` of class ``c``: rank of ``(b_s f) U`` over the section."""
+def _rank_in_simple(A: StructureAlgebra, c: _Class, f: list[Any], fv: Any = None) -> int:
+    """``dim L f`` for the simple ``L`` of class ``c``: rank of ``(b_s f) U`` over the section
+    (``fv``: optionally ``f`` as an int64 array of residues)."""
     F = A.field
     p = A._p
     if A._vectorised() and A.dim * (p - 1) ** 2 < 2**63:
-        return _rank_in_simple_vectorised(A, c, f)
+        return _rank_in_simple_vectorised(A, c, f, fv)
     if c.urows is None:
         c.urows = raw_rows(A, c.U)
     width = c.n
@@ -841,18 +955,24 @@ def _rank_in_simple(A: StructureAlgebra, c: _Class, f: list[Any]) -> int:
     return matrix_from_ints(F, len(rows), width, [x for r in rows for x in r]).rank()
 
 
-def _rank_in_simple_vectorised(A: StructureAlgebra, c: _Class, f: list[Any]) -> int:
+def _rank_in_simple_vectorised(A: StructureAlgebra, c: _Class, f: list[Any], fv: Any = None) -> int:
     """:func:`_rank_in_simple` with int64 arrays: ``(b_s f) U`` for the section rows at once
     (every product of residues and every sum of ``dim A`` of them stays below 2^63)."""
     import numpy as np
 
     p = A._p
-    if c.urows is None:
-        c.urows = raw_rows(A, c.U)
     Ua = c.uarray
     if Ua is None:
-        Ua = c.uarray = np.asarray(c.urows, dtype=np.int64).reshape(A.dim, c.n)
-    fv = np.asarray([int(x) % p for x in f], dtype=np.int64)
+        buf = read_residues(c.U._m) if isinstance(A.field, PrimeField) else None
+        if buf is not None:
+            Ua = np.frombuffer(buf, dtype=np.int64).reshape(A.dim, c.n)
+        else:
+            if c.urows is None:
+                c.urows = raw_rows(A, c.U)
+            Ua = np.asarray(c.urows, dtype=np.int64).reshape(A.dim, c.n)
+        c.uarray = Ua
+    if fv is None:
+        fv = np.asarray([int(x) % p for x in f], dtype=np.int64)
     out = np.zeros((len(c.sec), A.dim), dtype=np.int64)
     group = A._group_table()
     if group is not None:  # b_s f = sum_j f_j b_(P[s, j]): one permutation of f per row
@@ -1057,6 +1177,11 @@ def _class_RT(A: StructureAlgebra, c: _Class) -> Mat:
     return c.RT if c.RT is not None else A._right_action_transposed(c.e, c.index)
 
 
+BLOCK_START_WIDTH = 32
+"""Columns of the first thin product for the blocks ``e_s A e_t`` (usually of dimension a
+few units, far below ``32 - MARGIN``; wider products follow when one is not)."""
+
+
 def _block_sketch(A: StructureAlgebra, RtT: Mat, width: int, seed: int) -> Mat | None:
     """``R_t Y`` for a random ``Y`` with ``width`` columns (``RtT`` the transpose of
     ``R_t``), or ``None`` when the blocks are better found without it."""
@@ -1104,9 +1229,10 @@ def _find_blocks(
     # square matrix by a thin one faster than a thin one by a square one
     RtT = _class_RT(A, ct)
     # the blocks are usually far smaller than dim A e_t: sketches of growing width
-    width = sketch.START_WIDTH
+    width = BLOCK_START_WIDTH
     sk = _block_sketch(A, RtT, width, 1000 + t)
-    for s, cs in enumerate(classes):
+    chosen: list[tuple[list[int], Mat | None, Mat]] = []  # (pos, B or None, Ls) per s
+    for cs in classes:
         Ls = apply_transfer(cs.L, transfer(A, cs.rows, ct.index))
         pos: list[int] | None = None
         while sk is not None and Ls.nrows:
@@ -1117,15 +1243,24 @@ def _find_blocks(
             width *= 4
             sk = _block_sketch(A, RtT, width, 1000 + t + width)
         if pos is None:
-            X = (RtT @ Ls.transpose()).transpose()  # = Ls @ R_t
+            X = _times_transposed(Ls, RtT)  # = Ls @ R_t
             pos = select_independent_rows(X) if X.nrows else []
-            B = X.take_rows(pos) if pos else Mat.zeros(F, 0, X.ncols)
+            chosen.append((pos, X.take_rows(pos) if pos else Mat.zeros(F, 0, X.ncols), Ls))
         else:
-            B = (
-                (RtT @ take_rows(Ls, pos).transpose()).transpose()
-                if pos
-                else Mat.zeros(F, 0, RtT.nrows)
-            )
+            chosen.append((pos, None if pos else Mat.zeros(F, 0, RtT.nrows), Ls))
+    # the rows e_s b_l e_t still wanted, for all s in one product with R_t (a product with
+    # a few thin ones costs about as much as with one of their total width)
+    wanted = [s for s, (_, B, _) in enumerate(chosen) if B is None]
+    if wanted:
+        stacked = Mat.vstack(F, [take_rows(chosen[s][2], chosen[s][0]) for s in wanted], RtT.nrows)
+        together = _times_transposed(stacked, RtT)
+        off = 0
+        for s in wanted:
+            k = len(chosen[s][0])
+            chosen[s] = (chosen[s][0], take_rows(together, range(off, off + k)), chosen[s][2])
+            off += k
+    for s, cs in enumerate(classes):
+        pos, B, _ = chosen[s]
         gen[(s, t)] = [cs.J[k] for k in pos]
         if s == t and gen[(s, t)] != cs.corner:
             raise InternalInconsistency("corner basis chosen twice differently")
