@@ -227,3 +227,13 @@ def test_module_command_names_the_route_it_needs(capsys: pytest.CaptureFixture) 
     assert main([*args, "route=spin-chain"]) == 2
     err = capsys.readouterr().err
     assert "route=table" in err and len(err.strip().splitlines()) == 1
+
+
+def test_without_numpy_auto_takes_the_table_and_a_forced_route_says_why(monkeypatch):
+    # numpy is the optional extra `fast`: without it `auto` falls back to the table
+    # route (same answer, derived from the table) and `route=spin-chain` is a one-line error
+    monkeypatch.setattr(tlm, "np", None)
+    assert not module_route_available(0, "GF(5)")
+    assert not registry._tl_spin_chain({"n": 8, "delta": 0, "field": "GF(5)", "route": "auto"})
+    with pytest.raises(SpecError, match="needs numpy"):
+        tlm.reduce_temperley_lieb(4, 0, "GF(5)")

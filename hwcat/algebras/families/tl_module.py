@@ -75,7 +75,10 @@ import time
 from dataclasses import dataclass, field
 from typing import Any
 
-import numpy as np
+try:  # the optional extra `fast`; without it the table route runs
+    import numpy as np
+except ImportError:  # pragma: no cover - exercised by monkeypatching in the tests
+    np = None
 
 from hwcat.algebras.families.spin_chain import loop_weight_root, spin_chain_entries
 from hwcat.algebras.hub.basic import BasicAlgebra
@@ -106,9 +109,9 @@ up to ``2^14`` of them stay below ``2^63`` for primes below this bound."""
 
 def module_route_available(delta: Any, field: Any) -> bool:
     """Whether the spin-chain route applies: a prime field ``GF(p)``, ``p < 2^24``,
-    containing ``q`` with ``q + 1/q = delta``."""
+    containing ``q`` with ``q + 1/q = delta``, and numpy installed (the extra ``fast``)."""
     F = parse_field(field) if isinstance(field, str) else field
-    if not isinstance(F, PrimeField) or F.p >= PRIME_LIMIT:
+    if np is None or not isinstance(F, PrimeField) or F.p >= PRIME_LIMIT:
         return False
     try:
         loop_weight_root(delta, F)
@@ -609,6 +612,11 @@ def reduce_temperley_lieb(
     SpecError
         When the field is not a prime field or has no ``q`` with ``q + 1/q = delta``.
     """
+    if np is None:
+        raise SpecError(
+            "family temperley-lieb: the spin-chain route needs numpy "
+            "(pip install 'hwcat[fast]'), or use route=table"
+        )
     F = parse_field(field) if isinstance(field, str) else field
     if not isinstance(F, PrimeField):
         raise SpecError(
