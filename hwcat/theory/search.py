@@ -556,18 +556,33 @@ def _block_key(A: BasicAlgebra, comp: list[int], arrows_of: dict[int, list[int]]
     so the search of one answers for the other.
     """
     arr = arrows_of.get(comp[0], [])
-    aloc = {a: j for j, a in enumerate(arr)}
     arrows = A.arrows
     words = A.words
     first = comp[0]
-    if comp[-1] - first + 1 == len(comp):  # consecutive vertices: a shift
+    k = len(comp)
+    if comp[-1] - first + 1 == k:  # consecutive vertices: a shift
         quiver = tuple((arrows[a].source - first, arrows[a].target - first) for a in arr)
+        dims = tuple(tuple(map(len, words[s][first : first + k])) for s in comp)
     else:
         loc = {v: i for i, v in enumerate(comp)}
         quiver = tuple((loc[arrows[a].source], loc[arrows[a].target]) for a in arr)
-    dims = tuple(tuple(len(words[s][t]) for t in comp) for s in comp)
+        dims = tuple(tuple(len(words[s][t]) for t in comp) for s in comp)
+    if arr and arr[-1] - arr[0] + 1 == len(arr):  # consecutive arrows: a shift
+        a0 = arr[0]
+        aloc: Any = None
+    else:
+        a0 = 0
+        aloc = {a: j for j, a in enumerate(arr)}
     # the nonzero actions (the only ones stored): matrices compared by equality, never hashed
-    acts = tuple(tuple((aloc[a], A.action_matrix(s, a)) for a in A.action_support(s)) for s in comp)
+    acts = []
+    action_matrix = A.action_matrix
+    for s in comp:
+        sup = A.action_support(s)
+        if aloc is None:
+            acts.append(tuple((a - a0, action_matrix(s, a)) for a in sup))
+        else:
+            acts.append(tuple((aloc[a], action_matrix(s, a)) for a in sup))
+    acts = tuple(acts)
     return (quiver, dims, acts)
 
 
