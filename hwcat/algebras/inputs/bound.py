@@ -214,16 +214,19 @@ def golod_shafarevich_witness(Q: Quiver, relations: Sequence[dict[Path, Any]]) -
             ts.add(Fraction(arrows, 2 * quad))
     for S in supports:
         inS = set(S)
+        # row u of (I - M t + R(t)) v as 1[u in S] - m_u t + sum_d c_(u,d) t^d; a row
+        # with no arrow or relation into S and u outside S is zero and never positive
+        rows = []
+        for u in range(n):
+            m_u = sum(M[u][v] for v in S)
+            c_u: dict[int, int] = {}
+            for v in S:
+                for d, c in R[u][v].items():
+                    c_u[d] = c_u.get(d, 0) + c
+            if u in inS or m_u or c_u:
+                rows.append((1 if u in inS else 0, m_u, tuple(c_u.items())))
         for t in sorted(ts):
-            ok = True
-            for u in range(n):
-                val = Fraction(1 if u in inS else 0)
-                for v in S:
-                    val += -M[u][v] * t + sum(c * t**d for d, c in R[u][v].items())
-                if val > 0:
-                    ok = False
-                    break
-            if ok:
+            if all(one - m_u * t + sum(c * t**d for d, c in cs) <= 0 for one, m_u, cs in rows):
                 return _gs_text(Q, S, M, R, t)
     return None
 
