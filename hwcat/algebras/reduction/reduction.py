@@ -497,6 +497,7 @@ class _Node:
     ranks: list[int] = field(default_factory=list)  # dim L f for the first simples found
     lower: int | None = None  # a lower bound of dim A f (group algebras) ...
     lower_width: int = 0  # ... from that many elements of A f
+    lower_full: bool = False  # ... read on every coordinate (a deficient rank is then final)
     fv: Any = None  # f as an int64 array of residues (vectorised tables; made on demand)
 
 
@@ -836,7 +837,9 @@ class _Search:
         A = self.A
         p, n = A._p, A.dim
         w = min(n, explained + 16)
-        if node.lower is not None and (node.lower < node.lower_width or node.lower_width >= w):
+        if node.lower is not None and (
+            (node.lower_full and node.lower < node.lower_width) or node.lower_width >= w
+        ):
             return node.lower
         t0 = time.perf_counter()
         gen = np.random.default_rng(self.rng.randrange(2**32))
@@ -852,6 +855,7 @@ class _Search:
         acc %= p
         node.lower = residue_matrix(A.field, w, m, acc.ravel()).rank()
         node.lower_width = w
+        node.lower_full = m == n
         self.tick("group_bounds", t0)
         return node.lower
 
