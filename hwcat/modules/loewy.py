@@ -218,9 +218,7 @@ def _loewy_diagram_sparse(module: Module) -> LoewyDiagram:
     tracked: a candidate that reduces to zero has those coefficients as its
     coordinates, one that does not is kept.
     """
-    A = module.algebra
     F = module.field
-    arrows = A.arrows
     ser = module.radical_series_rows()
     nlayers = len(ser) - 1
     if nlayers == 0:
@@ -228,82 +226,57 @@ def _loewy_diagram_sparse(module: Module) -> LoewyDiagram:
     one = F.one
     smaps = module.sparse_maps()
     # layer 0: unit vectors off the pivots of rad M (the module's minimal generators)
-    reps: list[dict[int, list[dict[int, Any]]]] = [{}]
+    reps0: dict[int, list[dict[int, Any]]] = {}
     for v in module.support:
         piv = {min(r) for r in ser[1].get(v, ())}
-        reps[0][v] = [{j: one} for j in range(module.dims[v]) if j not in piv]
-    nodes: list[LoewyNode] = []
-    index: dict[tuple[int, int, int], int] = {}
+        reps0[v] = [{j: one} for j in range(module.dims[v]) if j not in piv]
 
-    def add_layer(k: int) -> None:
-        for v in sorted(reps[k]):
-            for i in range(len(reps[k][v])):
-                index[(k, v, i)] = len(nodes)
-                nodes.append(LoewyNode(k, v, A.vertices[v]))
+    def want(k: int, t: int) -> int:
+        return len(ser[k + 1][t]) - len(ser[k + 2].get(t, ()))
 
-    add_layer(0)
-    edge_arrows: dict[tuple[int, int], list[str]] = {}
-    stored = sorted(smaps, key=lambda i: (arrows[i].source, i))
-    for k in range(nlayers - 1):
-        nxt: dict[int, list[dict[int, Any]]] = {}
-        by_target: dict[int, list[int]] = {}
-        for ai in stored:
-            if reps[k].get(arrows[ai].source):
-                by_target.setdefault(arrows[ai].target, []).append(ai)
-        for t in sorted(ser[k + 1]):
-            below = {min(r): r for r in ser[k + 2].get(t, ())}
-            want = len(ser[k + 1][t]) - len(below)
-            if want == 0:
-                nxt[t] = []
-                continue
-            cands: list[tuple[int, str, dict[int, Any]]] = []
-            for ai in by_target.get(t, ()):
-                a = arrows[ai]
-                for i, row in enumerate(reps[k][a.source]):
-                    cands.append((index[(k, a.source, i)], a.name, row_times(row, smaps[ai])))
-            cands.sort(key=lambda c: c[0])  # stable: node by node, then arrow
-            kept: list[dict[int, Any]] = []
-            # echelon rows of the kept classes: pivot -> (vector, combination of kept)
-            ech: dict[int, tuple[dict[int, Any], dict[int, Any]]] = {}
-            for u, name, img in cands:
-                v = _reduce(dict(img), below)
-                combo: dict[int, Any] = {}
-                while True:  # kept rows have entries from their pivot on: smallest first
-                    hits = [q for q in v if q in ech]
-                    if not hits:
-                        break
-                    p = min(hits)
-                    x = v[p]
-                    vec, c = ech[p]
-                    axpy(v, -x, vec)
-                    axpy(combo, x, c)
-                if v:
-                    j = len(kept)
-                    kept.append(img)
-                    coords = {j: one}
-                    c = {q: -y for q, y in combo.items()}
-                    c[j] = c.get(j, F.zero) + one
-                    p = min(v)
-                    inv = one / v[p]
-                    ech[p] = ({q: y * inv for q, y in v.items()}, {q: y * inv for q, y in c.items()})
-                else:
-                    coords = combo
-                for j, x in coords.items():
-                    if x != 0:
-                        key = (u, (k + 1, t, j))
-                        names = edge_arrows.setdefault(key, [])
-                        if name not in names:
-                            names.append(name)
-            if len(kept) != want:
-                raise InternalInconsistency(
-                    f"Loewy diagram: layer {k + 1} at {A.vertices[t]} has dimension {want} "
-                    f"but the arrows from layer {k} span {len(kept)}"
-                )
-            nxt[t] = kept
-        reps.append(nxt)
-        add_layer(k + 1)
-    free = all(len(r) <= 1 for layer in reps for r in layer.values())
-    return _diagram(nodes, edge_arrows, index, free)
+    def choose(k: int, t: int, cands, edge) -> list[dict[int, Any]]:
+        below = {min(r): r for r in ser[k + 2].get(t, ())}
+        kept: list[dict[int, Any]] = []
+        # echelon rows of the kept classes: pivot -> (vector, combination of kept)
+        ech: dict[int, tuple[dict[int, Any], dict[int, Any]]] = {}
+        for u, name, img in cands:
+            v = _reduce(dict(img), below)
+            combo: dict[int, Any] = {}
+            while True:  # kept rows have entries from their pivot on: smallest first
+                hits = [q for q in v if q in ech]
+                if not hits:
+                    break
+                p = min(hits)
+                x = v[p]
+                vec, c = ech[p]
+                axpy(v, -x, vec)
+                axpy(combo, x, c)
+            if v:
+                j = len(kept)
+                kept.append(img)
+                coords = {j: one}
+                c = {q: -y for q, y in combo.items()}
+                c[j] = c.get(j, F.zero) + one
+                p = min(v)
+                inv = one / v[p]
+                ech[p] = ({q: y * inv for q, y in v.items()}, {q: y * inv for q, y in c.items()})
+            else:
+                coords = combo
+            for j, x in coords.items():
+                if x != 0:
+                    edge(u, name, j)
+        return kept
+
+    return _layered_diagram(
+        module.algebra,
+        nlayers,
+        reps0,
+        smaps,
+        lambda k: sorted(ser[k + 1]),
+        want,
+        lambda ai, row: row_times(row, smaps[ai]),
+        choose,
+    )
 
 
 def _loewy_diagram_sets(module: Module) -> LoewyDiagram:
@@ -315,8 +288,6 @@ def _loewy_diagram_sets(module: Module) -> LoewyDiagram:
     when ``c`` lies in ``rad^(k+2) M``, is kept when ``c`` is new, and otherwise
     is a nonzero multiple of the image kept for ``c``: one edge either way.
     """
-    A = module.algebra
-    arrows = A.arrows
     nlayers, level = module.series_levels()
     if nlayers == 0:
         return LoewyDiagram((), (), (), True)
@@ -324,9 +295,47 @@ def _loewy_diagram_sets(module: Module) -> LoewyDiagram:
     layers = module.radical_layers()
     highest = {v: max(lv.values()) for v, lv in level.items() if lv}
     # reps[k][v]: the coordinate of each basis vector of layer k at v
-    reps: list[dict[int, list[int]]] = [{}]
-    for v in module.support:
-        reps[0][v] = [j for j in range(module.dims[v]) if level[v][j] == 0]
+    reps0 = {v: [j for j in range(module.dims[v]) if level[v][j] == 0] for v in module.support}
+
+    def choose(k: int, t: int, cands, edge) -> list[int]:
+        lt = level[t]
+        kept: list[int] = []
+        where: dict[int, int] = {}  # coordinate -> kept index
+        for u, name, c in cands:
+            if c < 0 or lt[c] >= k + 2:  # zero, or in rad^(k+2) M
+                continue
+            j = where.get(c)
+            if j is None:
+                j = where[c] = len(kept)
+                kept.append(c)
+            edge(u, name, j)
+        return kept
+
+    return _layered_diagram(
+        module.algebra,
+        nlayers,
+        reps0,
+        cmaps,
+        lambda k: sorted(v for v, top in highest.items() if top >= k + 1),
+        lambda k, t: layers[k + 1][t],
+        lambda ai, j: cmaps[ai][j],
+        choose,
+    )
+
+
+def _layered_diagram(A, nlayers: int, reps0: dict, maps, targets, want, image, choose):
+    """The walk down the radical layers shared by the sparse and the single-entry routes.
+
+    ``reps0[v]``: the chosen basis vectors of the top at ``v``; ``maps``: the arrows
+    acting (indices); ``targets(k)``: the vertices of layer ``k + 1``; ``want(k, t)``:
+    its dimension at ``t``; ``image(ai, rep)``: a representative under arrow ``ai``;
+    ``choose(k, t, cands, edge)``: the kept images among ``cands`` (``(node, arrow
+    name, image)``, node by node), calling ``edge(node, arrow name, j)`` for each edge
+    into the ``j``-th kept one.  Node indices of a layer are assigned after the edges
+    into it were read.
+    """
+    arrows = A.arrows
+    reps: list[dict[int, list[Any]]] = [reps0]
     nodes: list[LoewyNode] = []
     index: dict[tuple[int, int, int], int] = {}
 
@@ -337,42 +346,35 @@ def _loewy_diagram_sets(module: Module) -> LoewyDiagram:
                 nodes.append(LoewyNode(k, v, A.vertices[v]))
 
     add_layer(0)
-    edge_arrows: dict[tuple[int, int], list[str]] = {}
-    stored = sorted(cmaps, key=lambda i: (arrows[i].source, i))
+    edge_arrows: dict[tuple[int, tuple[int, int, int]], list[str]] = {}
+    stored = sorted(maps, key=lambda i: (arrows[i].source, i))
     for k in range(nlayers - 1):
-        nxt: dict[int, list[int]] = {}
+        nxt: dict[int, list[Any]] = {}
         by_target: dict[int, list[int]] = {}
         for ai in stored:
             if reps[k].get(arrows[ai].source):
                 by_target.setdefault(arrows[ai].target, []).append(ai)
-        for t in sorted(v for v, top in highest.items() if top >= k + 1):
-            lt = level[t]
-            want = layers[k + 1][t]
-            if want == 0:
+        for t in targets(k):
+            w = want(k, t)
+            if w == 0:
                 nxt[t] = []
                 continue
-            cands: list[tuple[int, str, int]] = []
+            cands: list[tuple[int, str, Any]] = []
             for ai in by_target.get(t, ()):
                 a = arrows[ai]
-                cols = cmaps[ai]
-                for i, j in enumerate(reps[k][a.source]):
-                    cands.append((index[(k, a.source, i)], a.name, cols[j]))
+                for i, rep in enumerate(reps[k][a.source]):
+                    cands.append((index[(k, a.source, i)], a.name, image(ai, rep)))
             cands.sort(key=lambda c: c[0])  # stable: node by node, then arrow
-            kept: list[int] = []
-            where: dict[int, int] = {}  # coordinate -> kept index
-            for u, name, c in cands:
-                if c < 0 or lt[c] >= k + 2:  # zero, or in rad^(k+2) M
-                    continue
-                j = where.get(c)
-                if j is None:
-                    j = where[c] = len(kept)
-                    kept.append(c)
+
+            def edge(u: int, name: str, j: int, k: int = k, t: int = t) -> None:
                 names = edge_arrows.setdefault((u, (k + 1, t, j)), [])
                 if name not in names:
                     names.append(name)
-            if len(kept) != want:
+
+            kept = choose(k, t, cands, edge)
+            if len(kept) != w:
                 raise InternalInconsistency(
-                    f"Loewy diagram: layer {k + 1} at {A.vertices[t]} has dimension {want} "
+                    f"Loewy diagram: layer {k + 1} at {A.vertices[t]} has dimension {w} "
                     f"but the arrows from layer {k} span {len(kept)}"
                 )
             nxt[t] = kept
