@@ -286,13 +286,19 @@ def small_radical(F, mult: list[Mat]) -> Mat:
             if t % p**i:
                 raise InternalInconsistency("lifted trace not divisible on a small corner")
             g.append(F(t // p**i))
-        psi = (
-            select_columns(Mat.identity(F, c), piv) @ (T @ Mat.from_flat(F, len(g), 1, g))
-        ).entries()
-        K = (I @ gram(psi)).left_kernel()
-        I = echelon(K @ I) if K.nrows else Mat.zeros(F, 0, c)
+        I = _next_in_chain(F, I, piv, T, g, gram)
         i += 1
     return I
+
+
+def _next_in_chain(F: Any, I: Mat, piv, T: Mat, g: list[Any], gram) -> Mat:
+    """One step of the lifted-trace chain: ``g`` holds the lifted traces of the rows of
+    ``I`` (``piv``, ``T`` its coordinates solver); the linear form they define on the span
+    of ``I``, extended by zero, and the part of ``I`` in the kernel of its Gram matrix."""
+    c = I.ncols
+    psi = (select_columns(Mat.identity(F, c), piv) @ (T @ Mat.from_flat(F, len(g), 1, g))).entries()
+    K = (I @ gram(psi)).left_kernel()
+    return echelon(K @ I) if K.nrows else Mat.zeros(F, 0, c)
 
 
 def _small_radical_arrays(F: Any, mult: list[Mat]) -> Mat | None:
@@ -342,11 +348,9 @@ def _small_radical_arrays(F: Any, mult: list[Mat]) -> Mat | None:
             if t % p**i:
                 raise InternalInconsistency("lifted trace not divisible on a small corner")
             g.append(F(t // p**i))
-        psi = (
-            select_columns(Mat.identity(F, c), piv) @ (T @ Mat.from_flat(F, len(g), 1, g))
-        ).entries()
-        K = (I @ gram(np.asarray([int(x) for x in psi], dtype=np.int64))).left_kernel()
-        I = echelon(K @ I) if K.nrows else Mat.zeros(F, 0, c)
+        I = _next_in_chain(
+            F, I, piv, T, g, lambda psi: gram(np.asarray([int(x) for x in psi], dtype=np.int64))
+        )
         i += 1
     return I
 
