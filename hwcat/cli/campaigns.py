@@ -7,10 +7,10 @@ a line saying how to install it.
 from __future__ import annotations
 
 import argparse
-import json
 import sys
 
 from hwcat.errors import CampaignError
+from hwcat.io.render import to_json
 
 __all__ = ["register"]
 
@@ -43,7 +43,7 @@ def _cmd_fuzz(args: argparse.Namespace) -> int:
         progress=_show_progress(args),
     )
     if args.json:
-        print(json.dumps(report.to_dict(), indent=2))
+        print(to_json(report))
     print(report.summary(), file=sys.stderr)
     return report.exit_code
 
@@ -77,7 +77,7 @@ def _cmd_survey(args: argparse.Namespace) -> int:
     )
     write_csv(table, args.output)
     if args.json:
-        print(json.dumps(table.to_dict(), indent=2))
+        print(to_json(table))
     print(f"{table.summary()}; wrote {args.output}", file=sys.stderr)
     return 0
 

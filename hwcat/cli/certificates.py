@@ -14,6 +14,7 @@ from hwcat.cli.common import (
     write_text,
 )
 from hwcat.errors import CertificateError
+from hwcat.io.render import to_json
 
 __all__ = ["register"]
 
@@ -45,7 +46,7 @@ def _cmd_verify(args: argparse.Namespace) -> int:
     except Malformed as exc:
         raise CertificateError(f"{args.certificate}: {exc}") from None
     if args.json:
-        print(json.dumps(v.to_dict(), indent=2))
+        print(to_json(v))
     else:
         print(("ACCEPTED: " if v.accepted else "REJECTED: ") + v.reason)
     return 0 if v.accepted else 1

@@ -141,9 +141,9 @@ def _cmd_family(args: argparse.Namespace) -> int:
         if red is None:
             print(to_json(report))
         else:
-            import json
+            from hwcat.io.render import json_text
 
-            print(json.dumps({**report.to_dict(), "reduction": red.to_dict()}, indent=2))
+            print(json_text({**report.to_dict(), "reduction": red.to_dict()}))
     else:
         print(render_structure(report))
         for line in _notes(A):

@@ -3,12 +3,12 @@
 from __future__ import annotations
 
 import argparse
-import json
 import sys
 from pathlib import Path
 
 from hwcat.cli.common import add_algebra_source
 from hwcat.errors import HwcatError, ModuleFileError, OrderError, SpecError
+from hwcat.io.render import to_json
 
 __all__ = ["register"]
 
@@ -174,7 +174,7 @@ def _cmd_module(args: argparse.Namespace) -> int:
         M, B, elements=args.element, order=order, identify=identify, seed=args.seed
     )
     if args.json:
-        print(json.dumps(report.to_dict(), indent=2))
+        print(to_json(report))
     else:
         print(render_module_report(report))
     return 0

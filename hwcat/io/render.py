@@ -10,6 +10,7 @@ from typing import Any
 from hwcat.errors import InternalInconsistency
 
 __all__ = [
+    "json_text",
     "to_json",
     "write_json",
     "layer_text",
@@ -69,9 +70,14 @@ def _key(k: Any) -> str:
     return str(k)
 
 
+def json_text(value: Any) -> str:
+    """JSON text of a plain value (dicts, lists, scalars) in the layout of :func:`_json_chunks`."""
+    return "".join(_json_chunks(value))
+
+
 def to_json(result: Any) -> str:
     """One JSON object for a result with ``to_dict()`` (layout of :func:`_json_chunks`)."""
-    return "".join(_json_chunks(result.to_dict()))
+    return json_text(result.to_dict())
 
 
 def write_json(result: Any, stream: Any) -> None:
