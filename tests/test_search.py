@@ -448,6 +448,28 @@ def test_equal_blocks_reused(specs, picks):
             assert s.costandard_dimension_vectors[L] == costandard_module(A, L, P).dims
 
 
+@settings(max_examples=40, deadline=None)
+@given(
+    bound_quiver_specs(max_vertices=3, max_arrows=4),
+    st.integers(2, 3),
+    st.randoms(use_true_random=False),
+)
+def test_equal_blocks_with_interleaved_vertices(spec, copies, rnd):
+    # copies of one block whose vertices are listed in a shuffled order, so that the
+    # bijection between equal blocks is a shift or not; against every block searched
+    # and the naive search (common practice: the same answer however vertices are listed)
+    union = _disjoint_union([spec] * copies)
+    vs = list(union["quiver"]["vertices"])
+    rnd.shuffle(vs)
+    union["quiver"]["vertices"] = vs
+    A = algebra_from_spec(union)
+    r = quasi_hereditary_orders(A, list_limit=None)
+    with pytest.MonkeyPatch.context() as mp:
+        want = _without_shortcuts(A, mp)
+    assert _summary(r) == _summary(want)
+    assert (r.quasi_hereditary_total_orders, r.reachable_sets) == naive_orders(A)
+
+
 @pytest.mark.parametrize("n", [4, 5, 7])
 def test_cyclic_nakayama_stuck_at_start(n):
     # cyclic Nakayama, rad^3 = 0: self-injective, not qh (same sources); answered without traces

@@ -174,6 +174,12 @@ class Mat:
         # flint's == (and BlockMatrix's) answers False for matrices of different shapes
         return self.field is other.field and self._m == other._m
 
+    def backend(self) -> Any:
+        """The backend matrix, for equality tests in bulk (tuples of them compare without
+        a Python call per matrix): matrices over one field are equal iff their backends
+        are.  Read only; never mutate it."""
+        return self._m
+
     def __hash__(self) -> int:  # matrices are mutable in flint; hash by content
         return hash((self.field.name, self.shape, tuple(str(x) for x in self._m.entries())))
 

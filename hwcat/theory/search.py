@@ -89,6 +89,7 @@ from collections.abc import Iterator
 from contextlib import contextmanager
 from dataclasses import dataclass, field
 from functools import cached_property
+from itertools import islice
 from math import factorial
 from typing import Any
 
@@ -573,15 +574,17 @@ def _block_key(A: BasicAlgebra, comp: list[int], arrows_of: dict[int, list[int]]
     else:
         a0 = 0
         aloc = {a: j for j, a in enumerate(arr)}
-    # the nonzero actions (the only ones stored): matrices compared by equality, never hashed
+    # the nonzero actions (the only ones stored): the backend matrices of one field,
+    # compared by equality (as Mat.__eq__ compares them), never hashed
     acts = []
     action_matrix = A.action_matrix
     for s in comp:
         sup = A.action_support(s)
         if aloc is None:
-            acts.append(tuple((a - a0, action_matrix(s, a)) for a in sup))
+            acts.append(tuple([a - a0 for a in sup]))
         else:
-            acts.append(tuple((aloc[a], action_matrix(s, a)) for a in sup))
+            acts.append(tuple([aloc[a] for a in sup]))
+        acts.append(tuple([action_matrix(s, a).backend() for a in sup]))
     acts = tuple(acts)
     return (quiver, dims, acts)
 
@@ -660,9 +663,7 @@ def _orders(A: BasicAlgebra, list_limit: int | None) -> OrdersResult:
                 raise InternalInconsistency("structures to list but no block was searched")
             maps = [phi for _, _, phi in per_block]
             with task("order search: listing structures", total=cap) as step:
-                for combo in _product_capped(
-                    [iter_structure_orders(lat) for _, lat, _ in per_block], cap
-                ):
+                for combo in _product_capped([lat for _, lat, _ in per_block], cap):
                     structs.append(_combine(A, tc, combo, memo, maps))
                     step()
         listed_all = len(structs) >= nstruct
@@ -685,15 +686,17 @@ def _orders(A: BasicAlgebra, list_limit: int | None) -> OrdersResult:
     )
 
 
-def _product_capped(blocks, cap: int):
-    """The first ``cap`` combinations of one smallest order per block (the first block varies slowest)."""
+def _product_capped(lats: list[_Lattice], cap: int):
+    """The first ``cap`` combinations of one smallest order per block (the first block varies slowest).
+
+    Equal blocks share their searched lattice, whose orders are walked once.
+    """
     pools: list[list] = []
-    for it in blocks:
-        pool = []
-        for path in it:
-            pool.append(path)
-            if len(pool) >= cap:
-                break
+    seen: dict[int, list] = {}
+    for lat in lats:
+        pool = seen.get(id(lat))
+        if pool is None:
+            pool = seen[id(lat)] = list(islice(iter_structure_orders(lat), cap))
         pools.append(pool)
     out: list[list] = [[]]
     for pool in pools:
@@ -733,21 +736,40 @@ def _combine(
             _fill(tc, n, path, sd, cd, below, memo)
             mapped.append(path)
             continue
-        # the vectors of the searched block, moved to this block's vertices
-        sd1: list[tuple[int, ...]] = [()] * n
-        cd1: list[tuple[int, ...]] = [()] * n
-        below1 = [0] * n
-        _fill(tc, n, path, sd1, cd1, below1, memo)
-        for u in path:
-            v = phi[u]
-            x = [0] * n
-            y = [0] * n
-            for w, z in phi.items():
-                x[z] = sd1[u][w]
-                y[z] = cd1[u][w]
-            sd[v] = tuple(x)
-            cd[v] = tuple(y)
-            below[v] = mask(phi[w] for w in bits(below1[u]))
+        # the vectors of the searched block (once per order), moved to this block's vertices
+        got = memo.get(("block", path))
+        if got is None:
+            sd1: list[tuple[int, ...]] = [()] * n
+            cd1: list[tuple[int, ...]] = [()] * n
+            below1 = [0] * n
+            _fill(tc, n, path, sd1, cd1, below1, memo)
+            got = memo[("block", path)] = (sd1, cd1, below1)
+        sd1, cd1, below1 = got
+        items = list(phi.items())
+        d = items[0][1] - items[0][0]
+        if all(z - w == d for w, z in items):
+            # a shift by d: the vectors vanish outside the block, so slicing moves them
+            for u in path:
+                v = u + d
+                if d >= 0:
+                    sd[v] = (0,) * d + sd1[u][: n - d]
+                    cd[v] = (0,) * d + cd1[u][: n - d]
+                    below[v] = below1[u] << d
+                else:
+                    sd[v] = sd1[u][-d:] + (0,) * -d
+                    cd[v] = cd1[u][-d:] + (0,) * -d
+                    below[v] = below1[u] >> -d
+        else:
+            for u in path:
+                v = phi[u]
+                x = [0] * n
+                y = [0] * n
+                for w, z in items:
+                    x[z] = sd1[u][w]
+                    y[z] = cd1[u][w]
+                sd[v] = tuple(x)
+                cd[v] = tuple(y)
+                below[v] = mask(phi[w] for w in bits(below1[u]))
         mapped.append(tuple(phi[u] for u in path))
     paths = mapped
     # vertices of different blocks are independent: the smallest order of the
