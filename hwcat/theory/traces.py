@@ -22,7 +22,10 @@ Two facts keep the work small (both are immediate from the definition):
   polynomial rings), every trace in ``P(s)`` is spanned by basis paths: the
   traces in ``P(s)`` are then kept as sets of basis paths (bitmasks), sums
   are unions and dimensions are counts, with no linear algebra at all ("path
-  mode", decided for each ``P(s)`` separately).
+  mode", decided for each ``P(s)`` separately).  The basis paths of ``P(s)`` are
+  numbered vertex after vertex, so a trace is one integer (a bit per basis
+  path) and the dimension of the image of ``e_s B e_u (x) e_u B`` in the step
+  test is one count of bits.
 
 :class:`TraceCache` computes each trace once; :meth:`TraceCache.row` gives the
 dimension vector of a projective of the quotient from cached data.
@@ -118,6 +121,10 @@ class TraceCache:
         #: per s: per arrow acting on P(s), basis index -> image index (-1: zero); None when
         #: P(s) is not in path mode; decided when P(s) is first needed
         self._moves: list[Any] = [_UNDECIDED] * n
+        #: path mode, per s: the first bit of the basis paths at each vertex t, and the
+        #: mask of those bits (made with the mode)
+        self._off: list[Any] = [None] * n
+        self._cm: list[Any] = [None] * n
 
     @property
     def column_support(self) -> list[int]:
@@ -160,12 +167,22 @@ class TraceCache:
         m = self._moves[s]
         if m is _UNDECIDED:
             m = self._moves[s] = self._path_moves(s)
+            if m is not None:
+                off = []
+                cm = []
+                o = 0
+                for d in self._pdims[s]:
+                    off.append(o)
+                    cm.append(((1 << d) - 1) << o)
+                    o += d
+                self._off[s] = off
+                self._cm[s] = cm
         return m is not None
 
-    def _zero(self, s: int) -> tuple:
-        """The bases of the zero trace in ``P(s)``, in the form of its mode."""
+    def _zero(self, s: int) -> Any:
+        """The zero trace in ``P(s)``, in the form of its mode (path mode: the integer 0)."""
         if self._path(s):
-            return (0,) * self.n
+            return 0
         F = self.A.field
         return tuple(Mat.zeros(F, 0, d) for d in self._pdims[s])
 
@@ -191,17 +208,24 @@ class TraceCache:
         dims = self._pdims[s]
         q = [0] * len(dims)
         nz = 0
-        path = self._path(s)
-        for t in bits(self.support[s]):
-            x = dims[t] - (K[t].bit_count() if path else K[t].nrows)
-            if x:
-                q[t] = x
-                nz |= 1 << t
+        if self._path(s):
+            cm = self._cm[s]
+            for t in bits(self.support[s]):
+                x = dims[t] - (K & cm[t]).bit_count()
+                if x:
+                    q[t] = x
+                    nz |= 1 << t
+        else:
+            for t in bits(self.support[s]):
+                x = dims[t] - K[t].nrows
+                if x:
+                    q[t] = x
+                    nz |= 1 << t
         return (K, tuple(q), nz, sum(q))
 
     def vertex_trace(self, u: int, s: int) -> Any:
         """``e_s A e_u A`` inside ``P(s)`` (the trace of one vertex): per vertex echelon
-        bases, or in path mode per vertex the bitmask of the basis paths spanning it."""
+        bases, or in path mode the bitmask of the basis paths spanning it."""
         key = (u, s)
         if key not in self._vt:
             A = self.A
@@ -214,7 +238,7 @@ class TraceCache:
                 )
         return self._vt[key]
 
-    def _path_closure(self, s: int, u: int) -> tuple[int, ...]:
+    def _path_closure(self, s: int, u: int) -> int:
         A = self.A
         n = A.n
         got = [0] * n
@@ -240,7 +264,8 @@ class TraceCache:
                 if not got[t] >> k & 1:
                     got[t] |= 1 << k
                     todo.append((t, k))
-        return tuple(got)
+        off = self._off[s]
+        return sum(g << o for g, o in zip(got, off, strict=True))
 
     def entry(self, T: int, s: int) -> tuple:
         """The cache entry of the trace of ``T`` in ``P(s)`` (see the class docstring)."""
@@ -263,11 +288,7 @@ class TraceCache:
         if not base[1][u]:
             e = base  # e_s B e_u = 0: nothing new
         elif self._path(s):
-            V = self.vertex_trace(u, s)
-            K = list(K0)
-            for t in bits(self.support[s]):  # traces vanish outside the support
-                K[t] |= V[t]
-            e = self._entry(s, tuple(K))
+            e = self._entry(s, K0 | self.vertex_trace(u, s))
         else:
             F = self.A.field
             dims = self._pdims[s]
@@ -293,7 +314,10 @@ class TraceCache:
         if not self._path(s):
             return list(K)
         F = self.A.field
-        return [Mat.unit_rows(F, d, bits(k)) for d, k in zip(self._pdims[s], K, strict=True)]
+        return [
+            Mat.unit_rows(F, d, bits(K >> o & ((1 << d) - 1)))
+            for d, o in zip(self._pdims[s], self._off[s], strict=True)
+        ]
 
     def extend(self, S: int, u: int, s: int) -> list[Mat]:
         """The trace of ``S + {u}`` in ``P(s)``, computed from the trace of ``S``."""
@@ -360,6 +384,8 @@ class TraceCache:
         if recur is None:  # per vertex: whether the step test can recur within W
             recur = self._recurs[W] = [r & W != W for r in self.region]
         region = self._region
+        moves = self._moves
+        vt = self._vt
         for u in bits(candidates):
             # kept only when the test can recur: sets are visited once each
             mu = memo[u] if recur[u] else None
@@ -383,6 +409,17 @@ class TraceCache:
             for s in bits(col[u]):
                 es = ent[s]
                 a = es[1][u]
+                mv = moves[s]
+                if mv is not None and mv is not _UNDECIDED:
+                    # path mode: the image of e_s B e_u (x) e_u B is spanned by the basis
+                    # paths of the trace of u outside the trace of S
+                    V = vt.get((u, s))
+                    if V is None:
+                        V = self.vertex_trace(u, s)
+                    if (V & ~(es[0] or 0)).bit_count() != a * eB:
+                        ok = False
+                        break
+                    continue
                 X = S & sup[s]
                 after = E[s].get(X | U)
                 if after is None:
