@@ -405,12 +405,15 @@ class TraceCache:
             U = 1 << u
             ok = True
             qu = eu[1]
-            tops = bits(eu[2])
+            tops = None
             for s in bits(col[u]):
                 es = ent[s]
                 a = es[1][u]
                 mv = moves[s]
-                if mv is not None and mv is not _UNDECIDED:
+                if mv is _UNDECIDED:
+                    self._path(s)
+                    mv = moves[s]
+                if mv is not None:
                     # path mode: the image of e_s B e_u (x) e_u B is spanned by the basis
                     # paths of the trace of u outside the trace of S
                     V = vt.get((u, s))
@@ -425,6 +428,8 @@ class TraceCache:
                 if after is None:
                     # e_s B e_u (x) e_u B e_t embeds in e_s B e_t: a count may already fail
                     qs = es[1]
+                    if tops is None:
+                        tops = bits(eu[2])
                     for t in tops:
                         if a * qu[t] > qs[t]:
                             ok = False
