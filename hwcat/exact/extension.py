@@ -454,13 +454,13 @@ class _Parser:
         while (t := self.peek()) is not None and t[1] in ("*", "/"):
             self.take()
             w = self.unary()
-            if t[1] == "*":
-                v = v * w
-            else:
-                if w == 0:
-                    raise self.fail("division by zero")
-                v = v / w
+            v = v * w if t[1] == "*" else self.divide(v, w)
         return v
+
+    def divide(self, v: Any, w: Any) -> Any:
+        if w == 0:
+            raise self.fail("division by zero")
+        return v / w
 
     def unary(self) -> Any:
         t = self.peek()
@@ -475,18 +475,22 @@ class _Parser:
         t = self.peek()
         if t is not None and t[1] == "^":
             self.take()
-            neg = False
-            if self.peek() is not None and self.peek()[1] == "-":
-                self.take()
-                neg = True
-            kind, val = self.take()
-            if kind != "int":
-                raise self.fail("exponents must be integers")
-            n = -int(val) if neg else int(val)
-            if n < 0 and v == 0:
-                raise self.fail("division by zero")
-            v = v**n
+            v = self.raise_to(v)
         return v
+
+    def raise_to(self, v: Any) -> Any:
+        """``v`` to the exponent that follows ``^``: an integer, maybe negative."""
+        neg = False
+        if self.peek() is not None and self.peek()[1] == "-":
+            self.take()
+            neg = True
+        kind, val = self.take()
+        if kind != "int":
+            raise self.fail("exponents must be integers")
+        n = -int(val) if neg else int(val)
+        if n < 0 and v == 0:
+            raise self.fail("division by zero")
+        return v**n
 
     def atom(self) -> Any:
         kind, val = self.take()
@@ -536,29 +540,16 @@ def _parse_poly(base: Any, var: str, text: str) -> Any:
     R = _PolyRing(base, var)
 
     class _P(_Parser):
-        def power(self) -> Any:
-            v = self.atom()
-            t = self.peek()
-            if t is not None and t[1] == "^":
-                self.take()
-                kind, val = self.take()
-                if kind != "int":
-                    raise self.fail("exponents must be non-negative integers")
-                v = v ** int(val)
-            return v
+        def raise_to(self, v: Any) -> Any:
+            kind, val = self.take()
+            if kind != "int":
+                raise self.fail("exponents must be non-negative integers")
+            return v ** int(val)
 
-        def term(self) -> Any:
-            v = self.unary()
-            while (t := self.peek()) is not None and t[1] in ("*", "/"):
-                self.take()
-                w = self.unary()
-                if t[1] == "*":
-                    v = v * w
-                else:
-                    if w.degree() != 0:
-                        raise self.fail("only division by nonzero numbers")
-                    v = v * (1 / w.coeffs()[0])
-            return v
+        def divide(self, v: Any, w: Any) -> Any:
+            if w.degree() != 0:
+                raise self.fail("only division by nonzero numbers")
+            return v * (1 / w.coeffs()[0])
 
     return _P(R, text, var).run()
 
