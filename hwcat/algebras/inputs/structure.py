@@ -829,26 +829,11 @@ class StructureAlgebra:
         col_of = [-1] * self.dim
         by_row = self._row_terms()
         for s in supp:
-            js, ks, cs = by_row[s]  # e_s * b_j
-            left: dict[int, list[tuple[int, Any]]] = {}
-            for j, k, c in zip(js, ks, cs, strict=True):
-                left.setdefault(j, []).append((k, c))
-            for j, terms in left.items():
-                if len(terms) != 1 or terms[0][0] != j or terms[0][1] != one:
-                    return None
-                if row_of[j] >= 0:
-                    return None
-                row_of[j] = s
-            is_, ks, cs = self._cols[s]  # b_i * e_s
-            hit = {}
-            for i, k, c in zip(is_, ks, cs, strict=True):
-                hit.setdefault(i, []).append((k, c))
-            for i, terms in hit.items():
-                if len(terms) != 1 or terms[0][0] != i or terms[0][1] != one:
-                    return None
-                if col_of[i] >= 0:
-                    return None
-                col_of[i] = s
+            # e_s * b_j = b_j or 0, and b_i * e_s = b_i or 0, each b once
+            if not _owned_by(s, *by_row[s], row_of, one):
+                return None
+            if not _owned_by(s, *self._cols[s], col_of, one):
+                return None
         if min(row_of) < 0 or min(col_of) < 0:
             return None
         self._cache["peirce"] = supp
@@ -1360,3 +1345,17 @@ def coefficient_terms(text: str, field: Field, names) -> list[tuple[Any, list[st
             raise CoefficientError(f"{text!r}: {exc}") from None
         out.append((coef if sign > 0 else -coef, factors, term))
     return out
+
+
+def _owned_by(s: int, others, ks, cs, owner: list[int], one: Any) -> bool:
+    """Whether the products of the idempotent ``b_s`` with each basis element ``b_x`` (``x``
+    in ``others``, product ``sum c b_k``) are ``b_x`` itself or zero, every ``b_x`` claimed
+    by one idempotent only; records ``owner[x] = s``."""
+    terms: dict[int, list[tuple[int, Any]]] = {}
+    for x, k, c in zip(others, ks, cs, strict=True):
+        terms.setdefault(x, []).append((k, c))
+    for x, t in terms.items():
+        if len(t) != 1 or t[0][0] != x or t[0][1] != one or owner[x] >= 0:
+            return False
+        owner[x] = s
+    return True
