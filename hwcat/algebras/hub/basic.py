@@ -528,17 +528,7 @@ class BasicAlgebra:
         kept_arrows = [
             i for i, a in enumerate(self.arrows) if a.source in newidx and a.target in newidx
         ]
-        quiver = Quiver(
-            tuple(self.vertices[v] for v in keep),
-            tuple(
-                Arrow(
-                    self.arrows[i].name,
-                    newidx[self.arrows[i].source],
-                    newidx[self.arrows[i].target],
-                )
-                for i in kept_arrows
-            ),
-        )
+        quiver = self._sub_quiver(newidx, kept_arrows)
         reps, starts = [], []
         for s in keep:
             dims, maps = self.projective_rep(s)
@@ -573,6 +563,15 @@ class BasicAlgebra:
             comps.setdefault(root(v), []).append(v)
         return sorted(comps.values())
 
+    def _sub_quiver(self, newidx: dict[int, int], arrows: Sequence[int]) -> Quiver:
+        """The quiver on the vertices ``newidx`` (old index -> new, in the new order) with
+        the ``arrows`` (old indices, each between kept vertices)."""
+        old = self.arrows
+        return Quiver(
+            tuple(self.vertices[v] for v in newidx),
+            tuple(Arrow(old[i].name, newidx[old[i].source], newidx[old[i].target]) for i in arrows),
+        )
+
     def full_subalgebra(self, vertices: Sequence[int]) -> BasicAlgebra:
         """``e A e`` for a union of blocks (no path leaves ``vertices``)."""
         keep = list(vertices)
@@ -581,17 +580,7 @@ class BasicAlgebra:
         if any(self.arrows[i].target not in newidx for i in arrows):
             raise InternalInconsistency("full_subalgebra needs a union of blocks")
         remap = {i: k for k, i in enumerate(arrows)}
-        quiver = Quiver(
-            tuple(self.vertices[v] for v in keep),
-            tuple(
-                Arrow(
-                    self.arrows[i].name,
-                    newidx[self.arrows[i].source],
-                    newidx[self.arrows[i].target],
-                )
-                for i in arrows
-            ),
-        )
+        quiver = self._sub_quiver(newidx, arrows)
         words = [
             [tuple(tuple(remap[x] for x in w) for w in self.words[s][t]) for t in keep]
             for s in keep
