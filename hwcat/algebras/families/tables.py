@@ -649,22 +649,6 @@ def schur_algebra_2(r: int, field: Field | str = QQ) -> MultiplicationTable:
 # -- group algebras ------------------------------------------------------------
 
 
-def _cycle_name(perm: tuple[int, ...]) -> str:
-    seen = [False] * len(perm)
-    parts = []
-    for x in range(len(perm)):
-        if seen[x] or perm[x] == x:
-            continue
-        cyc = []
-        y = x
-        while not seen[y]:
-            seen[y] = True
-            cyc.append(str(y + 1))
-            y = perm[y]
-        parts.append("(" + ",".join(cyc) + ")")
-    return "".join(parts) or "()"
-
-
 def symmetric_group_algebra(n: int, field: Field | str = QQ) -> MultiplicationTable:
     """The group algebra of the symmetric group ``S_n`` in the group basis.
 
@@ -700,7 +684,9 @@ def symmetric_group_algebra(n: int, field: Field | str = QQ) -> MultiplicationTa
     perms = list(itertools.permutations(range(n)))
     one = F.one
     name = f"group algebra of S_{n} over {F.name}"
-    basis = tuple(_cycle_name(p) for p in perms)
+    from hwcat.algebras.families.specht import cycle_notation
+
+    basis = tuple(cycle_notation(p) for p in perms)
     if _np is not None and len(perms) >= COLUMN_TABLE_MIN and isinstance(F, PrimeField):
         columns = _permutation_columns(perms)
         return MultiplicationTable(
