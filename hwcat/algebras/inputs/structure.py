@@ -41,6 +41,7 @@ from dataclasses import dataclass
 from fractions import Fraction
 from typing import Any
 
+from hwcat.algebras.hub.basic import combination_text
 from hwcat.errors import (
     CoefficientError,
     InternalInconsistency,
@@ -318,23 +319,10 @@ class StructureAlgebra:
 
     def element_text(self, v: Sequence[Any]) -> str:
         """A vector as a combination of basis names."""
-        terms = []
-        for c, b in zip(self.raw(v), self.basis, strict=True):
-            if not c:
-                continue
-            cs = str(self.field(c))
-            if cs == "1":
-                terms.append(f"+ {b}")
-            elif cs == "-1":
-                terms.append(f"- {b}")
-            elif cs.startswith("-"):
-                terms.append(f"- {cs[1:]}*{b}")
-            else:
-                terms.append(f"+ {cs}*{b}")
-        if not terms:
-            return "0"
-        text = " ".join(terms)
-        return text[2:] if text.startswith("+ ") else "-" + text[2:]
+        F = self.field
+        return combination_text(
+            (F(c), b) for c, b in zip(self.raw(v), self.basis, strict=True) if c
+        )
 
     # -- multiplication ------------------------------------------------------------
     def product(self, x: Sequence[Any], y: Sequence[Any]) -> list[Any]:
