@@ -103,29 +103,26 @@ def attach_algebra(M: ActionModule, spec_kind: str, B: BasicAlgebra) -> None:
     is not a module of that algebra (e.g. a tensor product through a coproduct
     that does not fit it)."""
     from hwcat.algebras.reduction.reduction import reduction_of
+    from hwcat.theory.module_report import extend_to_basis
 
-    if M.representation is not None or M.basis_action is not None:
+    if spec_kind != "matrices":
+        # tables: the generators' action extended to the whole basis, checked
+        extend_to_basis(M, B)
+        return
+    red = reduction_of(B)
+    if red is None or M.representation is not None or M.basis_action is not None:
         return
     if M.combination_action is not None:
         return
-    red = reduction_of(B)
-    if red is None:
-        return
     A = red.algebra
-    if spec_kind == "matrices":
-        cache: dict[int, Mat] = {}
+    cache: dict[int, Mat] = {}
 
-        def act(i: int) -> Mat:
-            if i not in cache:
-                cache[i] = M.element(A.basis[i])
-            return cache[i]
+    def act(i: int) -> Mat:
+        if i not in cache:
+            cache[i] = M.element(A.basis[i])
+        return cache[i]
 
-        M.basis_action = act
-        return
-    # tables: the generators' action extended to the whole basis, checked
-    from hwcat.theory.module_report import extend_to_basis
-
-    extend_to_basis(M, B)
+    M.basis_action = act
 
 
 # -- module files ----------------------------------------------------------------------------------
