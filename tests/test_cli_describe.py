@@ -198,3 +198,16 @@ def test_describe_json_writes_vectors_on_one_line(capsys: pytest.CaptureFixture)
     out = capsys.readouterr().out
     data = json.loads(out)
     assert f'"cartan": [\n    {json.dumps(data["cartan"][0])},' in out
+
+
+def test_json_layout_keys_as_the_standard_encoder() -> None:
+    """Keys are written as ``json.dumps`` writes them and refused where it refuses (common
+    practice: the standard library as the reference)."""
+    from hwcat.io.render import json_text
+
+    value = {1.5: 1, float("inf"): 2, True: 3, None: 4, 7: 5}
+    assert json.loads(json_text(value)) == json.loads(json.dumps(value))
+    with pytest.raises(TypeError):
+        json_text({(1, 2): 0})
+    with pytest.raises(TypeError):
+        json.dumps({(1, 2): 0})

@@ -495,3 +495,31 @@ def test_blocks_of_one_shape_told_apart(monkeypatch):
         r = quasi_hereditary_orders(A, list_limit=None)
         assert _summary(r) == _summary(_without_shortcuts(A, monkeypatch))
         assert (r.quasi_hereditary_total_orders, r.reachable_sets) == naive_orders(A)
+
+
+def test_trace_of_a_large_set_needs_no_deep_recursion():
+    # a star: vertex 0 with an arrow to each of 400 others, so P(0) meets every vertex;
+    # the trace of all leaves, asked for with nothing cached, is built in a loop (the
+    # recursion of an earlier version went one level per vertex).  Value: the trace of
+    # the leaves in P(0) is the span of the arrows, so P(0) / trace = the top (derived)
+    import inspect
+    import sys
+
+    m = 400
+    vs = ["c"] + [f"x{i}" for i in range(m)]
+    A = algebra_from_spec(
+        {
+            "field": "GF(3)",
+            "quiver": {"vertices": vs, "arrows": [f"a{i}: c -> x{i}" for i in range(m)]},
+        }
+    )
+    tc = TraceCache(A)
+    leaves = ((1 << (m + 1)) - 1) & ~1
+    depth = len(inspect.stack())
+    old = sys.getrecursionlimit()
+    sys.setrecursionlimit(depth + 60)
+    try:
+        q, _, total = tc.row(leaves, 0)
+    finally:
+        sys.setrecursionlimit(old)
+    assert total == 1 and q[0] == 1

@@ -3,7 +3,6 @@
 from __future__ import annotations
 
 import argparse
-import json
 import sys
 
 from hwcat.cli.common import (
@@ -14,7 +13,7 @@ from hwcat.cli.common import (
     write_text,
 )
 from hwcat.errors import CertificateError
-from hwcat.io.render import to_json
+from hwcat.io.render import json_text, to_json
 
 __all__ = ["register"]
 
@@ -27,7 +26,7 @@ def _cmd_certify(args: argparse.Namespace) -> int:
     text, source = order_argument(spec, args.order)
     order = None if text is None else with_order_context(spec, source, lambda: as_order(A, text))
     cert = certify(A, order, order_source=source)
-    out = json.dumps(cert.data, indent=1) + "\n"
+    out = json_text(cert.data) + "\n"
     if args.output:
         write_text(args.output, out)
     else:

@@ -62,12 +62,14 @@ _SCALARS = frozenset((int, str, bool, type(None)))
 
 
 def _key(k: Any) -> str:
-    """A dictionary key as ``json.dumps`` writes it."""
+    """A dictionary key as ``json.dumps`` writes it (and refuses what it refuses)."""
     if isinstance(k, str):
         return k
-    if k is True or k is False or k is None:
+    if k is True or k is False or k is None or isinstance(k, float):
         return _dumps(k)
-    return str(k)
+    if isinstance(k, int):
+        return int.__repr__(k)
+    raise TypeError(f"keys must be str, int, float, bool or None, not {type(k).__name__}")
 
 
 def json_text(value: Any) -> str:

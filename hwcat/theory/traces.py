@@ -270,12 +270,22 @@ class TraceCache:
     def entry(self, T: int, s: int) -> tuple:
         """The cache entry of the trace of ``T`` in ``P(s)`` (see the class docstring)."""
         X = T & self.support[s]
-        e = self._e[s].get(X)
+        E = self._e[s]
+        e = E.get(X)
         if e is not None:
             return e
-        # peel the highest element: any order gives the same trace
-        u = X.bit_length() - 1
-        return self._add(X & ~(1 << u), u, s)
+        # any order of the vertices gives the same trace: peel the highest ones until a
+        # cached set is met, then add them back
+        chain = []
+        Y = X
+        while Y not in E:  # the empty set is always there
+            u = Y.bit_length() - 1
+            chain.append(u)
+            Y &= ~(1 << u)
+        for u in reversed(chain):  # in a loop, not by recursion: sets can be large
+            e = self._add(Y, u, s)
+            Y |= 1 << u
+        return e
 
     def _add(self, X: int, u: int, s: int) -> tuple:
         """Entry of ``X + {u}`` from the entry of ``X`` (``X`` inside the support, ``u`` in it)."""
