@@ -137,6 +137,15 @@ SPIN_QUICK = {
     "TL_9(0) GF(2) spin": (9, 0, "GF(2)"),
     "TL_9(1) GF(3) spin": (9, 1, "GF(3)"),
     "TL_9(1) GF(7) spin": (9, 1, "GF(7)"),
+    # q only in GF(p^2): the chain over GF(p^2) restricted to GF(p)
+    "TL_8(0) GF(3) spin": (8, 0, "GF(3)"),
+    "TL_8(0) GF(7) spin": (8, 0, "GF(7)"),
+    "TL_8(1) GF(2) spin": (8, 1, "GF(2)"),
+    "TL_8(1) GF(5) spin": (8, 1, "GF(5)"),
+    "TL_9(0) GF(3) spin": (9, 0, "GF(3)"),
+    "TL_9(0) GF(7) spin": (9, 0, "GF(7)"),
+    "TL_9(1) GF(2) spin": (9, 1, "GF(2)"),
+    "TL_9(1) GF(5) spin": (9, 1, "GF(5)"),
 }
 SPIN_LARGE = {
     **SPIN_QUICK,
@@ -144,6 +153,10 @@ SPIN_LARGE = {
     "TL_10(0) GF(2) spin": (10, 0, "GF(2)"),
     "TL_10(1) GF(3) spin": (10, 1, "GF(3)"),
     "TL_10(1) GF(7) spin": (10, 1, "GF(7)"),
+    "TL_10(0) GF(3) spin": (10, 0, "GF(3)"),
+    "TL_10(0) GF(7) spin": (10, 0, "GF(7)"),
+    "TL_10(1) GF(2) spin": (10, 1, "GF(2)"),
+    "TL_10(1) GF(5) spin": (10, 1, "GF(5)"),
 }
 SPIN_FULL = {k: v for k, v in SPIN_QUICK.items() if k.startswith("TL_8")}
 ALL_CASES = {**CASES_LARGE, **SPIN_LARGE}
