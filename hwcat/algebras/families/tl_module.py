@@ -11,8 +11,15 @@ matrix by which it acts on the half spin chain
 ``M_k`` the span of the states with ``k`` down spins (dimension
 ``binomial(n, k)``), on which the generators act as in
 :mod:`~hwcat.algebras.families.spin_chain` (block diagonal: the number of down
-spins is preserved; the other half is the mirror image).  Over a prime field
-``GF(p)`` containing ``q`` with ``q + 1/q = delta``.
+spins is preserved; the other half is the mirror image).  Over every prime field
+``GF(p)``, ``p < 2^24``: when ``GF(p)`` contains ``q`` with ``q + 1/q = delta`` the
+chain is the one over ``GF(p)``; otherwise ``q^2 - delta q + 1`` is irreducible, ``q``
+is the generator of ``GF(p^2) = GF(p)[q]/(q^2 - delta q + 1)``, and ``M`` is the chain
+over ``GF(p^2)`` *restricted to* ``GF(p)``: each ``M_k`` becomes a ``GF(p)``-space of
+dimension ``2 binomial(n, k)``, an entry ``c`` of a generator the ``2 x 2`` block of
+``v -> v c`` on ``GF(p^2) = GF(p)^2`` (a ring map, so the relations hold).  It is a
+``TL_n``-module over ``GF(p)``, still graded by the number of down spins, and faithful
+(certified below like the other); everything after the chain is over ``GF(p)``.
 
 Method
 ------
@@ -34,11 +41,14 @@ leaf is certified and the totals are checked exactly.
 
 *Classes*: the rank of an idempotent on each sector.  Conjugate idempotents
 have equal ranks; a primitive ``e`` of the simple ``L`` has rank
-``[M_k : L]`` on ``M_k``.  The simple with ``t`` through strands first appears
+``[M_k : L]`` on ``M_k`` (``2 [M_k : L]`` on the restricted chain, ``[M_k : L]``
+counted over ``GF(p^2)``: the simples of ``TL_n`` are absolutely simple, being heads
+of cell modules, so ``L`` over ``GF(p^2)`` restricts to ``L + L``; from memory).  The simple with ``t`` through strands first appears
 in sector ``k = (n - t)/2``, once (``M_k`` is filtered by the cell modules with
 ``n - 2j`` through strands, ``j <= k``; from memory): so the label of a class is
-read off its first nonzero sector, and a node whose ranks are explained by the
-classes found so far (triangularly, sector by sector) is skipped.  A wrong
+read off its first nonzero sector (where the rank is 1, or 2 on the restricted chain),
+and a node whose ranks are explained by the classes found so far (triangularly, sector
+by sector) is skipped.  A wrong
 skip can only make the final count below fail.
 
 *Certificates* for each class ``e``: ``e A`` is computed as the closure of
@@ -57,7 +67,8 @@ the one of ``TL_n`` itself; otherwise :class:`~hwcat.errors.InternalInconsistenc
 *Basic algebra*: ``e_s A e_t`` as the matrices ``B_s x P_t``; a product is a
 matrix product.  Radical, arrows and projectives as in the table route.
 
-No dense matrix larger than a sector (``binomial(n, n/2)``, 252 at ``n = 10``)
+No dense matrix larger than a sector (``binomial(n, n/2)``, 252 at ``n = 10``, twice
+that on the restricted chain)
 and no table: the work is dominated by the closures ``e A``, ``A e``.
 
 Examples
