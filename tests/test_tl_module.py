@@ -226,7 +226,10 @@ def test_to_dict_says_idempotents_are_missing() -> None:
 def test_command_line(capsys: pytest.CaptureFixture) -> None:
     code = main(["family", "temperley-lieb", "n=6", "delta=0", "field=GF(5)", "route=spin-chain"])
     out = capsys.readouterr().out
-    assert code == 0 and "spin chain" in out
+    assert code == 0 and "spin chain over GF(5) " in out
+    code = main(["family", "temperley-lieb", "n=5", "delta=0", "field=GF(3)", "route=spin-chain"])
+    out = capsys.readouterr().out
+    assert code == 0 and "spin chain over GF(3)[q]/(q^2 + 1) restricted to GF(3)" in out
     code = main(
         ["check", "--family", "temperley-lieb", "n=5", "delta=1", "field=GF(7)", "route=spin-chain"]
     )
