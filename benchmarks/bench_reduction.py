@@ -24,6 +24,37 @@ Cases named ``... spin`` reduce ``TL_n(delta)`` through the spin chain
 cases ``peak MiB`` also shows, in parentheses, the peak before the baseline ran: the
 reduction's own.
 
+Spin-chain cases where ``q`` (``q + 1/q = delta``) is not in ``GF(p)``: the chain over
+``GF(p^2)`` restricted to ``GF(p)`` (sectors of twice the dimension).  ``python
+benchmarks/bench_reduction.py --case "TL_8(0) GF(3) spin" ...`` (the twelve cases below,
+one run each, in one invocation for n = 8, 9 and one for n = 10), on the shared two-core
+machine; ratio = reduction / one dense rank of a ``Catalan(n) x Catalan(n)`` matrix over
+the same field, same process; peak = the reduction's own (the dense rank's ``16796 x
+16796`` matrix takes the process to about 6.6 GB at n = 10)::
+
+    case            dim    reduce s   dense rank s   ratio   peak MiB   simples   rad
+    TL_8(0) GF(3)   1430     0.54         0.11        4.9        78        4     1028
+    TL_8(0) GF(7)   1430     0.49         0.17        2.8        62        4     1001
+    TL_8(1) GF(2)   1430     0.57         0.43        1.3        61        5      481
+    TL_8(1) GF(5)   1430     0.41         0.16        2.5        59        5      426
+    TL_9(0) GF(3)   4862     1.9          5.6         0.34       92        5      787
+    TL_9(0) GF(7)   4862     4.3          5.2         0.83       67        5        0
+    TL_9(1) GF(2)   4862     5.5         13.4         0.41      252        5     2482
+    TL_9(1) GF(5)   4862     2.4          4.7         0.50       89        5     2401
+    TL_10(0) GF(3) 16796    22.9        159           0.14      728        5    12721
+    TL_10(0) GF(7) 16796    24.7        215           0.12      347        5    11934
+    TL_10(1) GF(2) 16796    79.9        543           0.15      751        6     7396
+    TL_10(1) GF(5) 16796    14.0        197           0.07      225        6     5776
+
+At n = 8 the ratios are above those with ``q`` in ``GF(p)`` (1.1 to 1.7) but far below 20;
+from n = 9 on the reduction is below one dense rank.  TL_10(1) over GF(2) spends 50 s in
+the closures ``e A``, ``A e`` (rows four times as wide as over a field holding ``q``).
+The whole command ``/usr/bin/time -v hwcat check --family temperley-lieb n=10 delta=0
+field="GF(3)"`` (reduction, then every axiom): 27 s elapsed, 730 MiB peak resident
+(exit code 1: not quasi-hereditary, the cell form of ``t = 0`` vanishing at ``delta = 0``);
+``n=10 delta=1 field="GF(2)"``: 105 s elapsed (54 s user, a busy machine), 790 MiB
+(exit code 0).
+
 Run ``python benchmarks/bench_reduction.py`` (``--quick`` for small cases only,
 ``--large`` to add TL_9, TL_10, S(2, 30), S_7; ``--case NAME`` for one case;
 ``--profile`` prints the largest items of a cProfile run of each reduction;
@@ -137,6 +168,15 @@ SPIN_QUICK = {
     "TL_9(0) GF(2) spin": (9, 0, "GF(2)"),
     "TL_9(1) GF(3) spin": (9, 1, "GF(3)"),
     "TL_9(1) GF(7) spin": (9, 1, "GF(7)"),
+    # q only in GF(p^2): the chain over GF(p^2) restricted to GF(p)
+    "TL_8(0) GF(3) spin": (8, 0, "GF(3)"),
+    "TL_8(0) GF(7) spin": (8, 0, "GF(7)"),
+    "TL_8(1) GF(2) spin": (8, 1, "GF(2)"),
+    "TL_8(1) GF(5) spin": (8, 1, "GF(5)"),
+    "TL_9(0) GF(3) spin": (9, 0, "GF(3)"),
+    "TL_9(0) GF(7) spin": (9, 0, "GF(7)"),
+    "TL_9(1) GF(2) spin": (9, 1, "GF(2)"),
+    "TL_9(1) GF(5) spin": (9, 1, "GF(5)"),
 }
 SPIN_LARGE = {
     **SPIN_QUICK,
@@ -144,6 +184,10 @@ SPIN_LARGE = {
     "TL_10(0) GF(2) spin": (10, 0, "GF(2)"),
     "TL_10(1) GF(3) spin": (10, 1, "GF(3)"),
     "TL_10(1) GF(7) spin": (10, 1, "GF(7)"),
+    "TL_10(0) GF(3) spin": (10, 0, "GF(3)"),
+    "TL_10(0) GF(7) spin": (10, 0, "GF(7)"),
+    "TL_10(1) GF(2) spin": (10, 1, "GF(2)"),
+    "TL_10(1) GF(5) spin": (10, 1, "GF(5)"),
 }
 SPIN_FULL = {k: v for k, v in SPIN_QUICK.items() if k.startswith("TL_8")}
 ALL_CASES = {**CASES_LARGE, **SPIN_LARGE}

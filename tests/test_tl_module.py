@@ -31,12 +31,16 @@ from hwcat.algebras.families.tl_module import (
 )
 from hwcat.cli import main
 from hwcat.errors import InternalInconsistency, SpecError
-from hwcat.exact import GF
+from hwcat.exact import GF, restrict_scalars
 from hwcat.theory.structure import describe
 
 # (delta, p) with q + 1/q = delta in GF(p): delta = 0 needs q^2 = -1, delta = 1 needs
 # q^2 - q + 1 = 0 (derived)
 VALID = [(0, 2), (0, 5), (0, 13), (1, 3), (1, 7), (1, 13)]
+# (delta, p) with q only in GF(p^2): q^2 - delta q + 1 irreducible mod p (derived: x^2 + 1
+# has no root mod 3, 7, 11; x^2 - x + 1 none mod 2, 5, 11; x^2 - 3x + 1 none mod 7, its
+# discriminant 5 not being a square mod 7; x^2 - 4x + 1 none mod 5, discriminant 12 = 2)
+RESTRICTED = [(0, 3), (0, 7), (0, 11), (1, 2), (1, 5), (1, 11), (3, 7), (4, 5)]
 
 
 def _structure(B) -> dict:
@@ -124,7 +128,8 @@ def test_chain_action_is_the_spin_chain() -> None:
     # the sector-by-sector action used here is the spin chain's generator, restricted
     n, F = 5, GF(5)
     q = loop_weight_root(0, F)
-    ch = tlm._chain(n, q, F)
+    ch = tlm._chain(n, 0, F)
+    assert ch.degree == 1 and ch.scalars == "GF(5)"
     gens = spin_chain_generators(n, q, F)
     states = [[s for s in range(1 << n) if bin(s).count("1") == k] for k in range(n // 2 + 1)]
     for i in range(n - 1):
@@ -135,6 +140,29 @@ def test_chain_action_is_the_spin_chain() -> None:
             eye = np.eye(d, dtype=np.int64)
             assert (ch.right(eye, i, k) == full).all()
             assert (ch.left_t(eye, i, k) == full.T).all()
+
+
+@pytest.mark.parametrize("n, delta, p", [(5, 0, 3), (4, 1, 2), (5, 3, 7)])
+def test_restricted_chain_action_is_the_spin_chain_over_the_extension(n, delta, p) -> None:
+    # q not in GF(p): the action is the spin chain over GF(p^2) = GF(p)[q]/(q^2 - delta q + 1),
+    # its matrices restricted to GF(p) by the exact layer's own restriction of scalars
+    F = GF(p)
+    K, q = tlm.chain_scalars(delta, F)
+    assert K.degree == 2 and q * q - K(delta) * q + 1 == 0
+    ch = tlm._chain(n, delta, F)
+    assert ch.degree == 2 and ch.scalars == f"{K.name} restricted to GF({p})"
+    gens = spin_chain_generators(n, q, K)
+    states = [[s for s in range(1 << n) if bin(s).count("1") == k] for k in range(n // 2 + 1)]
+    for i in range(n - 1):
+        G = restrict_scalars(gens[f"e{i + 1}"])
+        for k, st in enumerate(states):
+            idx = [2 * s + a for s in st for a in (0, 1)]
+            full = np.array([[int(G[a, b]) for b in idx] for a in idx], dtype=np.int64)
+            eye = np.eye(len(idx), dtype=np.int64)
+            assert (ch.right(eye, i, k) == full).all()
+            assert (ch.left_t(eye, i, k) == full.T).all()
+            # e_i^2 = delta e_i on the restricted sector (the TL relation over GF(p), derived)
+            assert (ch.right(full, i, k) == (delta * full) % p).all()
 
 
 def test_counts_are_certified(monkeypatch: pytest.MonkeyPatch) -> None:
@@ -152,15 +180,15 @@ def test_counts_are_certified(monkeypatch: pytest.MonkeyPatch) -> None:
 
 def test_route_parameter() -> None:
     assert module_route_available(0, "GF(5)")
-    assert not module_route_available(0, "GF(3)")  # x^2 + 1 is irreducible mod 3
+    assert module_route_available(0, "GF(3)")  # x^2 + 1 is irreducible mod 3: GF(9) restricted
     assert not module_route_available(2, "QQ")  # not a prime field
     assert not module_route_available(2, "GF(16777259)")  # above the int64-safe bound
     with pytest.raises(SpecError, match="2\\^24"):
         reduce_temperley_lieb(3, 2, "GF(16777259)")
     with pytest.raises(SpecError, match="route"):
         family_reduction("temperley-lieb", n=4, delta="0", field="GF(5)", route="fast")
-    with pytest.raises(SpecError, match="q"):
-        family_reduction("temperley-lieb", n=4, delta="0", field="GF(3)", route="spin-chain")
+    red = family_reduction("temperley-lieb", n=4, delta="0", field="GF(3)", route="spin-chain")
+    assert isinstance(red, ModuleReduction) and red.chain_field.endswith("restricted to GF(3)")
     with pytest.raises(SpecError, match="prime field"):
         family_reduction("temperley-lieb", n=4, delta="2", field="QQ", route="spin-chain")
     red = family_reduction("temperley-lieb", n=4, delta="0", field="GF(5)", route="spin-chain")
@@ -175,7 +203,9 @@ def test_auto_route_threshold(monkeypatch: pytest.MonkeyPatch) -> None:
     B = family_algebra("temperley-lieb", n=4, delta="0", field="GF(5)")
     assert module_reduction_of(B) is None  # below the threshold: the table
     B = family_algebra("temperley-lieb", n=5, delta="0", field="GF(3)")
-    assert module_reduction_of(B) is None  # no q in GF(3): the table
+    assert module_reduction_of(B) is not None  # no q in GF(3): the chain over GF(9)
+    B = family_algebra("temperley-lieb", n=5, delta="0", field="QQ")
+    assert module_reduction_of(B) is None  # not a prime field: the table
 
 
 def test_to_dict_says_idempotents_are_missing() -> None:
@@ -186,18 +216,53 @@ def test_to_dict_says_idempotents_are_missing() -> None:
     pairs = zip(d["simple_dimensions"], d["projective_dimensions"], strict=True)
     assert sum(a * b for a, b in pairs) == 42
     assert len(d["sector_ranks"]) == len(d["simples"])
+    assert d["spin_chain_field"] == "GF(7)"
+    d = reduce_temperley_lieb(5, 1, "GF(5)").to_dict()
+    assert d["spin_chain_field"] == "GF(5)[q]/(q^2 + 4*q + 1) restricted to GF(5)"
+    # each simple first occurs once in M_k over GF(25): rank 2 over GF(5) (derived)
+    assert all(next(r for r in ranks if r) == 2 for ranks in d["sector_ranks"])
 
 
 def test_command_line(capsys: pytest.CaptureFixture) -> None:
     code = main(["family", "temperley-lieb", "n=6", "delta=0", "field=GF(5)", "route=spin-chain"])
     out = capsys.readouterr().out
-    assert code == 0 and "spin chain" in out
+    assert code == 0 and "spin chain over GF(5) " in out
+    code = main(["family", "temperley-lieb", "n=5", "delta=0", "field=GF(3)", "route=spin-chain"])
+    out = capsys.readouterr().out
+    assert code == 0 and "spin chain over GF(3)[q]/(q^2 + 1) restricted to GF(3)" in out
     code = main(
         ["check", "--family", "temperley-lieb", "n=5", "delta=1", "field=GF(7)", "route=spin-chain"]
     )
     # delta != 0: every cell form is nonzero, so TL_5(1) is quasi-hereditary (S. Konig,
     # C. C. Xi, When is a cellular algebra quasi-hereditary?, Math. Ann. 315, 1999)
     assert code == 0
+
+
+@pytest.mark.parametrize(
+    "n, delta, p",
+    [(2, 0, 3), (3, 1, 2), (4, 0, 7), (5, 1, 5), (6, 0, 3), (6, 1, 2), (7, 0, 7), (7, 1, 5)],
+)
+def test_restricted_chain_agrees_with_the_table_route(n: int, delta: int, p: int) -> None:
+    # q only in GF(p^2): the chain over GF(p^2) restricted to GF(p) gives the same
+    # structure report as the multiplication table over GF(p)
+    _compare(n, delta, p)
+
+
+def test_restricted_chain_agrees_with_the_table_route_on_random_cases() -> None:
+    rng = random.Random(20261203)
+    for _ in range(4):
+        n = rng.randint(2, 7)
+        delta, p = rng.choice(RESTRICTED)
+        _compare(n, delta, p, seed=rng.randrange(1000))
+
+
+@pytest.mark.slow
+def test_restricted_chain_agrees_with_the_table_route_everywhere_small() -> None:
+    # every n <= 7 with every (delta, p) where q lies only in GF(p^2), three seeds
+    for n in range(2, 8):
+        for delta, p in RESTRICTED:
+            for seed in (0, 7, 31):
+                _compare(n, delta, p, seed)
 
 
 @pytest.mark.slow

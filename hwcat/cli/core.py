@@ -87,8 +87,9 @@ def _notes(A) -> list[str]:
             f"L({v}): {d}" for v, d in zip(m.basic.vertices, m.simple_dimensions, strict=True)
         )
         return [
-            f"reduced through the spin chain (no table) from an algebra of dimension "
-            f"{m.dimension}; radical dimension {m.radical_dimension}; simple dimensions {dims}",
+            f"reduced through the spin chain over {m.chain_field} (no table) from an algebra "
+            f"of dimension {m.dimension}; radical dimension {m.radical_dimension}; "
+            f"simple dimensions {dims}",
         ]
     B = r.algebra
     dims = ", ".join(

@@ -7,7 +7,8 @@ Two kinds:
   (Green's basis), group algebras of ``S_n`` and of cyclic groups, the small
   quantum group ``u_q(sl_2)``.  They are reduced to their basic algebra with
   :func:`hwcat.algebras.reduction.reduction.reduce_algebra`; Temperley--Lieb
-  over ``GF(p)`` also through its spin chain, without a table
+  over ``GF(p)`` also through its spin chain (restricted from ``GF(p^2)`` when ``q`` is
+  not in ``GF(p)``), without a table
   (:mod:`hwcat.algebras.families.tl_module`, parameter ``route``).
 * **quiver families** (:mod:`hwcat.algebras.families.quivers`): linearly
   oriented and alternating ``A_n`` (with any ``vanish_from_length``), the
@@ -87,7 +88,8 @@ TL_SPIN_CHAIN_FROM = 8
 """``route=auto`` reduces ``TL_n`` through the spin chain from this ``n`` on (when the field
 allows it).  Measured (benchmarks/bench_reduction.py, one dense rank of a 1430 x 1430
 matrix as the unit): at ``n = 8`` the table route takes 23 to 27 units, the spin chain
-1.1 to 1.7; at ``n = 7`` both take well under a second.  ``hwcat module`` asks for
+1.1 to 1.7 (1.3 to 4.9 on the chain restricted from ``GF(p^2)``); at ``n = 7`` both take
+well under a second.  ``hwcat module`` asks for
 ``route=table`` (it reads modules in the diagram basis, which only that route has)."""
 
 TL_ROUTES = ("auto", "table", "spin-chain")
@@ -110,7 +112,8 @@ FAMILIES: dict[str, Family] = {
             "TL_n(delta) in the diagram basis (dimension Catalan(n)); generators e_i with "
             "e_i^2 = delta e_i, e_i e_(i+-1) e_i = e_i, e_i e_j = e_j e_i for |i - j| > 1; "
             "route=table|spin-chain|auto: reduced from the multiplication table, or through "
-            "the spin chain without a table (GF(p) containing q with q + 1/q = delta; "
+            "the spin chain without a table (GF(p), p < 2^24; q + 1/q = delta in GF(p) or "
+            "GF(p^2), the chain over GF(p^2) then restricted to GF(p); "
             f"auto: the spin chain from n = {TL_SPIN_CHAIN_FROM} on when it applies)",
             "standard (diagram calculus; cellular, Koenig-Xi criterion); spin chain: quantum "
             "Schur-Weyl duality (Jimbo 1986, Martin 1991)",

@@ -11,8 +11,15 @@ matrix by which it acts on the half spin chain
 ``M_k`` the span of the states with ``k`` down spins (dimension
 ``binomial(n, k)``), on which the generators act as in
 :mod:`~hwcat.algebras.families.spin_chain` (block diagonal: the number of down
-spins is preserved; the other half is the mirror image).  Over a prime field
-``GF(p)`` containing ``q`` with ``q + 1/q = delta``.
+spins is preserved; the other half is the mirror image).  Over every prime field
+``GF(p)``, ``p < 2^24``: when ``GF(p)`` contains ``q`` with ``q + 1/q = delta`` the
+chain is the one over ``GF(p)``; otherwise ``q^2 - delta q + 1`` is irreducible, ``q``
+is the generator of ``GF(p^2) = GF(p)[q]/(q^2 - delta q + 1)``, and ``M`` is the chain
+over ``GF(p^2)`` *restricted to* ``GF(p)``: each ``M_k`` becomes a ``GF(p)``-space of
+dimension ``2 binomial(n, k)``, an entry ``c`` of a generator the ``2 x 2`` block of
+``v -> v c`` on ``GF(p^2) = GF(p)^2`` (a ring map, so the relations hold).  It is a
+``TL_n``-module over ``GF(p)``, still graded by the number of down spins, and faithful
+(certified below like the other); everything after the chain is over ``GF(p)``.
 
 Method
 ------
@@ -34,11 +41,14 @@ leaf is certified and the totals are checked exactly.
 
 *Classes*: the rank of an idempotent on each sector.  Conjugate idempotents
 have equal ranks; a primitive ``e`` of the simple ``L`` has rank
-``[M_k : L]`` on ``M_k``.  The simple with ``t`` through strands first appears
+``[M_k : L]`` on ``M_k`` (``2 [M_k : L]`` on the restricted chain, ``[M_k : L]``
+counted over ``GF(p^2)``: the simples of ``TL_n`` are absolutely simple, being heads
+of cell modules, so ``L`` over ``GF(p^2)`` restricts to ``L + L``; from memory).  The simple with ``t`` through strands first appears
 in sector ``k = (n - t)/2``, once (``M_k`` is filtered by the cell modules with
 ``n - 2j`` through strands, ``j <= k``; from memory): so the label of a class is
-read off its first nonzero sector, and a node whose ranks are explained by the
-classes found so far (triangularly, sector by sector) is skipped.  A wrong
+read off its first nonzero sector (where the rank is 1, or 2 on the restricted chain),
+and a node whose ranks are explained by the classes found so far (triangularly, sector
+by sector) is skipped.  A wrong
 skip can only make the final count below fail.
 
 *Certificates* for each class ``e``: ``e A`` is computed as the closure of
@@ -57,7 +67,8 @@ the one of ``TL_n`` itself; otherwise :class:`~hwcat.errors.InternalInconsistenc
 *Basic algebra*: ``e_s A e_t`` as the matrices ``B_s x P_t``; a product is a
 matrix product.  Radical, arrows and projectives as in the table route.
 
-No dense matrix larger than a sector (``binomial(n, n/2)``, 252 at ``n = 10``)
+No dense matrix larger than a sector (``binomial(n, n/2)``, 252 at ``n = 10``, twice
+that on the restricted chain)
 and no table: the work is dominated by the closures ``e A``, ``A e``.
 
 Examples
@@ -86,6 +97,7 @@ from hwcat.algebras.reduction.kernels import coords_solver, small_radical
 from hwcat.algebras.reduction.reduction import CORNER_LIMIT, assemble_from_blocks
 from hwcat.errors import InternalInconsistency, NotSplitError, SpecError
 from hwcat.exact import Mat, parse_field, select_independent_rows
+from hwcat.exact.extension import finite_field
 from hwcat.exact.fields import PrimeField
 from hwcat.exact.nmod_bulk import read_residues
 from hwcat.exact.polys import (
@@ -104,19 +116,20 @@ __all__ = ["ModuleReduction", "reduce_temperley_lieb", "module_route_available"]
 
 PRIME_LIMIT = 1 << 24
 """The spin-chain route works with int64 residues: products of two residues and sums of
-up to ``2^14`` of them stay below ``2^63`` for primes below this bound."""
+up to ``2^14`` of them (:data:`SECTOR_LIMIT`: the longest sums run over a sector, whose
+dimension over ``GF(p)`` is ``2 binomial(n, k)`` when the chain is restricted from
+``GF(p^2)``) stay below ``2^63`` for primes below this bound."""
 
 
 def module_route_available(delta: Any, field: Any) -> bool:
-    """Whether the spin-chain route applies: a prime field ``GF(p)``, ``p < 2^24``,
-    containing ``q`` with ``q + 1/q = delta``, and numpy installed (the extra ``fast``)."""
+    """Whether the spin-chain route applies: a prime field ``GF(p)``, ``p < 2^24``, and
+    numpy installed (the extra ``fast``).  Every ``delta`` qualifies: ``q`` with
+    ``q + 1/q = delta`` lies in ``GF(p)`` or in ``GF(p^2)``, and in the second case the
+    chain over ``GF(p^2)`` restricted to ``GF(p)`` is used."""
     F = parse_field(field) if isinstance(field, str) else field
     if np is None or not isinstance(F, PrimeField) or F.p >= PRIME_LIMIT:
         return False
-    try:
-        loop_weight_root(delta, F)
-    except SpecError:
-        return False
+    F(delta)  # a delta that is not an element of the field is the caller's error
     return True
 
 
@@ -145,42 +158,112 @@ def _arr(M: Mat) -> Any:
 
 @dataclass
 class _Chain:
-    """The sectors ``M_0 .. M_K`` and each generator's action on them (column form:
-    ``(X g)[:, c] = X[:, c] diag[c] + X[:, partner[c]] off[c]``; ``offT`` for ``g X``
-    read as ``X^T g^T``)."""
+    """The sectors ``M_0 .. M_K`` and each generator's action on them, in column form:
+    ``(X g)[:, c] = X[:, c] diag[c] + sum_t X[:, src_t[c]] coef_t[c]`` (one or three
+    further terms, see :func:`_terms`), and the same for ``g^T`` (``X g^T``).
+
+    ``degree`` is 1 when ``q`` lies in ``GF(p)`` and 2 when the chain is the one over
+    ``GF(p^2) = GF(p)[q]/(q^2 - delta q + 1)`` restricted to ``GF(p)`` (every
+    coordinate a pair); ``scalars`` names the chain's field."""
 
     n: int
     F: PrimeField
     dims: list[int]
-    gens: list[list[tuple[Any, Any, Any, Any]]]  # gens[i][k] = (diag, partner, off, offT)
+    gens: list[list[tuple[Any, Any]]]  # gens[i][k] = (terms of g, terms of g^T)
+    degree: int = 1
+    scalars: str = ""
 
     def right(self, X: Any, i: int, k: int) -> Any:
         """``X g_i`` on sector ``k`` for the rows ``X`` (shape ``(m, d_k)``)."""
-        diag, partner, off, _ = self.gens[i][k]
-        return (X * diag + X[:, partner] * off) % self.F.p
+        return _apply(X, self.gens[i][k][0], self.F.p)
 
     def left_t(self, X: Any, i: int, k: int) -> Any:
         """``(g_i X^T)^T = X g_i^T`` on sector ``k``."""
-        diag, partner, _, offT = self.gens[i][k]
-        return (X * diag + X[:, partner] * offT) % self.F.p
+        return _apply(X, self.gens[i][k][1], self.F.p)
 
 
-def _chain(n: int, q: Any, F: PrimeField) -> _Chain:
-    K = n // 2
-    states: list[list[int]] = [[] for _ in range(K + 1)]
+def _apply(X: Any, terms: tuple[Any, list[tuple[Any, Any]]], p: int) -> Any:
+    diag, rest = terms
+    acc = X * diag
+    for src, coef in rest:
+        acc += X[:, src] * coef
+    return acc % p
+
+
+def _terms(d: int, entries: list[tuple[int, int, int]]) -> tuple[Any, list[tuple[Any, Any]]]:
+    """The column form of a ``d x d`` matrix given by its entries ``(row, column, value)``:
+    the diagonal, and gathers ``(src, coef)`` such that column ``c`` receives
+    ``X[:, src[c]] coef[c]`` (as many gathers as the fullest column has entries off the
+    diagonal; short columns are padded with coefficient 0)."""
+    diag = np.zeros(d, dtype=np.int64)
+    cols: list[list[tuple[int, int]]] = [[] for _ in range(d)]
+    for r, c, v in entries:
+        if r == c:
+            diag[c] = v
+        elif v:
+            cols[c].append((r, v))
+    width = max((len(x) for x in cols), default=0)
+    rest = []
+    for t in range(width):
+        src = np.arange(d, dtype=np.int64)
+        coef = np.zeros(d, dtype=np.int64)
+        for c, x in enumerate(cols):
+            if t < len(x):
+                src[c], coef[c] = x[t]
+        rest.append((src, coef))
+    return diag, rest
+
+
+SECTOR_LIMIT = 1 << 14
+"""Largest sector dimension (over ``GF(p)``, pairs counted twice): a sum over a sector
+of products of two residues then stays below ``2^14 * 2^48 < 2^63``."""
+
+
+def chain_scalars(delta: Any, F: PrimeField) -> tuple[Any, Any]:
+    """The chain's field and ``q`` in it with ``q + 1/q = delta``: ``GF(p)`` itself when it
+    holds such a ``q``, else ``GF(p^2) = GF(p)[q]/(q^2 - delta q + 1)`` (that polynomial is
+    then irreducible) with ``q`` its generator."""
+    try:
+        return F, loop_weight_root(delta, F)
+    except SpecError:
+        d = int(F(delta))
+        K = finite_field(F.p, 2, "q", (1, (-d) % F.p, 1))
+        return K, K.gen
+
+
+def _chain(n: int, delta: Any, F: PrimeField) -> _Chain:
+    """The half spin chain for ``q + 1/q = delta``, over ``GF(p)`` (restricted to it from
+    ``GF(p^2)`` when ``q`` is not in ``GF(p)``: an entry ``c`` becomes the ``2 x 2`` block
+    of ``v -> v c`` on ``GF(p^2) = GF(p)^2``, a ring map, so the restricted matrices
+    satisfy the same relations)."""
+    K, q = chain_scalars(delta, F)
+    deg = 1 if K is F else 2
+    Kn = n // 2
+    states: list[list[int]] = [[] for _ in range(Kn + 1)]
     where: dict[int, tuple[int, int]] = {}
     for s in range(1 << n):
         k = bin(s).count("1")
-        if k <= K:
+        if k <= Kn:
             where[s] = (k, len(states[k]))
             states[k].append(s)
-    dims = [len(st) for st in states]
+    dims = [deg * len(st) for st in states]
+    if max(dims) > SECTOR_LIMIT:
+        raise SpecError(
+            f"family temperley-lieb: the spin-chain route handles sectors up to dimension "
+            f"{SECTOR_LIMIT}, not {max(dims)} (n = {n}; use route=table)"
+        )
+    blocks: dict[Any, list[list[int]]] = {}
+
+    def block(v: Any) -> list[list[int]]:
+        if deg == 1:
+            return [[int(v)]]
+        if v not in blocks:
+            blocks[v] = [[int(x) for x in row] for row in K.multiplication_matrix(v)]
+        return blocks[v]
+
     gens = []
-    for _name, ents in sorted(spin_chain_entries(n, q, F).items(), key=lambda kv: int(kv[0][1:])):
-        diag = [np.zeros(d, dtype=np.int64) for d in dims]
-        partner = [np.arange(d, dtype=np.int64) for d in dims]
-        off = [np.zeros(d, dtype=np.int64) for d in dims]
-        offT = [np.zeros(d, dtype=np.int64) for d in dims]
+    for _name, ents in sorted(spin_chain_entries(n, q, K).items(), key=lambda kv: int(kv[0][1:])):
+        per: list[list[tuple[int, int, int]]] = [[] for _ in dims]
         for (r, c), v in ents.items():
             if r not in where:
                 continue
@@ -190,14 +273,18 @@ def _chain(n: int, q: Any, F: PrimeField) -> _Chain:
                 raise InternalInconsistency(
                     "a spin chain generator changes the number of down spins"
                 )
-            if a == b:
-                diag[k][b] = int(v)
-            else:
-                partner[k][b] = a  # column b receives row a
-                off[k][b] = int(v)
-                offT[k][a] = int(v)  # g^T: row a's entry in column b, read as column a
-        gens.append([(diag[k], partner[k], off[k], offT[k]) for k in range(K + 1)])
-    return _Chain(n, F, dims, gens)
+            blk = block(v)
+            for i in range(deg):
+                for j in range(deg):
+                    per[k].append((deg * a + i, deg * b + j, blk[i][j]))
+        gens.append(
+            [
+                (_terms(d, e), _terms(d, [(c, r, v) for r, c, v in e]))
+                for d, e in zip(dims, per, strict=True)
+            ]
+        )
+    scalars = F.name if deg == 1 else f"{K.name} restricted to {F.name}"
+    return _Chain(n, F, dims, gens, deg, scalars)
 
 
 # ----------------------------------------------------------------------------------
@@ -346,9 +433,9 @@ class _Search:
         for k in range(len(res)):
             c = by_sector.get(k)
             if c is not None:
-                m = res[k]
+                m, rest = divmod(res[k], c.ranks[k])
                 res = [a - m * b for a, b in zip(res, c.ranks, strict=True)]
-                if min(res) < 0:
+                if rest or min(res) < 0:
                     raise InternalInconsistency(
                         "sector ranks of an idempotent not explained by the simples found"
                     )
@@ -496,9 +583,10 @@ class _Search:
         if n_simple == 0:
             raise InternalInconsistency("a primitive idempotent with a zero simple module")
         sector = next(k for k, r in enumerate(ranks) if r)
-        if ranks[sector] != 1:
+        if ranks[sector] != ch.degree:  # [M_k : L] = 1, each coordinate a pair when degree 2
             raise InternalInconsistency(
-                f"a simple occurs {ranks[sector]} times in the first sector it occurs in"
+                f"a primitive idempotent has rank {ranks[sector]} on the first sector it "
+                f"acts on (expected {ch.degree})"
             )
         return _Class(node, ranks, sector, X, cpos, rad, n_simple, X.shape[0], Yt.shape[0])
 
@@ -566,6 +654,7 @@ class ModuleReduction:
     projective_dimensions: tuple[int, ...]
     radical_dimension: int
     sector_ranks: tuple[tuple[int, ...], ...]
+    chain_field: str
     method: str
     seed: int
     timings: dict[str, float] = field(default_factory=dict, repr=False, compare=False)
@@ -586,6 +675,7 @@ class ModuleReduction:
                 "were found as matrices on the spin chain"
             ),
             "sector_ranks": [list(r) for r in self.sector_ranks],
+            "spin_chain_field": self.chain_field,
             "cartan": [list(r) for r in self.basic.cartan()],
             "method": self.method,
             "seed": self.seed,
@@ -610,7 +700,8 @@ def reduce_temperley_lieb(
     Raises
     ------
     SpecError
-        When the field is not a prime field or has no ``q`` with ``q + 1/q = delta``.
+        When the field is not a prime field below ``2^24`` (when ``GF(p)`` holds no ``q``
+        with ``q + 1/q = delta``, the chain over ``GF(p^2)`` restricted to ``GF(p)`` is used).
     """
     if np is None:
         raise SpecError(
@@ -630,10 +721,9 @@ def reduce_temperley_lieb(
     if isinstance(n, bool) or not isinstance(n, int) or n < 2:
         raise SpecError(f"family temperley-lieb: the spin-chain route needs n >= 2, not {n!r}")
     check_dimension(math.comb(2 * n, n) // (n + 1), f"TL_{n}")
-    q = loop_weight_root(delta, F)
     timings: dict[str, float] = {}
     t0 = time.perf_counter()
-    S = _Search(_chain(n, q, F), seed)
+    S = _Search(_chain(n, delta, F), seed)
     S.explore()
     timings.update(S.stats)
     timings["search"] = time.perf_counter() - t0
@@ -669,6 +759,7 @@ def reduce_temperley_lieb(
         projective_dimensions=tuple(c.dim_P for c in classes),
         radical_dimension=total - sum(c.n**2 for c in classes),
         sector_ranks=tuple(tuple(c.ranks) for c in classes),
+        chain_field=S.chain.scalars,
         method="spin chain",
         seed=seed,
         timings=timings,
