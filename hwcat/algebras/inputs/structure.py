@@ -441,24 +441,24 @@ class StructureAlgebra:
             np = _np
             cols = self._np_cols()
             small = np.int16 if n < 2**15 else np.int32
-            if all(len(i_a) == n for i_a, _, _ in cols) and all(
-                (c_a == 1).all() for _, _, c_a in cols
+            if all(len(i_a) == n for i_a, _, _ in cols) and bool(
+                (np.concatenate([c_a for _, _, c_a in cols]) == 1).all()
             ):
-                # all columns at once: column j of the table sits at rows i_a, values k_a
-                P = np.full((n, n), -1, dtype=small)
-                ar = np.arange(n, dtype=small)
-                P[np.concatenate([i_a for i_a, _, _ in cols]), np.repeat(ar, n)] = np.concatenate(
-                    [k_a for _, k_a, _ in cols]
-                )
-                if int(P.min()) >= 0:  # each column holds every i once
+                # row j of P^T is column j of the table: rows i_a, values k_a (one
+                # contiguous row per column costs far less than one scattered assignment)
+                PT = np.full((n, n), -1, dtype=small)
+                for j, (i_a, k_a, _) in enumerate(cols):
+                    PT[j, i_a] = k_a
+                P = PT.T
+                if int(PT.min()) >= 0:  # each column holds every i once
+                    ar = np.arange(n, dtype=small)
                     JR = np.full((n, n), -1, dtype=small)  # JR[i, P[i, j]] = j
                     JR[ar[:, None], P] = ar[None, :]
                     ILT = np.full((n, n), -1, dtype=small)  # ILT[j, P[i, j]] = i
                     ILT[ar[None, :], P] = ar[:, None]
-                    JRT = np.full((n, n), -1, dtype=small)  # JRT[P[i, j], i] = j
-                    JRT[P, ar[:, None]] = ar[None, :]
                     if int(JR.min()) >= 0 and int(ILT.min()) >= 0:  # n values fill n places
-                        out = (P, JR, ILT, JRT)
+                        # JRT[P[i, j], i] = j = JR[i, P[i, j]]: the transpose of JR
+                        out = (np.ascontiguousarray(P), JR, ILT, np.ascontiguousarray(JR.T))
         self._cache["group"] = out
         return out
 

@@ -218,10 +218,33 @@ def _krylov_columns(
             raise InternalInconsistency("Krylov sequence longer than the dimension")
         size = max(size + 1, size * 3 // 2) if fine else 2 * size
     Kd = stacked(d)
-    c = Kd.solve_left(residue_matrix(F, 1, n, array("q", bufs[d])))
+    last = residue_matrix(F, 1, n, array("q", bufs[d]))
+    c = _dependency(Kd, bufs, last) if _np is not None else None
+    if c is None:
+        c = Kd.solve_left(last)
     if c is None:  # pragma: no cover - rank argument guarantees a solution
         raise InternalInconsistency("Krylov dependency not found")
     return Kd, c.entries()
+
+
+def _dependency(Kd: Mat, bufs: list[Any], last: Mat) -> Mat | None:
+    """``c`` with ``c Kd = last`` for ``Kd`` of full row rank ``d`` (rows ``bufs[:d]``) and
+    ``last`` in its row space: the ``d x d`` system on ``d`` pivot columns of ``Kd``
+    (invertible, so ``c`` is unique), checked on all columns by one product.  Far cheaper
+    than the general solver, which eliminates ``[Kd^T | last^T]`` (``n x (d + 1)``)."""
+    F = Kd.field
+    d, n = Kd.nrows, Kd.ncols
+    _, piv = Kd.rref()
+    if len(piv) != d:
+        raise InternalInconsistency("Krylov vectors taken as independent are not")
+    cols = _np.asarray(piv, dtype=_np.int64)
+    K = _np.frombuffer(b"".join(bytes(b) for b in bufs[:d]), dtype=_np.int64).reshape(d, n)
+    sub = residue_matrix(F, d, d, _np.ascontiguousarray(K[:, cols]).ravel())
+    rhs = residue_matrix(F, 1, d, _np.frombuffer(bytes(bufs[d]), dtype=_np.int64)[cols].copy())
+    c = sub.solve_left(rhs)
+    if c is None or c @ Kd != last:
+        raise InternalInconsistency("Krylov dependency not found")
+    return c
 
 
 def minpoly(F, d: int, c: Sequence[Any]) -> Poly:
