@@ -328,3 +328,14 @@ def test_thin_products_padded_to_twelve_rows_are_exact(k):
     assert out.nrows == k and out.ncols == n
     if k:
         assert out == X @ M
+
+
+@pytest.mark.parametrize(("n", "field"), [(4, "GF(3)"), (5, "GF(2)")])
+def test_matrices_built_in_spare_memory_give_the_same_reduction(n, field, monkeypatch):
+    """Node matrices written into the memory of matrices no longer in use: exactly the
+    same reduction as with fresh matrices (the same random elements); derived."""
+    make = lambda: from_table(tables.symmetric_group_algebra(n, field))  # noqa: E731
+    reused = reduce_algebra(make())
+    monkeypatch.setattr(reduction._Spare, "LIMIT", 0)
+    fresh = reduce_algebra(make())
+    _exactly_equal(reused, fresh)
