@@ -219,7 +219,7 @@ def _krylov_columns(
         size = max(size + 1, size * 3 // 2) if fine else 2 * size
     Kd = stacked(d)
     last = residue_matrix(F, 1, n, array("q", bufs[d]))
-    c = _dependency(Kd, bufs, last) if _np is not None else None
+    c = _dependency(Kd, bufs) if _np is not None else None
     if c is None:
         c = Kd.solve_left(last)
     if c is None:  # pragma: no cover - rank argument guarantees a solution
@@ -227,22 +227,26 @@ def _krylov_columns(
     return Kd, c.entries()
 
 
-def _dependency(Kd: Mat, bufs: list[Any], last: Mat) -> Mat | None:
-    """``c`` with ``c Kd = last`` for ``Kd`` of full row rank ``d`` (rows ``bufs[:d]``) and
-    ``last`` in its row space: the ``d x d`` system on ``d`` pivot columns of ``Kd``
+def _dependency(Kd: Mat, bufs: list[Any]) -> Mat | None:
+    """``c`` with ``c Kd = bufs[d]`` for ``Kd`` of full row rank ``d`` (rows ``bufs[:d]``)
+    and ``bufs[d]`` in its row space: the ``d x d`` system on ``d`` pivot columns of ``Kd``
     (invertible, so ``c`` is unique), checked on all columns by one product.  Far cheaper
     than the general solver, which eliminates ``[Kd^T | last^T]`` (``n x (d + 1)``)."""
     F = Kd.field
     d, n = Kd.nrows, Kd.ncols
-    _, piv = Kd.rref()
-    if len(piv) != d:
+    R, rank = Kd._m.rref()
+    ech = read_residues(R)
+    if ech is None:
+        return None
+    if rank != d:
         raise InternalInconsistency("Krylov vectors taken as independent are not")
-    cols = _np.asarray(piv, dtype=_np.int64)
+    # the pivot of each row of the echelon form: its first nonzero entry
+    cols = _np.argmax(_np.frombuffer(ech, dtype=_np.int64).reshape(d, n) != 0, axis=1)
     K = _np.frombuffer(b"".join(bytes(b) for b in bufs[:d]), dtype=_np.int64).reshape(d, n)
     sub = residue_matrix(F, d, d, _np.ascontiguousarray(K[:, cols]).ravel())
     rhs = residue_matrix(F, 1, d, _np.frombuffer(bytes(bufs[d]), dtype=_np.int64)[cols].copy())
     c = sub.solve_left(rhs)
-    if c is None or c @ Kd != last:
+    if c is None or read_residues((c @ Kd)._m) != bufs[d]:
         raise InternalInconsistency("Krylov dependency not found")
     return c
 

@@ -517,6 +517,7 @@ class _Search:
         self.pool: list[tuple[list[Any], Mat]] = []
         self.pool_T: dict[int, Mat] = {}  # transposed matrices of the pool (small algebras)
         self.spare = _Spare()  # node matrices no longer in use (group algebras)
+        self._gen: Any = None  # numpy generator (group algebras), seeded from rng when made
 
     def dense(self, k: int) -> tuple[list[Any], Mat]:
         """The ``k``-th dense random element and its right multiplication matrix.
@@ -565,6 +566,8 @@ class _Search:
         """The transpose of right multiplication by the node's idempotent (kept on the node)."""
         if node.RT is None:
             t0 = time.perf_counter()
+            if node.root and node.index is None and node.R is None:
+                node.R = Mat.identity(self.A.field, self.A.dim)
             if node.R is not None:
                 node.RT = node.R.transpose()
             else:
@@ -580,6 +583,8 @@ class _Search:
         node.R = node.RT = None
 
     def ensure_R(self, node: _Node) -> Mat:
+        if node.R is None and node.root and node.index is None:
+            node.R = Mat.identity(self.A.field, self.A.dim)
         if node.R is None:
             t0 = time.perf_counter()
             node.R = self.A._action(node.f, node.index, left=False)
@@ -620,6 +625,15 @@ class _Search:
             fv = self.node_array(node) if self.A._vectorised() else None
             done.extend(_rank_in_simple(self.A, c, node.f, fv) for c in self.classes[len(done) :])
         return list(done)
+
+    def gen(self) -> Any:
+        """A numpy random generator for the whole search, seeded from ``rng`` when first
+        asked for (making one per random element costs more than the element)."""
+        if self._gen is None:
+            import numpy as np
+
+            self._gen = np.random.default_rng(self.rng.randrange(2**32))
+        return self._gen
 
     def node_array(self, node: _Node) -> Any:
         """The node's idempotent as an int64 array of residues (kept on the node)."""
@@ -744,7 +758,7 @@ class _Search:
         # at most half of the group (over GF(2) the sum of all elements is central), and a
         # random size (sums of the same length lie in one coset of a small subspace)
         top = max(1, min(n // 2, GROUP_SUPPORT << min(node.attempts - 1, 3)))
-        gen = np.random.default_rng(self.rng.randrange(2**32))
+        gen = self.gen()
         js = gen.choice(n, size=self.rng.randint(max(1, top // 2), top), replace=False)
         coefs = gen.integers(1, p, size=len(js), dtype=np.int64)
         RT = None if node.root else self.ensure_RT(node)
@@ -850,7 +864,7 @@ class _Search:
         ):
             return node.lower
         t0 = time.perf_counter()
-        gen = np.random.default_rng(self.rng.randrange(2**32))
+        gen = self.gen()
         right = A._group_table()[1]  # b_h f = f[right[h]]
         fv = self.node_array(node)
         m = min(n, w + 32)
@@ -1014,7 +1028,8 @@ def _roots(A: StructureAlgebra) -> list[_Node]:
     peirce = A.peirce_idempotents()
     if peirce is None:
         return [
-            _Node(list(A._unit), None, None, None, root=True, R=Mat.identity(A.field, n), dim_Af=n)
+            # R (the identity) is made only if asked for: the splits of the root never use it
+            _Node(list(A._unit), None, None, None, root=True, dim_Af=n)
         ]
     nodes = []
     for s in peirce:
