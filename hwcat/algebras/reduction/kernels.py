@@ -210,7 +210,8 @@ def _krylov_columns(
             if b is None:
                 return None
             bufs.append(b)
-        r = stacked(len(bufs)).rank()
+        # an echelon form rather than the rank: its pivots serve the dependency below
+        ech, r = stacked(len(bufs))._m.rref()
         if r < len(bufs):
             d = r
             break
@@ -218,30 +219,31 @@ def _krylov_columns(
             raise InternalInconsistency("Krylov sequence longer than the dimension")
         size = max(size + 1, size * 3 // 2) if fine else 2 * size
     Kd = stacked(d)
-    last = residue_matrix(F, 1, n, array("q", bufs[d]))
-    c = _dependency(Kd, bufs) if _np is not None else None
+    c = _dependency(Kd, bufs, ech) if _np is not None else None
     if c is None:
-        c = Kd.solve_left(last)
+        c = Kd.solve_left(residue_matrix(F, 1, n, array("q", bufs[d])))
     if c is None:  # pragma: no cover - rank argument guarantees a solution
         raise InternalInconsistency("Krylov dependency not found")
     return Kd, c.entries()
 
 
-def _dependency(Kd: Mat, bufs: list[Any]) -> Mat | None:
+def _dependency(Kd: Mat, bufs: list[Any], ech: Any) -> Mat | None:
     """``c`` with ``c Kd = bufs[d]`` for ``Kd`` of full row rank ``d`` (rows ``bufs[:d]``)
-    and ``bufs[d]`` in its row space: the ``d x d`` system on ``d`` pivot columns of ``Kd``
-    (invertible, so ``c`` is unique), checked on all columns by one product.  Far cheaper
-    than the general solver, which eliminates ``[Kd^T | last^T]`` (``n x (d + 1)``)."""
+    and ``bufs[d]`` in its row space; ``ech``: a flint echelon form of ``bufs`` (of rank
+    ``d``: the same row space).  The ``d x d`` system on the ``d`` pivot columns (those of
+    the row space, so invertible on ``Kd``: ``c`` is unique), checked on all columns by
+    one product.  Far cheaper than the general solver, which eliminates ``[Kd^T |
+    last^T]`` (``n x (d + 1)``)."""
     F = Kd.field
     d, n = Kd.nrows, Kd.ncols
-    R, rank = Kd._m.rref()
-    ech = read_residues(R)
-    if ech is None:
+    E = read_residues(ech)
+    if E is None:
         return None
-    if rank != d:
+    # the pivot of each nonzero row of the echelon form: its first nonzero entry
+    rows = _np.frombuffer(E, dtype=_np.int64).reshape(ech.nrows(), n)[:d]
+    cols = _np.argmax(rows != 0, axis=1)
+    if not rows[_np.arange(d), cols].all():
         raise InternalInconsistency("Krylov vectors taken as independent are not")
-    # the pivot of each row of the echelon form: its first nonzero entry
-    cols = _np.argmax(_np.frombuffer(ech, dtype=_np.int64).reshape(d, n) != 0, axis=1)
     K = _np.frombuffer(b"".join(bytes(b) for b in bufs[:d]), dtype=_np.int64).reshape(d, n)
     sub = residue_matrix(F, d, d, _np.ascontiguousarray(K[:, cols]).ravel())
     rhs = residue_matrix(F, 1, d, _np.frombuffer(bytes(bufs[d]), dtype=_np.int64)[cols].copy())

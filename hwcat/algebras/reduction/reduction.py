@@ -305,10 +305,10 @@ def _corner_data(A: StructureAlgebra, e: list[Any], RT: Mat, index, rows) -> tup
     Cb = take_rows(W, C_pos)
     piv, T = coords_solver(Cb)
     Rp = take_rows(RT, piv).transpose()  # columns piv of R
-    cvecs = [embed(A, r, index) for r in raw_rows(A, Cb)]
     c = len(corner)
     mult = []  # mult[l][a] = coordinates of c_a * c_l
-    stacked = _np_rows(cvecs) if A._vectorised() else None
+    stacked = _np_embedded(A, Cb, index) if A._vectorised() else None
+    cvecs = [embed(A, r, index) for r in raw_rows(A, Cb)] if stacked is None else []
     for b in corner:
         if stacked is not None:  # the products with b of all the c_a at once
             prod = A._times_basis_rows(stacked, b)
@@ -869,11 +869,13 @@ class _Search:
         fv = self.node_array(node)
         m = min(n, w + 32)
         coords = np.sort(gen.choice(n, size=m, replace=False)) if m < n else np.arange(n)
+        # the table on those coordinates once: each element is then a gather of whole rows
+        right = right[:, coords] if m < n else right
         acc = np.zeros((w, m), dtype=np.int64)
         for _ in range(8):
             hs = gen.integers(0, n, size=w)
             cs = gen.integers(1, p, size=w, dtype=np.int64) if p > 2 else 1
-            acc += (fv[right[hs[:, None], coords[None, :]]] * (cs[:, None] if p > 2 else 1)) % p
+            acc += (fv[right[hs]] * (cs[:, None] if p > 2 else 1)) % p
         acc %= p
         node.lower = residue_matrix(A.field, w, m, acc.ravel()).rank()
         node.lower_width = w
@@ -1354,10 +1356,11 @@ def _block_products(
     for u in range(m):
         stacked = None
         if vector and any(dims[(s, u)] for s in range(m)):
-            rows = [
-                embed(A, r, classes[u].index) for s in range(m) for r in raw_rows(A, basis[(s, u)])
-            ]
-            stacked = _np_rows(rows)
+            import numpy as np
+
+            stacked = np.vstack(
+                [_np_embedded(A, basis[(s, u)], classes[u].index) for s in range(m)]
+            )
         for t in range(m):
             it = classes[t].index
             for l in gen[(u, t)]:
@@ -1388,6 +1391,24 @@ def _np_rows(rows: list[list[int]]) -> Any:
     import numpy as np
 
     return np.asarray(rows, dtype=np.int64)
+
+
+def _np_embedded(A: StructureAlgebra, M: Mat, index: Sequence[int] | None) -> Any:
+    """The rows of ``M`` (coordinates on span(index)) as an int64 array of residues with
+    ``dim A`` columns (vectorised tables: GF(p)); read in one piece where flint allows."""
+    import numpy as np
+
+    r, c = M.nrows, M.ncols
+    buf = read_residues(M._m) if r and c and isinstance(M.field, PrimeField) else None
+    if buf is None:
+        X = _np_rows(raw_rows(A, M)).reshape(r, c)
+    else:
+        X = np.frombuffer(buf, dtype=np.int64).reshape(r, c)
+    if index is None:
+        return X
+    out = np.zeros((r, A.dim), dtype=np.int64)
+    out[:, np.asarray(index, dtype=np.int64)] = X
+    return out
 
 
 def _np_contiguous(X: Any) -> Any:
