@@ -871,12 +871,13 @@ class _Search:
         coords = np.sort(gen.choice(n, size=m, replace=False)) if m < n else np.arange(n)
         # the table on those coordinates once: each element is then a gather of whole rows
         right = right[:, coords] if m < n else right
-        acc = np.zeros((w, m), dtype=np.int64)
-        for _ in range(8):
-            hs = gen.integers(0, n, size=w)
-            cs = gen.integers(1, p, size=w, dtype=np.int64) if p > 2 else 1
-            acc += (fv[right[hs]] * (cs[:, None] if p > 2 else 1)) % p
-        acc %= p
+        hs = gen.integers(0, n, size=(8, w))  # x_j = sum_t c_tj b_(hs[t, j])
+        terms = fv[right[hs]]  # terms[t, j]: b_(hs[t, j]) f on the coordinates
+        if p > 2:
+            terms *= gen.integers(1, p, size=(8, w, 1), dtype=np.int64)  # below p^2 < 2^62
+            if 8 * (p - 1) ** 2 >= 2**63:
+                terms %= p  # then sums of eight stay below 2^63
+        acc = terms.sum(axis=0) % p
         node.lower = residue_matrix(A.field, w, m, acc.ravel()).rank()
         node.lower_width = w
         node.lower_full = m == n
