@@ -339,3 +339,30 @@ def test_matrices_built_in_spare_memory_give_the_same_reduction(n, field, monkey
     monkeypatch.setattr(reduction._Spare, "LIMIT", 0)
     fresh = reduce_algebra(make())
     _exactly_equal(reused, fresh)
+
+
+@pytest.mark.parametrize(("n", "field"), [(3, "GF(2)"), (4, "GF(3)"), (4, "GF(5)")])
+def test_a_corner_that_is_not_local_comes_with_a_split(n, field):
+    """Certifying the unit of a group algebra (its corner is the whole algebra, not local):
+    the signal carries orthogonal idempotents, none zero, summing to the unit -- checked
+    by the products of the algebra (derived)."""
+    A = from_table(tables.symmetric_group_algebra(n, field))
+    e = list(A._unit)
+    with pytest.raises(reduction._NotPrimitive) as info:
+        reduction._new_class(A, e, A._right_action_transposed(e, None), None, None)
+    parts = info.value.parts
+    assert parts is not None and len(parts) >= 2
+    zero = [0] * A.dim
+    for i, x in enumerate(parts):
+        assert A.raw(x) != A.raw(zero)
+        for j, y in enumerate(parts):
+            assert A.raw(A.product(x, y)) == A.raw(x if i == j else zero)
+    total = [sum(col) for col in zip(*parts, strict=True)]
+    assert A.raw(total) == A._unit
+    with pytest.raises(reduction._NotPrimitive) as info:  # the general check: no parts
+        reduction.FAST_LOCAL = False
+        try:
+            reduction._new_class(A, e, A._right_action_transposed(e, None), None, None)
+        finally:
+            reduction.FAST_LOCAL = True
+    assert not info.value.parts
