@@ -118,8 +118,17 @@ def nmod_mat_gather(values: Any, index: Any, p: int, out: Any = None) -> Any:
     if addr is None or int(M.modulus()) != p or (M.nrows(), M.ncols()) != (r, c):
         return None
     view = np.ctypeslib.as_array((ctypes.c_int64 * (r * c)).from_address(addr)).reshape(r, c)
-    np.take(values, index, out=view, mode="clip")  # positions are valid: clip changes none
+    # a few rows at a time: ``take`` first converts the positions to machine integers, and
+    # a small temporary array is reused where one of the whole size would be fresh memory
+    step = max(1, _GATHER_ENTRIES // c)
+    for r0 in range(0, r, step):
+        # positions are valid, so ``clip`` changes none (and avoids a buffered copy)
+        np.take(values, index[r0 : r0 + step], out=view[r0 : r0 + step], mode="clip")
     return M
+
+
+_GATHER_ENTRIES = 1 << 14
+"""Entries gathered at a time by :func:`nmod_mat_gather` (a temporary array of 128 KB)."""
 
 
 def read_residues(M: Any) -> array | None:
