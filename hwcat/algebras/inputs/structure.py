@@ -446,24 +446,31 @@ class StructureAlgebra:
             np = _np
             cols = self._np_cols()
             small = np.int16 if n < 2**15 else np.int32
-            if all(len(i_a) == n for i_a, _, _ in cols) and bool(
-                (np.concatenate([c_a for _, _, c_a in cols]) == 1).all()
+            # a few rows at a time (``step``): temporaries of 128 KB are reused, where ones
+            # of the whole size would be fresh memory
+            step = max(1, (1 << 14) // n)
+            if all(len(i_a) == n for i_a, _, _ in cols) and all(
+                bool((np.concatenate([c_a for _, _, c_a in cols[j : j + step]]) == 1).all())
+                for j in range(0, n, step)
             ):
                 # row j of P^T is column j of the table: rows i_a, values k_a (one
                 # contiguous row per column costs far less than one scattered assignment)
                 PT = np.full((n, n), -1, dtype=small)
                 for j, (i_a, k_a, _) in enumerate(cols):
                     PT[j, i_a] = k_a
-                P = PT.T
                 if int(PT.min()) >= 0:  # each column holds every i once
+                    P = np.ascontiguousarray(PT.T)
+                    del PT
                     ar = np.arange(n, dtype=small)
                     JR = np.full((n, n), -1, dtype=small)  # JR[i, P[i, j]] = j
-                    JR[ar[:, None], P] = ar[None, :]
                     ILT = np.full((n, n), -1, dtype=small)  # ILT[j, P[i, j]] = i
-                    ILT[ar[None, :], P] = ar[:, None]
+                    for i in range(0, n, step):
+                        Pi = P[i : i + step]
+                        JR[np.arange(i, i + len(Pi))[:, None], Pi] = ar[None, :]
+                        ILT[ar[None, :], Pi] = ar[i : i + len(Pi), None]
                     if int(JR.min()) >= 0 and int(ILT.min()) >= 0:  # n values fill n places
                         # JRT[P[i, j], i] = j = JR[i, P[i, j]]: the transpose of JR
-                        out = (np.ascontiguousarray(P), JR, ILT, np.ascontiguousarray(JR.T))
+                        out = (P, JR, ILT, np.ascontiguousarray(JR.T))
         self._cache["group"] = out
         return out
 
