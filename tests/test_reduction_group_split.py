@@ -366,3 +366,26 @@ def test_a_corner_that_is_not_local_comes_with_a_split(n, field):
         finally:
             reduction.FAST_LOCAL = True
     assert not info.value.parts
+
+
+@pytest.mark.parametrize(("n", "field"), [(4, "GF(3)"), (5, "GF(2)"), (5, "GF(3)")])
+def test_simple_projectives_give_the_same_blocks(n, field, monkeypatch):
+    """Blocks of a simple projective P(t) read off its corner (the others vanish in a
+    symmetric algebra) against the blocks found by products with R_t: exactly the same
+    basic algebra; derived.  S_4 and S_5 over GF(3) have simple projectives (blocks of
+    defect zero, from memory)."""
+    make = lambda: from_table(tables.symmetric_group_algebra(n, field))  # noqa: E731
+    short = reduce_algebra(make())
+    orig = reduction._new_class
+
+    def without_corner_block(*args, **kwargs):
+        cl = orig(*args, **kwargs)
+        cl.corner_block = None
+        return cl
+
+    monkeypatch.setattr(reduction, "_new_class", without_corner_block)
+    plain = reduce_algebra(make())
+    _exactly_equal(short, plain)
+    if field == "GF(3)":
+        pairs = zip(short.projective_dimensions, short.simple_dimensions, strict=True)
+        assert any(d == L for d, L in pairs)

@@ -184,6 +184,9 @@ class _Class:
     rowterms: dict[int, list[tuple[int, int, Any]]] = field(default_factory=dict)
     urows: list[list[Any]] | None = None
     uarray: Any = None  # urows as an int64 array (vectorised ranks)
+    # the corner e A e as a block of the basic algebra: its basis rows e b_l e (on
+    # span(index)), their coordinate solver and the columns of R at its pivots times it
+    corner_block: tuple[Mat, tuple[tuple[int, ...], Mat], Mat] | None = None
 
 
 def _right_ideal_basis(A: StructureAlgebra, e: list[Any], rows) -> tuple[list[int], Mat]:
@@ -465,6 +468,7 @@ def _new_class(A: StructureAlgebra, e: list[Any], RT: Mat, index, rows) -> _Clas
         dim_Ae,
         mult,
         rowterms,
+        corner_block=(Cb, (piv, T), Rp @ T),
     )
 
 
@@ -1325,6 +1329,23 @@ def _find_blocks(
 ) -> None:
     """The blocks ``e_s A e_t`` for one ``t`` and every ``s`` (see :func:`_block_bases`)."""
     F = A.field
+    if A._group_table() is not None and ct.dim_P == ct.n and ct.corner_block is not None:
+        # P(t) = e_t A has the dimension of its top L(t): it is simple, and in a group
+        # algebra (symmetric: socle of P(s) = top, from memory) e_s A e_t = Hom(P(t), P(s))
+        # and e_t A e_s = Hom(P(s), L(t)) vanish for s != t; e_t A e_t = End L(t) is the
+        # corner, found with the class (the sums checked in _block_bases cover all this)
+        if len(ct.corner) != 1:
+            raise InternalInconsistency("a simple projective with a corner of dimension > 1")
+        for s in range(len(classes)):
+            if s == t:
+                B, solv, cols = ct.corner_block
+                gen[(t, t)] = list(ct.corner)
+                basis[(t, t)], solver[(t, t)], colsR[(t, t)] = B, solv, cols
+            else:
+                gen[(s, t)] = []
+                basis[(s, t)] = Mat.zeros(F, 0, A.dim if ct.index is None else len(ct.index))
+                solver[(s, t)] = ((), Mat.zeros(F, 0, 0))
+        return
     # one right multiplication matrix alive at a time, transposed: flint multiplies a
     # square matrix by a thin one faster than a thin one by a square one
     RtT = _class_RT(A, ct, spare)
