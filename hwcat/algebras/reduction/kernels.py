@@ -210,10 +210,11 @@ def _krylov_columns(
             if b is None:
                 return None
             bufs.append(b)
-        # an echelon form rather than the rank: its pivots serve the dependency below
-        ech, r = stacked(len(bufs))._m.rref()
+        K = stacked(len(bufs))
+        r = K.rank()
         if r < len(bufs):
             d = r
+            ech = K._m.rref()[0]  # its pivots serve the dependency below
             break
         if limit is not None and len(bufs) > limit + 1:
             raise InternalInconsistency("Krylov sequence longer than the dimension")
