@@ -254,7 +254,7 @@ def _group_right_ideal_basis(A: StructureAlgebra, e: list[Any], RT: Mat):
         S = RT @ sketch.draw(F, n, w, w)  # column j: y_j e
         Sv = np.frombuffer(read_residues(S._m), dtype=np.int64).reshape(n, w)
         pos = select_independent_rows(residue_matrix(F, n, w, np.ascontiguousarray(Sv[inv])))
-        if len(pos) + sketch.MARGIN <= w:
+        if len(pos) + sketch.margin(F) <= w:
             ev = np.fromiter(map(int, e), dtype=np.int64, count=n) % A._p
             rows = ev[A._group_table()[2][pos]]
             return list(pos), residue_matrix(F, len(pos), n, np.ascontiguousarray(rows).ravel())
@@ -1277,9 +1277,11 @@ def _class_RT(A: StructureAlgebra, c: _Class, spare: _Spare | None = None) -> Ma
     return A._right_action_transposed(c.e, c.index)
 
 
-BLOCK_START_WIDTH = 32
-"""Columns of the first thin product for the blocks ``e_s A e_t`` (usually of dimension a
-few units, far below ``32 - MARGIN``; wider products follow when one is not)."""
+BLOCK_START_WIDTH = 8
+"""Columns of the first thin product for the blocks ``e_s A e_t`` beyond the margin of the
+field (:func:`~hwcat.algebras.reduction.sketch.margin`; 32 columns over GF(2), 24 over
+GF(3)): the blocks usually have dimension a few units; wider products follow when one
+is not."""
 
 
 def _block_sketch(A: StructureAlgebra, RtT: Mat, width: int, seed: int) -> Mat | None:
@@ -1350,17 +1352,23 @@ def _find_blocks(
     # square matrix by a thin one faster than a thin one by a square one
     RtT = _class_RT(A, ct, spare)
     # the blocks are usually far smaller than dim A e_t: sketches of growing width
-    width = BLOCK_START_WIDTH
+    m = sketch.margin(F) if A._p else sketch.MARGIN
+    width = BLOCK_START_WIDTH + m
     sk = _block_sketch(A, RtT, width, 1000 + t)
+    Ls_all = [apply_transfer(cs.L, transfer(A, cs.rows, ct.index)) for cs in classes]
+    # the sketches of all Ls @ R_t from one product (Ls @ (R_t Y), rows of every s)
+    sks = None
+    if sk is not None:
+        sks = _split_rows(Mat.vstack(F, Ls_all, RtT.nrows) @ sk, [L.nrows for L in Ls_all])
     chosen: list[tuple[list[int], Mat | None, Mat]] = []  # (pos, B or None, Ls) per s
-    for cs in classes:
-        Ls = apply_transfer(cs.L, transfer(A, cs.rows, ct.index))
+    for s, Ls in enumerate(Ls_all):
         pos: list[int] | None = None
         while sk is not None and Ls.nrows:
-            pos = select_independent_rows(Ls @ sk)  # rows of Ls @ R_t, found through R_t Y
-            if len(pos) + sketch.MARGIN <= width:
+            # rows of Ls @ R_t, found through R_t Y
+            pos = select_independent_rows(sks[s] if sks is not None else Ls @ sk)
+            if len(pos) + m <= width:
                 break
-            pos = None
+            pos, sks = None, None
             width *= 4
             sk = _block_sketch(A, RtT, width, 1000 + t + width)
         if pos is None:
@@ -1393,6 +1401,15 @@ def _find_blocks(
     if spare is not None and ct.RT is None:
         spare.give(RtT)  # rebuilt here and held by nobody else
     del RtT, sk
+
+
+def _split_rows(M: Mat, sizes: list[int]) -> list[Mat]:
+    """``M`` cut into consecutive row blocks of the given sizes."""
+    out, off = [], 0
+    for k in sizes:
+        out.append(take_rows(M, range(off, off + k)))
+        off += k
+    return out
 
 
 def _block_products(

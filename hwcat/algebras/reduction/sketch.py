@@ -49,6 +49,7 @@ except ImportError:  # pragma: no cover - numpy is an optional extra
 __all__ = [
     "DRAWS",
     "MARGIN",
+    "margin",
     "USE_SKETCH",
     "disabled",
     "draw",
@@ -59,6 +60,20 @@ __all__ = [
 
 MARGIN = 24
 """Columns beyond the rank found: an unlucky draw has probability below ``2^-24``."""
+
+
+def margin(F: Any) -> int:
+    """The smallest ``m`` with ``q^m >= 2^MARGIN`` (``q`` the order of the field ``F``):
+    a draw with ``m`` columns beyond the rank found is as safe over ``F`` as one with
+    :data:`MARGIN` columns over GF(2) (``q^-m / (q - 1)``, see the module notes); 24
+    over GF(2), 16 over GF(3), 11 over GF(5)."""
+    q = F.characteristic ** getattr(F, "degree", 1)
+    m = 1
+    while q**m < 2**MARGIN:
+        m += 1
+    return m
+
+
 START_WIDTH = 64
 USE_SKETCH = True
 """Switch for the thin random products (tests compare both paths)."""
