@@ -251,7 +251,7 @@ def _group_right_ideal_basis(A: StructureAlgebra, e: list[Any], RT: Mat):
     F = A.field
     w = sketch.START_WIDTH
     while 3 * w <= n:
-        S = RT @ sketch.draw(F, n, w, w)  # column j: y_j e
+        S = RT @ sketch.draw_kept(_kept_draws(A), F, n, w, w)  # column j: y_j e
         Sv = np.frombuffer(read_residues(S._m), dtype=np.int64).reshape(n, w)
         pos = select_independent_rows(residue_matrix(F, n, w, np.ascontiguousarray(Sv[inv])))
         if len(pos) + sketch.margin(F) <= w:
@@ -1291,8 +1291,15 @@ def _block_sketch(A: StructureAlgebra, RtT: Mat, width: int, seed: int) -> Mat |
     ``R_t``), or ``None`` when the blocks are better found without it."""
     if not (sketch.USE_SKETCH and A._p) or 3 * width > RtT.nrows or RtT.nrows < sketch.MIN_SIZE:
         return None
-    Yt = sketch.draw(A.field, width, RtT.nrows, seed)
+    Yt = sketch.draw_kept(_kept_draws(A), A.field, width, RtT.nrows, seed)
     return (Yt @ RtT).transpose()
+
+
+def _kept_draws(A: StructureAlgebra) -> dict:
+    """Random matrices of the thin products kept with the algebra: the same draw serves
+    every idempotent (a sketch's result does not depend on it; drawing costs about a
+    tenth of the product)."""
+    return A._cache.setdefault("sketch_draws", {})
 
 
 def _block_bases(
@@ -1356,7 +1363,7 @@ def _find_blocks(
     # the blocks are usually far smaller than dim A e_t: sketches of growing width
     m = sketch.margin(F) if A._p else sketch.MARGIN
     width = BLOCK_START_WIDTH + m
-    sk = _block_sketch(A, RtT, width, 1000 + t)
+    sk = _block_sketch(A, RtT, width, 1000)
     Ls_all = [apply_transfer(cs.L, transfer(A, cs.rows, ct.index)) for cs in classes]
     # the sketches of all Ls @ R_t from one product (Ls @ (R_t Y), rows of every s)
     sks = None
@@ -1372,7 +1379,7 @@ def _find_blocks(
                 break
             pos, sks = None, None
             width *= 4
-            sk = _block_sketch(A, RtT, width, 1000 + t + width)
+            sk = _block_sketch(A, RtT, width, 1000 + width)
         if pos is None:
             X = _times_transposed(Ls, RtT)  # = Ls @ R_t
             pos = select_independent_rows(X) if X.nrows else []
@@ -1721,6 +1728,7 @@ def reduce_algebra(
         # once more by plain elimination, whose failures are the algebra's own
         if sketch.DRAWS == drawn:
             raise
+        A._cache.pop("sketch_draws", None)  # an unlucky draw is not kept for later
     with sketch.disabled():
         return _reduce(A, seed, idempotents, method)
 

@@ -53,6 +53,7 @@ __all__ = [
     "USE_SKETCH",
     "disabled",
     "draw",
+    "draw_kept",
     "random_matrix",
     "sketched_independent_rows",
     "sketched_rank",
@@ -101,6 +102,19 @@ def draw(F: Any, nrows: int, ncols: int, seed: int) -> Mat:
     global DRAWS
     DRAWS += 1
     return random_matrix(F, nrows, ncols, seed)
+
+
+def draw_kept(kept: dict, F: Any, nrows: int, ncols: int, seed: int) -> Mat:
+    """:func:`draw`, kept in ``kept`` (a dictionary owned by the caller, e.g. an algebra's
+    cache) for the next call with the same arguments: the result of a sketch does not
+    depend on the draw (see the module notes), so one draw may serve many products.
+    Counted in :data:`DRAWS` at every call."""
+    global DRAWS
+    DRAWS += 1
+    key = (F, nrows, ncols, seed)
+    if key not in kept:
+        kept[key] = random_matrix(F, nrows, ncols, seed)
+    return kept[key]
 
 
 def random_matrix(F: Any, nrows: int, ncols: int, seed: int) -> Mat:
