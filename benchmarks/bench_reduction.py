@@ -93,9 +93,9 @@ before and after side by side in the same minutes, with two other jobs on the tw
 Over the afternoon, after: S_6 GF(3) 9.3 - 13.9 in quieter runs (0.15 - 0.19 s against a
 13 - 20 ms rank), up to 17 when both cores were taken by other jobs (CPU time then
 grows for this memory-bound work more than for the rank); before, 16.9 - 17.7 (0.34 -
-0.36 s) in a quiet run.  S_6 GF(2) 6.3 - 9.6 after.  S_7, one run each after: GF(3)
-3.6 (13.2 s, before 6.1 with 20 s), GF(2) 2.8 (37 s; before, in the same hour, 2.9 with
-37 s).  Peak memory of S_6 after: 105 - 127 MiB (before 190 - 214).
+0.36 s) in a quiet run.  S_6 GF(2) 6.3 - 9.6 after.  S_7, two runs each after: GF(3)
+3.6 - 4.1 (12.7 - 13.2 s, before 6.1 with 20 s), GF(2) 2.7 - 2.8 (37 s; before, in the
+same hour, 2.9 with 37 s).  Peak memory of S_6 after: 105 - 127 MiB (before 190 - 214).
 """
 
 from __future__ import annotations
