@@ -102,6 +102,31 @@ S_7.  S_6 over GF(3) in processor time, seven seeds after a warm-up run in one p
 0.21 - 0.25 s against a 13 - 16 ms rank in quiet moments (ratios 14 - 20), 0.26 - 0.32 s when
 the machine is busier.  S_5 stays far above 20: its rank takes under a millisecond, the
 reduction some 30 ms of fixed costs.
+
+Then S_6 over GF(3), where most of the time went to memory: every fresh 4 MB page range
+of a ``720 x 720`` matrix (node matrices, index arrays, temporaries) cost 2 to 20 ms of
+page faults on this machine, and most products with such a matrix are bound by reading
+it.  Changes: node and class matrices gathered straight into flint, into the memory of
+matrices no longer in use (``_Spare``), a few rows at a time; the group table's arrays
+built without whole-size temporaries; the Krylov dependency from the pivot columns of the
+sequence instead of an ``n x (d + 1)`` elimination; a corner found not local splits its
+node with its own element, so two single-factor elements (not four) precede a
+certificate over GF(3); the blocks of a simple projective read off its corner; block
+sketches of ``margin(p) + 8`` columns from one product and one kept draw.  CPU time of
+the reduction (``cpu ratio``), ``--repeat 5 --case "S_6 GF(3)" --case "S_6 GF(2)"``,
+before and after side by side in the same minutes, with two other jobs on the two cores
+(the rank of a 720 x 720 matrix over GF(3) took 13 to 20 ms)::
+
+    case       dim   before: cpu ratio (s)           after: cpu ratio (s)
+    S_6 GF(3)   720     17.6 - 21.3 (0.29)          11.6 - 13.9 (0.15 - 0.17)
+    S_6 GF(2)   720      9.1 - 9.2 (0.42 - 0.43)     7.0 - 7.7 (0.35 - 0.36)
+
+Over the afternoon, after: S_6 GF(3) 9.3 - 13.9 in quieter runs (0.15 - 0.19 s against a
+13 - 20 ms rank), up to 17 when both cores were taken by other jobs (CPU time then
+grows for this memory-bound work more than for the rank); before, 16.9 - 17.7 (0.34 -
+0.36 s) in a quiet run.  S_6 GF(2) 6.3 - 9.6 after.  S_7, two runs each after: GF(3)
+3.6 - 4.1 (12.7 - 13.2 s, before 6.1 with 20 s), GF(2) 2.7 - 2.8 (37 s; before, in the
+same hour, 2.9 with 37 s).  Peak memory of S_6 after: 105 - 127 MiB (before 190 - 214).
 """
 
 from __future__ import annotations

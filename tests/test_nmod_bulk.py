@@ -80,3 +80,33 @@ def test_a_wrong_buffer_size_is_refused():
 
     with pytest.raises(ValueError):
         nmod_mat_from_residues(2, 2, array("q", [1, 2, 3]), 5)
+
+
+@settings(max_examples=25, deadline=None)
+@given(
+    st.sampled_from([2, 3, 7, 2**31 - 1]),
+    st.integers(1, 40),
+    st.integers(1, 40),
+    st.integers(0, 2**30),
+)
+def test_gathered_matrices_equal_the_lists_and_reuse_the_given_memory(p, r, c, seed):
+    """``values[index]`` gathered into flint (fresh, or into a matrix given up for it)
+    against the same entries placed one by one (derived)."""
+    import numpy as np
+
+    from hwcat.exact.polys import matrix_by_gather
+
+    rng = np.random.default_rng(seed)
+    values = rng.integers(0, p, size=50, dtype=np.int64)
+    index = rng.integers(0, 50, size=(r, c)).astype(np.int16)
+    want = Mat.from_flat(GF(p), r, c, [int(values[i]) for i in index.ravel()])
+    assert matrix_by_gather(GF(p), values, index) == want
+    old = Mat.from_flat(GF(p), r, c, [1] * (r * c))
+    got = matrix_by_gather(GF(p), values, index, out=old)
+    assert got == want
+    if bulk_available():
+        assert got._m is old._m  # written in place
+    # a matrix of another shape is not written into
+    other = Mat.from_flat(GF(p), r + 1, c, [1] * ((r + 1) * c))
+    assert matrix_by_gather(GF(p), values, index, out=other) == want
+    assert other == Mat.from_flat(GF(p), r + 1, c, [1] * ((r + 1) * c))

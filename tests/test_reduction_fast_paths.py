@@ -299,6 +299,7 @@ def test_unlucky_draws_fall_back_to_the_elimination(make, monkeypatch):
     got = reduce_algebra(A)
     assert runs == [True, False]  # the first run failed its checks, the second used no sketch
     assert sketch.USE_SKETCH
+    assert "sketch_draws" not in A._cache  # the unlucky draws are not kept
     _same_reduction(got, plain)
     # the unlucky run alone does fail (a check, or a step further on)
     with pytest.raises((AssertionError, ArithmeticError, LookupError, ValueError)):

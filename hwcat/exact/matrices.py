@@ -390,9 +390,8 @@ class Mat:
                 out._m = (S if S is not None else _selection(field, rank, r)) * R
             return out, pivots
         R, rank = m.rref()
-        buf = self._residues()  # None unless one-piece copies work for this matrix
-        if buf is not None:
-            buf = read_residues(R)
+        # the echelon form in one piece (None unless one-piece copies work for it)
+        buf = read_residues(R) if isinstance(self.field, PrimeField) else None
         if buf is not None:
             pivots = []
             j = 0

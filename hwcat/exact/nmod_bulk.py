@@ -34,6 +34,7 @@ import flint
 __all__ = [
     "bulk_available",
     "nmod_mat_from_residues",
+    "nmod_mat_gather",
     "power_trace",
     "read_residues",
     "read_rows",
@@ -96,6 +97,38 @@ def nmod_mat_from_residues(nrows: int, ncols: int, buf: Any, p: int) -> Any:
         src = (ctypes.c_char * mv.nbytes).from_buffer(mv)
     ctypes.memmove(addr, ctypes.addressof(src), mv.nbytes)
     return M
+
+
+def nmod_mat_gather(values: Any, index: Any, p: int, out: Any = None) -> Any:
+    """A flint ``nmod_mat`` with entries ``values[index]`` (numpy: ``values`` int64 residues
+    in ``[0, p)``, ``index`` a two-dimensional integer array of positions in ``values``),
+    gathered straight into flint's entries; ``None`` when that is unavailable.
+
+    ``out``: a flint ``nmod_mat`` of that shape and modulus that its owner gives up; its
+    entries are overwritten and it is returned.  Memory already in use costs far less
+    to write than fresh memory (whose pages are first touched here), and no numpy copy
+    of the whole matrix is made on the way."""
+    import numpy as np
+
+    r, c = index.shape
+    if r == 0 or c == 0:
+        return None
+    M = out if out is not None else flint.nmod_mat(r, c, p)
+    addr = _entries_address(M)  # also checks the shape and the modulus of ``out``
+    if addr is None or int(M.modulus()) != p or (M.nrows(), M.ncols()) != (r, c):
+        return None
+    view = np.ctypeslib.as_array((ctypes.c_int64 * (r * c)).from_address(addr)).reshape(r, c)
+    # a few rows at a time: ``take`` first converts the positions to machine integers, and
+    # a small temporary array is reused where one of the whole size would be fresh memory
+    step = max(1, _GATHER_ENTRIES // c)
+    for r0 in range(0, r, step):
+        # positions are valid, so ``clip`` changes none (and avoids a buffered copy)
+        np.take(values, index[r0 : r0 + step], out=view[r0 : r0 + step], mode="clip")
+    return M
+
+
+_GATHER_ENTRIES = 1 << 14
+"""Entries gathered at a time by :func:`nmod_mat_gather` (a temporary array of 128 KB)."""
 
 
 def read_residues(M: Any) -> array | None:

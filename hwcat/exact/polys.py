@@ -34,7 +34,7 @@ import flint
 from hwcat.errors import InternalInconsistency
 from hwcat.exact.fields import Field, PrimeField
 from hwcat.exact.matrices import Mat
-from hwcat.exact.nmod_bulk import bulk_available, nmod_mat_from_residues
+from hwcat.exact.nmod_bulk import bulk_available, nmod_mat_from_residues, nmod_mat_gather
 
 _BULK_MIN = 4096
 
@@ -43,6 +43,7 @@ __all__ = [
     "fitting_polynomials",
     "matrix_from_ints",
     "matrix_from_residues",
+    "matrix_by_gather",
     "sparse_matrix",
     "select_columns",
     "select_rows",
@@ -216,6 +217,19 @@ def matrix_from_residues(field: PrimeField, nrows: int, ncols: int, buf: Any) ->
     return Mat(field, flint.nmod_mat(nrows, ncols, vals, p)) if nrows and ncols else Mat.zeros(
         field, nrows, ncols
     )
+
+
+def matrix_by_gather(field: PrimeField, values: Any, index: Any, out: Mat | None = None) -> Mat:
+    """The matrix ``values[index]`` over GF(p) (numpy: ``values`` int64 residues in
+    ``[0, p)``, ``index`` a two-dimensional array of positions), written into the entries
+    of ``out`` when given (a matrix of that shape over ``field`` that the caller gives up:
+    it must not be used again except through the result)."""
+    r, c = index.shape
+    if r and c and bulk_available():
+        M = nmod_mat_gather(values, index, field.p, None if out is None else out._m)
+        if M is not None:
+            return Mat(field, M)
+    return matrix_from_residues(field, r, c, values[index].ravel())
 
 
 def matrix_from_ints(field: Field, nrows: int, ncols: int, values: Sequence[Any]) -> Mat:

@@ -56,7 +56,12 @@ from hwcat.exact import (
     split_signed_terms,
 )
 from hwcat.exact.nmod_bulk import dot_mod
-from hwcat.exact.polys import matrix_from_ints, matrix_from_residues, sparse_matrix
+from hwcat.exact.polys import (
+    matrix_by_gather,
+    matrix_from_ints,
+    matrix_from_residues,
+    sparse_matrix,
+)
 from hwcat.limits import check_products
 
 try:  # optional: vectorised passes over the table (exact int64 arithmetic mod p)
@@ -429,32 +434,47 @@ class StructureAlgebra:
             np = _np
             cols = self._np_cols()
             small = np.int16 if n < 2**15 else np.int32
+            # a few rows at a time (``step``): temporaries of 128 KB are reused, where ones
+            # of the whole size would be fresh memory
+            step = max(1, (1 << 14) // n)
             if all(len(i_a) == n for i_a, _, _ in cols) and all(
-                (c_a == 1).all() for _, _, c_a in cols
+                bool((np.concatenate([c_a for _, _, c_a in cols[j : j + step]]) == 1).all())
+                for j in range(0, n, step)
             ):
-                # all columns at once: column j of the table sits at rows i_a, values k_a
-                P = np.full((n, n), -1, dtype=small)
-                ar = np.arange(n, dtype=small)
-                P[np.concatenate([i_a for i_a, _, _ in cols]), np.repeat(ar, n)] = np.concatenate(
-                    [k_a for _, k_a, _ in cols]
-                )
-                if int(P.min()) >= 0:  # each column holds every i once
+                # row j of P^T is column j of the table: rows i_a, values k_a (one
+                # contiguous row per column costs far less than one scattered assignment)
+                PT = np.full((n, n), -1, dtype=small)
+                for j, (i_a, k_a, _) in enumerate(cols):
+                    PT[j, i_a] = k_a
+                if int(PT.min()) >= 0:  # each column holds every i once
+                    P = np.ascontiguousarray(PT.T)
+                    del PT
+                    ar = np.arange(n, dtype=small)
                     JR = np.full((n, n), -1, dtype=small)  # JR[i, P[i, j]] = j
-                    JR[ar[:, None], P] = ar[None, :]
                     ILT = np.full((n, n), -1, dtype=small)  # ILT[j, P[i, j]] = i
-                    ILT[ar[None, :], P] = ar[:, None]
-                    JRT = np.full((n, n), -1, dtype=small)  # JRT[P[i, j], i] = j
-                    JRT[P, ar[:, None]] = ar[None, :]
+                    for i in range(0, n, step):
+                        Pi = P[i : i + step]
+                        JR[np.arange(i, i + len(Pi))[:, None], Pi] = ar[None, :]
+                        ILT[ar[None, :], Pi] = ar[i : i + len(Pi), None]
                     if int(JR.min()) >= 0 and int(ILT.min()) >= 0:  # n values fill n places
-                        out = (P, JR, ILT, JRT)
+                        # JRT[P[i, j], i] = j = JR[i, P[i, j]]: the transpose of JR
+                        out = (P, JR, ILT, np.ascontiguousarray(JR.T))
         self._cache["group"] = out
         return out
 
     def _action_dense_vectorised(
-        self, y: list[Any], index: Sequence[int] | None, m: int, left: bool, transpose: bool = False
+        self,
+        y: list[Any],
+        index: Sequence[int] | None,
+        m: int,
+        left: bool,
+        transpose: bool = False,
+        out: Mat | None = None,
     ) -> Mat:
         """The dense branch of :meth:`_action` with int64 arrays (same matrix, exactly;
-        its transpose with ``transpose``, for the right action)."""
+        its transpose with ``transpose``, for the right action).  ``out``: a ``dim A x dim
+        A`` matrix the caller gives up, overwritten by a group table's matrix (see
+        :meth:`_right_action_transposed`)."""
         np = _np
         p = self._p
         n = self.dim
@@ -462,10 +482,10 @@ class StructureAlgebra:
         if group is not None:
             yv = np.asarray([int(v) % p for v in y], dtype=np.int64)
             if left:
-                M = yv[group[2]]  # row j: x b_j, entry k = x_i with b_i b_j = b_k
+                G = group[2]  # row j: x b_j, entry k = x_i with b_i b_j = b_k
             else:  # row i: b_i y, entry k = y_j with b_i b_j = b_k (its transpose: by JR^T)
-                M = yv[group[3]] if transpose else yv[group[1]]
-            return matrix_from_residues(self.field, n, n, M.ravel())
+                G = group[3] if transpose else group[1]
+            return matrix_by_gather(self.field, yv, G, out)
         cols = self._np_cols()
         acc = np.zeros(m * m, dtype=np.int64)
         if index is None:
@@ -675,12 +695,18 @@ class StructureAlgebra:
             return matrix_from_ints(F, m, m, acc)
         return sparse_matrix(F, m, m, {(q // m, q % m): v for q, v in acc.items()})
 
-    def _right_action_transposed(self, y: list[Any], index: Sequence[int] | None) -> Mat:
+    def _right_action_transposed(
+        self, y: list[Any], index: Sequence[int] | None, out: Mat | None = None
+    ) -> Mat:
         """The transpose of ``_action(y, index, left=False)``, built as such when the
-        table passes are vectorised (flint's transpose of a large matrix is slow)."""
+        table passes are vectorised (flint's transpose of a large matrix is slow).
+
+        ``out``: a ``dim A x dim A`` matrix over the field that the caller gives up (it
+        must not be used again): a group table's matrix may be written into its entries
+        (memory already in use is far cheaper to write than fresh memory)."""
         if self._vectorised():
             m = self.dim if index is None else len(index)
-            return self._action_dense_vectorised(y, index, m, False, transpose=True)
+            return self._action_dense_vectorised(y, index, m, False, transpose=True, out=out)
         return self._action(y, index, left=False).transpose()
 
     def right_action(self, y: Sequence[Any], index: Sequence[int] | None = None) -> Mat:

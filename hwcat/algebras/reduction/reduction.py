@@ -154,7 +154,13 @@ __all__ = [
 
 
 class _NotPrimitive(Exception):
-    """Internal signal: the corner of a candidate leaf is not local."""
+    """Internal signal: the corner of a candidate leaf is not local.  ``parts``: when the
+    signal comes with them, orthogonal idempotents (nonzero, at least two) summing to the
+    leaf's idempotent, found on the way."""
+
+    def __init__(self, parts: list[Any] | None = None) -> None:
+        super().__init__()
+        self.parts = parts
 
 
 @dataclass
@@ -178,6 +184,9 @@ class _Class:
     rowterms: dict[int, list[tuple[int, int, Any]]] = field(default_factory=dict)
     urows: list[list[Any]] | None = None
     uarray: Any = None  # urows as an int64 array (vectorised ranks)
+    # the corner e A e as a block of the basic algebra: its basis rows e b_l e (on
+    # span(index)), their coordinate solver and the columns of R at its pivots times it
+    corner_block: tuple[Mat, tuple[tuple[int, ...], Mat], Mat] | None = None
 
 
 def _right_ideal_basis(A: StructureAlgebra, e: list[Any], rows) -> tuple[list[int], Mat]:
@@ -242,10 +251,10 @@ def _group_right_ideal_basis(A: StructureAlgebra, e: list[Any], RT: Mat):
     F = A.field
     w = sketch.START_WIDTH
     while 3 * w <= n:
-        S = RT @ sketch.draw(F, n, w, w)  # column j: y_j e
+        S = RT @ sketch.draw_kept(_kept_draws(A), F, n, w, w)  # column j: y_j e
         Sv = np.frombuffer(read_residues(S._m), dtype=np.int64).reshape(n, w)
         pos = select_independent_rows(residue_matrix(F, n, w, np.ascontiguousarray(Sv[inv])))
-        if len(pos) + sketch.MARGIN <= w:
+        if len(pos) + sketch.margin(F) <= w:
             ev = np.fromiter(map(int, e), dtype=np.int64, count=n) % A._p
             rows = ev[A._group_table()[2][pos]]
             return list(pos), residue_matrix(F, len(pos), n, np.ascontiguousarray(rows).ravel())
@@ -305,10 +314,10 @@ def _corner_data(A: StructureAlgebra, e: list[Any], RT: Mat, index, rows) -> tup
     Cb = take_rows(W, C_pos)
     piv, T = coords_solver(Cb)
     Rp = take_rows(RT, piv).transpose()  # columns piv of R
-    cvecs = [embed(A, r, index) for r in raw_rows(A, Cb)]
     c = len(corner)
     mult = []  # mult[l][a] = coordinates of c_a * c_l
-    stacked = _np_rows(cvecs) if A._vectorised() else None
+    stacked = _np_embedded(A, Cb, index) if A._vectorised() else None
+    cvecs = [embed(A, r, index) for r in raw_rows(A, Cb)] if stacked is None else []
     for b in corner:
         if stacked is not None:  # the products with b of all the c_a at once
             prod = A._times_basis_rows(stacked, b)
@@ -351,7 +360,7 @@ def _local_certificate(F: Any, mult: list[Mat], ecoords: Mat) -> tuple[Mat, list
         K, co = krylov(ecoords, M)
         facs = minpoly(F, K.nrows, co).factor()
         if len(facs) > 1:  # Fitting's lemma: c_l gives an idempotent other than 0, e
-            raise _NotPrimitive()
+            raise _NotPrimitive(_fitting_parts(F, K, facs))
         if facs[0][0].degree != 1:
             return None
         g = facs[0][0].coeffs()  # g = g0 + g1 x
@@ -373,6 +382,19 @@ def _local_certificate(F: Any, mult: list[Mat], ecoords: Mat) -> tuple[Mat, list
             return None  # N^(k+1) = N^k: not nilpotent
         V = W
     return None
+
+
+def _fitting_parts(F: Any, K: Mat, facs: list[tuple[Poly, int]]) -> list[Mat]:
+    """From the Krylov sequence ``K`` of the unit ``e`` of a corner under an element ``z``
+    (rows ``e z^a``, coordinates) whose minimal polynomial has the coprime factors
+    ``facs``: the Fitting idempotents ``pi_k(z)`` (orthogonal, nonzero, summing to ``e``),
+    as rows of coordinates (see :meth:`_Search._children`)."""
+    d = K.nrows
+    parts = []
+    for pi in fitting_polynomials(facs):
+        co = pi.coeffs() + [F.zero] * (d - pi.degree - 1)
+        parts.append(Mat.from_flat(F, 1, d, co[:d]) @ K)
+    return parts
 
 
 def _local_data(A: StructureAlgebra, corner_mult: list[Mat], ecoords: Mat) -> tuple[Mat, list]:
@@ -398,7 +420,12 @@ def _new_class(A: StructureAlgebra, e: list[Any], RT: Mat, index, rows) -> _Clas
     F = A.field
     Lr, J, corner, Cb, piv, T, mult, Rp = _corner_data(A, e, RT, index, rows)
     ecoords = select_columns(as_row(A, restrict(e, index)), piv) @ T
-    rad, chi = _local_data(A, mult, ecoords)
+    try:
+        rad, chi = _local_data(A, mult, ecoords)
+    except _NotPrimitive as exc:
+        if exc.parts:  # from coordinates in the corner to vectors of A
+            exc.parts = [embed(A, (v @ Cb).entries(), index) for v in exc.parts]
+        raise
     if rad.nrows != len(corner) - 1:
         _residue_check(A, mult, rad, random.Random(len(corner)))
     # phi(b_j) = chi(e b_j e): col is x -> chi(x e) on span(index), then one pass over b_j
@@ -441,6 +468,7 @@ def _new_class(A: StructureAlgebra, e: list[Any], RT: Mat, index, rows) -> _Clas
         dim_Ae,
         mult,
         rowterms,
+        corner_block=(Cb, (piv, T), Rp @ T),
     )
 
 
@@ -516,6 +544,8 @@ class _Search:
         self.tau = _group_trace(self.A) or self.A.raw(self.A.trace_functional())
         self.pool: list[tuple[list[Any], Mat]] = []
         self.pool_T: dict[int, Mat] = {}  # transposed matrices of the pool (small algebras)
+        self.spare = _Spare()  # node matrices no longer in use (group algebras)
+        self._gen: Any = None  # numpy generator (group algebras), seeded from rng when made
 
     def dense(self, k: int) -> tuple[list[Any], Mat]:
         """The ``k``-th dense random element and its right multiplication matrix.
@@ -564,14 +594,25 @@ class _Search:
         """The transpose of right multiplication by the node's idempotent (kept on the node)."""
         if node.RT is None:
             t0 = time.perf_counter()
+            if node.root and node.index is None and node.R is None:
+                node.R = Mat.identity(self.A.field, self.A.dim)
             if node.R is not None:
                 node.RT = node.R.transpose()
             else:
-                node.RT = self.A._right_action_transposed(node.f, node.index)
+                node.RT = self.spare.right_transposed(self.A, node.f, node.index)
             self.tick("node_matrices", t0)
         return node.RT
 
+    def drop_matrices(self, node: _Node) -> None:
+        """The node is done with: in a group algebra its matrix (built by :meth:`ensure_RT`
+        on the group route, held by the node alone) is kept for the next node."""
+        if self._group_route() and not node.root and node.index is None and node.R is None:
+            self.spare.give(node.RT)
+        node.R = node.RT = None
+
     def ensure_R(self, node: _Node) -> Mat:
+        if node.R is None and node.root and node.index is None:
+            node.R = Mat.identity(self.A.field, self.A.dim)
         if node.R is None:
             t0 = time.perf_counter()
             node.R = self.A._action(node.f, node.index, left=False)
@@ -612,6 +653,15 @@ class _Search:
             fv = self.node_array(node) if self.A._vectorised() else None
             done.extend(_rank_in_simple(self.A, c, node.f, fv) for c in self.classes[len(done) :])
         return list(done)
+
+    def gen(self) -> Any:
+        """A numpy random generator for the whole search, seeded from ``rng`` when first
+        asked for (making one per random element costs more than the element)."""
+        if self._gen is None:
+            import numpy as np
+
+            self._gen = np.random.default_rng(self.rng.randrange(2**32))
+        return self._gen
 
     def node_array(self, node: _Node) -> Any:
         """The node's idempotent as an int64 array of residues (kept on the node)."""
@@ -736,7 +786,7 @@ class _Search:
         # at most half of the group (over GF(2) the sum of all elements is central), and a
         # random size (sums of the same length lie in one coset of a small subspace)
         top = max(1, min(n // 2, GROUP_SUPPORT << min(node.attempts - 1, 3)))
-        gen = np.random.default_rng(self.rng.randrange(2**32))
+        gen = self.gen()
         js = gen.choice(n, size=self.rng.randint(max(1, top // 2), top), replace=False)
         coefs = gen.integers(1, p, size=len(js), dtype=np.int64)
         RT = None if node.root else self.ensure_RT(node)
@@ -842,17 +892,20 @@ class _Search:
         ):
             return node.lower
         t0 = time.perf_counter()
-        gen = np.random.default_rng(self.rng.randrange(2**32))
+        gen = self.gen()
         right = A._group_table()[1]  # b_h f = f[right[h]]
         fv = self.node_array(node)
         m = min(n, w + 32)
         coords = np.sort(gen.choice(n, size=m, replace=False)) if m < n else np.arange(n)
-        acc = np.zeros((w, m), dtype=np.int64)
-        for _ in range(8):
-            hs = gen.integers(0, n, size=w)
-            cs = gen.integers(1, p, size=w, dtype=np.int64) if p > 2 else 1
-            acc += (fv[right[hs[:, None], coords[None, :]]] * (cs[:, None] if p > 2 else 1)) % p
-        acc %= p
+        # the table on those coordinates once: each element is then a gather of whole rows
+        right = right[:, coords] if m < n else right
+        hs = gen.integers(0, n, size=(8, w))  # x_j = sum_t c_tj b_(hs[t, j])
+        terms = fv[right[hs]]  # terms[t, j]: b_(hs[t, j]) f on the coordinates
+        if p > 2:
+            terms *= gen.integers(1, p, size=(8, w, 1), dtype=np.int64)  # below p^2 < 2^62
+            if 8 * (p - 1) ** 2 >= 2**63:
+                terms %= p  # then sums of eight stay below 2^63
+        acc = terms.sum(axis=0) % p
         node.lower = residue_matrix(A.field, w, m, acc.ravel()).rank()
         node.lower_width = w
         node.lower_full = m == n
@@ -868,22 +921,7 @@ class _Search:
                 self._give_up(node, degrees)
             res = self.split_attempt(node)
             if isinstance(res, list):
-                node.R = node.RT = None
-                d = node.depth + node.attempts
-                dims: list[int | None] = [None] * len(res)
-                return [
-                    _Node(
-                        f,
-                        node.index,
-                        node.rows,
-                        node.core,
-                        depth=d,
-                        parent_dim=node.dim_Af,
-                        family=dims,
-                        slot=i,
-                    )
-                    for i, f in enumerate(res)
-                ]
+                return self._split_into(node, res)
             g, _ = res
             degrees.append(g.degree)
             # z = lambda f + nilpotent with lambda != 0 is evidence that f A f is local;
@@ -892,7 +930,7 @@ class _Search:
                 hits += 1
             # in a group algebra over a small field the sparse elements of _split_group
             # are cheap and a failed certification is not: more of them first
-            few = GROUP_EVIDENCE if self._group_route() and self.A._p <= 3 else 0
+            few = GROUP_EVIDENCE.get(self.A._p, 0) if self._group_route() else 0
             if (hits >= (2 if self.A._p else 3) and len(degrees) >= few) or len(degrees) >= 8:
                 t0 = time.perf_counter()
                 try:
@@ -903,7 +941,9 @@ class _Search:
                         node.index,
                         node.rows,
                     )
-                except _NotPrimitive:
+                except _NotPrimitive as exc:
+                    if exc.parts:  # the corner's own element split it: its children
+                        return self._split_into(node, exc.parts)
                     hits = 0
                     degrees = degrees[-2:]
                     continue
@@ -911,12 +951,34 @@ class _Search:
                     self.tick("certify", t0)
                 if sum(self.node_ranks(node)):
                     raise InternalInconsistency("a primitive idempotent of a known class was kept")
-                if cl.index is None and self.A.dim > KEEP_MATRICES_LIMIT:
-                    cl.RT = None  # rebuilt by _class_RT when the basic algebra is assembled
+                if cl.index is None and (self.A.dim > KEEP_MATRICES_LIMIT or self._group_route()):
+                    # rebuilt by _class_RT when the basic algebra is assembled (in a group
+                    # algebra one gather into the memory of a matrix no longer in use)
+                    cl.RT = None
+                    self.drop_matrices(node)
                 node.R = node.RT = None
                 self.classes.append(cl)
                 self.advance(cl.n * cl.dim_P)
                 return []
+
+    def _split_into(self, node: _Node, fs: list[list[Any]]) -> list[_Node]:
+        """The children of ``node``: orthogonal idempotents ``fs`` summing to its own."""
+        self.drop_matrices(node)
+        d = node.depth + node.attempts
+        dims: list[int | None] = [None] * len(fs)
+        return [
+            _Node(
+                f,
+                node.index,
+                node.rows,
+                node.core,
+                depth=d,
+                parent_dim=node.dim_Af,
+                family=dims,
+                slot=i,
+            )
+            for i, f in enumerate(fs)
+        ]
 
     def _give_up(self, node: _Node, degrees: list[int]) -> None:
         A = self.A
@@ -1003,7 +1065,8 @@ def _roots(A: StructureAlgebra) -> list[_Node]:
     peirce = A.peirce_idempotents()
     if peirce is None:
         return [
-            _Node(list(A._unit), None, None, None, root=True, R=Mat.identity(A.field, n), dim_Af=n)
+            # R (the identity) is made only if asked for: the splits of the root never use it
+            _Node(list(A._unit), None, None, None, root=True, dim_Af=n)
         ]
     nodes = []
     for s in peirce:
@@ -1171,19 +1234,56 @@ tests compare both routes)."""
 GROUP_SUPPORT = 16
 """Number of group elements in the first random element tried at a node of a group algebra."""
 
-GROUP_EVIDENCE = 4
+GROUP_EVIDENCE = {2: 4, 3: 2}
 """In a group algebra over GF(2) or GF(3): random elements of a corner with a single
-factor in their minimal polynomial seen before the corner is certified local."""
+factor in their minimal polynomial seen before the corner is certified local.  A corner
+that is not local costs little more than a further element: its certificate stops at
+the first basis element with two coprime factors, whose Fitting idempotents split the
+node (:func:`_fitting_parts`).  On S_6 over GF(3), 2 instead of 4 took 9 % off the
+reduction (ten seeds, the same process); over GF(2), where a corner ``F x F`` gives a
+single factor more often (half the time against a third) and a certificate of S_7
+costs seconds, 4 stay."""
 
 
-def _class_RT(A: StructureAlgebra, c: _Class) -> Mat:
-    """Transposed right multiplication by the class's idempotent (kept, or rebuilt)."""
-    return c.RT if c.RT is not None else A._right_action_transposed(c.e, c.index)
+class _Spare:
+    """Dense ``dim A x dim A`` matrices whose owners are done with them, overwritten by the
+    next matrix of a group algebra (:meth:`StructureAlgebra._right_action_transposed` with
+    ``out``): writing memory already in use costs far less than touching fresh pages (on
+    S_6, a 720 x 720 matrix in 0.5 ms instead of 2 to 7 ms).  Only matrices held by
+    nobody else may be given."""
+
+    LIMIT = 2
+
+    def __init__(self) -> None:
+        self.mats: list[Mat] = []
+
+    def give(self, M: Mat | None) -> None:
+        if M is not None and len(self.mats) < self.LIMIT:
+            self.mats.append(M)
+
+    def right_transposed(self, A: StructureAlgebra, e: list[Any], index) -> Mat:
+        """``A._right_action_transposed(e, index)``, in the memory of a spare matrix."""
+        out = None
+        if index is None and self.mats and self.mats[-1].nrows == A.dim:
+            out = self.mats.pop()
+        return A._right_action_transposed(e, index, out=out)
 
 
-BLOCK_START_WIDTH = 32
-"""Columns of the first thin product for the blocks ``e_s A e_t`` (usually of dimension a
-few units, far below ``32 - MARGIN``; wider products follow when one is not)."""
+def _class_RT(A: StructureAlgebra, c: _Class, spare: _Spare | None = None) -> Mat:
+    """Transposed right multiplication by the class's idempotent (kept, or rebuilt, in the
+    memory of a spare matrix if ``spare`` holds one)."""
+    if c.RT is not None:
+        return c.RT
+    if spare is not None:
+        return spare.right_transposed(A, c.e, c.index)
+    return A._right_action_transposed(c.e, c.index)
+
+
+BLOCK_START_WIDTH = 8
+"""Columns of the first thin product for the blocks ``e_s A e_t`` beyond the margin of the
+field (:func:`~hwcat.algebras.reduction.sketch.margin`; 32 columns over GF(2), 24 over
+GF(3)): the blocks usually have dimension a few units; wider products follow when one
+is not."""
 
 
 def _block_sketch(A: StructureAlgebra, RtT: Mat, width: int, seed: int) -> Mat | None:
@@ -1191,21 +1291,31 @@ def _block_sketch(A: StructureAlgebra, RtT: Mat, width: int, seed: int) -> Mat |
     ``R_t``), or ``None`` when the blocks are better found without it."""
     if not (sketch.USE_SKETCH and A._p) or 3 * width > RtT.nrows or RtT.nrows < sketch.MIN_SIZE:
         return None
-    Yt = sketch.draw(A.field, width, RtT.nrows, seed)
+    Yt = sketch.draw_kept(_kept_draws(A), A.field, width, RtT.nrows, seed)
     return (Yt @ RtT).transpose()
 
 
-def _block_bases(A: StructureAlgebra, classes: list[_Class]) -> tuple[dict, dict, dict, dict]:
+def _kept_draws(A: StructureAlgebra) -> dict:
+    """Random matrices of the thin products kept with the algebra: the same draw serves
+    every idempotent (a sketch's result does not depend on it; drawing costs about a
+    tenth of the product)."""
+    return A._cache.setdefault("sketch_draws", {})
+
+
+def _block_bases(
+    A: StructureAlgebra, classes: list[_Class], spare: _Spare | None = None
+) -> tuple[dict, dict, dict, dict]:
     """For all ``s, t``: basis indices ``l`` with ``e_s b_l e_t`` a basis of ``e_s A e_t``,
     those elements (coordinates on span(index_t)), their coordinate solvers and the
-    columns of ``R_t`` at the solvers' pivots (times the solver)."""
+    columns of ``R_t`` at the solvers' pivots (times the solver); ``spare``: memory for
+    the matrices of right multiplication that are rebuilt."""
     gen: dict[tuple[int, int], list[int]] = {}
     basis: dict[tuple[int, int], Mat] = {}
     solver: dict[tuple[int, int], tuple[tuple[int, ...], Mat]] = {}
     colsR: dict[tuple[int, int], Mat] = {}
     with task("blocks of the basic algebra", total=len(classes)) as step:
         for t, ct in enumerate(classes):
-            _find_blocks(A, classes, t, ct, gen, basis, solver, colsR)
+            _find_blocks(A, classes, t, ct, gen, basis, solver, colsR, spare)
             step(1)
     # e_s A is the sum of the e_s A f over a complete set of primitive idempotents f, of
     # which dim L(t) are conjugate to e_t: every block was found in full
@@ -1226,26 +1336,50 @@ def _find_blocks(
     basis: dict,
     solver: dict,
     colsR: dict,
+    spare: _Spare | None = None,
 ) -> None:
     """The blocks ``e_s A e_t`` for one ``t`` and every ``s`` (see :func:`_block_bases`)."""
     F = A.field
+    if A._group_table() is not None and ct.dim_P == ct.n and ct.corner_block is not None:
+        # P(t) = e_t A has the dimension of its top L(t): it is simple, and in a group
+        # algebra (symmetric: socle of P(s) = top, from memory) e_s A e_t = Hom(P(t), P(s))
+        # and e_t A e_s = Hom(P(s), L(t)) vanish for s != t; e_t A e_t = End L(t) is the
+        # corner, found with the class (the sums checked in _block_bases cover all this)
+        if len(ct.corner) != 1:
+            raise InternalInconsistency("a simple projective with a corner of dimension > 1")
+        for s in range(len(classes)):
+            if s == t:
+                B, solv, cols = ct.corner_block
+                gen[(t, t)] = list(ct.corner)
+                basis[(t, t)], solver[(t, t)], colsR[(t, t)] = B, solv, cols
+            else:
+                gen[(s, t)] = []
+                basis[(s, t)] = Mat.zeros(F, 0, A.dim if ct.index is None else len(ct.index))
+                solver[(s, t)] = ((), Mat.zeros(F, 0, 0))
+        return
     # one right multiplication matrix alive at a time, transposed: flint multiplies a
     # square matrix by a thin one faster than a thin one by a square one
-    RtT = _class_RT(A, ct)
+    RtT = _class_RT(A, ct, spare)
     # the blocks are usually far smaller than dim A e_t: sketches of growing width
-    width = BLOCK_START_WIDTH
-    sk = _block_sketch(A, RtT, width, 1000 + t)
+    m = sketch.margin(F) if A._p else sketch.MARGIN
+    width = BLOCK_START_WIDTH + m
+    sk = _block_sketch(A, RtT, width, 1000)
+    Ls_all = [apply_transfer(cs.L, transfer(A, cs.rows, ct.index)) for cs in classes]
+    # the sketches of all Ls @ R_t from one product (Ls @ (R_t Y), rows of every s)
+    sks = None
+    if sk is not None:
+        sks = _split_rows(Mat.vstack(F, Ls_all, RtT.nrows) @ sk, [L.nrows for L in Ls_all])
     chosen: list[tuple[list[int], Mat | None, Mat]] = []  # (pos, B or None, Ls) per s
-    for cs in classes:
-        Ls = apply_transfer(cs.L, transfer(A, cs.rows, ct.index))
+    for s, Ls in enumerate(Ls_all):
         pos: list[int] | None = None
         while sk is not None and Ls.nrows:
-            pos = select_independent_rows(Ls @ sk)  # rows of Ls @ R_t, found through R_t Y
-            if len(pos) + sketch.MARGIN <= width:
+            # rows of Ls @ R_t, found through R_t Y
+            pos = select_independent_rows(sks[s] if sks is not None else Ls @ sk)
+            if len(pos) + m <= width:
                 break
-            pos = None
+            pos, sks = None, None
             width *= 4
-            sk = _block_sketch(A, RtT, width, 1000 + t + width)
+            sk = _block_sketch(A, RtT, width, 1000 + width)
         if pos is None:
             X = _times_transposed(Ls, RtT)  # = Ls @ R_t
             pos = select_independent_rows(X) if X.nrows else []
@@ -1273,7 +1407,18 @@ def _find_blocks(
         if pos:
             piv, T = solver[(s, t)]
             colsR[(s, t)] = take_rows(RtT, list(piv)).transpose() @ T  # columns piv of R_t
+    if spare is not None and ct.RT is None:
+        spare.give(RtT)  # rebuilt here and held by nobody else
     del RtT, sk
+
+
+def _split_rows(M: Mat, sizes: list[int]) -> list[Mat]:
+    """``M`` cut into consecutive row blocks of the given sizes."""
+    out, off = [], 0
+    for k in sizes:
+        out.append(take_rows(M, range(off, off + k)))
+        off += k
+    return out
 
 
 def _block_products(
@@ -1293,10 +1438,11 @@ def _block_products(
     for u in range(m):
         stacked = None
         if vector and any(dims[(s, u)] for s in range(m)):
-            rows = [
-                embed(A, r, classes[u].index) for s in range(m) for r in raw_rows(A, basis[(s, u)])
-            ]
-            stacked = _np_rows(rows)
+            import numpy as np
+
+            stacked = np.vstack(
+                [_np_embedded(A, basis[(s, u)], classes[u].index) for s in range(m)]
+            )
         for t in range(m):
             it = classes[t].index
             for l in gen[(u, t)]:
@@ -1327,6 +1473,24 @@ def _np_rows(rows: list[list[int]]) -> Any:
     import numpy as np
 
     return np.asarray(rows, dtype=np.int64)
+
+
+def _np_embedded(A: StructureAlgebra, M: Mat, index: Sequence[int] | None) -> Any:
+    """The rows of ``M`` (coordinates on span(index)) as an int64 array of residues with
+    ``dim A`` columns (vectorised tables: GF(p)); read in one piece where flint allows."""
+    import numpy as np
+
+    r, c = M.nrows, M.ncols
+    buf = read_residues(M._m) if r and c and isinstance(M.field, PrimeField) else None
+    if buf is None:
+        X = _np_rows(raw_rows(A, M)).reshape(r, c)
+    else:
+        X = np.frombuffer(buf, dtype=np.int64).reshape(r, c)
+    if index is None:
+        return X
+    out = np.zeros((r, A.dim), dtype=np.int64)
+    out[:, np.asarray(index, dtype=np.int64)] = X
+    return out
 
 
 def _np_contiguous(X: Any) -> Any:
@@ -1408,10 +1572,12 @@ def assemble_from_blocks(
     return B, arrows, arrow_coords
 
 
-def _assemble(A: StructureAlgebra, classes: list[_Class], name: str) -> BasicAlgebra:
+def _assemble(
+    A: StructureAlgebra, classes: list[_Class], name: str, spare: _Spare | None = None
+) -> BasicAlgebra:
     F = A.field
     # bases of the blocks e_s A e_t, as e_s b_l e_t (coordinates on span(index_t))
-    gen, basis, solver, colsR = _block_bases(A, classes)
+    gen, basis, solver, colsR = _block_bases(A, classes, spare)
     dims = {k: v.nrows for k, v in basis.items()}
     mult = _block_products(A, classes, gen, basis, colsR)
     starts = []
@@ -1452,7 +1618,12 @@ def _order_classes(classes: list[_Class]) -> list[_Class]:
 
 
 def _finish(
-    A: StructureAlgebra, classes: list[_Class], method: str, seed: int, timings: dict
+    A: StructureAlgebra,
+    classes: list[_Class],
+    method: str,
+    seed: int,
+    timings: dict,
+    spare: _Spare | None = None,
 ) -> Reduction:
     n = A.dim
     if sum(c.n * c.dim_P for c in classes) != n:
@@ -1463,7 +1634,7 @@ def _finish(
         raise InternalInconsistency("Morita count with left projectives failed")
     classes = _order_classes(classes)
     t0 = time.perf_counter()
-    B = _assemble(A, classes, A.name)
+    B = _assemble(A, classes, A.name, spare)
     timings["basic_algebra"] = time.perf_counter() - t0
     red = Reduction(
         algebra=A,
@@ -1557,6 +1728,7 @@ def reduce_algebra(
         # once more by plain elimination, whose failures are the algebra's own
         if sketch.DRAWS == drawn:
             raise
+        A._cache.pop("sketch_draws", None)  # an unlucky draw is not kept for later
     with sketch.disabled():
         return _reduce(A, seed, idempotents, method)
 
@@ -1592,7 +1764,7 @@ def _reduce(
         raise InternalInconsistency(
             f"the search ended with sum dim L * dim P = {S.covered()} < dim A = {A.dim}"
         )
-    return _finish(A, S.classes, "split", seed, timings)
+    return _finish(A, S.classes, "split", seed, timings, S.spare)
 
 
 # ----------------------------------------------------------------------------------
