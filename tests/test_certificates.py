@@ -250,11 +250,24 @@ def test_random_partial_orders_match_check(A):
         (["orders", f"{EXAMPLES}/carousel.toml"], "orders"),
         (["family", "linear-a", "n=3"], "family"),
         (["family", "cyclic-group", "m=2", "field=GF(2)"], "family"),
+        # the reduction record: table route, spin chain, restricted spin chain
+        (["family", "temperley-lieb", "n=4", "delta=0", "field=GF(5)"], "family"),
+        (
+            ["family", "temperley-lieb", "n=4", "delta=1", "field=GF(7)", "route=spin-chain"],
+            "family",
+        ),
+        (
+            ["family", "temperley-lieb", "n=5", "delta=0", "field=GF(3)", "route=spin-chain"],
+            "family",
+        ),
     ],
 )
 def test_json_outputs_match_schemas(capsys, schemas, argv, name):
     main([*argv, "--json"])
-    schemas[name].validate(json.loads(capsys.readouterr().out))
+    data = json.loads(capsys.readouterr().out)
+    schemas[name].validate(data)
+    if "temperley-lieb" in argv:
+        assert "reduction" in data  # validated by the schema's reduction object
 
 
 def test_schemas_reject_wrong_outputs(schemas):

@@ -111,5 +111,6 @@ def loop_weight_root(delta: Any, field: Field) -> Any:
             return -g.coeffs()[0]
     raise SpecError(
         f"spin chain: no q in {F} with q + 1/q = {delta} (q^2 - {delta} q + 1 is irreducible); "
-        "choose another field or loop weight"
+        "the spin chain as a module needs one: choose another field or loop weight (the "
+        "family's algebra and its projective and simple modules need no q)"
     )

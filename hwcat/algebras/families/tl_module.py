@@ -43,8 +43,8 @@ leaf is certified and the totals are checked exactly.
 have equal ranks; a primitive ``e`` of the simple ``L`` has rank
 ``[M_k : L]`` on ``M_k`` (``2 [M_k : L]`` on the restricted chain, ``[M_k : L]``
 counted over ``GF(p^2)``: the simples of ``TL_n`` are absolutely simple, being heads
-of cell modules, so ``L`` over ``GF(p^2)`` restricts to ``L + L``; from memory).  The simple with ``t`` through strands first appears
-in sector ``k = (n - t)/2``, once (``M_k`` is filtered by the cell modules with
+of cell modules, so ``L`` over ``GF(p^2)`` restricts to ``L + L``; from memory).
+The simple with ``t`` through strands first appears in sector ``k = (n - t)/2``, once (``M_k`` is filtered by the cell modules with
 ``n - 2j`` through strands, ``j <= k``; from memory): so the label of a class is
 read off its first nonzero sector (where the rank is 1, or 2 on the restricted chain),
 and a node whose ranks are explained by the classes found so far (triangularly, sector
