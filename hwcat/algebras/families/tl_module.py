@@ -468,10 +468,14 @@ class _Search:
         limit = 64
         while True:
             if node.attempts >= limit:
-                raise NotSplitError(
+                # TL_n is split over every field (a cellular algebra; from memory): a
+                # corner that is not local has elements whose minimal polynomial has
+                # several factors, so this many misses means the chain is not what it
+                # should be (or a draw of probability below 2^-64)
+                raise InternalInconsistency(
                     f"no splitting element found: {node.attempts} random elements of a corner "
                     f"f A f (ranks {node.ranks} on the spin chain's sectors) had minimal "
-                    "polynomials with a single irreducible factor"
+                    "polynomials with a single irreducible factor, though TL_n is split"
                 )
             res = self.split_attempt(node)
             if isinstance(res, list):
