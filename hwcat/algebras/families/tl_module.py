@@ -470,8 +470,8 @@ class _Search:
             if node.attempts >= limit:
                 # TL_n is split over every field (a cellular algebra; from memory): a
                 # corner that is not local has elements whose minimal polynomial has
-                # several factors, so this many misses means the chain is not what it
-                # should be (or a draw of probability below 2^-64)
+                # several factors (over GF(2) at least 6 of the 16 elements of M_2 do),
+                # so this many misses means the chain is not what it should be
                 raise InternalInconsistency(
                     f"no splitting element found: {node.attempts} random elements of a corner "
                     f"f A f (ranks {node.ranks} on the spin chain's sectors) had minimal "
