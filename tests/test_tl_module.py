@@ -98,7 +98,9 @@ def _compare(n: int, delta: int, p: int, seed: int = 0) -> None:
 
 @pytest.mark.parametrize(
     "n, delta, p",
-    [(2, 0, 5), (3, 1, 3), (4, 0, 2), (5, 0, 5), (6, 0, 2), (6, 1, 3), (6, 1, 7), (7, 0, 13)],
+    [(2, 0, 5), (3, 1, 3), (4, 0, 2), (5, 0, 5), (6, 0, 2), (6, 1, 3), (6, 1, 7), (7, 0, 13)]
+    # q only in GF(p^2): the chain over GF(p^2) restricted to GF(p)
+    + [(2, 0, 3), (3, 1, 2), (4, 0, 7), (5, 1, 5), (6, 0, 3), (6, 1, 2), (7, 0, 7), (7, 1, 5)],
 )
 def test_agrees_with_the_table_route(n: int, delta: int, p: int) -> None:
     # labels, dimensions, Cartan matrix, quiver, Loewy layers, heredity: everything the
@@ -106,11 +108,12 @@ def test_agrees_with_the_table_route(n: int, delta: int, p: int) -> None:
     _compare(n, delta, p)
 
 
-def test_agrees_with_the_table_route_on_random_cases() -> None:
-    rng = random.Random(20261202)
+@pytest.mark.parametrize("restricted, seed", [(False, 20261202), (True, 20261203)])
+def test_agrees_with_the_table_route_on_random_cases(restricted: bool, seed: int) -> None:
+    rng = random.Random(seed)
     for _ in range(4):
         n = rng.randint(2, 7)
-        delta, p = rng.choice(VALID)
+        delta, p = rng.choice(RESTRICTED if restricted else VALID)
         _compare(n, delta, p, seed=rng.randrange(1000))
 
 
@@ -236,24 +239,6 @@ def test_command_line(capsys: pytest.CaptureFixture) -> None:
     # delta != 0: every cell form is nonzero, so TL_5(1) is quasi-hereditary (S. Konig,
     # C. C. Xi, When is a cellular algebra quasi-hereditary?, Math. Ann. 315, 1999)
     assert code == 0
-
-
-@pytest.mark.parametrize(
-    "n, delta, p",
-    [(2, 0, 3), (3, 1, 2), (4, 0, 7), (5, 1, 5), (6, 0, 3), (6, 1, 2), (7, 0, 7), (7, 1, 5)],
-)
-def test_restricted_chain_agrees_with_the_table_route(n: int, delta: int, p: int) -> None:
-    # q only in GF(p^2): the chain over GF(p^2) restricted to GF(p) gives the same
-    # structure report as the multiplication table over GF(p)
-    _compare(n, delta, p)
-
-
-def test_restricted_chain_agrees_with_the_table_route_on_random_cases() -> None:
-    rng = random.Random(20261203)
-    for _ in range(4):
-        n = rng.randint(2, 7)
-        delta, p = rng.choice(RESTRICTED)
-        _compare(n, delta, p, seed=rng.randrange(1000))
 
 
 @pytest.mark.slow
