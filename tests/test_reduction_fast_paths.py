@@ -501,3 +501,18 @@ def _small_radical_both_ways(A):
     assert echelon(fast).tolist() == echelon(plain).tolist()
     assert echelon(fast).tolist() == echelon(trace_radical(A, "lifted-trace")).tolist()
     return fast
+
+
+def test_draws_are_not_kept_after_a_reduction(monkeypatch):
+    """The random matrices of the thin products serve one reduction; afterwards the algebra
+    keeps its result, not the draws (they were megabytes for the larger group algebras).
+    The reduction equals the one without sketches (common practice: the same answer)."""
+    monkeypatch.setattr(sketch, "MIN_SIZE", 64)
+    monkeypatch.setattr(sketch, "START_WIDTH", 8)
+    A = from_table(tables.symmetric_group_algebra(5, "GF(3)"))
+    drawn = sketch.DRAWS
+    got = reduce_algebra(A)
+    assert sketch.DRAWS > drawn  # sketches were used
+    assert "sketch_draws" not in A._cache
+    B = from_table(tables.symmetric_group_algebra(5, "GF(3)"))
+    _same_reduction(got, _without_sketch(lambda: reduce_algebra(B), monkeypatch))

@@ -1728,7 +1728,10 @@ def reduce_algebra(
         # once more by plain elimination, whose failures are the algebra's own
         if sketch.DRAWS == drawn:
             raise
-        A._cache.pop("sketch_draws", None)  # an unlucky draw is not kept for later
+    finally:
+        # the draws serve the idempotents of one reduction; the result is kept, they
+        # need not be (several MB for the larger group algebras)
+        A._cache.pop("sketch_draws", None)
     with sketch.disabled():
         return _reduce(A, seed, idempotents, method)
 
