@@ -76,10 +76,20 @@ def main() -> None:
                 r1, t1, m1 = measure(lambda fn=fn, n=n, ext=ext: fn(ext, n))
                 if r0 != r1:
                     raise SystemExit(f"{name} n={n}: {base} gave {r0}, {ext} gave {r1}")
-                rows.append([name, n, base, f"{t0:.3f}", ext, f"{t1:.3f}",
-                             f"{t1 / max(t0, 1e-6):.1f}", d * d, f"{m0:.0f}/{m1:.0f}"])
-    print(table(rows, ["case", "n", "base", "s", "extension", "s", "slowdown", "d^2",
-                       "peak MiB"]))
+                rows.append(
+                    [
+                        name,
+                        n,
+                        base,
+                        f"{t0:.3f}",
+                        ext,
+                        f"{t1:.3f}",
+                        f"{t1 / max(t0, 1e-6):.1f}",
+                        d * d,
+                        f"{m0:.0f}/{m1:.0f}",
+                    ]
+                )
+    print(table(rows, ["case", "n", "base", "s", "extension", "s", "slowdown", "d^2", "peak MiB"]))
 
 
 if __name__ == "__main__":

@@ -91,7 +91,9 @@ def _quantum_factors(ell: int, q: int, field: str):
         {"E": [[0, 1], [0, 0]], "F": [[0, 0], [1, 0]], "K": [[q, 0], [0, f"1/{q}"]]},
         name="X2",
     )
-    big = max(red.basic.vertices, key=lambda v: red.projective_dimensions[red.basic.vertices.index(v)])
+    big = max(
+        red.basic.vertices, key=lambda v: red.projective_dimensions[red.basic.vertices.index(v)]
+    )
     return red, X, algebra_module(f"P({big})", red)
 
 

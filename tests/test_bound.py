@@ -237,9 +237,7 @@ def test_auslander_algebra_of_truncated_polynomials(n: int, field: Field) -> Non
     # dim A = sum_{i,j} min(i, j) = n(n+1)(2n+1)/6: derived.
     A = load_spec_text(auslander_text(n, field))
     assert A.dim == n * (n + 1) * (2 * n + 1) // 6
-    assert A.cartan() == tuple(
-        tuple(min(i, j) for j in range(1, n + 1)) for i in range(1, n + 1)
-    )
+    assert A.cartan() == tuple(tuple(min(i, j) for j in range(1, n + 1)) for i in range(1, n + 1))
 
 
 def test_auslander_algebra_against_brute_force() -> None:

@@ -89,7 +89,9 @@ def test_orders_json(tmp_path, capsys):
     code, out, _ = run(capsys, "orders", write(tmp_path, linear_A(4)), "--json", "--all")
     d = json.loads(out)
     assert code == 0
-    assert d["quasi_hereditary"] and d["quasi_hereditary_total_orders"] == 24 and d["structures"] == 14
+    assert (
+        d["quasi_hereditary"] and d["quasi_hereditary_total_orders"] == 24 and d["structures"] == 14
+    )
     assert len(d["structure_list"]) == 14
     s = d["structure_list"][0]
     assert "standard_dimension_vectors" in s and "essential_order" in s

@@ -53,8 +53,9 @@ def _random_elt(rng, K):
         return K.zero
     if K.is_finite:
         return K.from_coeffs([rng.randrange(K.characteristic) for _ in range(K.degree)])
-    return K.from_coeffs([K.base.parse(f"{rng.randint(-3, 3)}/{rng.randint(1, 2)}")
-                          for _ in range(K.degree)])
+    return K.from_coeffs(
+        [K.base.parse(f"{rng.randint(-3, 3)}/{rng.randint(1, 2)}") for _ in range(K.degree)]
+    )
 
 
 def _random_mat(rng, K, r, c, rank=None):
@@ -128,8 +129,9 @@ def test_linear_algebra_against_sympy(name):
                 Mi = M.inverse()
                 assert M @ Mi == Mat.identity(K, r)
                 Di = D.hstack(DomainMatrix.eye(r, S)).rref(method="GJ")[0]
-                assert Mi.raw_rows() == [[_from_sympy(S, K, Di[i, r + j].element)
-                                          for j in range(c)] for i in range(r)]
+                assert Mi.raw_rows() == [
+                    [_from_sympy(S, K, Di[i, r + j].element) for j in range(c)] for i in range(r)
+                ]
 
 
 @pytest.mark.parametrize("name", FIELDS)
@@ -142,8 +144,9 @@ def test_products_against_sympy(name):
         P = A @ B
         if a and b and c:
             DP = _dm(S, K, A) * _dm(S, K, B)
-            assert P.raw_rows() == [[_from_sympy(S, K, DP[i, j].element) for j in range(c)]
-                                    for i in range(a)]
+            assert P.raw_rows() == [
+                [_from_sympy(S, K, DP[i, j].element) for j in range(c)] for i in range(a)
+            ]
         else:
             assert P.shape == (a, c) and P.is_zero()
 

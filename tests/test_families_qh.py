@@ -92,6 +92,9 @@ def test_cross_input_verdicts_agree():
         C = reduce_algebra(from_basic_algebra(B)).basic
         assert is_quasi_hereditary(C) == is_quasi_hereditary(B)
         rb, rc = search.quasi_hereditary_orders(B), search.quasi_hereditary_orders(C)
-        assert (rb.quasi_hereditary_total_orders, rb.structures) == (rc.quasi_hereditary_total_orders, rc.structures)
+        assert (rb.quasi_hereditary_total_orders, rb.structures) == (
+            rc.quasi_hereditary_total_orders,
+            rc.structures,
+        )
 
     check()

@@ -32,7 +32,14 @@ def test_temperley_lieb_generic_labels_are_through_strands(n):
 
 @pytest.mark.parametrize(
     ("n", "delta", "field"),
-    [(4, 1, "QQ"), (5, 0, "GF(3)"), (6, 0, "GF(5)"), (6, 2, "GF(3)"), (4, 0, "QQ"), (6, 1, "GF(2)")],
+    [
+        (4, 1, "QQ"),
+        (5, 0, "GF(3)"),
+        (6, 0, "GF(5)"),
+        (6, 2, "GF(3)"),
+        (4, 0, "QQ"),
+        (6, 1, "GF(2)"),
+    ],
 )
 def test_temperley_lieb_labels_at_roots_of_unity(n, delta, field):
     # Koenig-Xi (Math. Ann. 315, 1999): the simples are labelled by the cells whose
@@ -67,7 +74,9 @@ def _steinberg_dimension(a: int, b: int, p: int) -> int:
     return d
 
 
-@pytest.mark.parametrize(("r", "field", "p"), [(3, "QQ", 0), (4, "GF(2)", 2), (5, "GF(3)", 3), (6, "GF(2)", 2)])
+@pytest.mark.parametrize(
+    ("r", "field", "p"), [(3, "QQ", 0), (4, "GF(2)", 2), (5, "GF(3)", 3), (6, "GF(2)", 2)]
+)
 def test_schur_algebra_labels_are_dominant_weights(r, field, p):
     # S(2, r): one simple L(a, b) for each two-part partition (a, b) of r (Green 1980),
     # of the dimension Steinberg's theorem gives; quasi-hereditary for the dominance

@@ -21,8 +21,18 @@ from hwcat.exact import Mat, parse_field
 
 @pytest.mark.parametrize(
     "field, m",
-    [("GF(4)", 3), ("GF(8)", 7), ("GF(16)", 3), ("GF(16)", 5), ("GF(9)", 4), ("GF(9)", 8),
-     ("QQ(zeta3)", 3), ("QQ(zeta4)", 4), ("QQ(zeta5)", 5), ("QQ(zeta8)", 8)],
+    [
+        ("GF(4)", 3),
+        ("GF(8)", 7),
+        ("GF(16)", 3),
+        ("GF(16)", 5),
+        ("GF(9)", 4),
+        ("GF(9)", 8),
+        ("QQ(zeta3)", 3),
+        ("QQ(zeta4)", 4),
+        ("QQ(zeta5)", 5),
+        ("QQ(zeta8)", 8),
+    ],
 )
 def test_cyclic_group_splits(field, m):
     A = family_algebra("cyclic-group", m=m, field=field)
@@ -32,9 +42,14 @@ def test_cyclic_group_splits(field, m):
 
 @pytest.mark.parametrize(
     "field, m, hint",
-    [("GF(2)", 3, "over GF(4) it splits"), ("GF(8)", 3, "over GF(64) it splits"),
-     ("GF(4)", 5, "over GF(16) it splits"), ("QQ", 3, "over QQ(zeta3) it splits"),
-     ("QQ", 4, "over QQ(zeta4) it splits"), ("GF(2)", 7, "over GF(8) it splits")],
+    [
+        ("GF(2)", 3, "over GF(4) it splits"),
+        ("GF(8)", 3, "over GF(64) it splits"),
+        ("GF(4)", 5, "over GF(16) it splits"),
+        ("QQ", 3, "over QQ(zeta3) it splits"),
+        ("QQ", 4, "over QQ(zeta4) it splits"),
+        ("GF(2)", 7, "over GF(8) it splits"),
+    ],
 )
 def test_cyclic_group_not_split_names_a_field(field, m, hint):
     # when m does not divide q - 1 the simple of dimension e (the order of q mod m on that
@@ -76,8 +91,13 @@ def _centre_dimension(T) -> int:
 
 @pytest.mark.parametrize(
     "p, q, field",
-    [(2, "2", "GF(5)"), (2, "zeta4", "QQ(zeta4)"), (2, "z^2", "GF(9)"), (3, "3", "GF(7)"),
-     pytest.param(3, "zeta6", "QQ(zeta6)", marks=pytest.mark.slow)],
+    [
+        (2, "2", "GF(5)"),
+        (2, "zeta4", "QQ(zeta4)"),
+        (2, "z^2", "GF(9)"),
+        (3, "3", "GF(7)"),
+        pytest.param(3, "zeta6", "QQ(zeta6)", marks=pytest.mark.slow),
+    ],
 )
 def test_restricted_quantum_sl2(p, q, field):
     T = small_quantum_sl2(2 * p, q, field)
@@ -97,7 +117,8 @@ def test_restricted_quantum_sl2(p, q, field):
         layers = d.projectives[j].radical_layers
         if s < p:
             assert len(layers) == 3 and layers[0] == layers[2] == tuple(
-                int(i == j) for i in range(A.n))
+                int(i == j) for i in range(A.n)
+            )
             mid = [(i, x) for i, x in enumerate(layers[1]) if x]
             assert len(mid) == 1 and mid[0][1] == 2 and A.morita[mid[0][0]] == p - s
         else:
@@ -145,13 +166,35 @@ def test_family_parameters_outside_the_field():
 
 def test_cli_family_parameter_in_extension_field():
     res = subprocess.run(
-        [sys.executable, "-m", "hwcat", "family", "temperley-lieb", "n=4", "delta=r",
-         "field=QQ[r]/(r^2 - 2)"], capture_output=True, text=True)
+        [
+            sys.executable,
+            "-m",
+            "hwcat",
+            "family",
+            "temperley-lieb",
+            "n=4",
+            "delta=r",
+            "field=QQ[r]/(r^2 - 2)",
+        ],
+        capture_output=True,
+        text=True,
+    )
     assert res.returncode == 0, res.stderr
     assert "QQ[r]/(r^2 - 2)" in res.stdout
     res = subprocess.run(
-        [sys.executable, "-m", "hwcat", "family", "temperley-lieb", "n=4", "delta=s",
-         "field=QQ[r]/(r^2 - 2)"], capture_output=True, text=True)
+        [
+            sys.executable,
+            "-m",
+            "hwcat",
+            "family",
+            "temperley-lieb",
+            "n=4",
+            "delta=s",
+            "field=QQ[r]/(r^2 - 2)",
+        ],
+        capture_output=True,
+        text=True,
+    )
     assert res.returncode == 2 and len(res.stderr.strip().splitlines()) == 1
     assert "'s'" in res.stderr and "delta" in res.stderr
 

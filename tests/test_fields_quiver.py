@@ -22,16 +22,28 @@ from hwcat.errors import CoefficientError, HwcatError, RelationError
 from hwcat.exact import GF, QQ
 from hwcat.strategies import algebra_from_spec, bound_quiver_specs
 
-PAIRS = [(GF(2), "GF(4)"), (GF(2), "GF(8)"), (GF(3), "GF(9)"), (QQ, "QQ(zeta8)"),
-         (QQ, "QQ[r]/(r^2 - 2)")]
+PAIRS = [
+    (GF(2), "GF(4)"),
+    (GF(2), "GF(8)"),
+    (GF(3), "GF(9)"),
+    (QQ, "QQ(zeta8)"),
+    (QQ, "QQ[r]/(r^2 - 2)"),
+]
 
 
 def _summary(A):
     d = describe(A)
     r = quasi_hereditary_orders(A, list_limit=0)
     v = check_order(A, total_order(A.vertices, range(A.n)), homological=False)
-    return (d.dimension, d.cartan, tuple(p.radical_layers for p in d.projectives),
-            r.quasi_hereditary, r.quasi_hereditary_total_orders, r.structures, v.quasi_hereditary)
+    return (
+        d.dimension,
+        d.cartan,
+        tuple(p.radical_layers for p in d.projectives),
+        r.quasi_hereditary,
+        r.quasi_hereditary_total_orders,
+        r.structures,
+        v.quasi_hereditary,
+    )
 
 
 @pytest.mark.parametrize("base, ext", PAIRS)
@@ -70,8 +82,13 @@ def test_generator_coefficients(field, rel):
     # rescaling the arrow a by a nonzero scalar turns lambda*a*b + mu*c*d into
     # mu*(a*b + c*d): the same algebra as over the prime field (derived)
     A = load_spec_text(KITE.format(field=field, rel=rel))
-    base = "GF(2)" if field.startswith("GF(4)") or field.startswith("GF(8)") else \
-        "GF(3)" if field.startswith("GF(9") else "QQ"
+    base = (
+        "GF(2)"
+        if field.startswith("GF(4)") or field.startswith("GF(8)")
+        else "GF(3)"
+        if field.startswith("GF(9")
+        else "QQ"
+    )
     B = load_spec_text(KITE.format(field=base, rel="a*b + c*d"))
     assert A.field.name.startswith(field.split(",")[0].split("[")[0].rstrip(")"))
     assert _summary(A) == _summary(B)
@@ -112,14 +129,18 @@ def test_generator_named_like_an_arrow():
 
 @pytest.mark.parametrize(
     "field, fragment",
-    [("GF(12)", "12 is not a prime power"), ("QQ[r]/(r^2 - 9)", "factor r - 3"),
-     ("QQ[r]/(3*r^2 - 1)", "not monic")],
+    [
+        ("GF(12)", "12 is not a prime power"),
+        ("QQ[r]/(r^2 - 9)", "factor r - 3"),
+        ("QQ[r]/(3*r^2 - 1)", "not monic"),
+    ],
 )
 def test_cli_bad_field_exit_2(tmp_path, field, fragment):
     p = tmp_path / "bad.toml"
     p.write_text(KITE.format(field=field, rel="a*b + c*d"))
-    res = subprocess.run([sys.executable, "-m", "hwcat", "describe", str(p)],
-                         capture_output=True, text=True)
+    res = subprocess.run(
+        [sys.executable, "-m", "hwcat", "describe", str(p)], capture_output=True, text=True
+    )
     assert res.returncode == 2
     lines = res.stderr.strip().splitlines()
     assert len(lines) == 1 and "bad.toml" in lines[0] and "field" in lines[0]
@@ -130,8 +151,9 @@ def test_cli_over_cyclotomic_field(tmp_path):
     p = tmp_path / "k.toml"
     p.write_text(KITE.format(field="QQ(zeta8)", rel="zeta8*a*b + c*d"))
     for cmd in ("describe", "check", "orders"):
-        res = subprocess.run([sys.executable, "-m", "hwcat", cmd, "--json", str(p)],
-                             capture_output=True, text=True)
+        res = subprocess.run(
+            [sys.executable, "-m", "hwcat", cmd, "--json", str(p)], capture_output=True, text=True
+        )
         assert res.returncode in (0, 1), res.stderr
         assert "Traceback" not in res.stderr
 

@@ -153,7 +153,9 @@ def test_reduction_of_a_family_unchanged_by_the_vectorised_path():
     assert plain.simple_dimensions == fast.simple_dimensions == (1, 4, 5)  # derived
 
 
-@pytest.mark.parametrize(("n", "delta", "field"), [(5, 0, "GF(3)"), (6, 1, "GF(5)"), (5, 2, "GF(7)")])
+@pytest.mark.parametrize(
+    ("n", "delta", "field"), [(5, 0, "GF(3)"), (6, 1, "GF(5)"), (5, 2, "GF(7)")]
+)
 def test_temperley_lieb_by_columns_matches_the_dictionary_table(n, delta, field, monkeypatch):
     """The column-built table has the same products as the dictionary-built one, and the
     same reduction (simples, Cartan matrix, idempotents)."""

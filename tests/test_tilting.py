@@ -96,7 +96,10 @@ def test_ringel_duality_property(A):
     # R(R(A)) Morita equivalent to A: equal Cartan matrices, equal counts, equal standard data
     assert RR.cartan() == A.cartan()
     rr = quasi_hereditary_orders(RR, list_limit=0)
-    assert (rr.quasi_hereditary_total_orders, rr.structures) == (r.quasi_hereditary_total_orders, r.structures)
+    assert (rr.quasi_hereditary_total_orders, rr.structures) == (
+        r.quasi_hereditary_total_orders,
+        r.structures,
+    )
     assert [standard_module(RR, L, Q2).dims for L in range(A.n)] == [
         standard_module(A, L, P).dims for L in range(A.n)
     ]

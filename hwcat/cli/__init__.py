@@ -99,7 +99,9 @@ def main(argv: Sequence[str] | None = None) -> int:
         progress.enable(sys.stderr)  # bars appear for steps longer than a second
     try:
         with resource_limits(
-            max_dim=args.max_dim, max_vertices=args.max_quiver_vertices, max_products=args.max_products
+            max_dim=args.max_dim,
+            max_vertices=args.max_quiver_vertices,
+            max_products=args.max_products,
         ):
             return args.func(args)
     except InternalInconsistency:

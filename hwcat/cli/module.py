@@ -94,7 +94,9 @@ def _cmd_module(args: argparse.Namespace) -> int:
     from hwcat.theory.orders import parse_order
 
     if (args.spec is None) == (args.family is None):
-        raise SpecError("hwcat module: give exactly one of a spec file or --family NAME KEY=VALUE ...")
+        raise SpecError(
+            "hwcat module: give exactly one of a spec file or --family NAME KEY=VALUE ..."
+        )
     spec = read_spec(args.spec) if args.spec is not None else family_source(args.family)
     family = str(spec.table.get("name")) if spec.kind == "family" else None
     if family == "temperley-lieb" and "route" not in spec.table:

@@ -54,8 +54,10 @@ class BlockMatrix:
                 else:
                     for k in range(d):
                         cols[k].append(zero)
-            self.P = [base._raw_matrix(r, c, cols[k]) if r and c else base._raw_matrix(r, c, [])
-                      for k in range(d)]
+            self.P = [
+                base._raw_matrix(r, c, cols[k]) if r and c else base._raw_matrix(r, c, [])
+                for k in range(d)
+            ]
             self._e = list(entries)
 
     def _new(self, r: int, c: int, planes: list) -> BlockMatrix:
@@ -99,8 +101,11 @@ class BlockMatrix:
     def __eq__(self, other: object) -> bool:
         if not isinstance(other, BlockMatrix):
             return NotImplemented
-        return (self.K is other.K and (self.r, self.c) == (other.r, other.c)
-                and all(a == b for a, b in zip(self.P, other.P, strict=True)))
+        return (
+            self.K is other.K
+            and (self.r, self.c) == (other.r, other.c)
+            and all(a == b for a, b in zip(self.P, other.P, strict=True))
+        )
 
     def __hash__(self) -> int:  # pragma: no cover - mutable, never hashed
         raise TypeError("BlockMatrix is not hashable")
@@ -121,14 +126,18 @@ class BlockMatrix:
         K = self.K
         if not isinstance(o, BlockMatrix):
             s = K(o)
-            return self._new(self.r, self.c, self._reduce(
-                [[a * b for b in s.coeffs()] for a in self.P], self.r, self.c))
+            return self._new(
+                self.r,
+                self.c,
+                self._reduce([[a * b for b in s.coeffs()] for a in self.P], self.r, self.c),
+            )
         if self.c != o.r:
             raise InternalInconsistency(f"cannot multiply {self.r}x{self.c} by {o.r}x{o.c}")
         if self.r == 0 or o.c == 0 or self.c == 0:
             return BlockMatrix(K, self.r, o.c)
-        return self._new(self.r, o.c, self._reduce(
-            [[a * b for b in o.P] for a in self.P], self.r, o.c))
+        return self._new(
+            self.r, o.c, self._reduce([[a * b for b in o.P] for a in self.P], self.r, o.c)
+        )
 
     def _reduce(self, table: list[list], r: int, c: int) -> list:
         """Planes of ``sum_(k, l) table[k][l] t^(k+l)`` reduced modulo the defining polynomial."""

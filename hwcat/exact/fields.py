@@ -236,7 +236,9 @@ _FIELD_NAME = re.compile(
     r"^\s*(?:GF|F)\s*\(\s*(\d+)\s*(?:\^\s*(\d+)\s*)?(?:,\s*([A-Za-z_][A-Za-z0-9_]*)\s*)?\)\s*$"
 )
 _CYCLO = re.compile(r"^\s*QQ\s*\(\s*zeta\s*(\d+)\s*\)\s*$")
-_QUOTIENT = re.compile(r"^\s*(QQ|GF\s*\(\s*\d+\s*\))\s*\[\s*([A-Za-z_][A-Za-z0-9_]*)\s*\]\s*/\s*\((.*)\)\s*$")
+_QUOTIENT = re.compile(
+    r"^\s*(QQ|GF\s*\(\s*\d+\s*\))\s*\[\s*([A-Za-z_][A-Za-z0-9_]*)\s*\]\s*/\s*\((.*)\)\s*$"
+)
 _FIELD_HELP = (
     'expected "QQ", "GF(p)", "GF(q)" or "GF(p^k)" (q = p^k a prime power, optionally '
     '"GF(q, w)" to name the generator w), "QQ(zetaN)", or "QQ[r]/(r^2 - 2)"'
@@ -390,8 +392,9 @@ def coefficient_prefix(field: Field, factors: list[str], names: Any) -> tuple[An
         break
     if k == 0:
         return field.one, factors
-    text = "*".join(f"({f})" if not _PLAIN_NUMBER.match(f) else f.replace(" ", "")
-                    for f in factors[:k])
+    text = "*".join(
+        f"({f})" if not _PLAIN_NUMBER.match(f) else f.replace(" ", "") for f in factors[:k]
+    )
     if k == 1:
         text = factors[0].replace(" ", "") if _PLAIN_NUMBER.match(factors[0]) else factors[0]
     return field.parse(text), factors[k:]

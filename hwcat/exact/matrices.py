@@ -201,9 +201,7 @@ class Mat:
         try:
             raw = self._m * other._m
         except ValueError:
-            raise InternalInconsistency(
-                f"cannot multiply {self.shape} by {other.shape}"
-            ) from None
+            raise InternalInconsistency(f"cannot multiply {self.shape} by {other.shape}") from None
         out = _new(Mat)
         out.field = field
         out._m = raw
@@ -229,9 +227,7 @@ class Mat:
         try:
             raw = self._m - other._m
         except ValueError:
-            raise InternalInconsistency(
-                f"cannot subtract {self.shape} and {other.shape}"
-            ) from None
+            raise InternalInconsistency(f"cannot subtract {self.shape} and {other.shape}") from None
         out = _new(Mat)
         out.field = field
         out._m = raw

@@ -214,8 +214,10 @@ def matrix_from_residues(field: PrimeField, nrows: int, ncols: int, buf: Any) ->
         if M is not None:
             return Mat(field, M)
     vals = buf.tolist() if hasattr(buf, "tolist") else list(buf)
-    return Mat(field, flint.nmod_mat(nrows, ncols, vals, p)) if nrows and ncols else Mat.zeros(
-        field, nrows, ncols
+    return (
+        Mat(field, flint.nmod_mat(nrows, ncols, vals, p))
+        if nrows and ncols
+        else Mat.zeros(field, nrows, ncols)
     )
 
 

@@ -500,9 +500,7 @@ def attach_spin_chain(M: ActionModule, n: int, B: BasicAlgebra) -> None:
             "use route=table"
         )
     A = red.algebra
-    elements = {
-        g: A.basis_vector(A.basis.index(name)) for g, name in generator_diagrams(n).items()
-    }
+    elements = {g: A.basis_vector(A.basis.index(name)) for g, name in generator_diagrams(n).items()}
     stored = A.dim * M.dim * M.dim <= _STORE_ENTRIES
     act = BasisAction(A, M.dim, M.generators, elements=elements, stored=stored)
     M.combination_action = act.act
@@ -513,4 +511,3 @@ def attach_spin_chain(M: ActionModule, n: int, B: BasicAlgebra) -> None:
         if why is not None:
             raise InternalInconsistency(f"the spin chain of length {n} is not a module: {why}")
         M.basis_action = act.matrix
-

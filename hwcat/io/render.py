@@ -129,7 +129,9 @@ def matrix_text(
     for r in rows:
         lens = [len(str(x)) for x in r]
         if len(lens) != len(widths):
-            raise InternalInconsistency(f"a row of {len(lens)} entries under {len(widths)} column labels")
+            raise InternalInconsistency(
+                f"a row of {len(lens)} entries under {len(widths)} column labels"
+            )
         widths = list(map(max, widths, lens))
     lines = [
         indent
@@ -207,7 +209,8 @@ def render_structure(r) -> str:
     if getattr(r, "centre_dimension", None) is not None:
         terms = getattr(r, "centre_terms", "")
         lines.append(
-            f"Centre Z(A): dimension {r.centre_dimension}" + (f"; basis in {terms}" if terms else "")
+            f"Centre Z(A): dimension {r.centre_dimension}"
+            + (f"; basis in {terms}" if terms else "")
         )
         lines.extend(f"  {b}" for b in r.centre_basis)
     return "\n".join(lines)

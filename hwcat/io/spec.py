@@ -434,9 +434,7 @@ def _family_algebra(spec: Spec) -> BasicAlgebra:
     tab.pop("seed", None)
     for key, value in tab.items():
         if isinstance(value, bool) or not isinstance(value, (int, str)):
-            raise _err(
-                SpecError, src, f"family.{key}", f"{value!r} is not an integer or a string"
-            )
+            raise _err(SpecError, src, f"family.{key}", f"{value!r} is not an integer or a string")
         if key == "field":
             raise _err(SpecError, src, "family.field", "give the field at the top of the spec")
     if "field" in FAMILIES[fam].parameters:

@@ -130,7 +130,9 @@ def loewy_diagram(module: Module, *, method: str = "auto") -> LoewyDiagram:
             method = "sets"
     if method == "sets":
         if not module.acts_by_single_entries():
-            raise InternalInconsistency("the coordinate-set route needs arrows acting by single entries")
+            raise InternalInconsistency(
+                "the coordinate-set route needs arrows acting by single entries"
+            )
         return _loewy_diagram_sets(module)
     if method == "sparse":
         return _loewy_diagram_sparse(module)

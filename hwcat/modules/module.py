@@ -381,8 +381,10 @@ class Module:
             nxt = {}
             for v in sorted(set(V) | set(below)):
                 parts = [m for m in (V.get(v), below.get(v)) if m is not None]
-                nxt[v] = parts[0] if len(parts) == 1 and v not in V else echelon(
-                    Mat.vstack(F, parts, self.dims[v])
+                nxt[v] = (
+                    parts[0]
+                    if len(parts) == 1 and v not in V
+                    else echelon(Mat.vstack(F, parts, self.dims[v]))
                 )
             series.append(nxt)
         series.reverse()
@@ -560,7 +562,9 @@ class Module:
         if self.uses_sparse_rows():
             ser = [{v: len(r) for v, r in layer.items()} for layer in self.radical_series_rows()]
         else:
-            ser = [{v: B.nrows for v, B in layer.items()} for layer in self.radical_series_on_support()]
+            ser = [
+                {v: B.nrows for v, B in layer.items()} for layer in self.radical_series_on_support()
+            ]
         out = []
         for k in range(len(ser) - 1):
             vec = [0] * n

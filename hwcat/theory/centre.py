@@ -75,9 +75,7 @@ def _commutator_matrix(A: StructureAlgebra, y: list[Any]) -> Mat:
     return A.right_action(y) - A.left_action(y)
 
 
-def centre(
-    A: StructureAlgebra, *, seed: int = 0, generators: list[int] | None = None
-) -> Centre:
+def centre(A: StructureAlgebra, *, seed: int = 0, generators: list[int] | None = None) -> Centre:
     """The centre of a structure-constant algebra (see the module notes).
 
     ``generators``: indices of basis elements that generate ``A`` as an algebra
@@ -111,6 +109,7 @@ def centre(
 def algebra_centre(B: BasicAlgebra, *, seed: int = 0) -> Centre:
     """``Z`` of the algebra behind a hub: the user's algebra when the hub came from a
     reduction (table, matrices, family), else the quiver algebra in paths."""
+
     def compute() -> Centre:
         # a hub made by a reduction exists only once the reduction code is loaded;
         # a quiver algebra's describe need not load it (and the table code with it)

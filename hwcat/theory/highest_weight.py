@@ -60,7 +60,9 @@ def _opposite_order(op: BasicAlgebra, order: PartialOrder) -> PartialOrder:
     Shared so that its linear extension is computed once (the costandard
     filtrations of all tilting modules read it).
     """
-    return op.cached(("order:same-relations", order.less), lambda: PartialOrder(op.vertices, order.less))
+    return op.cached(
+        ("order:same-relations", order.less), lambda: PartialOrder(op.vertices, order.less)
+    )
 
 
 def _not_below(order: PartialOrder, L: int) -> int:

@@ -117,7 +117,9 @@ class PartialOrder:
     def _with_cycle(cls, vertices: Sequence[str], up: Sequence[int]) -> PartialOrder:
         import networkx as nx
 
-        pairs = [(a, b) for a in range(len(vertices)) for b in range(len(vertices)) if up[a] >> b & 1]
+        pairs = [
+            (a, b) for a in range(len(vertices)) for b in range(len(vertices)) if up[a] >> b & 1
+        ]
         G = nx.DiGraph()
         G.add_nodes_from(range(len(vertices)))
         G.add_edges_from(pairs)

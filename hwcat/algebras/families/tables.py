@@ -383,12 +383,7 @@ def temperley_lieb(n: int, delta: Any, field: Field | str = QQ) -> Multiplicatio
     dim = len(basis)
     name = f"TL_{n}({F.to_str(d)}) over {F.name}"
     blocks = _tl_blocks(halves, pairs, skip_loops=(d == 0))
-    if (
-        _np is not None
-        and dim >= COLUMN_TABLE_MIN
-        and isinstance(F, PrimeField)
-        and F.p < 2**31
-    ):
+    if _np is not None and dim >= COLUMN_TABLE_MIN and isinstance(F, PrimeField) and F.p < 2**31:
         columns = _tl_columns(blocks, pairs, len(halves), dim, int(d), F.p)
         return MultiplicationTable(
             name=name,

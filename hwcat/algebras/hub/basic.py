@@ -169,7 +169,9 @@ class BasicAlgebra:
         if m is not None:
             return m
         arrow = self.quiver.arrows[a]
-        return Mat.zeros(self.field, self.block_dim(s, arrow.source), self.block_dim(s, arrow.target))
+        return Mat.zeros(
+            self.field, self.block_dim(s, arrow.source), self.block_dim(s, arrow.target)
+        )
 
     def action_support(self, s: int) -> tuple[int, ...]:
         """The arrows whose action on ``e_s A`` is nonzero (the only ones stored)."""
@@ -373,7 +375,9 @@ class BasicAlgebra:
                 dims = tuple(self.block_dim(t, u) for t in range(n))
                 maps = ArrowMaps(F, dims, opq.arrows, by_end[u])
                 reps.append((dims, maps))
-            op = BasicAlgebra.from_cyclic_representations(F, opq, reps, name=name, morita=self.morita)
+            op = BasicAlgebra.from_cyclic_representations(
+                F, opq, reps, name=name, morita=self.morita
+            )
         op._cache["opposite"] = self
         self._cache["opposite"] = op
         return op
@@ -436,9 +440,7 @@ class BasicAlgebra:
             for i, a in enumerate(self.arrows):
                 s, t = a.source, a.target
                 unit = {self.word_index(s, t)[(i,)]: F.one}
-                paths = sorted(
-                    (w for u in self.row_support(t) for w in self.words[t][u]), key=len
-                )
+                paths = sorted((w for u in self.row_support(t) for w in self.words[t][u]), key=len)
                 memo: dict[Path, dict[int, Any]] = {(): unit}
                 for w in paths:
                     if w:

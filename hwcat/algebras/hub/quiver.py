@@ -197,7 +197,7 @@ def parse_relation(text: str, quiver: Quiver, field: Field) -> dict[Path, Any]:
     if gen is not None and gen in aidx:
         raise RelationError(
             f"relation {text!r}: {gen!r} names both an arrow and the generator of {field}; "
-            f"rename the generator (e.g. field = \"{field.name.split(',')[0].rstrip(')')}, w)\")"
+            f'rename the generator (e.g. field = "{field.name.split(",")[0].rstrip(")")}, w)")'
         )
     for sign, term in terms:
         factors = split_factors(term)

@@ -219,7 +219,9 @@ class StructureAlgebra:
             self.associativity = self._check_associativity(associativity, trials, seed)
             self._unit = self._establish_unit(unit, seed)
 
-    def _init_columns(self, columns: Sequence[tuple[Any, Any, Any]], trusted: bool, products) -> None:
+    def _init_columns(
+        self, columns: Sequence[tuple[Any, Any, Any]], trusted: bool, products
+    ) -> None:
         """Storage taken over from column arrays (a built-in family's large table)."""
         n = self.dim
         if not (trusted and self._p) or products or len(columns) != n:
@@ -608,7 +610,9 @@ class StructureAlgebra:
         pharr = np.asarray([int(x) % p for x in ph], dtype=np.int64)
         group = self._group_table()
         if group is not None:  # G[a, c] = phi(b_a b_c)
-            sub = group[0][np.ix_(np.asarray(rows, dtype=np.int64), np.asarray(cols, dtype=np.int64))]
+            sub = group[0][
+                np.ix_(np.asarray(rows, dtype=np.int64), np.asarray(cols, dtype=np.int64))
+            ]
             return matrix_from_residues(self.field, len(rows), w, pharr[sub].ravel())
         acc = np.zeros(len(rows) * w, dtype=np.int64)
         rp = np.asarray(rpos, dtype=np.int64)
@@ -754,9 +758,7 @@ class StructureAlgebra:
         if group is not None:  # b_i b_j = b_(P[i, j]) for every j
             ar = array("l", range(self.dim))
             ones = array("q", [1]) * self.dim
-            return {
-                i: (ar, array("l", group[0][i].astype(np.int64).tobytes()), ones) for i in rows
-            }
+            return {i: (ar, array("l", group[0][i].astype(np.int64).tobytes()), ones) for i in rows}
         want = np.zeros(self.dim, dtype=bool)
         want[np.asarray(list(rows), dtype=np.int64)] = True
         parts: dict[int, tuple[list, list, list]] = {i: ([], [], []) for i in rows}
@@ -914,8 +916,9 @@ class StructureAlgebra:
             return [rng.randrange(self._p) for _ in range(self.dim)]
         if self._char:
             F, p = self.field, self._char
-            return [F.from_coeffs([rng.randrange(p) for _ in range(F.degree)])
-                    for _ in range(self.dim)]
+            return [
+                F.from_coeffs([rng.randrange(p) for _ in range(F.degree)]) for _ in range(self.dim)
+            ]
         return [self.field(rng.randint(-_QQ_SAMPLE, _QQ_SAMPLE)) for _ in range(self.dim)]
 
     def _associativity_exact(self) -> None:

@@ -58,7 +58,6 @@ __all__ = [
 # -- text: combinations and product rules ------------------------------------------
 
 
-
 def add_unit_products(
     products: dict[tuple[int, int], dict[int, Any]], unit: Sequence[Any], n: int
 ) -> dict[tuple[int, int], dict[int, Any]]:
