@@ -165,36 +165,16 @@ def test_family_parameters_outside_the_field():
 
 
 def test_cli_family_parameter_in_extension_field():
-    res = subprocess.run(
-        [
-            sys.executable,
-            "-m",
-            "hwcat",
-            "family",
-            "temperley-lieb",
-            "n=4",
-            "delta=r",
-            "field=QQ[r]/(r^2 - 2)",
-        ],
-        capture_output=True,
-        text=True,
-    )
+    def family(delta):
+        argv = ["family", "temperley-lieb", "n=4", f"delta={delta}", "field=QQ[r]/(r^2 - 2)"]
+        return subprocess.run(
+            [sys.executable, "-m", "hwcat", *argv], capture_output=True, text=True
+        )
+
+    res = family("r")
     assert res.returncode == 0, res.stderr
     assert "QQ[r]/(r^2 - 2)" in res.stdout
-    res = subprocess.run(
-        [
-            sys.executable,
-            "-m",
-            "hwcat",
-            "family",
-            "temperley-lieb",
-            "n=4",
-            "delta=s",
-            "field=QQ[r]/(r^2 - 2)",
-        ],
-        capture_output=True,
-        text=True,
-    )
+    res = family("s")
     assert res.returncode == 2 and len(res.stderr.strip().splitlines()) == 1
     assert "'s'" in res.stderr and "delta" in res.stderr
 
