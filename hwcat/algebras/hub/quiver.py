@@ -142,6 +142,19 @@ class Quiver:
                     comps.append(frozenset(comp))
         return comps
 
+    def is_acyclic(self) -> bool:
+        """Whether the quiver has no oriented cycle (no loop, every strongly connected
+        component a single vertex).
+
+        >>> Quiver.from_text(["1", "2"], ["a: 1 -> 2"]).is_acyclic()
+        True
+        >>> Quiver.from_text(["1", "2"], ["a: 1 -> 2", "b: 2 -> 1"]).is_acyclic()
+        False
+        """
+        if any(a.source == a.target for a in self.arrows):
+            return False
+        return all(len(c) == 1 for c in self.strongly_connected_components())
+
     def path_source(self, p: Path) -> int:
         return self.arrows[p[0]].source
 

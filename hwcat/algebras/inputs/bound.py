@@ -483,11 +483,11 @@ def _relation_images(
 
 def _surviving_cycle(Q: Quiver, degrees: list[_Degree], D: int) -> Path | None:
     """A cycle of the graph of normal paths of length D - 1 (edges: normal paths of length D)."""
+    if len(degrees) <= D or Q.is_acyclic():  # a cycle of paths runs round the quiver
+        return None
     import networkx as nx
 
     n = len(Q.vertices)
-    if len(degrees) <= D:
-        return None
     G = nx.DiGraph()
     for s in range(n):
         for t in sorted(degrees[D].words[s]):
@@ -539,10 +539,10 @@ def _certified_cycle(
     the relations, and ``c`` acts on it as a cyclic permutation, so no power of
     ``c`` lies in ``I``.  Sound, not complete.
     """
+    if len(degrees) <= D or Q.is_acyclic():  # a cycle of paths runs round the quiver
+        return None
     import networkx as nx
 
-    if len(degrees) <= D:
-        return None
     terms = {p for r in relations for p in r}
     G = _normal_path_graph(Q, degrees, D)
     for nodes in islice(nx.simple_cycles(G), limit):
