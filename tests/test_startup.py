@@ -29,6 +29,22 @@ LONGER = (
 )
 
 
+# random quivers with up to 9 vertices and 20 arrows (loops and parallel arrows included)
+QUIVERS = st.integers(1, 9).flatmap(
+    lambda n: st.tuples(
+        st.just(n),
+        st.lists(st.tuples(st.integers(0, n - 1), st.integers(0, n - 1)), max_size=20),
+    )
+)
+
+
+def _quiver(n: int, edges) -> Quiver:
+    return Quiver(
+        tuple(str(v) for v in range(n)),
+        tuple(Arrow(f"a{i}", s, t) for i, (s, t) in enumerate(edges)),
+    )
+
+
 def _loaded_after(argv: list[str], tmp_path, text: str = ACYCLIC) -> set[str]:
     spec = tmp_path / "a3.toml"
     spec.write_text(text)
@@ -52,21 +68,11 @@ def test_describe_and_check_of_a_small_quiver_load_neither_networkx_nor_numpy(tm
 
 
 @settings(max_examples=60, deadline=None)
-@given(
-    st.integers(1, 9).flatmap(
-        lambda n: st.tuples(
-            st.just(n),
-            st.lists(st.tuples(st.integers(0, n - 1), st.integers(0, n - 1)), max_size=20),
-        )
-    )
-)
+@given(QUIVERS)
 def test_strongly_connected_components_agree_with_networkx(case):
     # reference: networkx.strongly_connected_components (common practice)
     n, edges = case
-    Q = Quiver(
-        tuple(str(v) for v in range(n)),
-        tuple(Arrow(f"a{i}", s, t) for i, (s, t) in enumerate(edges)),
-    )
+    Q = _quiver(n, edges)
     G = nx.DiGraph()
     G.add_nodes_from(range(n))
     G.add_edges_from(edges)
@@ -76,21 +82,11 @@ def test_strongly_connected_components_agree_with_networkx(case):
 
 
 @settings(max_examples=60, deadline=None)
-@given(
-    st.integers(1, 9).flatmap(
-        lambda n: st.tuples(
-            st.just(n),
-            st.lists(st.tuples(st.integers(0, n - 1), st.integers(0, n - 1)), max_size=20),
-        )
-    )
-)
+@given(QUIVERS)
 def test_acyclic_quivers_agree_with_networkx(case):
     # reference: networkx.is_directed_acyclic_graph (common practice; a loop is a cycle)
     n, edges = case
-    Q = Quiver(
-        tuple(str(v) for v in range(n)),
-        tuple(Arrow(f"a{i}", s, t) for i, (s, t) in enumerate(edges)),
-    )
+    Q = _quiver(n, edges)
     G = nx.MultiDiGraph()
     G.add_nodes_from(range(n))
     G.add_edges_from(edges)
