@@ -747,18 +747,14 @@ def _combine(
         sd1, cd1, below1 = got
         items = list(phi.items())
         d = items[0][1] - items[0][0]
-        if all(z - w == d for w, z in items):
-            # a shift by d: the vectors vanish outside the block, so slicing moves them
+        if d > 0 and all(z - w == d for w, z in items):
+            # a shift by d (an equal block comes after the one searched, so d > 0): the
+            # vectors vanish outside the block, so slicing moves them
             for u in path:
                 v = u + d
-                if d >= 0:
-                    sd[v] = (0,) * d + sd1[u][: n - d]
-                    cd[v] = (0,) * d + cd1[u][: n - d]
-                    below[v] = below1[u] << d
-                else:
-                    sd[v] = sd1[u][-d:] + (0,) * -d
-                    cd[v] = cd1[u][-d:] + (0,) * -d
-                    below[v] = below1[u] >> -d
+                sd[v] = (0,) * d + sd1[u][: n - d]
+                cd[v] = (0,) * d + cd1[u][: n - d]
+                below[v] = below1[u] << d
         else:
             for u in path:
                 v = phi[u]
