@@ -76,6 +76,7 @@ from quiver_cases import acyclic_quiver, cyclic_nakayama  # noqa: E402
 
 from hwcat.algebras.families.quivers import (  # noqa: E402
     auslander_truncated_polynomial,
+    disjoint_union,
     linear_A,
     spec_to_toml,  # noqa: E402
 )
@@ -91,30 +92,6 @@ from reference_search import reference_structures  # noqa: E402
 
 def algebra(spec):
     return build_algebra(read_spec_text(spec_to_toml(spec)))
-
-
-def disjoint_copies(spec, k):
-    """k disjoint copies of a quiver spec (a disconnected algebra)."""
-    q = spec["quiver"]
-    vs, ar, rel = [], [], []
-    for c in range(k):
-        ren = {v: f"v{v}_{c}" for v in q["vertices"]}
-        vs += [ren[v] for v in q["vertices"]]
-        names = {}
-        for a in q["arrows"]:
-            name, rest = a.split(":")
-            s, t = [x.strip() for x in rest.split("->")]
-            names[name.strip()] = f"{name.strip()}_{c}"
-            ar.append(f"{name.strip()}_{c}: {ren[s]} -> {ren[t]}")
-        for r in q.get("relations", []):
-            out = r
-            for old in sorted(names, key=len, reverse=True):
-                out = out.replace(old, names[old])
-            rel.append(out)
-    qq = {"vertices": vs, "arrows": ar}
-    if rel:
-        qq["relations"] = rel
-    return {"field": spec["field"], "quiver": qq}
 
 
 # -- naive baseline: every permutation, heredity chain with sympy matrices ----------------
@@ -254,7 +231,7 @@ def side_by_side(quick: bool) -> None:
         ("linear A_12, rad^4=0 (Nakayama)", linear_A(12, vanish_from_length=4)),
         ("linear A_16, rad^3=0 (Nakayama)", linear_A(16, vanish_from_length=3)),
         ("cyclic Nakayama 10, rad^4=0", cyclic_nakayama(10, 4)),
-        ("16 x Auslander k[x]/x^4", disjoint_copies(auslander_truncated_polynomial(4), 16)),
+        ("16 x Auslander k[x]/x^4", disjoint_union([auslander_truncated_polynomial(4)] * 16)),
         ("acyclic 10, free", acyclic_quiver(10, 4, 1)),
         ("acyclic 10, zero relations", acyclic_quiver(10, 6, 2, zero=4)),
         ("acyclic 10, sum relations", acyclic_quiver(10, 10, 3, 2, 1, 1)),

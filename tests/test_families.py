@@ -215,3 +215,48 @@ def test_cli_family_and_presentation(tmp_path, capsys):
     assert "[quiver]" in capsys.readouterr().out
     assert main(["family", "symmetric-group", "n=3", "field=GF(2)", "--json"]) == 0
     assert '"simple_dimensions": [' in capsys.readouterr().out
+
+
+# -- disjoint unions of quiver specs ------------------------------------------------------
+
+
+def test_disjoint_union_is_the_product_algebra():
+    # the algebra of a disjoint union of connected bound quivers is the product of their
+    # algebras: dimensions add, one block per part (networkx's weakly connected components
+    # of the quiver), the Cartan matrix is block diagonal (common practice)
+    import networkx as nx
+
+    from hwcat.algebras.families.quivers import (
+        auslander_truncated_polynomial,
+        disjoint_union,
+        linear_A,
+        spec_to_toml,
+        zigzag_A,
+    )
+
+    parts = [linear_A(3), auslander_truncated_polynomial(3), zigzag_A(3), linear_A(1)]
+    parts = [{**p, "quiver": {**p["quiver"], "vanish_from_length": 4}} for p in parts]
+    A = load_spec_text(spec_to_toml(disjoint_union(parts)))
+    algebras = [load_spec_text(spec_to_toml(p)) for p in parts]
+    assert A.dim == sum(B.dim for B in algebras)
+    G = nx.MultiDiGraph()
+    G.add_nodes_from(range(A.n))
+    G.add_edges_from((a.source, a.target) for a in A.arrows)
+    assert nx.number_weakly_connected_components(G) == len(parts)
+    C = A.cartan()
+    at = 0
+    for B in algebras:
+        assert tuple(row[at : at + B.n] for row in C[at : at + B.n]) == B.cartan()
+        at += B.n
+    assert sum(map(sum, C)) == sum(sum(map(sum, B.cartan())) for B in algebras)
+
+
+def test_disjoint_union_refuses_mixed_parts():
+    from hwcat.algebras.families.quivers import disjoint_union, linear_A
+
+    with pytest.raises(SpecError, match="one field"):
+        disjoint_union([linear_A(2), linear_A(2, field="GF(3)")])
+    with pytest.raises(SpecError, match="vanish_from_length"):
+        disjoint_union([linear_A(2), linear_A(3, vanish_from_length=2)])
+    with pytest.raises(SpecError, match="at least one"):
+        disjoint_union([])

@@ -22,7 +22,11 @@ from math import comb, factorial
 import pytest
 from hypothesis import given, settings
 
-from hwcat.algebras.families.quivers import auslander_truncated_polynomial, linear_A
+from hwcat.algebras.families.quivers import (
+    auslander_truncated_polynomial,
+    disjoint_union,
+    linear_A,
+)
 from hwcat.algebras.inputs.bound import bound_quiver_algebra
 from hwcat.exact import GF, QQ
 from hwcat.modules import projective
@@ -345,7 +349,6 @@ def test_search_against_the_naive_upper_set_search(A):
 
 # -- shortcuts of the search against the search without them (derived checks) ---------------------
 
-import re  # noqa: E402
 import sys  # noqa: E402
 from pathlib import Path  # noqa: E402
 
@@ -356,29 +359,6 @@ from hwcat.strategies import bound_quiver_specs  # noqa: E402
 
 sys.path.insert(0, str(Path(__file__).resolve().parents[1] / "benchmarks"))
 from naive_search import naive_orders  # noqa: E402
-
-
-def _disjoint_union(specs):
-    """One spec holding the quivers of ``specs`` side by side (vertices and arrows renamed)."""
-    vs, ar, rel = [], [], []
-    for c, spec in enumerate(specs):
-        q = spec["quiver"]
-        ren = {v: f"v{c}_{v}" for v in q["vertices"]}
-        names = {}
-        vs += [ren[v] for v in q["vertices"]]
-        for a in q["arrows"]:
-            name, rest = a.split(":")
-            s, t = [x.strip() for x in rest.split("->")]
-            names[name.strip()] = f"b{c}_{name.strip()}"
-            ar.append(f"{names[name.strip()]}: {ren[s]} -> {ren[t]}")
-        for r in q.get("relations", []):
-            rel.append(re.sub(r"[A-Za-z_][A-Za-z0-9_]*", lambda m, nm=names: nm.get(m[0], m[0]), r))
-    quiver = {"vertices": vs, "arrows": ar}
-    if rel:
-        quiver["relations"] = rel
-    if "vanish_from_length" in specs[0]["quiver"]:
-        quiver["vanish_from_length"] = specs[0]["quiver"]["vanish_from_length"]
-    return {"field": specs[0]["field"], "quiver": quiver}
 
 
 def _summary(r):
@@ -434,7 +414,7 @@ def test_equal_blocks_reused(specs, picks):
     if len(vanish) > 1 or not same_field:  # not one spec: copies of the first
         specs = specs[:1]
     chosen = [specs[k % len(specs)] for k in picks]
-    A = algebra_from_spec(_disjoint_union(chosen))
+    A = algebra_from_spec(disjoint_union(chosen))
     r = quasi_hereditary_orders(A, list_limit=None)
     with pytest.MonkeyPatch.context() as mp:
         want = _without_shortcuts(A, mp)
@@ -458,7 +438,7 @@ def test_equal_blocks_with_interleaved_vertices(spec, copies, rnd):
     # copies of one block whose vertices are listed in a shuffled order, so that the
     # bijection between equal blocks is a shift or not; against every block searched
     # and the naive search (common practice: the same answer however vertices are listed)
-    union = _disjoint_union([spec] * copies)
+    union = disjoint_union([spec] * copies)
     vs = list(union["quiver"]["vertices"])
     rnd.shuffle(vs)
     union["quiver"]["vertices"] = vs
@@ -491,7 +471,7 @@ def test_blocks_of_one_shape_told_apart(monkeypatch):
     }
     zero = {"field": "QQ", "quiver": {**free["quiver"], "relations": ["a*b"]}}
     for specs in ([free, zero, free], [zero, free, zero, zero]):
-        A = algebra_from_spec(_disjoint_union(specs))
+        A = algebra_from_spec(disjoint_union(specs))
         r = quasi_hereditary_orders(A, list_limit=None)
         assert _summary(r) == _summary(_without_shortcuts(A, monkeypatch))
         assert (r.quasi_hereditary_total_orders, r.reachable_sets) == naive_orders(A)

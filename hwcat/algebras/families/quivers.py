@@ -27,8 +27,10 @@ vanish_from_length = 2
 
 from __future__ import annotations
 
+import re
 from typing import Any
 
+from hwcat.algebras.hub.quiver import Quiver
 from hwcat.algebras.inputs.spec_text import spec_to_toml
 from hwcat.errors import SpecError
 from hwcat.exact.fields import Field, parse_field
@@ -39,6 +41,7 @@ __all__ = [
     "alternating_A",
     "auslander_truncated_polynomial",
     "zigzag_A",
+    "disjoint_union",
     "spec_to_toml",
 ]
 
@@ -238,3 +241,71 @@ def zigzag_A(n: int, field: Field | str = "QQ") -> dict:
     return _spec(
         f"zigzag algebra of type A_{n}", field, n, arrows, relations, vanish=3 if n >= 2 else None
     )
+
+
+# -- constructions on specs ------------------------------------------------------------
+
+_IDENT = re.compile(r"[A-Za-z_][A-Za-z0-9_']*")
+
+
+def disjoint_union(specs: list[dict]) -> dict:
+    """One spec holding the bound quivers of ``specs`` side by side: the product algebra.
+
+    Vertex ``v`` of the ``c``-th spec (counted from 0) becomes ``v{c}_{v}``
+    and arrow ``a`` becomes ``b{c}_{a}``, also inside the relations, so that
+    names never clash.  The algebra of the union is the direct product of the
+    algebras, one block per spec when each is connected (common practice).
+
+    Parameters
+    ----------
+    specs : list of dict
+        Specs shaped like those of this module, all over the same field and
+        with the same ``vanish_from_length`` (or none); arrows as text
+        ``"name: source -> target"``.
+
+    Returns
+    -------
+    dict
+        A spec named after its parts.
+
+    Examples
+    --------
+    >>> u = disjoint_union([linear_A(2), linear_A(1)])
+    >>> u["quiver"]
+    {'vertices': ['v0_1', 'v0_2', 'v1_1'], 'arrows': ['b0_a1: v0_1 -> v0_2']}
+    >>> disjoint_union([auslander_truncated_polynomial(2)] * 2)["quiver"]["relations"]
+    ['b0_a1*b0_b1', 'b1_a1*b1_b1']
+    """
+    if not specs:
+        raise SpecError("a disjoint union needs at least one spec")
+    fields = {_field_name(s["field"]) for s in specs}
+    if len(fields) > 1:
+        raise SpecError(f"a disjoint union needs one field, got {', '.join(sorted(fields))}")
+    vanish = {s["quiver"].get("vanish_from_length") for s in specs}
+    if len(vanish) > 1:
+        raise SpecError("a disjoint union needs the same vanish_from_length in every spec")
+    vertices: list[str] = []
+    arrows: list[str] = []
+    relations: list[str] = []
+    for c, spec in enumerate(specs):
+        q = spec["quiver"]
+        Q = Quiver.from_text(q["vertices"], q.get("arrows", []))  # checks the names
+        vertices += [f"v{c}_{v}" for v in Q.vertices]
+        names = {a.name: f"b{c}_{a.name}" for a in Q.arrows}
+        if q.get("relations") and any(a.isdigit() for a in names):
+            raise SpecError("a disjoint union renames arrows in relations: name arrows by letters")
+        arrows += [
+            f"{names[a.name]}: v{c}_{Q.vertices[a.source]} -> v{c}_{Q.vertices[a.target]}"
+            for a in Q.arrows
+        ]
+        relations += [
+            _IDENT.sub(lambda m, nm=names: nm.get(m[0], m[0]), r) for r in q.get("relations", [])
+        ]
+    quiver: dict[str, Any] = {"vertices": vertices, "arrows": arrows}
+    if relations:
+        quiver["relations"] = relations
+    (v,) = vanish
+    if v is not None:
+        quiver["vanish_from_length"] = v
+    name = " x ".join(str(s.get("name", "algebra")) for s in specs)
+    return {"name": name, "field": fields.pop(), "quiver": quiver}
