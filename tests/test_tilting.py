@@ -3,7 +3,8 @@
 Sources: C. M. Ringel, The category of modules with good filtrations over a
 quasi-hereditary algebra has almost split sequences, Math. Z. 208 (1991)
 209-223 (from memory: T(L) exists, is unique, built by universal extensions;
-the Ringel dual R(A) = End(T)^op is quasi-hereditary for the opposite order and
+the Ringel dual R(A) = End(T)^op (left modules; End(T) for the right modules
+of hwcat) is quasi-hereditary for the opposite order and
 R(R(A)) is Morita equivalent to A).  Small examples are derived by hand and
 marked so.
 """
@@ -70,6 +71,28 @@ def _check_tilting(A, P):
     return Ts
 
 
+def test_ringel_dual_of_a_hereditary_order_is_the_algebra_itself():
+    # linear A_3 with 1 > 2 > 3: Delta(L) = P(L), nabla(L) = L(L), so T = A and
+    # R(A) = End_A(A_A) = A with the opposite order, whose standard modules are simple;
+    # F(nabla_A) = mod A has 6 indecomposables, as mod R must (derived; Ringel 1991:
+    # F(nabla_A) and F(Delta_R) are equivalent)
+    A = algebra_from_spec(linear_A(3))
+    R, Q = ringel_dual(A, parse_order("1 > 2 > 3", A.vertices))
+    assert [(a.source, a.target) for a in R.arrows] == [(a.source, a.target) for a in A.arrows]
+    assert R.cartan() == A.cartan()
+    assert [standard_module(R, L, Q).dims for L in range(3)] == [(1, 0, 0), (0, 1, 0), (0, 0, 1)]
+
+
+def test_tilting_module_leaves_the_cached_standard_module_alone():
+    # T(1) = Delta(1) for 1 -> 2 with 2 > 1 (derived): the cached Delta(1) keeps its name
+    A = algebra_from_spec(linear_A(2))
+    P = parse_order("2 > 1", A.vertices)
+    before = standard_module(A, 0, P).name
+    T = tilting_module(A, 0, P)
+    assert T.module.name == "T(1)" and T.extension_steps == ()
+    assert standard_module(A, 0, P).name == before
+
+
 def test_auslander_algebra_tilting_and_double_dual():
     # Bruestle-Hille-Ringel-Roehrle 1999: qh; Ringel 1991: R(R(A)) ~ A
     for n in (2, 3, 4):
@@ -103,6 +126,14 @@ def test_ringel_duality_property(A):
     assert [standard_module(RR, L, Q2).dims for L in range(A.n)] == [
         standard_module(A, L, P).dims for L in range(A.n)
     ]
+    # Hom_A(T, -) takes nabla(L) to Delta_R(L) and T(M) to P_R(M) (Ringel 1991, from
+    # memory), so [Delta_R(L) : L(M)] = dim Hom(T(M), nabla(L)) = (T(M) : Delta(L));
+    # the opposite algebra would give (T(M) : nabla(L)) instead
+    Ts = tilting_modules(A, P)
+    for L in range(A.n):
+        assert standard_module(R, L, Q).dims == tuple(
+            Ts[M].standard_multiplicities[L] for M in range(A.n)
+        )
 
 
 @settings(max_examples=30, deadline=None)

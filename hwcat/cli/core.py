@@ -179,7 +179,7 @@ def _cmd_ringel_dual(args: argparse.Namespace) -> int:
     out["order"] = ", ".join(f"{a} < {b}" for a, b in opp.covers_named()) or None
     if out["order"] is None:
         del out["order"]
-    text = "# Ringel dual End(T)^op: vertex L is the tilting module T(L); the order is the opposite one\n"
+    text = "# Ringel dual End(T) (composition of maps): vertex L is the tilting module T(L), arrow f_M_L a map T(M) -> T(L); the order is the opposite one\n"
     text += spec_to_toml(out)
     if args.output:
         write_text(args.output, text)
@@ -247,7 +247,7 @@ def register(sub: argparse._SubParsersAction) -> None:
     pr.set_defaults(func=_cmd_presentation)
     rd = sub.add_parser(
         "ringel-dual",
-        help="the Ringel dual End(T)^op of a quasi-hereditary algebra, written as a [quiver] spec",
+        help="the Ringel dual End(T) of a quasi-hereditary algebra, written as a [quiver] spec",
     )
     add_algebra_source(rd)
     rd.add_argument(

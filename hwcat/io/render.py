@@ -328,7 +328,7 @@ def render_verdict(v) -> str:
                     f"socle layers (top first): {_socle_text(vs, m)}"
                 )
     if v.ringel_dual_cartan is not None:
-        lines.append("Cartan matrix of the Ringel dual End(T)^op (vertex L = T(L)):")
+        lines.append("Cartan matrix of the Ringel dual End(T) (vertex L = T(L)):")
         lines.append(
             matrix_text(v.ringel_dual_cartan, [f"T({x})" for x in vs], [f"T({x})" for x in vs])
         )

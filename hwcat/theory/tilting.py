@@ -16,11 +16,19 @@ Each result is verified: it has a standard and a costandard filtration,
 ``[T(L) : L(L)] = 1``, and its endomorphism ring is local (the endomorphisms
 vanishing at ``L`` form a nilpotent ideal).
 
-The Ringel dual ``R(A) = End_A(T)^op`` for ``T`` the sum of the ``T(L)`` is
-built directly as a :class:`~hwcat.algebras.hub.basic.BasicAlgebra`: its vertex
-``L`` is ``T(L)``, ``e_L R e_M = Hom(T(L), T(M))`` with product ``f * g`` =
-"first f, then g", its radical is everything except the scalars at the
-vertices, and its arrows are a basis of the radical modulo its square.
+The Ringel dual ``R(A) = End_A(T)`` for ``T`` the sum of the ``T(L)``, with the
+product of composition (``f g = f o g``, first ``g``), is built as a
+:class:`~hwcat.algebras.hub.basic.BasicAlgebra`: its vertex ``L`` is ``T(L)``
+and ``e_L R e_M = Hom(T(M), T(L))``.  hwcat's modules are right modules, and
+``Hom_A(T, X)`` is a right ``End_A(T)``-module by composition, so
+``Hom_A(T, -)`` carries the modules with a costandard filtration onto those
+of ``R`` with a standard filtration, ``T(L)`` to ``P_R(L)`` and ``nabla(L)``
+to ``Delta_R(L)``; hence ``[Delta_R(L) : L(M)] = (T(M) : Delta(L))``.  (In
+the convention of left modules the same algebra is written ``End_A(T)^op``.)
+:func:`endomorphism_algebra` builds ``End(T)^op`` (``e_L R e_M = Hom(T(L),
+T(M))``, product "first f, then g"), whose radical is everything except the
+scalars at the vertices and whose arrows are a basis of the radical modulo
+its square; the Ringel dual is its opposite.
 
 References
 ----------
@@ -30,6 +38,7 @@ quasi-hereditary algebra has almost split sequences, Math. Z. 208 (1991).
 
 from __future__ import annotations
 
+import copy
 import re
 from dataclasses import dataclass
 from typing import Any
@@ -304,6 +313,9 @@ def _tilting_module(A: BasicAlgebra, L: int, order: PartialOrder) -> TiltingModu
         M, d = universal_extension(M, standard_module(A, mu, order))
         if d:
             steps.append((mu, d))
+    if not steps:  # T(L) = Delta(L): a copy, not the cached standard module renamed
+        M = copy.copy(M)
+        M._memo = dict(M._memo)
     M.name = f"T({A.vertices[L]})"
     sf = standard_filtration(M, order)
     cf = costandard_filtration(M, order)
@@ -661,16 +673,15 @@ def endomorphism_algebra(
 
 
 def ringel_dual(A: BasicAlgebra, order: PartialOrder) -> tuple[BasicAlgebra, PartialOrder]:
-    """The Ringel dual ``R(A) = End_A(T)^op`` and its order (the opposite of ``order``).
+    """The Ringel dual ``R(A) = End_A(T)`` and its order (the opposite of ``order``).
 
-    Its vertex ``L`` is ``T(L)`` (same names as ``A``).
+    Its vertex ``L`` is ``T(L)`` (same names as ``A``) and ``e_L R e_M =
+    Hom(T(M), T(L))``, so that ``Hom_A(T, -)`` takes right ``A``-modules to right
+    ``R``-modules (see the module docstring).
     """
     Ts = tilting_modules(A, order)
-    R = endomorphism_algebra(
-        [T.module for T in Ts],
-        A.vertices,
-        list(range(A.n)),
-        name=f"Ringel dual of {A.name}" if A.name else "Ringel dual",
-    )
+    E = endomorphism_algebra([T.module for T in Ts], A.vertices, list(range(A.n)))
+    R = E.opposite()
+    R.name = f"Ringel dual of {A.name}" if A.name else "Ringel dual"
     opp = PartialOrder(R.vertices, frozenset((b, a) for a, b in order.less))
     return R, opp
