@@ -6,6 +6,7 @@ transitive reduction computed from scratch.
 """
 
 import itertools
+import math
 
 import networkx as nx
 import pytest
@@ -62,8 +63,8 @@ def test_bad_orders(text, fragment):
 
 @st.composite
 def random_orders(draw):
-    n = draw(st.integers(1, 5))
-    pairs = draw(st.lists(st.tuples(st.integers(0, n - 1), st.integers(0, n - 1)), max_size=8))
+    n = draw(st.integers(1, 7))
+    pairs = draw(st.lists(st.tuples(st.integers(0, n - 1), st.integers(0, n - 1)), max_size=9))
     perm = draw(st.permutations(range(n)))
     rank = {v: i for i, v in enumerate(perm)}
     # orient every pair by a hidden total order, so the relation is acyclic
@@ -81,6 +82,16 @@ def test_linear_extensions_brute_force(P):
     ]
     assert P.count_linear_extensions() == len(brute)
     assert sorted(P.linear_extensions()) == sorted(brute)
+
+
+def test_linear_extensions_of_a_wide_order():
+    # 20 disjoint chains of two: (40)! / 2^20 shuffles (common practice); counted piece by
+    # piece, where upper sets of the whole order would number 3^20
+    V = [str(i) for i in range(40)]
+    P = PartialOrder.from_relations(V, [(2 * i, 2 * i + 1) for i in range(20)])
+    assert P.count_linear_extensions() == math.factorial(40) // 2**20
+    Q = parse_order("0 < 1, 1 < 2, 0 < 3, 4 < 5", V[:7])  # pieces of 4, 2 and 1 vertices
+    assert Q.count_linear_extensions() == math.comb(7, 4) * math.comb(3, 2) * 3
 
 
 @settings(max_examples=60, deadline=None)

@@ -503,3 +503,15 @@ def test_trace_of_a_large_set_needs_no_deep_recursion():
     finally:
         sys.setrecursionlimit(old)
     assert total == 1 and q[0] == 1
+
+
+def test_deprecated_name_and_bad_list_limit():
+    # the old name warns under its own name; a negative listing limit is refused (common practice)
+    from hwcat.theory.search import adapted_orders
+
+    A = algebra_from_spec(linear_A(2))
+    with pytest.warns(DeprecationWarning, match="adapted_orders is deprecated"):
+        r = adapted_orders(A)
+    assert r.structures == 2  # Catalan(2) (Flores, Kimura, Rognerud, arXiv:2004.04726)
+    with pytest.raises(ValueError, match="list_limit"):
+        quasi_hereditary_orders(A, list_limit=-1)

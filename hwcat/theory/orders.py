@@ -25,6 +25,7 @@ import re
 from collections.abc import Iterator, Sequence
 from dataclasses import dataclass
 from functools import cached_property
+from math import factorial
 from typing import TYPE_CHECKING, Any
 
 from hwcat.errors import OrderError
@@ -201,21 +202,44 @@ class PartialOrder:
             yield tuple(order)
 
     def count_linear_extensions(self) -> int:
-        """Number of linear extensions (dynamic programming over upper sets)."""
+        """Number of linear extensions (computed once per order).
+
+        The order splits into its connected pieces (vertices joined by a
+        relation); a linear extension is a shuffle of extensions of the
+        pieces, so the count is the multinomial coefficient of the piece sizes
+        times the counts of the pieces (common practice), each by dynamic
+        programming over its upper sets.  A disconnected algebra's order costs
+        no more than its blocks.
+
+        >>> parse_order("1 < 2, 3 < 4", ["1", "2", "3", "4"]).count_linear_extensions()
+        6
+        """
+        return self._extension_count
+
+    @cached_property
+    def _extension_count(self) -> int:
         n = self.n
-        above = [0] * n  # bitmask of elements strictly above each vertex
+        root = list(range(n))
+
+        def find(x: int) -> int:
+            while root[x] != x:
+                root[x] = root[root[x]]
+                x = root[x]
+            return x
+
         for a, b in self.less:
-            above[a] |= 1 << b
-        count = {0: 1}
-        for _ in range(n):
-            nxt: dict[int, int] = {}
-            for S, c in count.items():
-                for v in range(n):
-                    if not S >> v & 1 and above[v] & ~S == 0:
-                        T = S | 1 << v
-                        nxt[T] = nxt.get(T, 0) + c
-            count = nxt
-        return sum(count.values())
+            ra, rb = find(a), find(b)
+            if ra != rb:
+                root[ra] = rb
+        pieces: dict[int, list[int]] = {}
+        for v in range(n):
+            pieces.setdefault(find(v), []).append(v)
+        total = factorial(n)
+        for piece in pieces.values():
+            total //= factorial(len(piece))
+            if len(piece) > 2:  # one vertex, or two related ones: one extension
+                total *= _count_extensions(piece, self.less)
+        return total
 
     def first_extension(self) -> tuple[int, ...]:
         """The linear extension that takes, at each step, the first available vertex.
@@ -264,6 +288,26 @@ def total_order(vertices: Sequence[str], highest_first: Sequence[int]) -> Partia
     return PartialOrder.from_relations(
         vertices, [(seq[i + 1], seq[i]) for i in range(len(seq) - 1)]
     )
+
+
+def _count_extensions(piece: list[int], less: frozenset[tuple[int, int]]) -> int:
+    """Linear extensions of the order restricted to ``piece`` (dynamic programming over upper sets)."""
+    k = len(piece)
+    loc = {v: i for i, v in enumerate(piece)}
+    above = [0] * k  # bitmask of the elements strictly above each element
+    for a, b in less:
+        if a in loc:
+            above[loc[a]] |= 1 << loc[b]
+    count = {0: 1}
+    for _ in range(k):
+        nxt: dict[int, int] = {}
+        for S, c in count.items():
+            for v in range(k):
+                if not S >> v & 1 and above[v] & ~S == 0:
+                    T = S | 1 << v
+                    nxt[T] = nxt.get(T, 0) + c
+        count = nxt
+    return sum(count.values())
 
 
 def parse_order(text: str, vertices: Sequence[str]) -> PartialOrder:

@@ -137,6 +137,8 @@ class Structure:
 
     def to_dict(self) -> dict[str, Any]:
         v = self.vertices
+        count = self.essential_order.count_linear_extensions()
+        covers = self.essential_order.covers_named()
         return {
             "standard_dimension_vectors": {
                 v[i]: list(d) for i, d in enumerate(self.standard_dimension_vectors)
@@ -144,11 +146,11 @@ class Structure:
             "costandard_dimension_vectors": {
                 v[i]: list(d) for i, d in enumerate(self.costandard_dimension_vectors)
             },
-            "essential_order": self.essential_order.covers_named(),
-            "hasse_diagram": self.essential_order.covers_named(),
-            "quasi_hereditary_total_orders": self.essential_order.count_linear_extensions(),
+            "essential_order": covers,
+            "hasse_diagram": covers,
+            "quasi_hereditary_total_orders": count,
             # deprecated alias of the key above, kept for one release
-            "adapted_total_orders": self.essential_order.count_linear_extensions(),
+            "adapted_total_orders": count,
             "representative_order": [v[i] for i in self.representative],
         }
 
@@ -472,6 +474,10 @@ def quasi_hereditary_orders(
     >>> [s.representative for s in r.structure_list]
     [(0, 1, 2), (0, 2, 1), (1, 0, 2), (2, 0, 1), (2, 1, 0)]
     """
+    if list_limit is not None and (
+        isinstance(list_limit, bool) or not isinstance(list_limit, int) or list_limit < 0
+    ):
+        raise ValueError(f"list_limit must be None or an integer >= 0, got {list_limit!r}")
     was = gc.isenabled()  # as _no_cycle_collection, without a generator: small calls are common
     gc.disable()
     try:
@@ -836,7 +842,7 @@ def adapted_orders(A: BasicAlgebra, *, list_limit: int | None = DEFAULT_LIST_LIM
     import warnings
 
     warnings.warn(
-        "quasi_hereditary_orders is deprecated; use quasi_hereditary_orders",
+        "adapted_orders is deprecated; use quasi_hereditary_orders",
         DeprecationWarning,
         stacklevel=2,
     )
