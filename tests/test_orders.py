@@ -94,6 +94,33 @@ def test_linear_extensions_of_a_wide_order():
     assert Q.count_linear_extensions() == math.comb(7, 4) * math.comb(3, 2) * 3
 
 
+@st.composite
+def random_forests(draw):
+    # each vertex gets at most one parent among the earlier ones, above or below it
+    n = draw(st.integers(1, 7))
+    parents = [draw(st.integers(-1, v - 1)) for v in range(n)]
+    up = draw(st.booleans())
+    rel = [(v, p) if up else (p, v) for v, p in enumerate(parents) if p >= 0]
+    return PartialOrder.from_relations([str(i) for i in range(n)], rel)
+
+
+@settings(max_examples=60, deadline=None)
+@given(random_forests())
+def test_linear_extensions_of_forests_brute_force(P):
+    brute = sum(
+        all(p.index(b) < p.index(a) for a, b in P.less) for p in itertools.permutations(range(P.n))
+    )
+    assert P.count_linear_extensions() == brute
+
+
+def test_linear_extensions_of_a_star():
+    # one vertex below 30 incomparable ones: 30! extensions (derived)
+    V = [str(i) for i in range(31)]
+    assert PartialOrder.from_relations(
+        V, [(0, b) for b in range(1, 31)]
+    ).count_linear_extensions() == math.factorial(30)
+
+
 @settings(max_examples=60, deadline=None)
 @given(random_orders())
 def test_hasse_diagram(P):
