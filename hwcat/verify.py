@@ -78,9 +78,10 @@ import json
 import re
 from dataclasses import dataclass
 from fractions import Fraction
+from functools import cache
 from typing import Any
 
-from hwcat.exact import Field, Mat, echelon, parse_field
+from hwcat.exact import ExtensionField, Field, Mat, echelon, parse_field
 
 __all__ = [
     "FORMAT",
@@ -144,18 +145,74 @@ def _list(x: Any, what: str) -> list:
 
 
 def _coef(F: Field, x: Any, what: str, nonzero: bool = True) -> Any:
-    """A coefficient in canonical form: 0 <= c < p in GF(p); an int or reduced "p/q" in QQ."""
-    if F.characteristic:
-        c = _int(x, 0, F.characteristic, what)
+    """A coefficient in canonical form, as the field prints it (``specs/FORMAT.md``).
+
+    ``GF(p)``: an int ``0 <= c < p``.  ``QQ``: an int or a reduced ``"p/q"``.  An
+    extension field: an int for an element of the prime field (``0 <= c < p`` over
+    ``GF(p)``; a ``"p/q"`` string for a rational non-integer), else the field's own
+    text, highest power first, every power of the generator below the degree.
+    """
+    bad = f"{what}: {x!r} is not a canonical coefficient of {F.name}"
+    if isinstance(F, ExtensionField):
+        if isinstance(x, int) and not isinstance(x, bool):
+            c = F(_int(x, 0, F.characteristic, what) if F.characteristic else x)
+        elif isinstance(x, str):
+            c = _ext_element(F, x, bad)
+        else:
+            raise Rejected(bad)
+    elif F.characteristic:
+        c = F(_int(x, 0, F.characteristic, what))
     elif isinstance(x, int) and not isinstance(x, bool):
-        c = x
+        c = F(x)
     elif isinstance(x, str) and _FRACTION.match(x) and str(Fraction(x)) == x:
-        c = Fraction(x)
+        c = F(Fraction(x))
     else:
-        raise Rejected(f"{what}: {x!r} is not a canonical coefficient of {F.name}")
-    if nonzero and c == 0:
+        raise Rejected(bad)
+    if nonzero and c == F.zero:
         raise Rejected(f"{what}: a listed coefficient is 0")
-    return F(c)
+    return c
+
+
+@cache
+def _term_pattern(gen: str) -> re.Pattern:
+    """One term ``c``, ``g``, ``g^k``, ``c*g`` or ``c*g^k`` (``c`` an integer or ``p/q``)."""
+    return re.compile(rf"(?:(\d+(?:/\d+)?)\*)?{re.escape(gen)}(?:\^(\d+))?|(\d+(?:/\d+)?)")
+
+
+def _ext_element(F: ExtensionField, x: str, bad: str) -> Any:
+    """The element written ``x``: signed terms ``c``, ``g^k``, ``c*g^k`` (``g^1`` as ``g``)
+    read one by one (no general parser: no parentheses, products or huge powers), then
+    printed again, which must give ``x`` back."""
+    gen = F.gen_name
+    term = _term_pattern(gen)
+    coeffs: dict[int, Fraction] = {}
+    pos, sign = (1, -1) if x.startswith("-") else (0, 1)
+    try:
+        while True:
+            m = term.match(x, pos)
+            if m is None:
+                raise Rejected(bad)
+            if m.group(3) is not None:
+                k, c = 0, m.group(3)
+            else:
+                k, c = int(m.group(2) or 1), m.group(1) or "1"
+            if k >= F.degree:
+                raise Rejected(f"{bad} (an unreduced power: {gen} has degree {F.degree})")
+            if k in coeffs:
+                raise Rejected(bad)
+            coeffs[k] = sign * Fraction(c)
+            pos = m.end()
+            if pos == len(x):
+                break
+            if x[pos : pos + 3] not in (" + ", " - "):
+                raise Rejected(bad)
+            sign, pos = (1 if x[pos + 1] == "+" else -1), pos + 3
+        value = F.from_coeffs([F.base(coeffs.get(k, 0)) for k in range(F.degree)])
+    except (ValueError, ArithmeticError):  # a zero denominator, or one divisible by p
+        raise Rejected(bad) from None
+    if F.to_int_or_str(value) != x:
+        raise Rejected(bad)
+    return value
 
 
 class _Algebra:
@@ -539,10 +596,15 @@ def verify_certificate(cert: Any) -> Verdict:
     if _get(cert, "version", int) != VERSION:
         raise Malformed(f"version: {cert['version']} is not supported (expected {VERSION})")
     claim = _get(cert, "quasi_hereditary", bool)
+    text = _get(cert, "field", str)
     try:
-        F = parse_field(_get(cert, "field", str))
+        F = parse_field(text)
     except ValueError as exc:
         raise Malformed(f"field: {exc}") from None
+    if F.name != text:  # coefficients are written in the generator the name gives
+        return Verdict(
+            False, claim, f"field: {text!r} is not written as hwcat names it, {F.name!r}"
+        )
     alg, order, ev = (
         _get(cert, "algebra", dict),
         _get(cert, "order", dict),

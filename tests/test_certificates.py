@@ -17,6 +17,7 @@ import copy
 import itertools
 import json
 import random
+import re
 
 import pytest
 from hypothesis import given, settings
@@ -25,10 +26,11 @@ from hypothesis import strategies as st
 from hwcat.algebras.families.quivers import auslander_truncated_polynomial, linear_A
 from hwcat.algebras.families.registry import family_algebra
 from hwcat.cli import main
-from hwcat.exact import GF, QQ
+from hwcat.exact import GF, QQ, parse_field
 from hwcat.io.spec import build_algebra, read_spec
 from hwcat.strategies import algebra_from_spec, bound_quiver_algebras
 from hwcat.theory.certificate import certify
+from hwcat.theory.check import as_order
 from hwcat.theory.highest_weight import heredity_chain
 from hwcat.theory.orders import parse_order, total_order
 from hwcat.verify import Malformed, verify_certificate
@@ -40,7 +42,7 @@ def _numbers(x, path=()):
     """Paths to every number in a JSON object (ints, and fractions written as strings)."""
     if isinstance(x, bool):
         return
-    if isinstance(x, int) or (isinstance(x, str) and "/" in x and x[-1].isdigit()):
+    if isinstance(x, int) or (isinstance(x, str) and re.fullmatch(r"-?\d+/\d+", x)):
         yield path
     elif isinstance(x, list):
         for i, y in enumerate(x):
@@ -203,6 +205,198 @@ def test_group_algebra_of_p_group_certified_negative():
     assert v.accepted and v.quasi_hereditary is False
 
 
+# -- extension fields -----------------------------------------------------------------------
+# (field, generator): a cyclotomic field, GF(9) and GF(8) with their generators named, GF(9)
+# given by a polynomial of one's own, and a number field.
+EXTENSION_FIELDS = [
+    ("QQ(zeta8)", "zeta8"),
+    ("GF(9, w)", "w"),
+    ("GF(8, h)", "h"),
+    ("GF(3)[w]/(w^2 + 1)", "w"),
+    ("QQ[r]/(r^2 - 2)", "r"),
+]
+# Specs of our own with the generator g in a relation (derived verdicts, also checked against
+# hwcat check below): the kite (quasi-hereditary for its partial order); a bypass s -> v -> u
+# beside s => m -> u, whose trace ideal of v has the row [1, g + 1] (quasi-hereditary); a fork
+# s => u -> t, whose kernel element a (x) c + g b (x) c breaks the first step (not
+# quasi-hereditary); the lantern for an order it fails.
+BYPASS = """name = "bypass"
+field = "{field}"
+order = "v > s > m > u"
+[quiver]
+vertices = ["s", "m", "v", "u"]
+arrows = ["a: s -> m", "b: s -> m", "c: m -> u", "x: s -> v", "y: v -> u"]
+relations = ["x*y - a*c - ({g} + 1)*b*c"]
+"""
+FORK = """name = "fork"
+field = "{field}"
+order = "u > s > t"
+[quiver]
+vertices = ["s", "u", "t"]
+arrows = ["a: s -> u", "b: s -> u", "c: u -> t"]
+relations = ["a*c + {g}*b*c"]
+"""
+
+
+def _over(name, field, g):
+    """The spec text of ``name`` (an example file, or BYPASS / FORK) over ``field``."""
+    if name in ("bypass", "fork"):
+        return (BYPASS if name == "bypass" else FORK).format(field=field, g=g)
+    text = open(f"{EXAMPLES}/{name}.toml", encoding="utf-8").read()
+    old = {"kite": "p*q + 3/2*s*t", "lantern": "u*x - v*y"}[name]
+    new = {"kite": f"p*q + {g}*s*t", "lantern": f"u*x - {g}*v*y"}[name]
+    assert old in text and 'field = "QQ"' in text
+    return text.replace(old, new).replace('field = "QQ"', f'field = "{field}"')
+
+
+def _coefficient_paths(data):
+    """Paths to every coefficient of a certificate (table, relations, ideals, witness)."""
+    alg, ev = data["algebra"], data["evidence"]
+    for e, entry in enumerate(alg["right_action"]):
+        for k in range(len(entry[2])):
+            yield ("algebra", "right_action", e, 2, k, 1)
+    for r, rel in enumerate(alg["relations"]):
+        for k in range(len(rel)):
+            yield ("algebra", "relations", r, k, 0)
+    for k, step in enumerate(ev.get("steps", [])):
+        for b, block in enumerate(step["ideal"]):
+            for i, row in enumerate(block[2]):
+                for j in range(len(row)):
+                    yield ("evidence", "steps", k, "ideal", b, 2, i, j)
+    for k in range(len(ev.get("failure", {}).get("coefficients", []))):
+        yield ("evidence", "failure", "coefficients", k, 2)
+
+
+EXTENSION_CASES = [
+    ("kite", [], 0),
+    ("bypass", [], 0),
+    ("fork", [], 1),
+    ("lantern", ["--order", "top > left > right > base"], 1),
+]
+
+
+@pytest.mark.parametrize("field, g", EXTENSION_FIELDS)
+@pytest.mark.parametrize("name, extra, code", EXTENSION_CASES)
+def test_extension_field_round_trip(tmp_path, capsys, field, g, name, extra, code):
+    spec, out = tmp_path / f"{name}.toml", tmp_path / "cert.json"
+    spec.write_text(_over(name, field, g), encoding="utf-8")
+    assert main(["certify", str(spec), *extra, "-o", str(out)]) == code
+    data = json.loads(out.read_text())
+    assert data["field"] == field
+    if name != "lantern":  # the generator shows in the coefficients written
+        assert any(g in str(_get(data, p)) for p in _coefficient_paths(data))
+    capsys.readouterr()
+    assert main(["verify", str(out)]) == 0
+    assert capsys.readouterr().out.startswith("ACCEPTED: ")
+    assert main(["check", str(spec), *extra, "--no-homological"]) == code
+
+
+def _one_line_rejection(data):
+    v = verify_certificate(data)
+    assert not v.accepted and v.reason and "\n" not in v.reason
+    return v.reason
+
+
+# Coefficients each certificate below writes, and other ways to write something in their place:
+# the same element written otherwise (not canonical), or text that is no element (outside the
+# field, or malformed).
+REWRITES = {
+    "QQ(zeta8)": {
+        "zeta8^3": {
+            "same": ["-zeta8^7", "zeta8^3 + zeta8^4 + 1", "zeta8^3 + 0", "1*zeta8^3", "(zeta8^3)"],
+            "not_element": [
+                "zeta16^6",
+                "i",
+                "zeta8^3 + s",
+                "zeta8^3 +",
+                "zeta8^1.5",
+                "zeta8^3 ",
+                "",
+            ],
+        },
+        "zeta8 + 1": {
+            "same": ["1 + zeta8", "zeta8^1 + 1", "zeta8 + 2/2", "zeta8 - -1", "zeta8+1"],
+            "not_element": ["zeta8 + 1/0", "zeta8 + 1.0"],
+        },
+    },
+    "GF(9, w)": {  # w^2 = -w - 2 = 2*w + 1
+        "2*w + 2": {
+            "same": ["w^2 + 1", "-w - 1", "2*w + 5", "2*w - 1", "1/2*w + 2", "2*w^1 + 2"],
+            "not_element": ["1/3*w + 2", "2*z + 2", "2*w + 2 + i", "2w + 2"],
+        },
+        "w + 1": {"same": ["1 + w", "w + 4", "w^2 + 2*w"], "not_element": ["w + 1/3"]},
+    },
+    "QQ[r]/(r^2 - 2)": {
+        "-1/2*r": {
+            "same": ["-2/4*r", "-r/2", "-1/2*r^1", "-1/2*r + 0", "1/r^-1/-2", "-1/4*r^3"],
+            "not_element": ["-1/2*s", "-1/2*sqrt2", "-1/2*r + 1/0", "-0.5*r"],
+        },
+        "r + 1": {"same": ["1 + r", "r^2 + r - 1", "r + 1/1"], "not_element": ["r + r_"]},
+    },
+}
+
+
+@pytest.mark.parametrize("field", sorted(REWRITES))
+def test_extension_coefficients_canonical(field):
+    from hwcat.io.spec import load_spec_text
+
+    F = parse_field(field)
+    g = F.gen_name
+    for name, order in [("fork", "u > s > t"), ("bypass", "v > s > m > u")]:
+        A = load_spec_text(_over(name, field, g))
+        data = json.loads(json.dumps(certify(A, as_order(A, order)).data))
+        assert verify_certificate(data).accepted
+        seen = set()
+        for path in _coefficient_paths(data):
+            good = _get(data, path)
+            if good not in REWRITES[field]:
+                continue
+            seen.add(good)
+            for kind, texts in REWRITES[field][good].items():
+                for text in texts:
+                    if kind == "same":  # a value-preserving rewrite: F reads it as the same element
+                        assert F.parse(text) == F.parse(good), text
+                    bad = copy.deepcopy(data)
+                    _set(bad, path, text)
+                    reason = _one_line_rejection(bad)
+                    if path[0] == "algebra" or path[1] == "steps":
+                        assert f"{text!r} is not a canonical coefficient of {field}" in reason
+        assert seen, f"{name} over {field} writes none of {sorted(REWRITES[field])}"
+    # unreduced powers are named as such
+    bad = copy.deepcopy(data)
+    path = next(p for p in _coefficient_paths(data) if isinstance(_get(data, p), str))
+    _set(bad, path, f"{_get(data, path)} + {F.modulus_text()}")
+    assert "an unreduced power" in _one_line_rejection(bad)
+
+
+@pytest.mark.parametrize("field, g", EXTENSION_FIELDS)
+def test_extension_certificates_tamper_evident(field, g):
+    """Over an extension field: integers in the prime field, integers written as text, another
+    field name, and a changed coefficient are all noticed."""
+    from hwcat.io.spec import load_spec_text
+
+    p = parse_field(field).characteristic
+    rng = random.Random(field)
+    for name in ("kite", "bypass", "fork"):
+        data = json.loads(json.dumps(certify(load_spec_text(_over(name, field, g))).data))
+        assert verify_certificate(data).accepted
+        _assert_tamper_evident(data, rng, 30)
+        for path in _coefficient_paths(data):
+            c = _get(data, path)
+            bad = copy.deepcopy(data)
+            if isinstance(c, int):
+                others = [str(c), c + p] if p else [str(c), float(c), c + 1]
+            else:
+                others = [f"{c} + 1" if "+ 1" not in c else c.replace(" + 1", ""), True, None]
+            for other in others:
+                _set(bad, path, other)
+                assert _rejects(bad), f"{path}: {other!r} for {c!r} went unnoticed"
+    renamed = copy.deepcopy(data)
+    other = {"QQ(zeta8)": "QQ( zeta8 )", "GF(9, w)": "GF(3^2, w)", "GF(8, h)": "GF(2^3,h)"}
+    renamed["field"] = other.get(field, field.replace(" ", ""))
+    assert "is not written as hwcat names it" in _one_line_rejection(renamed)
+
+
 # -- random algebras ------------------------------------------------------------------------
 @settings(max_examples=20)
 @given(
@@ -226,6 +420,31 @@ def test_random_algebras(A, rng):
         i = rng.randrange(A.n - 1)
         chain[i], chain[i + 1] = chain[i + 1], chain[i]
         assert _rejects(other)
+
+
+@settings(max_examples=10, deadline=None)
+@given(
+    bound_quiver_algebras(
+        max_vertices=3,
+        max_arrows=4,
+        field=st.sampled_from([parse_field("GF(4)"), parse_field("QQ(zeta3)")]),
+    ),
+    st.randoms(use_true_random=False),
+)
+def test_random_algebras_over_extension_fields(A, rng):
+    perm = list(range(A.n))
+    rng.shuffle(perm)
+    order = total_order(A.vertices, perm)
+    data = json.loads(json.dumps(certify(A, order).data))
+    v = verify_certificate(data)
+    assert v.accepted, v.reason
+    assert v.quasi_hereditary == heredity_chain(A, order).holds
+    paths = list(_coefficient_paths(data))
+    for path in rng.sample(paths, min(3, len(paths))):
+        bad = copy.deepcopy(data)
+        c = _get(data, path)
+        _set(bad, path, f"({c})" if isinstance(c, str) else str(c))  # the same value, not canonical
+        assert _rejects(bad), f"{path}: {c!r} written otherwise went unnoticed"
 
 
 @settings(max_examples=15)
