@@ -626,3 +626,39 @@ def test_work_budget_gives_lower_bounds_or_the_same_answer(A, cap):
             # dim Ext^k(S_i, S_j) = multiplicity of P(j) in P_k (minimal resolution) [ASS]
             mult = projective_resolution(simple(A, i), 2).multiplicities()
             assert list(e) == [m[j] for m in mult] + [0] * (3 - len(mult))
+
+
+def test_repeat_search_respects_the_syzygy_budget(monkeypatch):
+    # the Hom systems solved in the search for repeated syzygies stay within
+    # 4 * budget^2 entries (unknowns times equations), and a smaller budget never
+    # contradicts a larger one
+    from hwcat.modules import injective
+    from hwcat.theory import homological_dimension as hd
+
+    seen = []
+    real = hd._split_embedding
+
+    def spy(X, Y, rng, tries):
+        seen.append(max(hd._hom_entries(X, X.top(), Y), hd._hom_entries(Y, Y.top(), X)))
+        return real(X, Y, rng, tries)
+
+    monkeypatch.setattr(hd, "_split_embedding", spy)
+    # zigzag A_2 (symmetric): rad P(1) = [2; 1] comes back as its own fourth syzygy,
+    # found through Hom (derived: Omega cycles [2;1] -> L(2) -> [1;2] -> L(1) -> [2;1])
+    Z = family(zigzag_A(2))
+    assert hd.projective_dimension(projective(Z, 0).radical()).case == "infinite"
+    assert seen and max(seen) <= 4 * hd.DEFAULT_MAX_SYZYGY_DIMENSION**2
+    # k<a, b>/(ab - 2ba, paths of length 4): the syzygies of the injective grow (derived)
+    A = load_spec_text(
+        'field = "GF(7)"\n[quiver]\nvertices = ["x"]\narrows = ["a: x -> x", "b: x -> x"]\n'
+        'relations = ["a*b - 2*b*a"]\nvanish_from_length = 4'
+    )
+    answers = {}
+    for budget in (30, 120, None):
+        seen.clear()
+        answers[budget] = hd.projective_dimension(injective(A, 0), max_syzygy_dimension=budget)
+        limit = 4 * (budget or hd.DEFAULT_MAX_SYZYGY_DIMENSION) ** 2
+        assert all(x <= limit for x in seen)
+    assert answers[30].case == answers[120].case == "at_least"
+    assert answers[30].value <= answers[120].value
+    assert answers[None].case == "infinite" or answers[None].value >= answers[120].value

@@ -37,7 +37,11 @@ computation that reaches the bound first reports "at least bound + 1" (limit
 ``"bound"``); one that would build a syzygy or term of ``Omega^k`` larger than
 ``max_syzygy_dimension`` stops there with "at least k" (limit
 ``"max_syzygy_dimension"``).  So every call ends.  Repeats are sought through
-Hom only in syzygies of dimension at most :data:`SPLIT_CHECK_LIMIT`.
+Hom only in syzygies of dimension at most :data:`SPLIT_CHECK_LIMIT`, and only
+when both Hom systems (unknowns: generator images; equations: one per arrow
+and basis element) have at most ``4 * max_syzygy_dimension**2`` entries, so
+that lowering the budget shortens every step (a repeat not sought can only
+turn "infinite" into "at least k", never into a wrong answer).
 
 Examples
 --------
@@ -178,6 +182,14 @@ def find_isomorphism(
     return _isomorphism(M, N, random.Random(seed), tries)
 
 
+def _socle_top(Z: Module, inv: dict[Any, tuple]) -> tuple:
+    """The dimension vectors of the socle and the top of ``Z``, kept in ``inv``."""
+    key = ("socle and top", id(Z))
+    if key not in inv:
+        inv[key] = (Z, Z.socle(), Z.top())
+    return inv[key][1:]
+
+
 def _summand_possible(X: Module, Y: Module, inv: dict[Any, tuple]) -> bool:
     """Necessary conditions for ``X`` to be a direct summand of ``Y`` (layer by layer)."""
 
@@ -187,10 +199,7 @@ def _summand_possible(X: Module, Y: Module, inv: dict[Any, tuple]) -> bool:
         return inv[id(Z)][1:]
 
     def cheap(Z: Module) -> tuple:
-        key = ("socle and top", id(Z))
-        if key not in inv:
-            inv[key] = (Z, Z.socle(), Z.top())
-        return inv[key][1:]
+        return _socle_top(Z, inv)
 
     def support(Z: Module) -> list[tuple[int, int]]:
         key = ("support", id(Z))
@@ -476,6 +485,20 @@ class _Limits:
     tries: int
     split_limit: int = SPLIT_CHECK_LIMIT
 
+    @property
+    def hom_entries(self) -> int:
+        """Largest Hom system (unknowns times equations) solved in the search for repeats."""
+        return 4 * self.max_dim**2
+
+
+def _hom_entries(M: Module, top: Sequence[int], N: Module) -> int:
+    """Size of the linear system of ``Hom(M, N)`` (``top``: that of ``M``): unknowns (the
+    images of the generators) times equations (each basis element of ``M`` along each
+    arrow, into ``N``)."""
+    unknowns = sum(t * d for t, d in zip(top, N.dims, strict=True))
+    equations = sum(M.dims[a.source] * N.dims[a.target] for a in M.algebra.arrows)
+    return unknowns * equations
+
 
 def _limits(A: BasicAlgebra, bound: int | None, max_dim: int | None, tries: int) -> _Limits:
     b = default_bound(A) if bound is None else _need_int(bound, "bound", 0)
@@ -520,7 +543,14 @@ def _scan(
                 pair = _simple_split(Y, X)
             elif not _summand_possible(Y, X, inv):
                 continue
-            elif X.dim <= lim.split_limit:
+            elif (
+                X.dim <= lim.split_limit
+                and max(
+                    _hom_entries(Y, _socle_top(Y, inv)[1], X),
+                    _hom_entries(X, _socle_top(X, inv)[1], Y),
+                )
+                <= lim.hom_entries
+            ):
                 pair = _split_embedding(Y, X, rng, lim.tries)
             else:
                 continue
