@@ -144,8 +144,16 @@ def _list(x: Any, what: str) -> list:
 
 
 def _coef(F: Field, x: Any, what: str, nonzero: bool = True) -> Any:
-    """A coefficient in canonical form: 0 <= c < p in GF(p); an int or reduced "p/q" in QQ."""
-    if F.characteristic:
+    """A coefficient in canonical form: 0 <= c < p in GF(p); an int or reduced "p/q" in QQ;
+    over an extension field the int or text hwcat writes for the element."""
+    if getattr(F, "degree", 1) > 1:
+        try:
+            c = F(x) if isinstance(x, (int, str)) and not isinstance(x, bool) else None
+        except ValueError:
+            c = None
+        if c is None or F.to_int_or_str(c) != x:
+            raise Rejected(f"{what}: {x!r} is not a canonical coefficient of {F.name}")
+    elif F.characteristic:
         c = _int(x, 0, F.characteristic, what)
     elif isinstance(x, int) and not isinstance(x, bool):
         c = x
