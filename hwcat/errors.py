@@ -54,7 +54,14 @@ class SpecError(HwcatError, ValueError):
 
 
 class QuiverError(SpecError):
-    """A quiver that is malformed: duplicate names, unknown endpoints, empty."""
+    """A quiver that is malformed: duplicate names, unknown endpoints, empty.
+
+    ``arrow`` is the position of the offending arrow in the list given, if one is.
+    """
+
+    def __init__(self, message: str, *, arrow: int | None = None) -> None:
+        super().__init__(message)
+        self.arrow = arrow
 
 
 class RelationError(SpecError):

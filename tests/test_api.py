@@ -104,6 +104,33 @@ def test_every_json_key_is_documented():
     assert not missing, f"JSON keys not documented in specs/FORMAT.md: {missing}"
 
 
+def test_docs_name_the_commands_that_take_json():
+    # README and specs/FORMAT.md list the commands with --json and those with a schema;
+    # the lists must be the parser's and hwcat.schemas' own
+    import argparse
+    import re
+    from pathlib import Path
+
+    from hwcat.cli import build_parser
+    from hwcat.schemas import SCHEMAS
+
+    sub = next(a for a in build_parser()._actions if isinstance(a, argparse._SubParsersAction))
+    with_json = {
+        name
+        for name, p in sub.choices.items()
+        if any("--json" in a.option_strings for a in p._actions)
+    }
+    root = Path(__file__).resolve().parents[1]
+    for doc in ("README.md", "specs/FORMAT.md"):
+        text = " ".join((root / doc).read_text(encoding="utf-8").split())
+        m = re.search(r"((?:`[a-z-]+`[, and]*)+)take `--json`", text)
+        assert m, doc
+        assert set(re.findall(r"`([a-z-]+)`", m.group(1))) == with_json, doc
+    text = " ".join((root / "specs/FORMAT.md").read_text(encoding="utf-8").split())
+    m = re.search(r"The `--json` outputs of ((?:`[a-z-]+`[, and]*)+)and certificates", text)
+    assert m and set(re.findall(r"`([a-z-]+)`", m.group(1))) == set(SCHEMAS) - {"certificate"}
+
+
 def test_command_line_imports_lazily():
     # the parser needs neither the graph library nor the exact arithmetic backend
     import subprocess

@@ -489,6 +489,78 @@ def test_json_outputs_match_schemas(capsys, schemas, argv, name):
         assert "reduction" in data  # validated by the schema's reduction object
 
 
+def test_check_json_with_an_undecided_ext_condition_matches_the_schema(capsys, schemas):
+    # specs/FORMAT.md, hwcat check --json: holds is null for an Ext condition the work
+    # budget left undecided; a budget of 1 leaves some of the kite's undecided (derived)
+    argv = ["check", f"{EXAMPLES}/kite.toml", "--max-syzygy-dimension", "1", "--json"]
+    assert main(argv) == 0
+    data = json.loads(capsys.readouterr().out)
+    assert None in [a["holds"] for a in data["axioms"]]
+    schemas["check"].validate(data)
+
+
+# one element of each kind of extension field, not in the prime field (specs/FORMAT.md, Fields)
+# compound elements (sums, powers, fractions) for the relations of the schema checks below
+COMPOUND_ELEMENTS = [
+    ("QQ(zeta8)", "zeta8"),
+    ("GF(9, w)", "w + 1"),
+    ("GF(2^3, g)", "g^2 + g"),
+    ("QQ[r]/(r^2 - 2)", "-1/2*r + 3"),
+    ("GF(3)[w]/(w^2 + 1)", "2*w"),
+]
+
+
+def _spec_file(tmp_path, name, field, c):
+    """The example ``name`` over ``field`` with the element ``c`` in a relation, as a file."""
+    path = tmp_path / f"{name}.toml"
+    path.write_text(_over(name, field, f"({c})"), encoding="utf-8")
+    return str(path)
+
+
+def _strings(x):
+    if isinstance(x, str):
+        yield x
+    elif isinstance(x, (list, dict)):
+        for y in x.values() if isinstance(x, dict) else x:
+            yield from _strings(y)
+
+
+@pytest.mark.parametrize("field, c", COMPOUND_ELEMENTS, ids=[f for f, _ in COMPOUND_ELEMENTS])
+def test_outputs_over_extension_fields_match_schemas_and_verify(
+    tmp_path, capsys, schemas, field, c
+):
+    kite = _spec_file(tmp_path, "kite", field, c)
+    lantern = _spec_file(tmp_path, "lantern", field, c)
+    for argv, name in [
+        (["describe", kite], "describe"),
+        (["check", kite, "--no-homological"], "check"),
+        (["orders", lantern], "orders"),
+        (["family", "zigzag-a", "n=3", f"field={field}"], "family"),
+        (["describe", "--family", "zigzag-a", "n=3", f"field={field}"], "describe"),
+    ]:
+        assert main([*argv, "--json"]) in (0, 1)
+        schemas[name].validate(json.loads(capsys.readouterr().out))
+    for spec, extra, code in [
+        (kite, [], 0),
+        (lantern, ["--order", "top > left > right > base"], 1),
+    ]:
+        out = tmp_path / "cert.json"
+        assert main(["certify", spec, *extra, "-o", str(out)]) == code
+        data = json.loads(out.read_text())
+        schemas["certificate"].validate(data)
+        written = [x for x in _strings(data["algebra"]["right_action"]) if x not in ("0", "1")]
+        assert written, "no coefficient outside the prime field was written"
+        capsys.readouterr()
+        assert main(["verify", str(out), "--json"]) == 0
+        v = json.loads(capsys.readouterr().out)
+        schemas["verify"].validate(v)
+        assert v["accepted"] and v["quasi_hereditary"] is (code == 0)
+    # a coefficient written another way than hwcat writes it is not canonical
+    text = out.read_text()
+    bad = json.loads(text.replace(json.dumps(written[0]), json.dumps(f"0 + {written[0]}"), 1))
+    assert _rejects(bad)
+
+
 def test_schemas_reject_wrong_outputs(schemas):
     import jsonschema
 

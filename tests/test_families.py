@@ -38,7 +38,7 @@ from hwcat.algebras.families.registry import FAMILIES, family_algebra, family_re
 from hwcat.algebras.reduction.presentation import presentation_toml
 from hwcat.cli import main
 from hwcat.errors import FieldError, SpecError
-from hwcat.io.spec import load_spec_text
+from hwcat.io.spec import load, load_spec_text
 from hwcat.modules import projective
 
 
@@ -215,6 +215,17 @@ def test_cli_family_and_presentation(tmp_path, capsys):
     assert "[quiver]" in capsys.readouterr().out
     assert main(["family", "symmetric-group", "n=3", "field=GF(2)", "--json"]) == 0
     assert '"simple_dimensions": [' in capsys.readouterr().out
+
+
+def test_cli_family_seed_as_a_parameter(capsys):
+    # seed=N on the command line is an integer like a [family] table's seed (specs/FORMAT.md)
+    assert main(["describe", "--family", "linear-a", "n=3", "seed=3"]) == 0
+    capsys.readouterr()
+    assert main(["family", "temperley-lieb", "n=4", "seed=3"]) == 0
+    with_param = capsys.readouterr().out
+    assert main(["family", "temperley-lieb", "n=4", "--seed", "3"]) == 0
+    assert capsys.readouterr().out == with_param
+    assert load(family="linear-a", n=3, seed=3).dim == 6
 
 
 # -- disjoint unions of quiver specs ------------------------------------------------------

@@ -243,6 +243,39 @@ CASES = [
         "--coproduct: give the second factor with --tensor",
     ),
     Case("unknown family parameter", ("family", "schur", "r=2", "s=3"), "unknown parameter"),
+    # a parameter given twice is refused, as survey refuses it (README, hwcat survey)
+    Case(
+        "family parameter twice",
+        ("family", "temperley-lieb", "n=4", "n=5"),
+        "family temperley-lieb: parameter 'n' given twice",
+    ),
+    Case(
+        "--family parameter twice",
+        ("describe", "--family", "linear-a", "n=3", "n=4"),
+        "--family: parameter 'n' given twice",
+    ),
+    # the family is named first; name= must not replace it (specs/FORMAT.md, families)
+    Case(
+        "--family name=",
+        ("describe", "--family", "linear-a", "n=3", "name=temperley-lieb"),
+        "--family: unknown parameter 'name'",
+    ),
+    Case(
+        "family family=",
+        ("family", "linear-a", "n=3", "family=x"),
+        "unknown parameter 'family'",
+    ),
+    Case(
+        "family max_dim= as a parameter",
+        ("family", "linear-a", "n=3", "max_dim=1"),
+        "unknown parameter 'max_dim'",
+    ),
+    Case("family seed not an integer", ("family", "linear-a", "n=3", "seed=x"), "seed = 'x'"),
+    Case(
+        "family seed twice",
+        ("family", "linear-a", "n=3", "seed=1", "--seed", "2"),
+        "seed given twice",
+    ),
     Case(
         "family over GF(10)", ("family", "schur", "r=2", "field=GF(10)"), "10 is not a prime power"
     ),

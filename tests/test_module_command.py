@@ -414,3 +414,31 @@ def test_named_modules_of_a_reduced_algebra_say_they_live_over_the_basic_algebra
     assert out.splitlines()[0].startswith(
         "module regular of the basic algebra over GF(3): dimension 8"
     )
+
+
+def test_an_empty_order_is_an_error(tmp_path, capsys):
+    # specs/FORMAT.md: an empty order is bad input (exit 2), as for check and certify
+    kite = str(EXAMPLES / "kite.toml")
+    err = run_error(capsys, ["module", kite, "--module", "Delta(tail)", "--order", ""])
+    assert err == "hwcat: error: --order: the order is empty"
+    text = (EXAMPLES / "kite.toml").read_text(encoding="utf-8")
+    spec = write(tmp_path, "k.toml", text.replace('order = "nose', 'order = "" # "nose'))
+    err = run_error(capsys, ["module", spec, "--module", "Delta(tail)"])
+    assert err == f"hwcat: error: {spec}: order: the order is empty"
+
+
+@pytest.mark.parametrize("value", ["99", "true", "1.0"])
+def test_module_file_format_must_be_1(tmp_path, capsys, value):
+    spec = write(tmp_path, "c3.toml", GROUP)
+    mod = write(tmp_path, "m.toml", f"format = {value}\ndimension = 1\n[matrices]\ng = [[1]]\n")
+    err = run_error(capsys, ["module", spec, "--module", mod])
+    assert f"m.toml: format: {value.replace('true', 'True')}: only format 1 is known" in err
+    ok = write(tmp_path, "ok.toml", "format = 1\ndimension = 1\n[matrices]\ng = [[1]]\n")
+    assert main(["module", spec, "--module", ok]) == 0
+
+
+def test_module_file_without_matrices_for_a_table(tmp_path, capsys):
+    spec = write(tmp_path, "c3.toml", GROUP)
+    mod = write(tmp_path, "m.toml", "dimension = 1\n[matrices]\n")
+    err = run_error(capsys, ["module", spec, "--module", mod])
+    assert "m.toml: matrices: no matrices are given;" in err and "  " not in err

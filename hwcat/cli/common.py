@@ -16,7 +16,6 @@ __all__ = [
     "add_algebra_source",
     "load_algebra",
     "order_argument",
-    "parse_assignments",
     "with_order_context",
     "write_text",
 ]
@@ -69,14 +68,3 @@ def with_order_context(spec, source: str, fn):
     except OrderError as exc:
         where = "--order" if source == "command line" else f"{spec.source}: order"
         raise OrderError(f"{where}: {exc}") from None
-
-
-def parse_assignments(items) -> dict[str, str]:
-    """``["n=4", "delta=0"]`` as ``{"n": "4", "delta": "0"}``; anything else is a user error."""
-    out = {}
-    for it in items:
-        if "=" not in it:
-            raise SpecError(f"family parameter {it!r}: expected key=value, e.g. n=4")
-        k, v = it.split("=", 1)
-        out[k.strip()] = v.strip()
-    return out

@@ -11,7 +11,6 @@ from hwcat.cli.common import (
     add_algebra_source,
     load_algebra,
     order_argument,
-    parse_assignments,
     with_order_context,
     write_text,
 )
@@ -123,15 +122,22 @@ def _cmd_family(args: argparse.Namespace) -> int:
         family_reduction_record,
     )
     from hwcat.algebras.reduction.presentation import presentation_toml
+    from hwcat.errors import SpecError
     from hwcat.io.render import render_structure, to_json
+    from hwcat.io.spec import family_parameters
     from hwcat.theory.structure import describe
 
     if args.list or not args.name:
         for f in FAMILIES.values():
             print(f"{f.usage()}\n    {f.summary}\n    source: {f.source}")
         return 0
-    params = parse_assignments(args.params)
-    A = family_algebra(args.name, seed=args.seed, **params)
+    if args.name not in FAMILIES:
+        raise SpecError(f"unknown family {args.name!r} (known: {', '.join(FAMILIES)})")
+    params = family_parameters(args.name, args.params, where=f"family {args.name}")
+    seed = params.pop("seed", None)
+    if seed is not None and args.seed is not None:
+        raise SpecError(f"family {args.name}: seed given twice (--seed and seed=)")
+    A = family_algebra(args.name, seed=seed if seed is not None else args.seed or 0, **params)
     if args.write_quiver:
         text = presentation_toml(A, name=A.name or args.name)
         write_text(args.write_quiver, text)
@@ -263,7 +269,9 @@ def register(sub: argparse._SubParsersAction) -> None:
     fa.add_argument("params", nargs="*", help="parameters key=value, e.g. n=4 delta=0 field=QQ")
     fa.add_argument("--list", action="store_true", help="list the families and their parameters")
     fa.add_argument("--json", action="store_true", help="print one JSON object")
-    fa.add_argument("--seed", type=int, default=0, help="seed of the randomised reduction")
+    fa.add_argument(
+        "--seed", type=int, help="seed of the randomised reduction (default 0; also seed=N)"
+    )
     fa.add_argument(
         "--write-quiver",
         metavar="FILE",

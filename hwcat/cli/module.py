@@ -6,8 +6,8 @@ import argparse
 import sys
 from pathlib import Path
 
-from hwcat.cli.common import add_algebra_source
-from hwcat.errors import HwcatError, ModuleFileError, OrderError, SpecError
+from hwcat.cli.common import add_algebra_source, order_argument, with_order_context
+from hwcat.errors import HwcatError, ModuleFileError, SpecError
 from hwcat.io.render import to_json
 
 __all__ = ["register"]
@@ -141,13 +141,11 @@ def _cmd_module(args: argparse.Namespace) -> int:
             M = read_module_file(args.module, spec, B)
         else:
             M = None
-        text = args.order or spec.order
-        if text and B is not None:
-            try:
-                order = parse_order(text, B.vertices)
-            except OrderError as exc:
-                where = "--order" if args.order else f"{spec.source}: order"
-                raise OrderError(f"{where}: {exc}") from None
+        text, source = order_argument(spec, args.order)
+        if text is not None and B is not None:
+            order = with_order_context(spec, source, lambda: parse_order(text, B.vertices))
+        elif text is not None and not text.strip():  # no algebra to read it against
+            with_order_context(spec, source, lambda: parse_order(text, ()))
         if M is None:
             if order is None and B is not None and not B.natural_order:
                 from hwcat.theory.search import quasi_hereditary_orders

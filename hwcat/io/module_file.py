@@ -28,7 +28,7 @@ from typing import Any
 from hwcat.algebras.hub.basic import BasicAlgebra
 from hwcat.errors import HwcatError, InternalInconsistency, ModuleFileError, SpecError
 from hwcat.exact import Mat, parse_field
-from hwcat.io.spec import Spec, _matrix_value, build_structure
+from hwcat.io.spec import Spec, _matrix_value, build_structure, is_format_1
 from hwcat.modules import Module, injective, projective, regular_module, simple
 from hwcat.modules.action import ActionModule, from_representation
 
@@ -163,6 +163,8 @@ def read_module_file(path: str, spec: Spec, B: BasicAlgebra | None = None) -> Ac
     unknown = sorted(set(data) - FILE_KEYS)
     if unknown:
         raise _err(src, unknown[0], f"unknown key (allowed: {', '.join(sorted(FILE_KEYS))})")
+    if "format" in data and not is_format_1(data["format"]):
+        raise _err(src, "format", f"{data['format']!r}: only format 1 is known")
     F = spec.field
     if "field" in data:
         try:

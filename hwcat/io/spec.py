@@ -18,6 +18,7 @@ from hwcat.algebras.hub.quiver import Quiver, parse_relation
 from hwcat.algebras.inputs.bound import bound_quiver_algebra
 from hwcat.errors import (
     HwcatError,
+    QuiverError,
     ResourceLimitError,
     SpecError,
     SpecSyntaxError,
@@ -37,6 +38,7 @@ __all__ = [
     "load_spec",
     "load_spec_text",
     "family_source",
+    "family_parameters",
 ]
 
 TOP_KEYS = {"name", "field", "order", "quiver", "multiplication", "matrices", "family", "format"}
@@ -58,6 +60,11 @@ class Spec:
     table: dict[str, Any] = field(repr=False)
 
 
+def is_format_1(value: Any) -> bool:
+    """Whether a file's ``format`` key is the integer 1 (not ``true``, not ``1.0``)."""
+    return type(value) is int and value == 1
+
+
 def _err(cls: type[HwcatError], source: str, key: str, msg: str) -> HwcatError:
     return cls(f"{source}: {key}: {msg}" if key else f"{source}: {msg}")
 
@@ -73,7 +80,7 @@ def read_spec_text(text: str, source: str = "<spec>") -> Spec:
         raise _err(
             SpecError, source, unknown[0], f"unknown key (allowed: {', '.join(sorted(TOP_KEYS))})"
         )
-    if "format" in data and data["format"] != 1:
+    if "format" in data and not is_format_1(data["format"]):
         raise _err(SpecError, source, "format", f"{data['format']!r}: only format 1 is known")
     if "field" not in data:
         raise _err(SpecError, source, "field", 'missing (e.g. field = "QQ" or field = "GF(101)")')
@@ -151,6 +158,9 @@ def _quiver_algebra(spec: Spec) -> BasicAlgebra:
         raise type(exc)(f"{src}: quiver.vertices: {exc}") from None
     try:
         Q = Quiver.from_text(vertices, arrows)
+    except QuiverError as exc:
+        key = "quiver.arrows" if exc.arrow is None else f"quiver.arrows[{exc.arrow}]"
+        raise QuiverError(f"{src}: {key}: {exc}", arrow=exc.arrow) from None
     except HwcatError as exc:
         raise type(exc)(f"{src}: quiver.arrows: {exc}") from None
     rel_texts = tab.get("relations", [])
@@ -432,7 +442,15 @@ def _family_algebra(spec: Spec) -> BasicAlgebra:
         )
     seed = _seed(src, "family", tab)
     tab.pop("seed", None)
+    allowed = FAMILIES[fam].parameters
     for key, value in tab.items():
+        if key not in allowed and key != "field":
+            raise _err(
+                SpecError,
+                src,
+                f"family.{key}",
+                f"unknown parameter of {fam} (allowed: name, seed, {', '.join(allowed)})",
+            )
         if isinstance(value, bool) or not isinstance(value, (int, str)):
             raise _err(SpecError, src, f"family.{key}", f"{value!r} is not an integer or a string")
         if key == "field":
@@ -450,6 +468,42 @@ def _family_algebra(spec: Spec) -> BasicAlgebra:
     return A
 
 
+def family_parameters(
+    family: str, items: Sequence[str], *, where: str, top_keys: Sequence[str] = ()
+) -> dict[str, Any]:
+    """Parameters ``key=value`` of a family named on the command line, as text.
+
+    Each key at most once, and only the family's own parameters, ``seed`` (an
+    integer, returned as one) and ``top_keys``; ``where`` starts every message.
+
+    >>> family_parameters("linear-a", ["n=3", "seed=2"], where="--family")
+    {'n': '3', 'seed': 2}
+    >>> family_parameters("linear-a", ["n=3", "n=4"], where="--family")
+    Traceback (most recent call last):
+    ...
+    hwcat.errors.SpecError: --family: parameter 'n' given twice
+    """
+    from hwcat.algebras.families.registry import FAMILIES
+
+    allowed = list(dict.fromkeys([*FAMILIES[family].parameters, "seed", *top_keys]))
+    out: dict[str, Any] = {}
+    for it in items:
+        if "=" not in it:
+            raise SpecError(f"{where}: parameter {it!r}: expected key=value, e.g. n=4")
+        k, v = (x.strip() for x in it.split("=", 1))
+        if k in out:
+            raise SpecError(f"{where}: parameter {k!r} given twice")
+        if k not in allowed:
+            raise SpecError(f"{where}: unknown parameter {k!r} (allowed: {', '.join(allowed)})")
+        if k == "seed":
+            try:
+                v = int(v)
+            except ValueError:
+                raise SpecError(f"{where}: seed = {v!r} is not an integer") from None
+        out[k] = v
+    return out
+
+
 def family_source(items: Sequence[str]) -> Spec:
     """A :class:`Spec` for a family named on the command line: ``["temperley-lieb", "n=4", ...]``.
 
@@ -463,19 +517,12 @@ def family_source(items: Sequence[str]) -> Spec:
     name, *rest = items
     if name not in FAMILIES:
         raise SpecError(f"--family: unknown family {name!r} (known: {', '.join(FAMILIES)})")
-    table: dict[str, Any] = {"name": name}
-    order = None
-    field_text = None
-    for it in rest:
-        if "=" not in it:
-            raise SpecError(f"--family: parameter {it!r}: expected key=value, e.g. n=4")
-        k, v = (x.strip() for x in it.split("=", 1))
-        if k == "field":
-            field_text = v
-        elif k == "order":
-            order = v
-        else:
-            table[k] = v
+    table: dict[str, Any] = {
+        "name": name,
+        **family_parameters(name, rest, where="--family", top_keys=("field", "order")),
+    }
+    order = table.pop("order", None)
+    field_text = table.pop("field", None)
     fam = FAMILIES[name]
     if field_text is None:
         field_text = fam.parameters["field"][1] if "field" in fam.parameters else "QQ"

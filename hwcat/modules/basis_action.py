@@ -117,6 +117,11 @@ class BasisAction:
         A = self.algebra
         if len(self._tree) < A.dim:
             missing = next(b for k, b in enumerate(A.basis) if k not in self._tree)
+            if not self.generators:
+                raise ModuleFileError(
+                    "no matrices are given; the given basis elements must generate the "
+                    f"algebra (no action of {missing!r} follows)"
+                )
             raise ModuleFileError(
                 f"the generators {', '.join(self.generators)} do not generate the algebra "
                 f"(no action of {missing!r} follows from them)"

@@ -1,4 +1,5 @@
-"""JSON Schemas (draft 2020-12) of every ``--json`` output and of certificates.
+"""JSON Schemas (draft 2020-12) of the ``--json`` outputs of describe, check, orders,
+family and verify, and of certificates (module, fuzz and survey have none).
 
 >>> sorted(SCHEMAS)
 ['certificate', 'check', 'describe', 'family', 'orders', 'verify']

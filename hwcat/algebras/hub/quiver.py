@@ -66,13 +66,16 @@ class Quiver:
         index = {v: i for i, v in enumerate(names)}
         arrs: list[Arrow] = []
         anames: set[str] = set()
-        for text in arrows:
-            name, s, t = parse_arrow(str(text))
+        for pos, text in enumerate(arrows):
+            try:
+                name, s, t = parse_arrow(str(text))
+            except QuiverError as exc:
+                raise QuiverError(str(exc), arrow=pos) from None
             if name in anames:
-                raise QuiverError(f"arrow {name!r} is listed twice")
+                raise QuiverError(f"arrow {name!r} is listed twice", arrow=pos)
             for end in (s, t):
                 if end not in index:
-                    raise QuiverError(f"arrow {text!r}: {end!r} is not a vertex")
+                    raise QuiverError(f"arrow {text!r}: {end!r} is not a vertex", arrow=pos)
             anames.add(name)
             arrs.append(Arrow(name, index[s], index[t]))
         return cls(tuple(names), tuple(arrs))
