@@ -21,14 +21,13 @@ Matrices are lists of rows or sparse tables ``{size = [r, c], entries =
 from __future__ import annotations
 
 import re
-import tomllib
 from pathlib import Path as FilePath
 from typing import Any
 
 from hwcat.algebras.hub.basic import BasicAlgebra
 from hwcat.errors import HwcatError, InternalInconsistency, ModuleFileError, SpecError
 from hwcat.exact import Mat, parse_field
-from hwcat.io.spec import Spec, _matrix_value, build_structure
+from hwcat.io.spec import Spec, _matrix_value, build_structure, load_toml
 from hwcat.modules import Module, injective, projective, regular_module, simple
 from hwcat.modules.action import ActionModule, from_representation
 
@@ -136,10 +135,7 @@ def _read_toml(path: str) -> dict[str, Any]:
         raise ModuleFileError(f"{p}: cannot read: {exc.strerror or exc}") from None
     except UnicodeDecodeError:
         raise ModuleFileError(f"{p}: not UTF-8 text") from None
-    try:
-        return tomllib.loads(text)
-    except tomllib.TOMLDecodeError as exc:
-        raise ModuleFileError(f"{p}: not valid TOML: {exc}") from None
+    return load_toml(text, str(p), ModuleFileError)
 
 
 def _matrix(src: str, key: str, F, value: Any, shape: tuple[int, int]) -> Mat:

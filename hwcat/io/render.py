@@ -8,6 +8,7 @@ from itertools import compress
 from typing import Any
 
 from hwcat.errors import InternalInconsistency
+from hwcat.exact.fields import long_int_text
 
 __all__ = [
     "json_text",
@@ -74,7 +75,8 @@ def _key(k: Any) -> str:
 
 def json_text(value: Any) -> str:
     """JSON text of a plain value (dicts, lists, scalars) in the layout of :func:`_json_chunks`."""
-    return "".join(_json_chunks(value))
+    with long_int_text():  # exact numbers may have more than 4300 digits
+        return "".join(_json_chunks(value))
 
 
 def to_json(result: Any) -> str:
@@ -89,11 +91,12 @@ def write_json(result: Any, stream: Any) -> None:
     has sixteen million numbers in its dimension vectors).
     """
     buf: list[str] = []
-    for chunk in _json_chunks(result.to_dict()):
-        buf.append(chunk)
-        if len(buf) >= 1 << 14:
-            stream.write("".join(buf))
-            buf.clear()
+    with long_int_text():  # exact numbers may have more than 4300 digits
+        for chunk in _json_chunks(result.to_dict()):
+            buf.append(chunk)
+            if len(buf) >= 1 << 14:
+                stream.write("".join(buf))
+                buf.clear()
     buf.append("\n")
     stream.write("".join(buf))
 

@@ -7,6 +7,7 @@ arrow 'c: 1 -> 5': '5' is not a vertex"``.
 
 from __future__ import annotations
 
+import sys
 import tomllib
 from collections.abc import Sequence
 from dataclasses import dataclass, field
@@ -62,12 +63,27 @@ def _err(cls: type[HwcatError], source: str, key: str, msg: str) -> HwcatError:
     return cls(f"{source}: {key}: {msg}" if key else f"{source}: {msg}")
 
 
+def load_toml(text: str, source: str, error: type[HwcatError] = SpecSyntaxError) -> dict[str, Any]:
+    """``tomllib.loads(text)``, every failure raised as ``error`` naming ``source``.
+
+    Besides malformed TOML this is an integer literal of more than 4300 digits,
+    which Python's conversion from text refuses; coefficients written as strings
+    (``"123...9"``, ``"123...9*a*b"``) have no such bound.
+    """
+    try:
+        return tomllib.loads(text)
+    except tomllib.TOMLDecodeError as exc:
+        raise error(f"{source}: not valid TOML: {exc}") from None
+    except ValueError:  # int(text) beyond sys.get_int_max_str_digits()
+        raise error(
+            f"{source}: an integer literal has more than {sys.get_int_max_str_digits()} "
+            'digits; write it as a string ("123...")'
+        ) from None
+
+
 def read_spec_text(text: str, source: str = "<spec>") -> Spec:
     """Parse spec text (TOML) and check its header keys."""
-    try:
-        data = tomllib.loads(text)
-    except tomllib.TOMLDecodeError as exc:
-        raise SpecSyntaxError(f"{source}: not valid TOML: {exc}") from None
+    data = load_toml(text, source)
     unknown = sorted(set(data) - TOP_KEYS)
     if unknown:
         raise _err(

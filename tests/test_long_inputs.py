@@ -1,0 +1,124 @@
+"""Long numbers and oversized inputs: a named error or a correct answer, never a traceback.
+
+Python refuses to convert integers of more than 4300 digits from or to text
+(its default limit); hwcat reads long coefficients itself, writes long numbers
+in its JSON output, and refuses integer literals beyond the limit in TOML with
+the spec's own error.  Fields are bounded before anything is computed from
+their size (``specs/FORMAT.md``, fields).  Mathematical facts used: phi(p) =
+p - 1 for a prime p (common practice); 2^63 has 19 digits (common practice); 2^63 - 25 is
+a prime (from memory).
+"""
+
+from __future__ import annotations
+
+from pathlib import Path
+
+import pytest
+
+from hwcat.cli import main
+from hwcat.errors import CoefficientError, FieldError, ModuleFileError, SpecSyntaxError
+from hwcat.exact import QQ, parse_field
+from hwcat.io.spec import load_spec_text
+
+LONG = "7" * 5000  # more digits than Python converts from text by default
+A3_TWO_PATHS = (
+    'field = "QQ"\n[quiver]\nvertices = ["1", "2", "3"]\n'
+    'arrows = ["a: 1 -> 2", "b: 2 -> 3", "c: 1 -> 2", "d: 2 -> 3"]\n'
+)
+
+
+def _one_error_line(capsys, argv: list[str], fragment: str) -> None:
+    rc = main(argv)
+    out, err = capsys.readouterr()
+    assert rc == 2, err
+    assert out == "" and "Traceback" not in err
+    lines = err.strip().splitlines()
+    assert len(lines) == 1 and fragment in lines[0], err
+
+
+def test_long_integer_literal_in_toml_is_a_spec_error(tmp_path: Path, capsys) -> None:
+    text = f'field = "QQ"\nseed = {LONG}\n[multiplication]\nbasis = ["e"]\nunit = "e"\n'
+    with pytest.raises(SpecSyntaxError, match="more than 4300 digits"):
+        load_spec_text(text, "long.toml")
+    path = tmp_path / "long.toml"
+    path.write_text(text, encoding="utf-8")
+    _one_error_line(capsys, ["describe", str(path)], "long.toml: an integer literal")
+
+
+def test_long_integer_in_a_module_file_is_a_module_file_error(tmp_path: Path, capsys) -> None:
+    spec = tmp_path / "a2.toml"
+    spec.write_text('field = "QQ"\n[quiver]\nvertices = ["1", "2"]\narrows = ["a: 1 -> 2"]\n')
+    mod = tmp_path / "m.toml"
+    mod.write_text(f"[dimensions]\n1 = {LONG}\n", encoding="utf-8")
+    _one_error_line(capsys, ["module", str(spec), "--module", str(mod)], "integer literal")
+    from hwcat.io.module_file import _read_toml
+
+    with pytest.raises(ModuleFileError):
+        _read_toml(str(mod))
+
+
+def test_long_coefficients_are_read_exactly() -> None:
+    x = QQ.parse(f"-{LONG}/3")
+    assert x * 3 == -QQ.parse(LONG)
+    with pytest.raises(CoefficientError):
+        QQ.parse(f"{LONG}/0")
+
+
+def test_long_output_numbers_are_written_and_verified(tmp_path: Path, capsys) -> None:
+    # a relation with a 3000-digit coefficient over its reciprocal: the certificate holds
+    # numbers of about 6000 digits
+    c, d = "7" * 3000, "3" * 2999 + "1"
+    spec = tmp_path / "long.toml"
+    spec.write_text(A3_TWO_PATHS + f'relations = ["{c}*a*b - 1/{d}*c*d"]\n', encoding="utf-8")
+    cert = tmp_path / "c.json"
+    assert main(["certify", str(spec), "-o", str(cert)]) == 0
+    assert main(["describe", str(spec), "--json"]) == 0
+    capsys.readouterr()
+    assert main(["verify", str(cert)]) == 0
+    assert capsys.readouterr().out.startswith("ACCEPTED")
+
+
+@pytest.mark.parametrize(
+    ("text", "fragment"),
+    [
+        ('{"version": ' + LONG + "}", "format: missing"),
+        ('{"format": "hwcat-certificate", "version": ' + LONG + "}", "a longer integer"),
+        ("[" * 100000 + "]" * 100000, "nested too deeply"),
+    ],
+    ids=["long version", "long version with format", "deep nesting"],
+)
+def test_hostile_certificates_are_one_line(tmp_path: Path, capsys, text: str, fragment) -> None:
+    from hwcat.verify import FORMAT
+
+    path = tmp_path / "c.json"
+    path.write_text(text.replace("hwcat-certificate", FORMAT), encoding="utf-8")
+    _one_error_line(capsys, ["verify", str(path)], fragment)
+
+
+@pytest.mark.parametrize(
+    ("name", "fragment"),
+    [
+        (f"GF({LONG})", "below 2^63"),
+        ("GF(1" + "0" * 3998 + "7)", "below 2^63"),  # refused before it is factored
+        ("GF(2^99999999999)", "below 2^63"),  # refused before 2^k is computed
+        ("GF(3^40)", "below 2^63"),
+        ("GF(4^2)", "4 is not a prime"),
+        ("QQ(zeta10000019)", "degree"),
+        ("QQ(zeta18446744073709551615)", "degree"),
+        ("QQ(zeta18446744073709551616)", "degree"),
+        ("QQ(zeta1009)", "phi(1009) = 1008"),  # 1009 is a prime
+        ("QQ[r]/(r^1001 - 2)", "exponent above 1000"),
+        ("QQ[r]/(r^99999999999 - 2)", "exponent above 1000"),
+    ],
+)
+def test_field_sizes_are_bounded_first(name: str, fragment: str) -> None:
+    with pytest.raises(FieldError) as info:
+        parse_field(name)
+    assert fragment in str(info.value)
+
+
+def test_fields_at_the_bounds_are_built() -> None:
+    assert parse_field("GF(2^62)").order == 1 << 62
+    # 2^63 - 25 is the largest prime below 2^63 (from memory)
+    assert parse_field("GF(9223372036854775783)").characteristic == 9223372036854775783
+    assert parse_field("QQ(zeta1111)").degree == 1000  # phi(11 * 101) = 10 * 100
