@@ -16,7 +16,13 @@ from pathlib import Path
 import pytest
 
 from hwcat.cli import main
-from hwcat.errors import CoefficientError, FieldError, ModuleFileError, SpecSyntaxError
+from hwcat.errors import (
+    CoefficientError,
+    FieldError,
+    ModuleFileError,
+    ResourceLimitError,
+    SpecSyntaxError,
+)
 from hwcat.exact import QQ, parse_field
 from hwcat.io.spec import load_spec_text
 
@@ -122,3 +128,40 @@ def test_fields_at_the_bounds_are_built() -> None:
     # 2^63 - 25 is the largest prime below 2^63 (from memory)
     assert parse_field("GF(9223372036854775783)").characteristic == 9223372036854775783
     assert parse_field("QQ(zeta1111)").degree == 1000  # phi(11 * 101) = 10 * 100
+
+
+# -- matrix sizes against the limits, before anything is allocated ----------------------------
+
+
+@pytest.mark.parametrize(
+    ("size", "fragment"),
+    [(100_000_000, "max_dim"), (10**21, "about 10^21 rows"), (10_000, "max_products")],
+)
+def test_sparse_matrix_sizes_are_checked_first(size: int, fragment: str) -> None:
+    text = (
+        'field = "QQ"\n[matrices]\n'
+        f"generators = {{ E = {{ size = [{size}, {size}], entries = [[0, 1, 1]] }} }}\n"
+    )
+    with pytest.raises(ResourceLimitError) as info:
+        load_spec_text(text, "big.toml")
+    assert "big.toml: matrices.generators.E.size" in str(info.value)
+    assert fragment in str(info.value)
+
+
+KITE = Path(__file__).resolve().parents[1] / "specs" / "examples" / "kite.toml"
+PLAQUETTE = KITE.with_name("plaquette.toml")
+
+
+@pytest.mark.parametrize(
+    ("spec", "module", "fragment"),
+    [
+        (KITE, "[dimensions]\ntail = 1000000\n[matrices]\n", "dimensions: each matrix"),
+        (KITE, "[dimensions]\ntail = 20000\n[matrices]\n", "max_products"),
+        (PLAQUETTE, "dimension = 100000000\n[matrices]\n", "dimension: each matrix"),
+    ],
+    ids=["tail 10^6", "tail 20000", "dimension 10^8"],
+)
+def test_module_file_sizes_are_checked_first(tmp_path: Path, capsys, spec, module, fragment):
+    mod = tmp_path / "m.toml"
+    mod.write_text(module, encoding="utf-8")
+    _one_error_line(capsys, ["module", str(spec), "--module", str(mod)], fragment)

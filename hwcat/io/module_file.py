@@ -25,9 +25,16 @@ from pathlib import Path as FilePath
 from typing import Any
 
 from hwcat.algebras.hub.basic import BasicAlgebra
-from hwcat.errors import HwcatError, InternalInconsistency, ModuleFileError, SpecError
+from hwcat.errors import (
+    HwcatError,
+    InternalInconsistency,
+    ModuleFileError,
+    ResourceLimitError,
+    SpecError,
+)
 from hwcat.exact import Mat, parse_field
 from hwcat.io.spec import Spec, _matrix_value, build_structure, load_toml
+from hwcat.limits import check_matrix, size_text
 from hwcat.modules import Module, injective, projective, regular_module, simple
 from hwcat.modules.action import ActionModule, from_representation
 
@@ -184,10 +191,19 @@ def read_module_file(path: str, spec: Spec, B: BasicAlgebra | None = None) -> Ac
     ):
         raise _err(src, "dimension", f"{data.get('dimension')!r}: a positive integer is needed")
     n = data["dimension"]
+    _check_size(src, "dimension", n)
     given = {str(k): _matrix(src, f"matrices.{k}", F, v, (n, n)) for k, v in mats.items()}
     if spec.kind == "matrices":
         return _matrices_module(src, given, spec, n, str(name))
     return _multiplication_module(src, given, structure_of(spec, B), n, str(name))
+
+
+def _check_size(src: str, key: str, n: int) -> None:
+    """Refuse a module of dimension ``n`` whose action (``n x n`` matrices) exceeds the limits."""
+    try:
+        check_matrix(n, n, f"each matrix of a module of dimension {size_text(n)}")
+    except ResourceLimitError as exc:
+        raise ResourceLimitError(f"{src}: {key}: {exc}") from None
 
 
 def _quiver_spec(spec: Spec) -> Spec | None:
@@ -239,6 +255,7 @@ def _quiver_module(
         if isinstance(v, bool) or not isinstance(v, int) or v < 0:
             raise _err(src, f"dimensions.{k}", f"{v!r} is not a dimension")
         dims[B.vertices.index(str(k))] = v
+    _check_size(src, "dimensions", sum(dims))
     names = [a.name for a in B.arrows]
     for k in mats:
         if str(k) not in names:

@@ -25,7 +25,7 @@ from hwcat.errors import (
     StructureConstantsError,
 )
 from hwcat.exact import Field, parse_field
-from hwcat.limits import resource_limits
+from hwcat.limits import check_matrix, resource_limits
 
 __all__ = [
     "Spec",
@@ -318,6 +318,10 @@ def _sparse_matrix_value(src: str, key: str, F, value: dict):
     ):
         raise _err(SpecError, src, f"{key}.size", f"{size!r} is not [rows, columns] (positive)")
     r, c = size
+    try:
+        check_matrix(r, c, "the matrix")
+    except ResourceLimitError as exc:
+        raise ResourceLimitError(f"{src}: {key}.size: {exc}") from None
     ents = value.get("entries", [])
     if not isinstance(ents, list):
         raise _err(SpecError, src, f"{key}.entries", 'must be a list of [row, column, "value"]')
