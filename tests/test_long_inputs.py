@@ -165,3 +165,29 @@ def test_module_file_sizes_are_checked_first(tmp_path: Path, capsys, spec, modul
     mod = tmp_path / "m.toml"
     mod.write_text(module, encoding="utf-8")
     _one_error_line(capsys, ["module", str(spec), "--module", str(mod)], fragment)
+
+
+# -- family sizes compared without computing them ---------------------------------------------
+
+
+@pytest.mark.parametrize(
+    "argv",
+    [
+        ["family", "temperley-lieb", "n=99999999999999999999"],
+        ["family", "temperley-lieb", "n=99999999999999999999", "route=spin-chain", "field=GF(5)"],
+        [
+            "module",
+            "--family",
+            "temperley-lieb",
+            "n=99999999999999999999",
+            "delta=0",
+            "field=GF(5)",
+            "--module",
+            "spin-chain",
+        ],
+    ],
+    ids=["table", "spin-chain route", "spin-chain module"],
+)
+def test_huge_temperley_lieb_is_refused_at_once(capsys, argv: list[str]) -> None:
+    # Catalan(n) > 2^n for n > 3 and the spin chain has dimension 2^n (common practice)
+    _one_error_line(capsys, argv, "above the limit max_dim")
