@@ -20,6 +20,7 @@ from hwcat.errors import (
     CoefficientError,
     FieldError,
     ModuleFileError,
+    NotFiniteDimensional,
     ResourceLimitError,
     SpecSyntaxError,
 )
@@ -191,3 +192,29 @@ def test_module_file_sizes_are_checked_first(tmp_path: Path, capsys, spec, modul
 def test_huge_temperley_lieb_is_refused_at_once(capsys, argv: list[str]) -> None:
     # Catalan(n) > 2^n for n > 3 and the spin chain has dimension 2^n (common practice)
     _one_error_line(capsys, argv, "above the limit max_dim")
+
+
+# -- a proof of infinite dimension ends the build before it starts ----------------------------
+
+
+def _loops(k: int) -> str:
+    arrows = ", ".join(f'"a{i}: 1 -> 1"' for i in range(k))
+    relations = ", ".join(f'"a{i}*a{i}"' for i in range(k))
+    return f'field = "QQ"\n[quiver]\nvertices = ["1"]\narrows = [{arrows}]\nrelations = [{relations}]\n'
+
+
+def test_golod_shafarevich_proof_is_raised_before_building() -> None:
+    # k loops with the k relations a_i^2: 1 - k t + k t^2 < 0 at t = 1/2 for k >= 5, so the
+    # algebra is infinite dimensional (Golod-Shafarevich inequality, from memory)
+    with pytest.raises(NotFiniteDimensional, match="Golod-Shafarevich"):
+        load_spec_text(_loops(300), "loops.toml")
+
+
+def test_dense_quotient_maps_respect_the_limits(monkeypatch) -> None:
+    # without the proof, degree 2 of 100 loops has 100^2 paths and 100 relations: the dense
+    # quotient map (10000 x 9900) is refused by the limit instead of being allocated
+    from hwcat.algebras.inputs import bound
+
+    monkeypatch.setattr(bound, "golod_shafarevich_witness", lambda *args: None)
+    with pytest.raises(ResourceLimitError, match="quotient map of the paths of length 2"):
+        load_spec_text(_loops(100), "loops.toml")
