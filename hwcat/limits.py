@@ -122,9 +122,18 @@ def resource_limits(
 
 
 def size_text(x: int) -> str:
-    """``123456`` in full, or ``about 10^k`` for numbers of more than 12 digits."""
-    s = str(x)
-    return s if len(s) <= 12 else f"about 10^{len(s) - 1}"
+    """``123456`` in full, or ``about 10^k`` for numbers of more than 12 digits
+    (of any length: the digits are not written out).
+
+    >>> size_text(123456), size_text(10**5000 + 1)
+    ('123456', 'about 10^5000')
+    """
+    if x < 10**12:
+        return str(x)
+    k = (x.bit_length() - 1) * 301029 // 1000000  # 0.301029 < log10(2): k <= log10(x)
+    while 10 ** (k + 1) <= x:
+        k += 1
+    return f"about 10^{k}"
 
 
 def limit_error(key: str, text: str) -> ResourceLimitError:

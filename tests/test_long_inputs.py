@@ -218,3 +218,34 @@ def test_dense_quotient_maps_respect_the_limits(monkeypatch) -> None:
     monkeypatch.setattr(bound, "golod_shafarevich_witness", lambda *args: None)
     with pytest.raises(ResourceLimitError, match="quotient map of the paths of length 2"):
         load_spec_text(_loops(100), "loops.toml")
+
+
+# -- survey grids ---------------------------------------------------------------------------
+
+
+@pytest.mark.parametrize(
+    ("values", "fragment"),
+    [
+        (["n=1..99999999999999"], "about 10^13 members"),
+        ([f"n=1..{LONG}"], "about 10^4999 members"),
+        (["n=1..1000", "field=" + ";".join(["QQ"] * 101)], "101000 members (1000 x 101)"),
+    ],
+    ids=["long range", "range of 5000 digits", "product"],
+)
+def test_oversized_survey_grid_is_refused_up_front(tmp_path: Path, capsys, values, fragment):
+    pytest.importorskip("dask")
+    out = tmp_path / "x.csv"
+    _one_error_line(capsys, ["survey", "linear-a", *values, "-o", str(out)], fragment)
+    assert not out.exists()
+
+
+def test_size_text_of_long_numbers() -> None:
+    from hwcat.limits import size_text
+
+    # 10^k has k + 1 digits (common practice)
+    assert [size_text(x) for x in (999_999_999_999, 10**12, 10**100 - 1, 10**5000)] == [
+        "999999999999",
+        "about 10^12",
+        "about 10^99",
+        "about 10^5000",
+    ]
