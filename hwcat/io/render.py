@@ -8,7 +8,6 @@ from itertools import compress
 from typing import Any
 
 from hwcat.errors import InternalInconsistency
-from hwcat.exact.fields import long_int_text
 
 __all__ = [
     "json_text",
@@ -75,6 +74,8 @@ def _key(k: Any) -> str:
 
 def json_text(value: Any) -> str:
     """JSON text of a plain value (dicts, lists, scalars) in the layout of :func:`_json_chunks`."""
+    from hwcat.exact.fields import long_int_text  # not at import: the parser needs no flint
+
     with long_int_text():  # exact numbers may have more than 4300 digits
         return "".join(_json_chunks(value))
 
@@ -90,6 +91,8 @@ def write_json(result: Any, stream: Any) -> None:
     The same text; the whole of it is never held (the report of linear A_1000
     has sixteen million numbers in its dimension vectors).
     """
+    from hwcat.exact.fields import long_int_text  # not at import: the parser needs no flint
+
     buf: list[str] = []
     with long_int_text():  # exact numbers may have more than 4300 digits
         for chunk in _json_chunks(result.to_dict()):
