@@ -17,7 +17,9 @@ limit                     default       what it bounds
 ``max_vertices``          2 000         vertices of a quiver (the hub stores a block per
                                         pair of vertices)
 ``max_products``          50 000 000    products ``b_i * b_j`` of a multiplication table
-                                        (dimension squared)
+                                        (dimension squared), and entries of a dense
+                                        matrix (a generator of a ``[matrices]`` spec,
+                                        the action on a module read from a file)
 ========================  ============  ==============================================
 
 The defaults suit a machine with a few cores and about 24 GiB of memory: the
@@ -61,6 +63,7 @@ __all__ = [
     "check_dimension",
     "check_vertices",
     "check_products",
+    "check_matrix",
     "limit_error",
     "size_text",
 ]
@@ -119,9 +122,18 @@ def resource_limits(
 
 
 def size_text(x: int) -> str:
-    """``123456`` in full, or ``about 10^k`` for numbers of more than 12 digits."""
-    s = str(x)
-    return s if len(s) <= 12 else f"about 10^{len(s) - 1}"
+    """``123456`` in full, or ``about 10^k`` for numbers of more than 12 digits
+    (of any length: the digits are not written out).
+
+    >>> size_text(123456), size_text(10**5000 + 1)
+    ('123456', 'about 10^5000')
+    """
+    if x < 10**12:
+        return str(x)
+    k = (x.bit_length() - 1) * 301029 // 1000000  # 0.301029 < log10(2): k <= log10(x)
+    while 10 ** (k + 1) <= x:
+        k += 1
+    return f"about 10^{k}"
 
 
 def limit_error(key: str, text: str) -> ResourceLimitError:
@@ -154,3 +166,20 @@ def check_products(dim: int, what: str = "the algebra") -> None:
             f"the multiplication table of {what} has {size_text(dim * dim)} products "
             f"(dimension {size_text(dim)} squared)",
         )
+
+
+def check_matrix(rows: int, cols: int, what: str = "a matrix") -> None:
+    """Refuse a dense ``rows x cols`` matrix before it is allocated: a side above
+    ``max_dim``, or more than ``max_products`` entries (``what`` names it).
+
+    >>> with resource_limits(max_products=99):
+    ...     check_matrix(10, 10, "generator E")
+    Traceback (most recent call last):
+        ...
+    hwcat.errors.ResourceLimitError: generator E has 10 rows and 10 columns, 100 entries, above the limit max_products = 99; raise it with --max-products N (Python: max_products=N)
+    """
+    shape = f"{what} has {size_text(rows)} rows and {size_text(cols)} columns"
+    if max(rows, cols) > current_limits().max_dim:
+        raise limit_error("max_dim", shape)
+    if rows * cols > current_limits().max_products:
+        raise limit_error("max_products", f"{shape}, {size_text(rows * cols)} entries")

@@ -81,7 +81,15 @@ from fractions import Fraction
 from functools import cache
 from typing import Any
 
-from hwcat.exact import ExtensionField, Field, Mat, echelon, parse_field
+from hwcat.exact import (
+    ExtensionField,
+    Field,
+    Mat,
+    echelon,
+    int_from_text,
+    long_int_text,
+    parse_field,
+)
 
 __all__ = [
     "FORMAT",
@@ -591,10 +599,17 @@ def _read_order(d: Any, n: int) -> tuple[list[int], set[tuple[int, int]] | None]
 
 def verify_certificate(cert: Any) -> Verdict:
     """Check a certificate (a parsed JSON object); :class:`Malformed` when it is not one."""
+    with long_int_text():  # exact numbers may be long, in the checks and in messages
+        return _verify_certificate(cert)
+
+
+def _verify_certificate(cert: Any) -> Verdict:
     if _get(cert, "format", str) != FORMAT:
         raise Malformed(f'format: expected "{FORMAT}"')
-    if _get(cert, "version", int) != VERSION:
-        raise Malformed(f"version: {cert['version']} is not supported (expected {VERSION})")
+    version = _get(cert, "version", int)
+    if version != VERSION:
+        shown = version if abs(version) < 10**12 else "a longer integer"
+        raise Malformed(f"version: {shown} is not supported (expected {VERSION})")
     claim = _get(cert, "quasi_hereditary", bool)
     text = _get(cert, "field", str)
     try:
@@ -687,7 +702,10 @@ def verify_file(path: str) -> Verdict:
     """Read and check a certificate file; :class:`Malformed` when unreadable."""
     try:
         with open(path, encoding="utf-8") as fh:
-            data = json.load(fh)
+            # integers of any length (a certificate over QQ may hold long ones)
+            data = json.load(fh, parse_int=int_from_text)
     except (OSError, UnicodeDecodeError, json.JSONDecodeError) as exc:
-        raise Malformed(f"{path}: cannot read a JSON object: {exc}") from None
+        raise Malformed(f"cannot read a JSON object: {exc}") from None
+    except RecursionError:
+        raise Malformed("cannot read a JSON object: nested too deeply") from None
     return verify_certificate(data)

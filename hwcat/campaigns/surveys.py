@@ -22,6 +22,7 @@ from __future__ import annotations
 import csv
 import io
 import itertools
+import math
 import os
 import re
 import sys
@@ -32,8 +33,10 @@ from typing import Any
 
 from hwcat.campaigns.cluster import open_client
 from hwcat.errors import CampaignError, HwcatError
+from hwcat.exact.fields import int_from_text
+from hwcat.limits import size_text
 
-__all__ = ["SurveyTable", "survey", "parse_grid", "RESULT_COLUMNS"]
+__all__ = ["SurveyTable", "survey", "parse_grid", "RESULT_COLUMNS", "MAX_MEMBERS"]
 
 RESULT_COLUMNS = (
     "status",
@@ -47,15 +50,19 @@ RESULT_COLUMNS = (
 )
 _RANGE = re.compile(r"^\s*(-?\d+)\s*\.\.\s*(-?\d+)\s*$")
 
+MAX_MEMBERS = 100_000
+"""The most members a survey grid may have (each is one task and one row); a larger
+grid is refused before any member is made."""
 
-def _values(key: str, value: Any) -> list[Any]:
+
+def _values(key: str, value: Any) -> Sequence[Any]:
     if isinstance(value, str):
         m = _RANGE.match(value)
         if m:
-            lo, hi = int(m.group(1)), int(m.group(2))
+            lo, hi = int_from_text(m.group(1)), int_from_text(m.group(2))
             if lo > hi:
                 raise CampaignError(f"{key}={value}: empty range")
-            return list(range(lo, hi + 1))
+            return range(lo, hi + 1)  # not listed: its length is checked first
         sep = ";" if ";" in value else ","
         if sep == "," and "(" in value:  # GF(p) has no comma, but keep GF(2),GF(3) whole
             parts = re.findall(r"[^,()]+(?:\([^)]*\))?", value)
@@ -84,11 +91,19 @@ def parse_grid(family: str, grid: Mapping[str, Any]) -> list[dict[str, Any]]:
 
     keys = list(grid)
     axes = [_values(k, grid[k]) for k in keys]
+    counts = [a.stop - a.start if isinstance(a, range) else len(a) for a in axes]  # no len():
+    size = math.prod(counts)  # a range may be longer than a C integer
+    if size > MAX_MEMBERS:
+        shape = f" ({' x '.join(size_text(c) for c in counts)})" if len(counts) > 1 else ""
+        raise CampaignError(
+            f"the grid has {size_text(size)} members{shape}, more than the "
+            f"{MAX_MEMBERS} a survey runs; split it into smaller surveys"
+        )
     members = []
     for combo in itertools.product(*axes):
         params = {}
         for k, v in zip(keys, combo, strict=True):
-            params[k] = int(v) if isinstance(v, str) and re.fullmatch(r"-?\d+", v) else v
+            params[k] = int_from_text(v) if isinstance(v, str) and re.fullmatch(r"-?\d+", v) else v
         try:
             parse_parameters(family, params)
         except HwcatError as exc:

@@ -49,7 +49,7 @@ from typing import Any
 import flint
 
 from hwcat.errors import CoefficientError, FieldError
-from hwcat.exact.fields import Field
+from hwcat.exact.fields import MAX_EXTENSION_DEGREE, Field, int_from_text
 
 __all__ = ["ExtensionField", "ExtElement", "finite_field", "number_field", "cyclotomic_field"]
 
@@ -487,7 +487,7 @@ class _Parser:
         kind, val = self.take()
         if kind != "int":
             raise self.fail("exponents must be integers")
-        n = -int(val) if neg else int(val)
+        n = -int_from_text(val) if neg else int_from_text(val)
         if n < 0 and v == 0:
             raise self.fail("division by zero")
         return v**n
@@ -495,7 +495,7 @@ class _Parser:
     def atom(self) -> Any:
         kind, val = self.take()
         if kind == "int":
-            return self.K(int(val))
+            return self.K(int_from_text(val))
         if kind == "name":
             if val != self.gen_name:
                 raise self.fail(
@@ -544,7 +544,13 @@ def _parse_poly(base: Any, var: str, text: str) -> Any:
             kind, val = self.take()
             if kind != "int":
                 raise self.fail("exponents must be non-negative integers")
-            return v ** int(val)
+            n = int_from_text(val)
+            if n > MAX_EXTENSION_DEGREE:
+                raise self.fail(
+                    f"an exponent above {MAX_EXTENSION_DEGREE}, the largest degree of an "
+                    "extension field"
+                )
+            return v**n
 
         def divide(self, v: Any, w: Any) -> Any:
             if w.degree() != 0:
@@ -644,6 +650,11 @@ def number_field(var: str, poly_text: str, base_name: str = "QQ") -> ExtensionFi
         f = _parse_poly(base, var, poly_text)
     except CoefficientError as exc:
         raise FieldError(f"{text!r}: cannot read the polynomial ({exc})") from None
+    if not base.characteristic and f.degree() > MAX_EXTENSION_DEGREE:
+        raise FieldError(
+            f"{text!r}: degree {f.degree()}, above the largest degree {MAX_EXTENSION_DEGREE} "
+            "of an extension field"
+        )
     _irreducibility(base, f, text, var)
     coeffs = list(f.coeffs())
     if f.degree() == 1:
@@ -661,6 +672,12 @@ def cyclotomic_field(n: int, gen_name: str | None = None) -> ExtensionField:
 
     if n < 3:
         raise FieldError(f"QQ(zeta{n}): zeta{n} = {1 if n == 1 else -1} is rational; use QQ")
+    degree = int(flint.fmpz(n).euler_phi())
+    if degree > MAX_EXTENSION_DEGREE:
+        raise FieldError(
+            f"QQ(zeta{n}): degree phi({n}) = {degree}, above the largest degree "
+            f"{MAX_EXTENSION_DEGREE} of an extension field"
+        )
     f = flint.fmpq_poly(flint.fmpz_poly.cyclotomic(n))
     var = gen_name or f"zeta{n}"
     return ExtensionField(QQ, f, var, f"QQ(zeta{n})")

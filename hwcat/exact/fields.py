@@ -21,7 +21,10 @@ True
 from __future__ import annotations
 
 import re
+import sys
 from array import array
+from collections.abc import Iterator
+from contextlib import contextmanager
 from fractions import Fraction
 from functools import cache
 from typing import Any
@@ -40,10 +43,48 @@ __all__ = [
     "split_signed_terms",
     "split_factors",
     "coefficient_prefix",
+    "int_from_text",
+    "long_int_text",
+    "MAX_EXTENSION_DEGREE",
 ]
 
 _NUMBER = re.compile(r"^\s*([+-]?\d+)\s*(?:/\s*(\d+)\s*)?$")
 _MAX_PRIME = 1 << 63
+MAX_EXTENSION_DEGREE = 1000
+"""The largest degree of an extension field over ``QQ`` (``QQ(zetaN)``, ``QQ[r]/(f)``):
+an element is a polynomial of that degree, and the field keeps ``2 * degree`` reduced
+powers of its generator."""
+
+
+@contextmanager
+def long_int_text() -> Iterator[None]:
+    """Lift Python's limit on converting long integers to and from text (4300 digits)
+    inside a block: for writing results and reading certificates, whose exact
+    numbers may be long.  The previous limit is restored afterwards.
+
+    >>> with long_int_text():
+    ...     len(str(10**5000))
+    5001
+    """
+    old = sys.get_int_max_str_digits()
+    sys.set_int_max_str_digits(0)
+    try:
+        yield
+    finally:
+        sys.set_int_max_str_digits(old)
+
+
+def int_from_text(text: str) -> int:
+    """The integer written in decimal in ``text`` (digits with an optional ``-``), of any length.
+
+    Python's ``int(text)`` refuses more than 4300 digits (its limit on conversion
+    from text) and takes time quadratic in the length; python-flint reads any
+    length quickly.
+
+    >>> int_from_text("-" + "9" * 5000) == -(10**5000 - 1)
+    True
+    """
+    return int(flint.fmpz(text.strip().removeprefix("+")))
 
 
 class Field:
@@ -81,8 +122,8 @@ class Field:
         m = _NUMBER.match(str(text))
         if not m:
             raise CoefficientError(f"{text!r} is not a coefficient (expected e.g. 3, -2, 3/4)")
-        num = int(m.group(1))
-        den = int(m.group(2)) if m.group(2) is not None else 1
+        num = int_from_text(m.group(1))
+        den = int_from_text(m.group(2)) if m.group(2) is not None else 1
         if den == 0:
             raise CoefficientError(f"{text!r} has denominator 0")
         return self._from_fraction(num, den, str(text).strip())
@@ -106,7 +147,7 @@ class Field:
     def to_int_or_str(self, x: Any) -> int | str:
         """JSON form of an element: an int when integral, else ``"p/q"``."""
         s = str(x)
-        return int(s) if "/" not in s else s
+        return int_from_text(s) if "/" not in s else s
 
     # -- implementation hooks ----------------------------------------------
     def _from_int(self, n: int) -> Any:  # pragma: no cover - abstract
@@ -278,14 +319,23 @@ def parse_field(text: str) -> Field:
         return QQ
     m = _FIELD_NAME.match(text)
     if m:
+        # sizes first: the order must be below 2^63 (19 digits) before anything is
+        # computed from it (p^k, a factorisation, a primality test)
+        if len(m.group(1).lstrip("0")) > 19:
+            raise FieldError(f"field {text!r}: orders must be below 2^63")
         q = int(m.group(1))
         if m.group(2) is not None:
-            p, k = q, int(m.group(2))
+            p = q
             if p < 2 or not flint.fmpz(p).is_prime():
                 raise FieldError(f"field {text!r}: {p} is not a prime")
+            if len(m.group(2).lstrip("0")) > 2 or int(m.group(2)) >= 63:  # p^k >= 2^k
+                raise FieldError(f"field {text!r}: orders must be below 2^63")
+            k = int(m.group(2))
             if k < 1:
                 raise FieldError(f"field {text!r}: the exponent must be at least 1")
         else:
+            if q >= _MAX_PRIME:
+                raise FieldError(f"field {text!r}: orders must be below 2^63")
             pk = _prime_power(q)
             if pk is None:
                 raise FieldError(f"field {text!r}: {q} is not a prime power")
@@ -299,7 +349,13 @@ def parse_field(text: str) -> Field:
         return finite_field(p, k, m.group(3) or "z")
     m = _CYCLO.match(text)
     if m:
-        return cyclotomic_field(int(m.group(1)))
+        digits = m.group(1).lstrip("0") or "0"
+        if len(digits) > 7:  # phi(N) >= sqrt(N / 2) > MAX_EXTENSION_DEGREE (from memory)
+            raise FieldError(
+                f"field {text!r}: QQ(zetaN) has degree phi(N) > {MAX_EXTENSION_DEGREE}, "
+                f"above the largest degree {MAX_EXTENSION_DEGREE} of an extension field"
+            )
+        return cyclotomic_field(int(digits))
     m = _QUOTIENT.match(text)
     if m:
         base = re.sub(r"\s+", "", m.group(1))

@@ -21,14 +21,20 @@ Matrices are lists of rows or sparse tables ``{size = [r, c], entries =
 from __future__ import annotations
 
 import re
-import tomllib
 from pathlib import Path as FilePath
 from typing import Any
 
 from hwcat.algebras.hub.basic import BasicAlgebra
-from hwcat.errors import HwcatError, InternalInconsistency, ModuleFileError, SpecError
+from hwcat.errors import (
+    HwcatError,
+    InternalInconsistency,
+    ModuleFileError,
+    ResourceLimitError,
+    SpecError,
+)
 from hwcat.exact import Mat, parse_field
-from hwcat.io.spec import Spec, _matrix_value, build_structure, is_format_1
+from hwcat.io.spec import Spec, _matrix_value, build_structure, is_format_1, load_toml
+from hwcat.limits import check_matrix, current_limits, limit_error, size_text
 from hwcat.modules import Module, injective, projective, regular_module, simple
 from hwcat.modules.action import ActionModule, from_representation
 
@@ -136,10 +142,7 @@ def _read_toml(path: str) -> dict[str, Any]:
         raise ModuleFileError(f"{p}: cannot read: {exc.strerror or exc}") from None
     except UnicodeDecodeError:
         raise ModuleFileError(f"{p}: not UTF-8 text") from None
-    try:
-        return tomllib.loads(text)
-    except tomllib.TOMLDecodeError as exc:
-        raise ModuleFileError(f"{p}: not valid TOML: {exc}") from None
+    return load_toml(text, str(p), ModuleFileError)
 
 
 def _matrix(src: str, key: str, F, value: Any, shape: tuple[int, int]) -> Mat:
@@ -190,10 +193,19 @@ def read_module_file(path: str, spec: Spec, B: BasicAlgebra | None = None) -> Ac
     ):
         raise _err(src, "dimension", f"{data.get('dimension')!r}: a positive integer is needed")
     n = data["dimension"]
+    _check_size(src, "dimension", n)
     given = {str(k): _matrix(src, f"matrices.{k}", F, v, (n, n)) for k, v in mats.items()}
     if spec.kind == "matrices":
         return _matrices_module(src, given, spec, n, str(name))
     return _multiplication_module(src, given, structure_of(spec, B), n, str(name))
+
+
+def _check_size(src: str, key: str, n: int) -> None:
+    """Refuse a module of dimension ``n`` whose action (``n x n`` matrices) exceeds the limits."""
+    try:
+        check_matrix(n, n, f"each matrix of a module of dimension {size_text(n)}")
+    except ResourceLimitError as exc:
+        raise ResourceLimitError(f"{src}: {key}: {exc}") from None
 
 
 def _quiver_spec(spec: Spec) -> Spec | None:
@@ -245,6 +257,7 @@ def _quiver_module(
         if isinstance(v, bool) or not isinstance(v, int) or v < 0:
             raise _err(src, f"dimensions.{k}", f"{v!r} is not a dimension")
         dims[B.vertices.index(str(k))] = v
+    _check_size(src, "dimensions", sum(dims))
     names = [a.name for a in B.arrows]
     for k in mats:
         if str(k) not in names:
@@ -453,6 +466,8 @@ def spin_chain_module(n: int, delta: Any, field: Any) -> ActionModule:
     from hwcat.algebras.families.spin_chain import loop_weight_root, spin_chain_entries
     from hwcat.exact.polys import sparse_matrix
 
+    if n >= current_limits().max_dim.bit_length():  # 2^n > max_dim, without computing 2^n
+        raise limit_error("max_dim", f"the spin chain of length {n} has dimension 2^{n}")
     F = parse_field(field) if isinstance(field, str) else field
     q = loop_weight_root(delta, F)
     ents = spin_chain_entries(n, q, F)

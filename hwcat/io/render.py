@@ -74,7 +74,10 @@ def _key(k: Any) -> str:
 
 def json_text(value: Any) -> str:
     """JSON text of a plain value (dicts, lists, scalars) in the layout of :func:`_json_chunks`."""
-    return "".join(_json_chunks(value))
+    from hwcat.exact.fields import long_int_text  # not at import: the parser needs no flint
+
+    with long_int_text():  # exact numbers may have more than 4300 digits
+        return "".join(_json_chunks(value))
 
 
 def to_json(result: Any) -> str:
@@ -88,12 +91,15 @@ def write_json(result: Any, stream: Any) -> None:
     The same text; the whole of it is never held (the report of linear A_1000
     has sixteen million numbers in its dimension vectors).
     """
+    from hwcat.exact.fields import long_int_text  # not at import: the parser needs no flint
+
     buf: list[str] = []
-    for chunk in _json_chunks(result.to_dict()):
-        buf.append(chunk)
-        if len(buf) >= 1 << 14:
-            stream.write("".join(buf))
-            buf.clear()
+    with long_int_text():  # exact numbers may have more than 4300 digits
+        for chunk in _json_chunks(result.to_dict()):
+            buf.append(chunk)
+            if len(buf) >= 1 << 14:
+                stream.write("".join(buf))
+                buf.clear()
     buf.append("\n")
     stream.write("".join(buf))
 

@@ -7,6 +7,7 @@ arrow 'c: 1 -> 5': '5' is not a vertex"``.
 
 from __future__ import annotations
 
+import sys
 import tomllib
 from collections.abc import Sequence
 from dataclasses import dataclass, field
@@ -25,7 +26,7 @@ from hwcat.errors import (
     StructureConstantsError,
 )
 from hwcat.exact import Field, parse_field
-from hwcat.limits import resource_limits
+from hwcat.limits import check_matrix, resource_limits
 
 __all__ = [
     "Spec",
@@ -69,12 +70,27 @@ def _err(cls: type[HwcatError], source: str, key: str, msg: str) -> HwcatError:
     return cls(f"{source}: {key}: {msg}" if key else f"{source}: {msg}")
 
 
+def load_toml(text: str, source: str, error: type[HwcatError] = SpecSyntaxError) -> dict[str, Any]:
+    """``tomllib.loads(text)``, every failure raised as ``error`` naming ``source``.
+
+    Besides malformed TOML this is an integer literal of more than 4300 digits,
+    which Python's conversion from text refuses; coefficients written as strings
+    (``"123...9"``, ``"123...9*a*b"``) have no such bound.
+    """
+    try:
+        return tomllib.loads(text)
+    except tomllib.TOMLDecodeError as exc:
+        raise error(f"{source}: not valid TOML: {exc}") from None
+    except ValueError:  # int(text) beyond sys.get_int_max_str_digits()
+        raise error(
+            f"{source}: an integer literal has more than {sys.get_int_max_str_digits()} "
+            'digits; write it as a string ("123...")'
+        ) from None
+
+
 def read_spec_text(text: str, source: str = "<spec>") -> Spec:
     """Parse spec text (TOML) and check its header keys."""
-    try:
-        data = tomllib.loads(text)
-    except tomllib.TOMLDecodeError as exc:
-        raise SpecSyntaxError(f"{source}: not valid TOML: {exc}") from None
+    data = load_toml(text, source)
     unknown = sorted(set(data) - TOP_KEYS)
     if unknown:
         raise _err(
@@ -312,6 +328,10 @@ def _sparse_matrix_value(src: str, key: str, F, value: dict):
     ):
         raise _err(SpecError, src, f"{key}.size", f"{size!r} is not [rows, columns] (positive)")
     r, c = size
+    try:
+        check_matrix(r, c, "the matrix")
+    except ResourceLimitError as exc:
+        raise ResourceLimitError(f"{src}: {key}.size: {exc}") from None
     ents = value.get("entries", [])
     if not isinstance(ents, list):
         raise _err(SpecError, src, f"{key}.entries", 'must be a list of [row, column, "value"]')

@@ -367,7 +367,9 @@ def temperley_lieb(n: int, delta: Any, field: Field | str = QQ) -> Multiplicatio
     {1: 4}
     """
     n = _check_int(n, "n", 0)
-    if n > 200 and current_limits().max_dim < 2**n:  # Catalan(n) > 2^n: refuse at once
+    # Catalan(n) > 2^n for n > 200; 2^n > max_dim exactly when n >= max_dim.bit_length(),
+    # compared without computing 2^n (n may have many digits)
+    if n > 200 and n >= current_limits().max_dim.bit_length():
         raise limit_error("max_dim", f"TL_{n} has dimension Catalan({n}), more than 2^{n}")
     check_products(math.comb(2 * n, n) // (n + 1), f"TL_{n}")
     F = _as_field(field)

@@ -34,7 +34,9 @@ the products with one arrow, and the relations generate the kernel); so a
 rational ``t > 0`` and a nonzero vector ``v >= 0`` with ``(I - M t + R(t)) v <= 0``
 prove that ``A`` is infinite dimensional (two loops and one quadratic relation:
 ``1 - 2t + t^2 = 0`` at ``t = 1``).  Derived here from the inequality of Golod
-and Shafarevich (from memory).  Otherwise the build runs within a work budget
+and Shafarevich (from memory).  With such a proof the build goes on only to name
+a surviving cycle, while the degrees stay small (:data:`EAGER_PROOF_COLUMNS`), and
+stops with the proof once the longest relation is reached.  Otherwise the build runs within a work budget
 (:data:`SEARCH_BUDGET`); when it is spent without a verdict the error says so
 and shows a surviving path.  The dimension is checked against the resource
 limit ``max_dim`` (:mod:`hwcat.limits`) after every degree, and predicted
@@ -57,7 +59,13 @@ from hwcat.algebras.hub.quiver import Path, Quiver, format_path
 from hwcat.algebras.hub.rep import ArrowMaps, closure, quotient
 from hwcat.errors import InternalInconsistency, NotFiniteDimensional, RelationError
 from hwcat.exact import Field, Mat, assemble, contains, quotient_map
-from hwcat.limits import check_dimension, check_vertices, current_limits, limit_error
+from hwcat.limits import (
+    check_dimension,
+    check_matrix,
+    check_vertices,
+    current_limits,
+    limit_error,
+)
 
 if TYPE_CHECKING:
     import networkx as nx
@@ -74,6 +82,11 @@ relation matrices reduced, summed over blocks and degrees (two loops and a
 generic quadratic relation spend it near degree 60).  When it is spent before
 the algebra is shown finite or infinite dimensional,
 :class:`~hwcat.errors.NotFiniteDimensional` says so with a surviving path."""
+
+EAGER_PROOF_COLUMNS = 1000
+"""With a Golod--Shafarevich proof of infinite dimension at hand, the build goes on
+(to name a surviving cycle, a more telling answer) only while the next degree has at
+most this many paths to reduce; a larger degree is not built and the proof is raised."""
 
 
 def bound_quiver_algebra(
@@ -334,6 +347,17 @@ def _graded(
         if N is None and (d > MAX_DEGREE or work > SEARCH_BUDGET):
             raise NotFiniteDimensional(_budget_text(Q, degrees, total_dim))
         prev = degrees[d - 1]
+        if witness is not None:
+            # The proof is known: a surviving cycle (named when the degree that shows it
+            # is built) is only worth a small degree.
+            columns = sum(
+                len(ws) * len(out_of[u]) for s in range(n) for u, ws in prev.words[s].items()
+            )
+            if columns > EAGER_PROOF_COLUMNS:
+                raise NotFiniteDimensional(
+                    f"the algebra is infinite dimensional: {witness}; add relations or give "
+                    "vanish_from_length"
+                )
         cur = _Degree(n)
         alive = False
         for s in range(n):
@@ -357,6 +381,14 @@ def _graded(
                 pos = {c: p for p, c in enumerate(order)}  # column -> position (descending)
                 gens = _relation_images(F, Q, degrees, rel_by_end.get(t, ()), s, d, cols, pos)
                 work += len(cols) * max(gens.nrows, 1)
+                # the quotient map is dense: len(cols) rows and at least
+                # len(cols) - gens.nrows columns
+                check_matrix(
+                    len(cols),
+                    max(len(cols) - gens.nrows, 1),
+                    f"the quotient map of the paths of length {d} from {Q.vertices[s]} "
+                    f"to {Q.vertices[t]}",
+                )
                 pi, _, kept = quotient_map(gens, len(cols))
                 # kept positions are in descending word order; store ascending
                 kept_words = [cols[order[p]][0] for p in kept]
