@@ -398,9 +398,13 @@ def test_extension_certificates_tamper_evident(field, g):
 
 
 # -- random algebras ------------------------------------------------------------------------
-@settings(max_examples=20)
+@settings(max_examples=30, deadline=None)
 @given(
-    bound_quiver_algebras(max_vertices=3, max_arrows=4, field=st.sampled_from([GF(2), GF(3), QQ])),
+    bound_quiver_algebras(
+        max_vertices=3,
+        max_arrows=4,
+        field=st.sampled_from([GF(2), GF(3), QQ, parse_field("GF(4)"), parse_field("QQ(zeta3)")]),
+    ),
     st.randoms(use_true_random=False),
 )
 def test_random_algebras(A, rng):
@@ -409,7 +413,7 @@ def test_random_algebras(A, rng):
     order = total_order(A.vertices, perm)
     data = json.loads(json.dumps(certify(A, order).data))
     v = verify_certificate(data)
-    assert v.accepted
+    assert v.accepted, v.reason
     # agrees with the independent heredity-chain computation
     assert v.quasi_hereditary == heredity_chain(A, order).holds
     _assert_tamper_evident(data, rng, 6)
@@ -420,25 +424,6 @@ def test_random_algebras(A, rng):
         i = rng.randrange(A.n - 1)
         chain[i], chain[i + 1] = chain[i + 1], chain[i]
         assert _rejects(other)
-
-
-@settings(max_examples=10, deadline=None)
-@given(
-    bound_quiver_algebras(
-        max_vertices=3,
-        max_arrows=4,
-        field=st.sampled_from([parse_field("GF(4)"), parse_field("QQ(zeta3)")]),
-    ),
-    st.randoms(use_true_random=False),
-)
-def test_random_algebras_over_extension_fields(A, rng):
-    perm = list(range(A.n))
-    rng.shuffle(perm)
-    order = total_order(A.vertices, perm)
-    data = json.loads(json.dumps(certify(A, order).data))
-    v = verify_certificate(data)
-    assert v.accepted, v.reason
-    assert v.quasi_hereditary == heredity_chain(A, order).holds
     paths = list(_coefficient_paths(data))
     for path in rng.sample(paths, min(3, len(paths))):
         bad = copy.deepcopy(data)
