@@ -442,3 +442,15 @@ def test_module_file_without_matrices_for_a_table(tmp_path, capsys):
     mod = write(tmp_path, "m.toml", "dimension = 1\n[matrices]\n")
     err = run_error(capsys, ["module", spec, "--module", mod])
     assert "m.toml: matrices: no matrices are given;" in err and "  " not in err
+
+
+def test_module_text_names_the_end_its_layers_start_from(tmp_path, capsys):
+    # P(1) of 1 -> 2 -> 3 with a*b = 0 is uniserial with top L(1) and socle L(2) (derived)
+    spec = write(tmp_path, "q.toml", QUIVER)
+    d = run_json(capsys, ["module", spec, "--module", "P(1)"])
+    assert d["radical_layers"] == [[1, 0, 0], [0, 1, 0]]
+    assert d["socle_layers"] == [[0, 1, 0], [1, 0, 0]]  # the JSON lists the socle first
+    assert main(["module", spec, "--module", "P(1)"]) == 0
+    out = capsys.readouterr().out
+    assert "radical layers (top first):   1 | 2" in out
+    assert "socle layers (socle first):   2 | 1" in out

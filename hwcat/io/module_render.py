@@ -38,8 +38,8 @@ def render_module_report(r: ModuleReport) -> str:
     if simples is not None:
         cf = ", ".join(f"[M:L({k})] = {v}" for k, v in d["composition_factors"].items())
         lines.append(f"  composition factors: {cf}")
-        lines.append(f"  radical layers: {_layers(d['radical_layers'], simples)}")
-        lines.append(f"  socle layers:   {_layers(d['socle_layers'], simples)}")
+        lines.append(f"  radical layers (top first):   {_layers(d['radical_layers'], simples)}")
+        lines.append(f"  socle layers (socle first):   {_layers(d['socle_layers'], simples)}")
         lines.append(
             f"  Loewy length {d['loewy_length']}"
             + (f"; order {d['order']}" if d.get("order") else "")
