@@ -359,6 +359,7 @@ def _bound_quiver_specs(
         rank = draw(st.permutations(range(n)))
         relations += [format_path(Q, p) for p in _cut_relations(Q, rank)]
     relations += draw(_random_relations(Q, F, max_relations, max_path_length, use_bound))
+    relations = list(dict.fromkeys(relations))  # a relation drawn twice is written once
     quiver: dict[str, Any] = {
         "vertices": list(Q.vertices),
         "arrows": [f"{a.name}: {Q.vertices[a.source]} -> {Q.vertices[a.target]}" for a in Q.arrows],

@@ -129,6 +129,202 @@ def test_evaluator_kills_a_slow_example_and_goes_on():
         ev.stop()
 
 
+PLAIN = 'field = "QQ"\n[quiver]\nvertices = ["1", "2"]\narrows = ["a: 1 -> 2"]\n'
+POINT = 'field = "QQ"\n[quiver]\nvertices = ["1"]\n'
+
+
+def test_a_claim_writing_to_descriptor_1_does_not_mix_with_the_answers():
+    # the claim writes to descriptor 1 (a subprocess, os.write, sys.__stdout__) and starts
+    # a process that reads standard input: every answer still belongs to its example
+    claim = hwcat.campaigns.load_claim(f"{CLAIMS}:writes_to_the_real_stdout")
+    ev = Evaluator()
+    try:
+        first = ev.claim(claim, PLAIN, 30.0)
+        assert first["status"] == "fails" and first["dimension"] == 3
+        pid = ev.proc.pid
+        for _ in range(3):
+            assert ev.claim(claim, POINT, 30.0)["status"] == "holds"
+            assert ev.claim(claim, PLAIN, 30.0)["status"] == "fails"
+        assert ev.proc.pid == pid  # nothing went wrong: the same process throughout
+    finally:
+        ev.stop()
+
+
+_OUT_OF_STEP = """
+import json, sys
+for line in sys.stdin:
+    req = json.loads(line)
+    if req["op"] == "ping":
+        print(json.dumps({"status": "ok", "seq": req["seq"]}), flush=True)
+    elif req["op"] == "junk":
+        print("external tool says hi", flush=True)
+    else:  # an answer that belongs to another request
+        print(json.dumps({"status": "holds", "seq": req["seq"] - 1}), flush=True)
+"""
+
+
+def test_an_unreadable_answer_is_a_crash_and_the_process_is_replaced(monkeypatch):
+    ev = Evaluator()
+    monkeypatch.setattr(ev, "command", [sys.executable, "-c", _OUT_OF_STEP])
+    try:
+        for op in ("junk", "stale"):
+            ev.warm()
+            pid = ev.proc.pid
+            answer = ev.request({"op": op}, 30.0)
+            assert answer["status"] == "crashed" and "cannot be read" in answer["message"]
+            assert ev.proc is None  # never read on from a stream out of step
+            assert not psutil.pid_exists(pid) or psutil.Process(pid).status() == (
+                psutil.STATUS_ZOMBIE
+            )
+        monkeypatch.setattr(ev, "command", Evaluator().command)
+        claim = hwcat.campaigns.load_claim(RINGEL)
+        assert ev.claim(claim, PLAIN, 30.0)["status"] == "holds"  # a fresh process
+    finally:
+        ev.stop()
+
+
+def test_the_workers_apply_the_resource_limits_of_the_campaign():
+    from hwcat.campaigns.worker import evaluate_specs, survey_member
+    from hwcat.limits import resource_limits
+
+    claim = hwcat.campaigns.load_claim(RINGEL)
+    ev = Evaluator()
+    try:
+        with resource_limits(max_dim=2):
+            a = ev.claim(claim, PLAIN, 30.0)  # the path algebra of 1 -> 2 has dimension 3
+        assert a["status"] == "invalid" and "max_dim" in a["message"]
+        assert ev.claim(claim, PLAIN, 30.0)["status"] == "holds"
+    finally:
+        ev.stop()
+    # the functions the workers run take the limits the driver sends
+    limits = {"max_dim": 5, "max_vertices": 2000, "max_products": 50_000_000}
+    row = survey_member("linear-a", {"n": "5"}, 60.0, limits)
+    assert row["status"] == "error" and "max_dim" in row["message"]
+    assert survey_member("linear-a", {"n": "2"}, 60.0, limits)["row"]["dimension"] == 3
+    res = evaluate_specs(claim, [(0, PLAIN)], 30.0, {**limits, "max_dim": 2})
+    assert res["results"][0]["status"] == "invalid"
+    from hwcat.campaigns.worker import close_evaluators
+
+    close_evaluators()
+
+
+class _Variable:
+    """A stand-in for the Dask variable: its reads fail ``failures`` times, then give ``value``."""
+
+    def __init__(self, failures, value):
+        self.failures, self.value, self.reads = failures, value, 0
+
+    def get(self, timeout=None):
+        self.reads += 1
+        if self.reads <= self.failures:
+            raise TimeoutError("no answer from the scheduler")
+        return self.value
+
+
+def test_a_failed_read_of_the_stop_variable_means_go_on(monkeypatch):
+    from hwcat.campaigns import worker
+
+    monkeypatch.setattr(worker, "_STOP_INTERVAL", 0.0)  # ask at every example
+    check = worker._stop_check(None, _Variable(2, 10))
+    assert [check(i) for i in range(3)] == [False, False, False]  # two failed reads, then 10
+    assert check(9) is False and check(10) is True
+    gone = worker._stop_check(None, _Variable(10**6, None))  # a campaign that is over
+    answers = [gone(i) for i in range(worker._STOP_READ_FAILURES + 1)]
+    assert answers == [False] * (worker._STOP_READ_FAILURES - 1) + [True, True]
+
+
+def _answers(indices, status="holds"):
+    return [{"index": i, "kind": "general", "status": status} for i in indices]
+
+
+def test_every_example_is_accounted_for_and_lost_ones_make_the_campaign_incomplete():
+    from hwcat.campaigns.fuzzing import FuzzReport, _tally
+
+    # chunk 0 complete, chunk 1 returned short (its task stopped early), chunk 2 failed
+    chunks = {
+        0: {"results": _answers(range(CHUNK)), "digest": "a", "drawn": CHUNK},
+        1: {"results": _answers(range(CHUNK, CHUNK + 7)), "digest": "b", "drawn": CHUNK},
+    }
+    examples = 2 * CHUNK + 20
+    counts, problems, run, _, fail = _tally(chunks, [(2, "KilledWorker: x")], None, examples)
+    assert fail is None and run == CHUNK + 7 == counts["holds"]
+    assert counts["lost"] == (CHUNK - 7) + 20
+    assert run + counts["lost"] == examples  # every example: evaluated or lost
+    assert [p["status"] for p in problems] == ["lost", "lost"]
+    assert f"examples {CHUNK + 7}..{2 * CHUNK - 1} were not evaluated" in problems[0]["message"]
+    report = FuzzReport(
+        claim="c.py:f",
+        seed=0,
+        examples_requested=examples,
+        examples_run=run,
+        settings={},
+        workers=1,
+        counts=counts,
+        counterexample=None,
+        problems=tuple(problems),
+        lost_workers=(),
+        digest="",
+        seconds=1.0,
+    )
+    assert report.exit_code == 3 and not report.complete
+    assert "INCOMPLETE" in report.summary() and not report.to_dict()["complete"]
+    # up to a failure, only the examples before it are needed
+    chunks[1]["results"] = _answers(range(CHUNK, CHUNK + 5)) + _answers([CHUNK + 5], "fails")
+    counts, problems, run, _, fail = _tally(chunks, [(2, "KilledWorker: x")], CHUNK + 5, examples)
+    assert fail["index"] == CHUNK + 5 and counts["lost"] == 0 and not problems
+    assert run == CHUNK + 6
+
+
+class _SyncClient:
+    """Runs each submitted function at once, in this process (for the shrinking loop)."""
+
+    class _Done:
+        def __init__(self, value):
+            self.value = value
+
+        def result(self):
+            return self.value
+
+        def cancel(self):
+            pass
+
+    def submit(self, fn, *args, pure=True):
+        return self._Done(fn(*args))
+
+
+def test_shrinking_never_gives_a_larger_algebra():
+    from hwcat.campaigns.fuzzing import _counterexample
+    from hwcat.campaigns.worker import close_evaluators
+
+    # k[x]/(x^3) (dimension 3) fails; deleting the relation gives k[x]/(x^5), dimension 5,
+    # on which the claim fails too: a larger algebra, which shrinking must not take (derived)
+    drawn = (
+        'field = "QQ"\n[quiver]\nvertices = ["1"]\narrows = ["x: 1 -> 1"]\n'
+        'relations = ["x*x*x"]\nvanish_from_length = 5\n'
+    )
+    claim = hwcat.campaigns.load_claim(f"{CLAIMS}:fails_on_odd_dimension_with_a_loop")
+    ev = Evaluator()
+    try:
+        answer = ev.claim(claim, drawn, 30.0)
+        assert answer["status"] == "fails" and answer["dimension"] == 3
+        answer.update(index=0, spec=drawn)
+        ce = _counterexample(_SyncClient(), claim, answer, 30.0, True)
+    finally:
+        ev.stop()
+        close_evaluators()
+    assert ce["original_dimension"] == 3 and ce["shrunk_dimension"] <= 3
+    A = hwcat.load_spec_text(ce["shrunk_spec"])
+    assert A.dim <= 3 and A.dim % 2 == 1  # and the claim still fails on it
+    assert ce["outcome_after_shrinking"] == "returned False"
+
+
+def test_generated_relations_are_distinct():
+    specs = [s for c in range(4) for _, s in spec_chunk(5, c, ALL_KINDS, 3, None)]
+    for spec in specs:
+        rels = spec["quiver"].get("relations", [])
+        assert len(rels) == len(set(rels)), rels
+
+
 def test_bad_claims_exit_2_before_any_cluster(tmp_path, capsys):
     out = str(tmp_path / "o")
     assert main(["fuzz", f"{tmp_path}/none.py:f", "--out", out]) == 2
@@ -333,3 +529,34 @@ def test_a_worker_that_dies_is_reported_and_its_examples_retried(cluster, tmp_pa
     assert report.examples_run == 10 and report.counts["holds"] == 10
     assert not report.found
     assert "lost and their tasks retried" in report.summary()
+
+
+def test_limits_given_on_the_command_line_reach_the_workers(cluster, tmp_path):
+    # linear A_5 has dimension 15 and A_6 dimension 21 (n(n+1)/2 paths; derived): above 5
+    csv_path = tmp_path / "a.csv"
+    argv = ["linear-a", "n=5..6", "--scheduler", cluster.scheduler.address]
+    assert main(["survey", *argv, "--max-dim", "5", "-o", str(csv_path)]) == 0
+    rows = csv_path.read_text().splitlines()[1:]
+    assert [r.split(",")[1] for r in rows] == ["error", "error"]
+    assert all("max_dim = 5" in r for r in rows)
+    assert main(["describe", "--family", "linear-a", "n=5", "--max-dim", "5"]) == 2
+
+
+def test_a_counterexample_survives_a_claim_that_writes_to_descriptor_1(cluster, tmp_path):
+    claim = tmp_path / "claim.py"
+    claim.write_text(
+        "import subprocess\n"
+        "_done = []\n"
+        "def small(A):\n"
+        "    if A.dim == 5 and not _done:\n"
+        "        _done.append(1)\n"
+        "        subprocess.run(['echo', 'external tool says hi'])\n"
+        "    return A.dim <= 12\n"
+    )
+    report = hwcat.campaigns.fuzz(
+        f"{claim}:small", examples=150, seed=2, client=cluster, out=tmp_path / "out"
+    )
+    assert report.found and report.counts["crashed"] == 0
+    A = hwcat.load_spec(report.files["spec"])
+    assert A.dim > 12  # the shrunk counterexample fails the claim
+    assert A.dim <= report.counterexample["original_dimension"]

@@ -1,7 +1,13 @@
 """The evaluating process behind each campaign worker: ``python -m hwcat.campaigns.child``.
 
 A worker keeps one such process and talks to it in JSON lines (one request
-on standard input, one answer on standard output).  The worker can kill it
+on standard input, one answer on standard output).  Before any claim runs,
+the process moves its request and answer channels to private file
+descriptors and points descriptors 0 and 1 at ``/dev/null`` and standard
+error: whatever a claim writes to standard output (``print``, a subprocess it
+starts, a C library) or reads from standard input cannot mix with the
+protocol.  Each answer repeats the request's ``seq`` number, so the worker
+can check that an answer belongs to its request.  The worker can kill it
 when an example runs past the time limit and start a fresh one, which is how
 a slow example becomes a timeout instead of stalling the campaign; a crash of
 this process (a claim that exits or segfaults) is reported the same way.
@@ -13,9 +19,13 @@ Requests (``op``):
 * ``claim``: ``key``, ``spec`` (spec text) -- build the algebra and call the
   claim; the answer's ``status`` is ``holds``, ``fails`` (returned ``False``
   or raised ``AssertionError``), ``error`` (raised anything else) or
-  ``invalid`` (the spec text does not give an algebra);
+  ``invalid`` (the spec text does not give an algebra); with ``dimension``
+  (of the algebra) whenever it was built;
 * ``survey``: ``family``, ``params`` -- the row of one family member (see
   :func:`survey_row`).
+
+Every request may carry ``limits`` (``max_dim``, ``max_vertices``,
+``max_products``: see :mod:`hwcat.limits`), the limits in force for it.
 
 Answers are plain data; nothing here is pickled.
 """
@@ -75,6 +85,7 @@ def evaluate_claim(fn, spec_text: str) -> dict:
             "exception": type(exc).__name__,
             "message": str(exc),
             "traceback": traceback.format_exc(limit=-4),
+            "dimension": A.dim,
         }
     except Exception as exc:  # noqa: BLE001 -- any other error is reported, not raised
         return {
@@ -82,10 +93,11 @@ def evaluate_claim(fn, spec_text: str) -> dict:
             "exception": type(exc).__name__,
             "message": str(exc),
             "traceback": traceback.format_exc(limit=-4),
+            "dimension": A.dim,
         }
     if value is False:
-        return {"status": "fails", "returned": "False"}
-    return {"status": "holds", "returned": _short(value)}
+        return {"status": "fails", "returned": "False", "dimension": A.dim}
+    return {"status": "holds", "returned": _short(value), "dimension": A.dim}
 
 
 def survey_row(family: str, params: dict, seed: int = 0) -> dict:
@@ -114,6 +126,17 @@ def survey_row(family: str, params: dict, seed: int = 0) -> dict:
 
 
 def _handle(req: dict) -> dict:
+    from hwcat.limits import resource_limits
+
+    limits = req.get("limits") or {}
+    with resource_limits(**{k: limits.get(k) for k in _LIMIT_KEYS}):
+        return _dispatch(req)
+
+
+_LIMIT_KEYS = ("max_dim", "max_vertices", "max_products")
+
+
+def _dispatch(req: dict) -> dict:
     op = req.get("op")
     if op == "define":
         return _define(req)
@@ -140,22 +163,46 @@ def _watch_parent(parent: int) -> None:
             os._exit(3)
 
 
+def _private_channels() -> tuple[Any, Any]:
+    """The request and answer streams, on descriptors of their own.
+
+    Descriptor 0 then reads ``/dev/null`` and descriptor 1 writes to standard
+    error, for this process and every process it starts; ``sys.stdout`` is
+    standard error too.  So nothing a claim does to its standard streams
+    reaches the worker's answer stream.
+    """
+    sys.stdout.flush()
+    requests = os.fdopen(os.dup(0), "r", encoding="utf-8")
+    answers = os.fdopen(os.dup(1), "w", encoding="utf-8")
+    null = os.open(os.devnull, os.O_RDONLY)
+    os.dup2(null, 0)
+    os.close(null)
+    os.dup2(2, 1)
+    sys.stdin = open(os.devnull, encoding="utf-8")  # noqa: SIM115 -- for the process's life
+    sys.stdout = sys.stderr
+    return requests, answers
+
+
 def main() -> None:
     import hwcat.io.spec  # noqa: F401 -- imported before the first request is timed
+    import hwcat.limits  # noqa: F401
     import hwcat.theory.homological  # noqa: F401
     import hwcat.theory.search  # noqa: F401
 
     threading.Thread(target=_watch_parent, args=(os.getppid(),), daemon=True).start()
-    out = sys.stdout
-    sys.stdout = sys.stderr  # a claim that prints must not break the protocol
-    for line in sys.stdin:
+    requests, out = _private_channels()  # a claim that prints must not break the protocol
+    for line in requests:
         if not line.strip():
             continue
         start = time.perf_counter()
+        seq = None
         try:
-            answer = _handle(json.loads(line))
+            req = json.loads(line)
+            seq = req.get("seq")
+            answer = _handle(req)
         except Exception as exc:  # noqa: BLE001
             answer = {"status": "error", "exception": type(exc).__name__, "message": str(exc)}
+        answer["seq"] = seq
         answer["seconds"] = round(time.perf_counter() - start, 6)
         try:
             out.write(json.dumps(answer) + "\n")

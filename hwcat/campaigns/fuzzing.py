@@ -24,13 +24,21 @@ How a campaign runs (:func:`fuzz`):
    which depend on the machine).
 3. It is then shrunk (:mod:`hwcat.campaigns.shrink`): the candidates of each
    round are evaluated in parallel and the first one on which the claim still
-   fails is kept, until none fails.
+   fails, and whose algebra is of dimension at most the current one, is kept
+   (:func:`shrink_accepts`), until there is none; so the shrunk algebra is
+   never of larger dimension than the one drawn.
 4. ``DIR/counterexample.toml`` (the shrunk spec; every hwcat command reads
    it), ``DIR/original.toml`` (as drawn) and ``DIR/counterexample.json`` (the
    record) are written; ``DIR/campaign.json`` holds the whole report.
 
 A worker that dies (killed, out of memory) is noticed and reported; Dask
 reschedules its tasks on the other workers, so its examples are retried.
+Every example the campaign needs is accounted for: an example whose task
+failed for good, or that a task did not return, is counted as ``lost``, and a
+campaign with lost examples and no counterexample is *incomplete* (exit
+code 3, not 0).  The resource limits in force when the campaign starts
+(:func:`hwcat.limits.resource_limits`, ``--max-dim`` etc.) apply to every
+example on the workers.
 """
 
 from __future__ import annotations
@@ -84,8 +92,17 @@ class FuzzReport:
         return self.counterexample is not None
 
     @property
+    def complete(self) -> bool:
+        """Whether every example the campaign needed was evaluated (none ``lost``)."""
+        return not self.counts.get("lost")
+
+    @property
     def exit_code(self) -> int:
-        return 1 if self.found else 0
+        """1: a counterexample; 0: none, every example evaluated; 3: none, but some
+        examples were lost (not evaluated), so the campaign is incomplete."""
+        if self.found:
+            return 1
+        return 0 if self.complete else 3
 
     def rate(self) -> float:
         return self.examples_run / self.seconds if self.seconds > 0 else 0.0
@@ -100,6 +117,7 @@ class FuzzReport:
             "workers": self.workers,
             "counts": dict(self.counts),
             "counterexample_found": self.found,
+            "complete": self.complete,
             "counterexample": self.counterexample,
             "problems": list(self.problems),
             "lost_workers": list(self.lost_workers),
@@ -128,6 +146,12 @@ class FuzzReport:
                 f"after {self.examples_run} examples{tail}; shrunk in {ce['shrink_steps']} "
                 f"step(s) to {ce['shrunk_vertices']} vertex/vertices: "
                 f"{self.files.get('spec', '(not written)')}; {speed}{lost}"
+            )
+        if not self.complete:
+            return (
+                f"fuzz {self.claim}: INCOMPLETE: no counterexample in {self.examples_run} "
+                f"examples, but {c['lost']} example(s) were lost (not evaluated; see problems "
+                f"in campaign.json) (seed {self.seed}){tail}; {speed}{lost}"
             )
         return (
             f"fuzz {self.claim}: no counterexample in {self.examples_run} examples "
@@ -256,6 +280,8 @@ def fuzz(
         field = parse_field(field).name
     if timeout is not None and not timeout > 0:
         raise CampaignError(f"--timeout {timeout!r}: must be positive")
+    from hwcat.campaigns.worker import limits_dict
+
     settings = {
         "seed": seed,
         "kinds": list(kinds),
@@ -263,6 +289,7 @@ def fuzz(
         "field": field,
         "examples": examples,
         "timeout": timeout,
+        "limits": limits_dict(),  # those in force here: the workers apply them
     }
     if client is not None:
         return _run(client, claim, info, settings, out, shrink, progress)
@@ -360,47 +387,15 @@ def _run(client, ref, info, settings, out, shrink, progress) -> FuzzReport:
         if sys.exc_info()[0] is not None:
             stop.delete()
     watch.poll()
-    counts = dict.fromkeys(STATUSES, 0)
-    problems: list[dict] = []
-    digest = hashlib.sha256()
-    run = 0
-    fail_answer = None
-    for c in sorted(chunk_results):
-        res = chunk_results[c]
-        if first_fail is not None and c * CHUNK > first_fail:
-            continue  # not needed, and cut short at a moment that depends on timing
-        digest.update(res["digest"].encode())
-        for a in res["results"]:
-            if first_fail is not None and a["index"] > first_fail:
-                continue
-            run += 1
-            counts[a["status"]] += 1
-            if a["index"] == first_fail:
-                fail_answer = a
-            elif a["status"] not in ("holds", "fails") and len(problems) < 50:
-                problems.append(
-                    {
-                        k: a.get(k)
-                        for k in ("index", "kind", "status", "exception", "message", "spec")
-                        if k in a
-                    }
-                )
-    for c, why in lost_chunks:
-        if first_fail is None or c * CHUNK < first_fail:
-            n = min(CHUNK, examples - c * CHUNK)
-            counts["lost"] += n
-            problems.append(
-                {
-                    "chunk": c,
-                    "status": "lost",
-                    "message": f"examples {c * CHUNK}..{c * CHUNK + n - 1} were not "
-                    f"evaluated: their task failed ({why})",
-                }
-            )
+    counts, problems, run, digest, fail_answer = _tally(
+        chunk_results, lost_chunks, first_fail, examples
+    )
     counterexample = None
     try:
         if fail_answer is not None:
-            counterexample = _counterexample(client, info, fail_answer, timeout, shrink)
+            counterexample = _counterexample(
+                client, info, fail_answer, timeout, shrink, settings["limits"]
+            )
     finally:
         stop.delete()
     seconds = time.perf_counter() - start
@@ -415,7 +410,7 @@ def _run(client, ref, info, settings, out, shrink, progress) -> FuzzReport:
         counterexample=counterexample,
         problems=tuple(problems),
         lost_workers=tuple(watch.lost),
-        digest=digest.hexdigest(),
+        digest=digest,
         seconds=seconds,
     )
     if out is not None:
@@ -423,7 +418,99 @@ def _run(client, ref, info, settings, out, shrink, progress) -> FuzzReport:
     return report
 
 
-def _counterexample(client, info, answer, timeout, shrink) -> dict[str, Any]:
+def _lost(first: int, last: int, why: str, chunk: int) -> dict[str, Any]:
+    return {
+        "chunk": chunk,
+        "status": "lost",
+        "message": f"examples {first}..{last} were not evaluated: {why}",
+    }
+
+
+def _tally(
+    chunk_results: dict[int, dict],
+    lost_chunks: list[tuple[int, str]],
+    first_fail: int | None,
+    examples: int,
+) -> tuple[dict[str, int], list[dict], int, str, dict | None]:
+    """Counts, problems, examples run, digest and the failing answer, from the chunks.
+
+    Every example the campaign needs (all of them, or those up to the first
+    failure) is accounted for: evaluated, or counted as ``lost`` -- in a chunk
+    whose task failed, or missing from a chunk that returned fewer results
+    than it drew.
+    """
+    counts = dict.fromkeys(STATUSES, 0)
+    problems: list[dict] = []
+    lost_problems: list[dict] = []
+    digest = hashlib.sha256()
+    run = 0
+    fail_answer = None
+    last_needed = examples - 1 if first_fail is None else first_fail
+    for c in sorted(chunk_results):
+        res = chunk_results[c]
+        if first_fail is not None and c * CHUNK > first_fail:
+            continue  # not needed, and cut short at a moment that depends on timing
+        digest.update(res["digest"].encode())
+        seen: set[int] = set()
+        for a in res["results"]:
+            if first_fail is not None and a["index"] > first_fail:
+                continue
+            seen.add(a["index"])
+            run += 1
+            counts[a["status"]] += 1
+            if a["index"] == first_fail:
+                fail_answer = a
+            elif a["status"] not in ("holds", "fails") and len(problems) < 50:
+                problems.append(
+                    {
+                        k: a.get(k)
+                        for k in ("index", "kind", "status", "exception", "message", "spec")
+                        if k in a
+                    }
+                )
+        wanted = range(c * CHUNK, min(c * CHUNK + res["drawn"], last_needed + 1))
+        missing = [i for i in wanted if i not in seen]
+        if missing:
+            counts["lost"] += len(missing)
+            lost_problems.append(
+                _lost(
+                    missing[0],
+                    missing[-1],
+                    f"{len(missing)} of them missing from the results of their task "
+                    "(it stopped early)",
+                    c,
+                )
+            )
+    for c, why in lost_chunks:
+        if c * CHUNK <= last_needed:
+            n = min(CHUNK, last_needed + 1 - c * CHUNK)
+            counts["lost"] += n
+            lost_problems.append(
+                _lost(c * CHUNK, c * CHUNK + n - 1, f"their task failed ({why})", c)
+            )
+    return counts, lost_problems + problems, run, digest.hexdigest(), fail_answer
+
+
+def shrink_accepts(candidate_answer: dict, current_answer: dict) -> bool:
+    """Whether shrinking moves to a candidate: the claim fails on it, and its algebra
+    is of dimension at most that of the current one (the candidates are already
+    smaller in :func:`hwcat.campaigns.shrink.size_key`), so the shrunk algebra is
+    never larger than the one drawn.
+
+    >>> shrink_accepts({"status": "fails", "dimension": 3}, {"dimension": 3})
+    True
+    >>> shrink_accepts({"status": "fails", "dimension": 5}, {"dimension": 3})
+    False
+    >>> shrink_accepts({"status": "holds", "dimension": 1}, {"dimension": 3})
+    False
+    """
+    if candidate_answer.get("status") != "fails":
+        return False
+    dim, bound = candidate_answer.get("dimension"), current_answer.get("dimension")
+    return isinstance(dim, int) and (bound is None or dim <= bound)
+
+
+def _counterexample(client, info, answer, timeout, shrink, limits=None) -> dict[str, Any]:
     from hwcat.algebras.families.quivers import spec_to_toml
     from hwcat.campaigns.shrink import candidates
     from hwcat.campaigns.worker import evaluate_specs
@@ -436,7 +523,7 @@ def _counterexample(client, info, answer, timeout, shrink) -> dict[str, Any]:
             break
         texts = [spec_to_toml(c) for c in cands]
         futs = [
-            client.submit(evaluate_specs, info, [(i, t)], timeout, pure=False)
+            client.submit(evaluate_specs, info, [(i, t)], timeout, limits, pure=False)
             for i, t in enumerate(texts)
         ]
         picked = None
@@ -446,7 +533,7 @@ def _counterexample(client, info, answer, timeout, shrink) -> dict[str, Any]:
             except Exception:  # noqa: BLE001 -- a lost candidate is just not taken
                 continue
             a = res["results"][0]
-            if a["status"] == "fails":
+            if shrink_accepts(a, current_answer):
                 picked = (i, a)
                 break
         for fut in futs:
@@ -467,6 +554,8 @@ def _counterexample(client, info, answer, timeout, shrink) -> dict[str, Any]:
         "shrink_steps": steps,
         "original_vertices": len(spec["quiver"]["vertices"]),
         "shrunk_vertices": len(current["quiver"]["vertices"]),
+        "original_dimension": answer.get("dimension"),
+        "shrunk_dimension": current_answer.get("dimension"),
     }
 
 

@@ -11,7 +11,7 @@ Kinds of algebras (``kinds``; each example picks one kind uniformly):
 ``general``
     :func:`hwcat.strategies.bound_quiver_specs`: a random quiver on 1 to
     ``max_vertices`` vertices with up to ``2 * max_vertices`` arrows (loops,
-    multiple arrows and oriented cycles allowed), up to 3 random relations
+    multiple arrows and oriented cycles allowed), up to 3 distinct random relations
     (zero relations, or combinations with random nonzero coefficients of up to
     4 parallel paths of length 2 to 3), and, in about half the examples,
     ``vanish_from_length``; cycles are otherwise cut by zero relations.

@@ -15,6 +15,11 @@ Each move lowers the key ``(vertices, arrows, relation terms, relations,
 vanish_from_length)`` in lexicographic order, so the greedy descent of
 :func:`hwcat.campaigns.fuzzing.fuzz` (take the first candidate, in the order
 listed by :func:`candidates`, on which the claim still fails; repeat) ends.
+Since some moves (deleting a relation or a relation term, removing
+``vanish_from_length``) may enlarge the algebra, the descent also requires that the
+algebra's dimension does not grow
+(:func:`hwcat.campaigns.fuzzing.shrink_accepts`): the shrunk algebra is never
+of larger dimension than the one drawn.
 Vertex and arrow names are kept, so the result reads against the original.
 """
 

@@ -8,7 +8,10 @@ key varying slowest.  Each member is one Dask task, evaluated by the
 worker's evaluating process (:mod:`hwcat.campaigns.child`) with a time limit:
 a member that runs past it is killed and gets a row with status
 ``timeout``; a member whose construction or analysis fails gets a row with
-status ``error`` and the message; the others go on.
+status ``error`` and the message; the others go on.  The resource limits in
+force when the survey starts (``--max-dim`` etc., or
+:func:`hwcat.limits.resource_limits`) apply to every member: a member beyond
+them gets an ``error`` row naming the limit.
 
 Columns: the parameters, then ``status`` (``ok``, ``error``, ``timeout``,
 ``lost``), ``dimension`` (of the basic algebra), ``simples``,
@@ -191,9 +194,10 @@ def _run(client, family, keys, members, timeout, progress) -> SurveyTable:
     import distributed
 
     from hwcat.campaigns.cluster import WorkerWatch
-    from hwcat.campaigns.worker import survey_member
+    from hwcat.campaigns.worker import limits_dict, survey_member
 
     start = time.perf_counter()
+    limits = limits_dict()  # those in force here: the workers apply them
     watch = WorkerWatch(client)
     run_id = f"hwcat-survey-{family}-{time.time_ns()}"
     futs = [
@@ -202,6 +206,7 @@ def _run(client, family, keys, members, timeout, progress) -> SurveyTable:
             family,
             {k: str(v) for k, v in m.items()},
             timeout,
+            limits,
             pure=False,
             priority=-i,
             key=f"{run_id}-{i}",

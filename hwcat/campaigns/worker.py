@@ -3,6 +3,9 @@
 Each worker thread keeps one evaluating process (:mod:`hwcat.campaigns.child`)
 and sends it one example at a time; when an example runs past the time limit
 the process is killed and replaced, and the example is reported as a timeout.
+An answer that cannot be read (not JSON, or not the answer to the request
+just sent) is never passed on: the process is killed and replaced, and the
+example is reported as crashed, so a later request never reads a stale answer.
 """
 
 from __future__ import annotations
@@ -28,17 +31,19 @@ class Evaluator:
     """One evaluating process, restarted after a timeout or a crash."""
 
     def __init__(self) -> None:
+        self.command = [sys.executable, "-m", "hwcat.campaigns.child"]
         self.proc: subprocess.Popen | None = None
         self.defined: set[str] = set()
         self._buffer = b""
         self._ready = False
+        self._seq = 0
 
     def warm(self) -> None:
         """Start the process without waiting for it (it imports while we draw examples)."""
         if self.proc is None or self.proc.poll() is not None:
             self.stop()
             self.proc = subprocess.Popen(
-                [sys.executable, "-m", "hwcat.campaigns.child"],
+                self.command,
                 stdin=subprocess.PIPE,
                 stdout=subprocess.PIPE,
                 stderr=subprocess.DEVNULL,
@@ -58,6 +63,9 @@ class Evaluator:
         return self.proc is not None
 
     def stop(self) -> None:
+        self._buffer = b""
+        self._ready = False
+        self.defined = set()
         if self.proc is not None:
             if self.proc.poll() is None:
                 self.proc.kill()
@@ -85,9 +93,16 @@ class Evaluator:
         return line
 
     def request(self, req: dict, timeout: float | None) -> dict:
-        """Send one request; ``{"status": "timeout"}`` or ``{"status": "crashed"}`` on trouble."""
+        """Send one request; ``{"status": "timeout"}`` or ``{"status": "crashed"}`` on trouble.
+
+        The request carries the resource limits in force here
+        (:func:`hwcat.limits.current_limits`) unless it names its own.
+        """
         if not self._ensure():
             return {"status": "crashed", "message": "the evaluating process did not start"}
+        self._seq += 1
+        seq = self._seq
+        req = {"limits": limits_dict(), **req, "seq": seq}
         start = time.monotonic()
         try:
             self.proc.stdin.write((json.dumps(req) + "\n").encode())
@@ -107,7 +122,19 @@ class Evaluator:
             code = self.proc.wait()
             self.stop()
             return {"status": "crashed", "message": f"the evaluating process ended (code {code})"}
-        return json.loads(line)
+        try:
+            answer = json.loads(line)
+        except ValueError:
+            answer = None
+        if not isinstance(answer, dict) or answer.get("seq") != seq or "status" not in answer:
+            self.stop()  # the stream is out of step: start afresh, never read on
+            return {
+                "status": "crashed",
+                "message": "the evaluating process gave an answer that cannot be read "
+                f"({_short_bytes(line)}); it was restarted",
+            }
+        del answer["seq"]
+        return answer
 
     def claim(self, claim: dict, spec_text: str, timeout: float | None) -> dict:
         key = claim["key"]
@@ -117,6 +144,23 @@ class Evaluator:
                 return answer
             self.defined.add(key)
         return self.request({"op": "claim", "key": key, "spec": spec_text}, timeout)
+
+
+def _short_bytes(line: bytes) -> str:
+    text = repr(line)
+    return text if len(text) <= 80 else text[:77] + "..."
+
+
+def limits_dict(limits=None) -> dict[str, int]:
+    """The resource limits (default: those in force here) as plain data for a request."""
+    from hwcat.limits import current_limits
+
+    lim = current_limits() if limits is None else limits
+    return {
+        "max_dim": lim.max_dim,
+        "max_vertices": lim.max_vertices,
+        "max_products": lim.max_products,
+    }
 
 
 def _evaluator() -> Evaluator:
@@ -152,41 +196,74 @@ def _where() -> str:
         return f"pid {os.getpid()}"
 
 
-def evaluate_specs(claim: dict, items: list[tuple[int, str]], timeout: float | None) -> dict:
+def _limits(limits: dict | None):
+    """The resource limits sent by the driver, in force for a block (default ones if None)."""
+    from hwcat.limits import resource_limits
+
+    return resource_limits(**(limits or {}))
+
+
+def evaluate_specs(
+    claim: dict, items: list[tuple[int, str]], timeout: float | None, limits: dict | None = None
+) -> dict:
     """Evaluate the claim on ``(index, spec text)`` items; per item a plain answer.
 
     The batch stops at the first failure: later items are not needed.
+    ``limits`` are the resource limits of the campaign (:func:`limits_dict`).
     """
     ev = _evaluator()
     results = []
-    for index, text in items:
-        answer = ev.claim(claim, text, timeout)
-        answer["index"] = index
-        results.append(answer)
-        if answer["status"] == "fails":
-            break
+    with _limits(limits):
+        for index, text in items:
+            answer = ev.claim(claim, text, timeout)
+            answer["index"] = index
+            results.append(answer)
+            if answer["status"] == "fails":
+                break
     return {"results": results, "worker": _where()}
 
 
-def _stop_check(stop: str | None):
-    """A function ``index -> bool``: has the driver found a failure at or before ``index``?"""
-    if stop is None:
-        return lambda index: False
-    from distributed import Variable
+_STOP_READ_FAILURES = 5
+"""Reads of the stop variable that may fail in a row before a chunk gives up (the
+campaign is over: its variable is gone); the driver counts what is left as lost."""
 
-    var = Variable(stop)
-    state = {"asked": 0.0, "value": None}
+
+def _stop_check(stop: str | None, variable=None):
+    """A function ``index -> bool``: has the driver found a failure at or before ``index``?
+
+    A read of the variable that fails (a slow scheduler, a dropped connection)
+    means "go on", and is tried again later; only after
+    :data:`_STOP_READ_FAILURES` failures in a row does the chunk stop.  A chunk
+    that stops early returns fewer results than it drew, and the driver
+    reports the examples left as lost.  ``variable`` replaces the Dask
+    variable (for tests).
+    """
+    if stop is None and variable is None:
+        return lambda index: False
+    if variable is None:
+        from distributed import Variable
+
+        variable = Variable(stop)
+    state = {"asked": 0.0, "value": None, "failures": 0}
 
     def check(index: int) -> bool:
+        if state["failures"] >= _STOP_READ_FAILURES:
+            return True
         # ask the scheduler at most every _STOP_INTERVAL seconds (a round trip each)
         now = time.monotonic()
-        if state["value"] is None or now - state["asked"] >= _STOP_INTERVAL:
+        if now - state["asked"] >= _STOP_INTERVAL:
             state["asked"] = now
             try:
-                state["value"] = var.get(timeout=2)
-            except Exception:  # noqa: BLE001 -- the campaign is over (variable deleted)
-                state["value"] = -1
-        return state["value"] <= index
+                value = variable.get(timeout=2)
+            except Exception:  # noqa: BLE001 -- unknown: go on, ask again later
+                state["failures"] += 1
+                if state["failures"] >= _STOP_READ_FAILURES:
+                    return True
+            else:
+                state["failures"] = 0
+                state["value"] = value
+        value = state["value"]
+        return isinstance(value, int) and value <= index
 
     return check
 
@@ -208,6 +285,7 @@ def fuzz_chunk(
 
     ev = _evaluator()
     ev.warm()
+    limits = settings.get("limits")
     specs = spec_chunk(
         settings["seed"], chunk, settings["kinds"], settings["max_vertices"], settings["field"]
     )
@@ -221,7 +299,8 @@ def fuzz_chunk(
         digest.update(text.encode())
         if stopped(start + offset):
             break
-        answer = ev.claim(claim, text, timeout)
+        with _limits(limits):
+            answer = ev.claim(claim, text, timeout)
         answer["index"] = start + offset
         answer["kind"] = kind
         if answer["status"] != "holds":
@@ -237,6 +316,12 @@ def fuzz_chunk(
     }
 
 
-def survey_member(family: str, params: dict, timeout: float | None) -> dict:
-    """The survey row of one family member, or its error, or a timeout."""
-    return _evaluator().request({"op": "survey", "family": family, "params": params}, timeout)
+def survey_member(
+    family: str, params: dict, timeout: float | None, limits: dict | None = None
+) -> dict:
+    """The survey row of one family member, or its error, or a timeout.
+
+    ``limits`` are the resource limits of the survey (:func:`limits_dict`).
+    """
+    with _limits(limits):
+        return _evaluator().request({"op": "survey", "family": family, "params": params}, timeout)

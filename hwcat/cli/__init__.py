@@ -8,7 +8,8 @@ Long commands show progress on standard error when it is a terminal (never
 with ``--json`` and never in pipes).
 
 Exit codes: 0 success (or a mathematical "yes"), 1 a mathematical "no"
-(e.g. not quasi-hereditary), 2 bad input.
+(e.g. not quasi-hereditary), 2 bad input; ``fuzz`` also 3 (no counterexample,
+but some examples were lost, so the campaign is incomplete).
 """
 
 from __future__ import annotations

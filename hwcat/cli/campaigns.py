@@ -106,7 +106,8 @@ def register(sub) -> None:
         description="Test a claim -- a function in FILE.py taking a BasicAlgebra and returning "
         "True/False or raising AssertionError -- on random algebras; shrink the first "
         "counterexample and write it to DIR as a spec file with a JSON record. Exit 0: no "
-        "counterexample; 1: counterexample found; 2: bad input.",
+        "counterexample, every example evaluated; 1: counterexample found; 2: bad input; "
+        "3: no counterexample, but some examples were lost (not evaluated).",
     )
     p.add_argument("claim", metavar="FILE.py:FUNCTION")
     p.add_argument("--examples", type=int, default=200, help="how many algebras (default 200)")

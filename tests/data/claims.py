@@ -50,3 +50,23 @@ def sleeps_on_loops(A):
     if any(a.source == a.target for a in A.quiver.arrows):
         time.sleep(30)
     return True
+
+
+def writes_to_the_real_stdout(A):
+    """Holds on the field only; on the way it writes to descriptor 1 in three ways
+    and runs a subprocess that reads standard input (none may reach the protocol)."""
+    import subprocess
+    import sys
+
+    subprocess.run(["echo", "external tool says hi"], check=False)
+    subprocess.run([sys.executable, "-c", "import sys; sys.stdin.read()"], check=False)
+    os.write(1, b'{"status": "holds"}\n')
+    print("printed to the real stdout", file=sys.__stdout__, flush=True)
+    return A.dim <= 1
+
+
+def fails_on_odd_dimension_with_a_loop(A):
+    """FALSE on k[x]/(x^3): fails when the quiver has a loop and the dimension is odd
+    (a claim whose failures are not closed under quotients, for shrinking)."""
+    has_loop = any(a.source == a.target for a in A.quiver.arrows)
+    return not (has_loop and A.dim % 2 == 1)
