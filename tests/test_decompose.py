@@ -383,3 +383,20 @@ def test_end_agrees_with_representation_hom(data):
     D = decompose(M)
     assert D.endomorphism_dimension == hom_dimension(R, R)
     assert sum(s.dimension for s in D.summands) == R.dim
+
+
+def test_summand_with_a_non_split_endomorphism_field_beyond_the_trace_limit(monkeypatch):
+    # x acting by the companion matrix of (x^2 + x + 1)^3 over GF(2): one indecomposable
+    # summand, End = GF(2)[x]/((x^2+x+1)^3) of dimension 6, End / rad End = GF(4), not split
+    # (common practice).  With the lifted-trace limit lowered, the radical of End is taken
+    # from the reduction, which refuses non-split algebras; it must fall back, not fail
+    import hwcat.algebras.reduction.radical as rr
+    import hwcat.algebras.reduction.reduction as red
+
+    monkeypatch.setattr(red, "LIFTED_TRACE_LIMIT", 2)
+    monkeypatch.setattr(rr, "LIFTED_TRACE_LIMIT", 2)
+    c = [1, 1, 0, 1, 0, 1]  # (x^2+x+1)^3 = x^6 + x^5 + x^3 + x + 1 over GF(2), low first
+    C = [[1 if j == i + 1 else 0 for j in range(6)] for i in range(5)] + [c]
+    D = decompose(ActionModule(GF(2), 6, {"x": Mat.from_rows(GF(2), C)}))
+    assert [s.dimension for s in D.summands] == [6]
+    assert D.endomorphism_dimension == 6

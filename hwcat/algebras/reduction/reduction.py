@@ -1663,7 +1663,9 @@ def radical(A: StructureAlgebra, method: str = "auto", *, seed: int = 0) -> Mat:
         ``"reduction"``: from the simple modules found by :func:`reduce_algebra`
         (``x`` is radical iff it kills every simple).  ``"auto"`` picks the
         trace form where it is correct, the lifted-trace chain up to dimension
-        ``LIFTED_TRACE_LIMIT``, else the reduction.
+        ``LIFTED_TRACE_LIMIT``, else the reduction; over ``GF(p)`` an algebra that
+        is not split (the reduction raises :class:`NotSplitError`) falls back to
+        the lifted-trace chain.
 
     Examples
     --------
@@ -1680,7 +1682,14 @@ def radical(A: StructureAlgebra, method: str = "auto", *, seed: int = 0) -> Mat:
         p = A.field.characteristic
         prime = getattr(A.field, "degree", 1) == 1  # lifted traces need GF(p)
         if p and p <= d and (d > LIFTED_TRACE_LIMIT or not prime):
-            return reduce_algebra(A, seed=seed).radical()
+            try:
+                return reduce_algebra(A, seed=seed).radical()
+            except NotSplitError:
+                # the radical needs no splitting: over GF(p) the lifted-trace chain
+                # gives it at any dimension, only more slowly
+                if not prime:
+                    raise
+                method = "lifted-trace"
     return trace_radical(A, method)
 
 
