@@ -51,7 +51,7 @@ from __future__ import annotations
 from collections.abc import Iterator
 from contextlib import contextmanager
 from contextvars import ContextVar
-from dataclasses import dataclass, replace
+from dataclasses import asdict, dataclass, replace
 
 from hwcat.errors import ResourceLimitError
 
@@ -76,6 +76,10 @@ class Limits:
     max_dim: int = 100_000
     max_vertices: int = 2_000
     max_products: int = 50_000_000
+
+    def to_dict(self) -> dict[str, int]:
+        """The limits as plain data (keyword arguments of :func:`resource_limits`)."""
+        return asdict(self)
 
 
 DEFAULT_LIMITS = Limits()

@@ -128,12 +128,8 @@ def survey_row(family: str, params: dict, seed: int = 0) -> dict:
 def _handle(req: dict) -> dict:
     from hwcat.limits import resource_limits
 
-    limits = req.get("limits") or {}
-    with resource_limits(**{k: limits.get(k) for k in _LIMIT_KEYS}):
+    with resource_limits(**(req.get("limits") or {})):
         return _dispatch(req)
-
-
-_LIMIT_KEYS = ("max_dim", "max_vertices", "max_products")
 
 
 def _dispatch(req: dict) -> dict:

@@ -280,7 +280,7 @@ def fuzz(
         field = parse_field(field).name
     if timeout is not None and not timeout > 0:
         raise CampaignError(f"--timeout {timeout!r}: must be positive")
-    from hwcat.campaigns.worker import limits_dict
+    from hwcat.limits import current_limits
 
     settings = {
         "seed": seed,
@@ -289,7 +289,7 @@ def fuzz(
         "field": field,
         "examples": examples,
         "timeout": timeout,
-        "limits": limits_dict(),  # those in force here: the workers apply them
+        "limits": current_limits().to_dict(),  # those in force here: the workers apply them
     }
     if client is not None:
         return _run(client, claim, info, settings, out, shrink, progress)

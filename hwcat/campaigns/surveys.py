@@ -194,10 +194,11 @@ def _run(client, family, keys, members, timeout, progress) -> SurveyTable:
     import distributed
 
     from hwcat.campaigns.cluster import WorkerWatch
-    from hwcat.campaigns.worker import limits_dict, survey_member
+    from hwcat.campaigns.worker import survey_member
+    from hwcat.limits import current_limits
 
     start = time.perf_counter()
-    limits = limits_dict()  # those in force here: the workers apply them
+    limits = current_limits().to_dict()  # those in force here: the workers apply them
     watch = WorkerWatch(client)
     run_id = f"hwcat-survey-{family}-{time.time_ns()}"
     futs = [

@@ -19,6 +19,8 @@ import sys
 import threading
 import time
 
+from hwcat.limits import current_limits
+
 __all__ = ["Evaluator", "fuzz_chunk", "evaluate_specs", "survey_member", "close_evaluators"]
 
 _STOP_INTERVAL = 0.25
@@ -102,7 +104,7 @@ class Evaluator:
             return {"status": "crashed", "message": "the evaluating process did not start"}
         self._seq += 1
         seq = self._seq
-        req = {"limits": limits_dict(), **req, "seq": seq}
+        req = {"limits": current_limits().to_dict(), **req, "seq": seq}
         start = time.monotonic()
         try:
             self.proc.stdin.write((json.dumps(req) + "\n").encode())
@@ -151,18 +153,6 @@ def _short_bytes(line: bytes) -> str:
     return text if len(text) <= 80 else text[:77] + "..."
 
 
-def limits_dict(limits=None) -> dict[str, int]:
-    """The resource limits (default: those in force here) as plain data for a request."""
-    from hwcat.limits import current_limits
-
-    lim = current_limits() if limits is None else limits
-    return {
-        "max_dim": lim.max_dim,
-        "max_vertices": lim.max_vertices,
-        "max_products": lim.max_products,
-    }
-
-
 def _evaluator() -> Evaluator:
     ev = getattr(_LOCAL, "evaluator", None)
     if ev is None:
@@ -209,7 +199,7 @@ def evaluate_specs(
     """Evaluate the claim on ``(index, spec text)`` items; per item a plain answer.
 
     The batch stops at the first failure: later items are not needed.
-    ``limits`` are the resource limits of the campaign (:func:`limits_dict`).
+    ``limits`` are the resource limits of the campaign (:meth:`hwcat.limits.Limits.to_dict`).
     """
     ev = _evaluator()
     results = []
@@ -321,7 +311,7 @@ def survey_member(
 ) -> dict:
     """The survey row of one family member, or its error, or a timeout.
 
-    ``limits`` are the resource limits of the survey (:func:`limits_dict`).
+    ``limits`` are the resource limits of the survey (:meth:`hwcat.limits.Limits.to_dict`).
     """
     with _limits(limits):
         return _evaluator().request({"op": "survey", "family": family, "params": params}, timeout)
