@@ -64,6 +64,7 @@ __all__ = [
     "check_vertices",
     "check_products",
     "check_matrix",
+    "check_power_of_two",
     "limit_error",
     "size_text",
 ]
@@ -170,6 +171,21 @@ def check_products(dim: int, what: str = "the algebra") -> None:
             f"the multiplication table of {what} has {size_text(dim * dim)} products "
             f"(dimension {size_text(dim)} squared)",
         )
+
+
+def check_power_of_two(n: int, text: str) -> None:
+    """Refuse, with ``text``, something of dimension at least ``2^n`` when ``2^n > max_dim``;
+    compared as ``n >= max_dim.bit_length()``, without computing ``2^n`` (``n`` may have
+    many digits).
+
+    >>> check_power_of_two(16, "fine")
+    >>> check_power_of_two(10**30, "the chain of length 10^30 has dimension 2^(10^30)")
+    Traceback (most recent call last):
+        ...
+    hwcat.errors.ResourceLimitError: the chain of length 10^30 has dimension 2^(10^30), above the limit max_dim = 100000; raise it with --max-dim N (Python: max_dim=N)
+    """
+    if n >= current_limits().max_dim.bit_length():
+        raise limit_error("max_dim", text)
 
 
 def check_matrix(rows: int, cols: int, what: str = "a matrix") -> None:

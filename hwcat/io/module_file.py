@@ -34,7 +34,7 @@ from hwcat.errors import (
 )
 from hwcat.exact import Mat, parse_field
 from hwcat.io.spec import Spec, _matrix_value, build_structure, is_format_1, load_toml
-from hwcat.limits import check_matrix, current_limits, limit_error, size_text
+from hwcat.limits import check_matrix, check_power_of_two, size_text
 from hwcat.modules import Module, injective, projective, regular_module, simple
 from hwcat.modules.action import ActionModule, from_representation
 
@@ -466,8 +466,7 @@ def spin_chain_module(n: int, delta: Any, field: Any) -> ActionModule:
     from hwcat.algebras.families.spin_chain import loop_weight_root, spin_chain_entries
     from hwcat.exact.polys import sparse_matrix
 
-    if n >= current_limits().max_dim.bit_length():  # 2^n > max_dim, without computing 2^n
-        raise limit_error("max_dim", f"the spin chain of length {n} has dimension 2^{n}")
+    check_power_of_two(n, f"the spin chain of length {n} has dimension 2^{n}")
     F = parse_field(field) if isinstance(field, str) else field
     q = loop_weight_root(delta, F)
     ents = spin_chain_entries(n, q, F)

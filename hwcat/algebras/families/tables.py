@@ -41,7 +41,7 @@ from hwcat.errors import (
     StructureConstantsError,
 )
 from hwcat.exact.fields import QQ, Field, PrimeField, parse_field
-from hwcat.limits import check_products, current_limits, limit_error
+from hwcat.limits import check_power_of_two, check_products, current_limits, limit_error
 
 try:  # optional: large Temperley-Lieb tables are built with int64 arrays
     import numpy as _np
@@ -367,10 +367,8 @@ def temperley_lieb(n: int, delta: Any, field: Field | str = QQ) -> Multiplicatio
     {1: 4}
     """
     n = _check_int(n, "n", 0)
-    # Catalan(n) > 2^n for n > 200; 2^n > max_dim exactly when n >= max_dim.bit_length(),
-    # compared without computing 2^n (n may have many digits)
-    if n > 200 and n >= current_limits().max_dim.bit_length():
-        raise limit_error("max_dim", f"TL_{n} has dimension Catalan({n}), more than 2^{n}")
+    if n > 200:  # Catalan(n) > 2^n
+        check_power_of_two(n, f"TL_{n} has dimension Catalan({n}), more than 2^{n}")
     check_products(math.comb(2 * n, n) // (n + 1), f"TL_{n}")
     F = _as_field(field)
     try:

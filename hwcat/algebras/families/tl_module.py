@@ -108,7 +108,7 @@ from hwcat.exact.polys import (
     minpoly,
     select_columns,
 )
-from hwcat.limits import check_dimension, current_limits, limit_error
+from hwcat.limits import check_dimension, check_power_of_two
 from hwcat.progress import task
 
 __all__ = ["ModuleReduction", "reduce_temperley_lieb", "module_route_available"]
@@ -724,8 +724,8 @@ def reduce_temperley_lieb(
         )
     if isinstance(n, bool) or not isinstance(n, int) or n < 2:
         raise SpecError(f"family temperley-lieb: the spin-chain route needs n >= 2, not {n!r}")
-    if n > 200 and n >= current_limits().max_dim.bit_length():  # Catalan(n) > 2^n > max_dim
-        raise limit_error("max_dim", f"TL_{n} has dimension Catalan({n}), more than 2^{n}")
+    if n > 200:  # Catalan(n) > 2^n
+        check_power_of_two(n, f"TL_{n} has dimension Catalan({n}), more than 2^{n}")
     check_dimension(math.comb(2 * n, n) // (n + 1), f"TL_{n}")
     timings: dict[str, float] = {}
     t0 = time.perf_counter()
